@@ -1,0 +1,1 @@
+export { createFakeSearchServer, type FakeSearchServer, type FakeSearchServerOptions } from './server';
