@@ -1,0 +1,17 @@
+// The brewing engine: the recipe document and the pure maths around it.
+// No I/O, clock or randomness: the same code runs on the server and in the browser.
+export * from './schema';
+export * from './stats';
+export * from './extract';
+export * from './bitterness';
+export * from './colour';
+export * from './alcohol';
+export * from './gravity';
+export * from './water';
+export * from './carbonation';
+export * from './brewday';
+export * from './scale';
+export * from './styles';
+export * from './catalogue';
+export * from './units';
+export { KG_PER_LB, L_PER_US_GALLON, G_PER_OZ, KPA_PER_PSI, POINTS_L_PER_KG_PER_PPG } from './constants';
