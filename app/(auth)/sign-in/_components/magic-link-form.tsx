@@ -1,0 +1,54 @@
+'use client';
+
+import { zodResolver } from '@hookform/resolvers/zod';
+import { signIn } from 'next-auth/react';
+import { useRouter } from 'next/navigation';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { z } from 'zod';
+import { FormField, describedBy } from '@/components/form-field';
+import { emailSchema } from '@/lib/auth/schemas';
+
+const schema = z.object({ email: emailSchema });
+type Values = z.input<typeof schema>;
+
+export function MagicLinkForm({ callbackUrl }: { callbackUrl: string }) {
+  const router = useRouter();
+  const [formError, setFormError] = useState<string>();
+  const { register, handleSubmit, formState } = useForm<Values>({ resolver: zodResolver(schema) });
+  const { errors, isSubmitting } = formState;
+
+  const onSubmit = handleSubmit(async ({ email }) => {
+    setFormError(undefined);
+    const result = await signIn('email', { email, callbackUrl, redirect: false });
+    if (!result || result.error) {
+      setFormError('We could not send the link just now. Please try again in a moment.');
+      return;
+    }
+    router.push('/sign-in/check-email');
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate>
+      <FormField id="link-email" label="E-mail" error={errors.email?.message}>
+        <input
+          id="link-email"
+          type="email"
+          autoComplete="email"
+          className="kf-input"
+          aria-invalid={Boolean(errors.email)}
+          aria-describedby={describedBy('link-email', errors.email?.message)}
+          {...register('email')}
+        />
+      </FormField>
+      {formError && (
+        <p role="alert" className="kf-field-error">
+          {formError}
+        </p>
+      )}
+      <button type="submit" className="kf-btn-quiet mt-5 w-full" disabled={isSubmitting}>
+        {isSubmitting ? 'Sending…' : 'E-mail me a sign-in link'}
+      </button>
+    </form>
+  );
+}

@@ -1,0 +1,70 @@
+'use client';
+
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useQueryClient } from '@tanstack/react-query';
+import { signIn } from 'next-auth/react';
+import { useRouter } from 'next/navigation';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { z } from 'zod';
+import { FormField, describedBy } from '@/components/form-field';
+import { emailSchema } from '@/lib/auth/schemas';
+import { meKeys } from '@/hooks/use-me';
+
+const schema = z.object({ email: emailSchema, password: z.string().min(1, 'Enter your password.') });
+type Values = z.input<typeof schema>;
+
+export function PasswordSignInForm({ callbackUrl }: { callbackUrl: string }) {
+  const router = useRouter();
+  const queryClient = useQueryClient();
+  const [formError, setFormError] = useState<string>();
+  const { register, handleSubmit, formState } = useForm<Values>({ resolver: zodResolver(schema) });
+  const { errors, isSubmitting } = formState;
+
+  const onSubmit = handleSubmit(async (values) => {
+    setFormError(undefined);
+    const result = await signIn('credentials', { ...values, redirect: false });
+    if (!result || result.error) {
+      setFormError('That e-mail and password do not match an account that can sign in, or there were too many attempts. Please check and try again.');
+      return;
+    }
+    await queryClient.invalidateQueries({ queryKey: meKeys.all });
+    router.push(callbackUrl);
+    router.refresh();
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate aria-describedby={formError ? 'signin-error' : undefined}>
+      <FormField id="signin-email" label="E-mail" error={errors.email?.message}>
+        <input
+          id="signin-email"
+          type="email"
+          autoComplete="email"
+          className="kf-input"
+          aria-invalid={Boolean(errors.email)}
+          aria-describedby={describedBy('signin-email', errors.email?.message)}
+          {...register('email')}
+        />
+      </FormField>
+      <FormField id="signin-password" label="Password" error={errors.password?.message}>
+        <input
+          id="signin-password"
+          type="password"
+          autoComplete="current-password"
+          className="kf-input"
+          aria-invalid={Boolean(errors.password)}
+          aria-describedby={describedBy('signin-password', errors.password?.message)}
+          {...register('password')}
+        />
+      </FormField>
+      {formError && (
+        <p id="signin-error" role="alert" className="kf-field-error">
+          {formError}
+        </p>
+      )}
+      <button type="submit" className="kf-btn mt-5 w-full" disabled={isSubmitting}>
+        {isSubmitting ? 'Signing in…' : 'Sign in'}
+      </button>
+    </form>
+  );
+}

@@ -1,0 +1,9 @@
+import { changeRole } from '@/lib/auth/accounts';
+import { roleChangeSchema } from '@/lib/auth/schemas';
+import { route } from '@/lib/http/route';
+
+// PUT /api/admin/users/[id]/role – an admin changes a member's role
+export const PUT = route<typeof roleChangeSchema, { id: string }, 'admin'>(
+  { access: 'admin', body: roleChangeSchema },
+  async ({ viewer, body, params }) => ({ user: await changeRole(viewer, params.id, body.role) }),
+);

@@ -1,0 +1,133 @@
+import 'server-only';
+import { count, eq, sql } from 'drizzle-orm';
+import { db } from '@/db';
+import { moderationActions, sessions, users, type User } from '@/db/schema';
+import { AppError, invalidInput } from '@/lib/errors';
+import { hashPassword } from './password';
+import { hasRole, type Role } from './roles';
+import { signUpSchema, type SignUpInput } from './schemas';
+import type { Viewer } from './session';
+
+/** A URL-safe handle from a display name, made unique with a numeric suffix when taken. */
+async function freeHandle(name: string, email: string): Promise<string> {
+  const base =
+    name
+      .normalize('NFKD')
+      .replace(/[\u0300-\u036f]/g, '')
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, '-')
+      .replace(/^-+|-+$/g, '')
+      .slice(0, 30) || email.split('@')[0].replace(/[^a-z0-9]+/g, '-').slice(0, 30) || 'brewer';
+  const taken = await db
+    .select({ handle: users.handle })
+    .from(users)
+    .where(sql`${users.handle} = ${base} OR ${users.handle} LIKE ${base + '-%'}`);
+  const used = new Set(taken.map((t) => t.handle));
+  if (!used.has(base)) return base;
+  for (let n = 2; ; n++) if (!used.has(`${base}-${n}`)) return `${base}-${n}`;
+}
+
+export type PublicUser = Pick<User, 'id' | 'name' | 'email' | 'handle' | 'role'>;
+
+/** Creates a member account; a taken e-mail is refused with a field message and nothing is written. */
+export async function createAccount(input: SignUpInput): Promise<PublicUser> {
+  const parsed = signUpSchema.safeParse(input);
+  if (!parsed.success) throw invalidInput(parsed.error, 'sign-up');
+  const { name, email, password } = parsed.data;
+  const taken = await db.select({ id: users.id }).from(users).where(eq(users.email, email)).limit(1);
+  if (taken.length) throw emailTaken();
+  const passwordHash = await hashPassword(password);
+  try {
+    const [user] = await db
+      .insert(users)
+      .values({ name, email, passwordHash, handle: await freeHandle(name, email) })
+      .returning({ id: users.id, name: users.name, email: users.email, handle: users.handle, role: users.role });
+    return user;
+  } catch (err) {
+    // Two sign-ups racing for one address: the unique index decides.
+    if ((err as { code?: string }).code === '23505') throw emailTaken();
+    throw err;
+  }
+}
+
+function emailTaken(): AppError {
+  return new AppError('conflict', 'account', 'An account with this e-mail already exists. Sign in instead, or use another address.', [
+    { path: 'email', message: 'An account with this e-mail already exists.' },
+  ]);
+}
+
+async function loadTarget(userId: string): Promise<User> {
+  const [target] = await db.select().from(users).where(eq(users.id, userId)).limit(1);
+  if (!target) throw new AppError('not_found', 'member');
+  return target;
+}
+
+/** Admins change roles; nobody changes their own, and the last admin cannot be demoted. */
+export async function changeRole(actor: Viewer, userId: string, role: Role): Promise<PublicUser> {
+  if (!hasRole(actor, 'admin')) throw new AppError('forbidden', 'member', 'Only an admin can change roles.');
+  if (actor.id === userId) throw new AppError('forbidden', 'member', 'You cannot change your own role.');
+  return db.transaction(async (tx) => {
+    const [target] = await tx.select().from(users).where(eq(users.id, userId)).for('update').limit(1);
+    if (!target) throw new AppError('not_found', 'member');
+    if (target.role === 'admin' && role !== 'admin') {
+      const [{ admins }] = await tx.select({ admins: count() }).from(users).where(eq(users.role, 'admin'));
+      if (admins <= 1) throw new AppError('conflict', 'member', 'Kettlefork needs at least one admin.');
+    }
+    const [updated] = await tx
+      .update(users)
+      .set({ role })
+      .where(eq(users.id, userId))
+      .returning({ id: users.id, name: users.name, email: users.email, handle: users.handle, role: users.role });
+    await tx.insert(moderationActions).values({
+      actorId: actor.id,
+      action: 'change_role',
+      targetType: 'user',
+      targetId: userId,
+      details: { from: target.role, to: role },
+    });
+    return updated;
+  });
+}
+
+/**
+ * Suspends or reinstates a member. Moderators may suspend members only; admins anyone but
+ * themselves. Suspension ends every session on the server at once.
+ */
+export async function setSuspended(actor: Viewer, userId: string, suspended: boolean, reason = ''): Promise<void> {
+  if (!hasRole(actor, 'moderator')) throw new AppError('forbidden', 'member', 'Only moderators can suspend members.');
+  if (actor.id === userId) throw new AppError('forbidden', 'member', 'You cannot suspend yourself.');
+  const target = await loadTarget(userId);
+  if (target.role !== 'member' && !hasRole(actor, 'admin')) {
+    throw new AppError('forbidden', 'member', 'Only an admin can suspend a moderator or an admin.');
+  }
+  await db.transaction(async (tx) => {
+    await tx
+      .update(users)
+      .set(suspended ? { suspendedAt: new Date(), suspendedReason: reason } : { suspendedAt: null, suspendedReason: null })
+      .where(eq(users.id, userId));
+    if (suspended) await tx.delete(sessions).where(eq(sessions.userId, userId));
+    await tx.insert(moderationActions).values({
+      actorId: actor.id,
+      action: suspended ? 'suspend_user' : 'reinstate_user',
+      targetType: 'user',
+      targetId: userId,
+      reason,
+    });
+  });
+}
+
+export async function listUsers(opts: { limit?: number } = {}) {
+  return db
+    .select({
+      id: users.id,
+      name: users.name,
+      email: users.email,
+      handle: users.handle,
+      role: users.role,
+      suspendedAt: users.suspendedAt,
+      createdAt: users.createdAt,
+    })
+    .from(users)
+    .orderBy(users.createdAt)
+    .limit(opts.limit ?? 500);
+}

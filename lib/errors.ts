@@ -1,0 +1,68 @@
+import type { z } from 'zod';
+
+export type AppErrorCode =
+  | 'bad_request'
+  | 'unauthenticated'
+  | 'forbidden'
+  | 'not_found'
+  | 'conflict'
+  | 'too_large'
+  | 'rate_limited'
+  | 'unavailable';
+
+const statusByCode: Record<AppErrorCode, number> = {
+  bad_request: 400,
+  unauthenticated: 401,
+  forbidden: 403,
+  not_found: 404,
+  conflict: 409,
+  too_large: 413,
+  rate_limited: 429,
+  unavailable: 503,
+};
+
+const defaultMessage: Record<AppErrorCode, (subject: string) => string> = {
+  bad_request: (s) => `The ${s} is not valid.`,
+  unauthenticated: () => 'Please sign in first.',
+  forbidden: (s) => `You may not change this ${s}.`,
+  not_found: (s) => `No such ${s}.`,
+  conflict: (s) => `The ${s} changed meanwhile.`,
+  too_large: (s) => `The ${s} is too large.`,
+  rate_limited: () => 'Too many attempts; please wait a little and try again.',
+  unavailable: () => 'Kettlefork is briefly unavailable; please try again in a moment.',
+};
+
+export interface FieldIssue {
+  path: string;
+  message: string;
+}
+
+/** The one error type the app throws on purpose; it maps to an HTTP status and a message for people. */
+export class AppError extends Error {
+  readonly status: number;
+  constructor(
+    readonly code: AppErrorCode,
+    readonly subject = 'request',
+    message?: string,
+    readonly fields: FieldIssue[] = [],
+    readonly details?: unknown,
+  ) {
+    super(message ?? defaultMessage[code](subject));
+    this.name = 'AppError';
+    this.status = statusByCode[code];
+  }
+}
+
+/** Every issue of a zod error, with dotted paths (`hops.2.alphaPct`). */
+export function zodFieldIssues(error: z.ZodError): FieldIssue[] {
+  return error.issues.map((i) => ({ path: i.path.map(String).join('.') || '(root)', message: i.message }));
+}
+
+export function invalidInput(error: z.ZodError, subject = 'request'): AppError {
+  const fields = zodFieldIssues(error);
+  const summary = fields
+    .slice(0, 3)
+    .map((f) => `${f.path}: ${f.message}`)
+    .join('; ');
+  return new AppError('bad_request', subject, `Please check these fields: ${summary}${fields.length > 3 ? ' …' : ''}`, fields);
+}

@@ -1,0 +1,115 @@
+import 'server-only';
+import { NextResponse, type NextRequest } from 'next/server';
+import type { z } from 'zod';
+import { AppError, invalidInput } from '@/lib/errors';
+import { getViewer, type Viewer } from '@/lib/auth/session';
+import { hasRole, type Role } from '@/lib/auth/roles';
+import { isDatabaseUnavailable } from '@/lib/db-errors';
+
+type Access = 'public' | 'user' | Role;
+
+interface RouteOptions<B extends z.ZodType | undefined> {
+  access: Access;
+  body?: B;
+  /** Largest accepted body in bytes; checked before the body is read. */
+  maxBodyBytes?: number;
+}
+
+interface RouteContext<B, P> {
+  req: NextRequest;
+  body: B;
+  params: P;
+  viewer: Viewer | null;
+}
+
+type UserContext<B, P> = RouteContext<B, P> & { viewer: Viewer };
+
+type Handler<B, P, A extends Access> = (
+  ctx: A extends 'public' ? RouteContext<B, P> : UserContext<B, P>,
+) => Promise<unknown> | unknown;
+
+const MUTATING = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
+
+/**
+ * Builds a route handler: checks the origin of state-changing requests, loads the session,
+ * enforces the access level, parses the JSON body with zod and maps errors to plain JSON.
+ * Ownership is checked inside the handler, next to the query that loads the row.
+ */
+export function route<B extends z.ZodType | undefined = undefined, P = Record<string, string>, A extends Access = Access>(
+  options: RouteOptions<B> & { access: A },
+  handler: Handler<B extends z.ZodType ? z.infer<B> : undefined, P, A>,
+) {
+  return async (req: NextRequest, context: { params: Promise<P> }) => {
+    const requestId = crypto.randomUUID();
+    try {
+      if (MUTATING.has(req.method)) assertSameOrigin(req);
+      const viewer = await getViewer();
+      if (options.access !== 'public') {
+        if (!viewer) throw new AppError('unauthenticated');
+        if (options.access !== 'user' && !hasRole(viewer, options.access)) {
+          throw new AppError('forbidden', 'resource', 'Your role does not allow this.');
+        }
+      }
+      const body = options.body ? await parseJsonBody(req, options.body, options.maxBodyBytes ?? 512 * 1024) : undefined;
+      const params = context?.params ? await context.params : ({} as P);
+      const result = await handler({ req, body, params, viewer } as never);
+      if (result instanceof Response) return result;
+      return NextResponse.json(result ?? { ok: true }, { status: req.method === 'POST' ? 201 : 200 });
+    } catch (err) {
+      return errorResponse(err, requestId);
+    }
+  };
+}
+
+export function errorResponse(err: unknown, requestId: string = crypto.randomUUID()): NextResponse {
+  if (err instanceof AppError) {
+    return NextResponse.json(
+      { error: { code: err.code, message: err.message, fields: err.fields, details: err.details, requestId } },
+      { status: err.status },
+    );
+  }
+  if (isDatabaseUnavailable(err)) {
+    console.error(`[${requestId}] database unavailable:`, (err as Error).message);
+    return NextResponse.json(
+      { error: { code: 'unavailable', message: 'Kettlefork is briefly unavailable; please try again in a moment.', requestId } },
+      { status: 503, headers: { 'Retry-After': '5' } },
+    );
+  }
+  console.error(`[${requestId}]`, err);
+  return NextResponse.json(
+    { error: { code: 'internal', message: 'Something went wrong on our side. Please try again.', requestId } },
+    { status: 500 },
+  );
+}
+
+async function parseJsonBody<S extends z.ZodType>(req: NextRequest, schema: S, maxBytes: number): Promise<z.infer<S>> {
+  const declared = Number(req.headers.get('content-length') ?? '0');
+  if (declared > maxBytes) throw new AppError('too_large', 'request body', `The request body is larger than ${maxBytes} bytes.`);
+  const text = await req.text();
+  if (Buffer.byteLength(text) > maxBytes) {
+    throw new AppError('too_large', 'request body', `The request body is larger than ${maxBytes} bytes.`);
+  }
+  let json: unknown;
+  try {
+    json = text.length ? JSON.parse(text) : undefined;
+  } catch {
+    throw new AppError('bad_request', 'request body', 'The request body is not valid JSON.');
+  }
+  const parsed = schema.safeParse(json);
+  if (!parsed.success) throw invalidInput(parsed.error);
+  return parsed.data;
+}
+
+// State changes must come from our own pages (a cross-site form or fetch is refused).
+function assertSameOrigin(req: NextRequest): void {
+  const origin = req.headers.get('origin');
+  if (!origin) return;
+  const host = req.headers.get('x-forwarded-host') ?? req.headers.get('host');
+  let originHost: string;
+  try {
+    originHost = new URL(origin).host;
+  } catch {
+    throw new AppError('forbidden', 'request', 'Cross-site request refused.');
+  }
+  if (originHost !== host) throw new AppError('forbidden', 'request', 'Cross-site request refused.');
+}

@@ -1,0 +1,68 @@
+import 'server-only';
+import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
+import { getPool } from '@/db';
+import { AppError } from '@/lib/errors';
+
+// Counters live in PostgreSQL (table rate_limits, created by our migrations), so every
+// web instance shares them and a restart does not reset them.
+const limiters = new Map<string, RateLimiterPostgres>();
+
+export interface LimitRule {
+  name: string;
+  points: number;
+  durationSec: number;
+  blockDurationSec?: number;
+}
+
+function limiter(rule: LimitRule): RateLimiterPostgres {
+  let l = limiters.get(rule.name);
+  if (!l) {
+    l = new RateLimiterPostgres({
+      storeClient: getPool(),
+      tableName: 'rate_limits',
+      tableCreated: true,
+      clearExpiredByTimeout: false,
+      keyPrefix: rule.name,
+      points: rule.points,
+      duration: rule.durationSec,
+      blockDuration: rule.blockDurationSec ?? 0,
+    });
+    limiters.set(rule.name, l);
+  }
+  return l;
+}
+
+/** Takes one point for `key`; false when the rule's budget is spent. */
+export async function tryConsume(rule: LimitRule, key: string): Promise<boolean> {
+  try {
+    await limiter(rule).consume(key.toLowerCase(), 1);
+    return true;
+  } catch (err) {
+    if (err instanceof RateLimiterRes) return false;
+    throw err;
+  }
+}
+
+export async function consumeOrThrow(rule: LimitRule, key: string): Promise<void> {
+  if (!(await tryConsume(rule, key))) throw new AppError('rate_limited');
+}
+
+export const SIGN_IN_PER_ACCOUNT: LimitRule = { name: 'signin-account', points: 10, durationSec: 15 * 60 };
+export const SIGN_IN_PER_ADDRESS: LimitRule = { name: 'signin-address', points: 30, durationSec: 15 * 60 };
+export const MAGIC_LINK_PER_ACCOUNT: LimitRule = { name: 'magic-account', points: 5, durationSec: 60 * 60 };
+export const SIGN_UP_PER_ADDRESS: LimitRule = { name: 'signup-address', points: 20, durationSec: 60 * 60 };
+
+/**
+ * The client's address. X-Forwarded-For is believed only when TRUST_PROXY=1 (behind our own
+ * load balancer, which overwrites it); otherwise a client could pick a fresh address per request.
+ */
+export function clientAddress(headers: Headers | Record<string, string | string[] | undefined> | undefined): string {
+  const get = (name: string): string | undefined => {
+    if (!headers) return undefined;
+    if (headers instanceof Headers) return headers.get(name) ?? undefined;
+    const v = headers[name];
+    return Array.isArray(v) ? v[0] : v;
+  };
+  if (process.env.TRUST_PROXY !== '1') return 'direct';
+  return get('x-forwarded-for')?.split(',')[0]?.trim() || get('x-real-ip') || 'direct';
+}
