@@ -1,0 +1,223 @@
+/**
+ * Recipe search through the search engine's official client. Server code imports
+ * this through `lib/search/index.ts`, which carries the `server-only` marker.
+ */
+import { Meilisearch, type SearchParams, type Settings, type Task } from 'meilisearch';
+import { z } from 'zod';
+import {
+  FACET_ATTRIBUTES,
+  FILTERABLE_ATTRIBUTES,
+  RECIPES_INDEX,
+  RECIPES_PRIMARY_KEY,
+  SEARCHABLE_ATTRIBUTES,
+  SORTABLE_ATTRIBUTES,
+  type RecipeSearchDocument,
+} from './document';
+import { buildRecipeFilter, sortFor, type SearchViewer } from './filters';
+import { SEARCH_PAGE_SIZE, type RecipeSearchQuery } from './schemas';
+
+export { RECIPES_INDEX } from './document';
+export type { SearchViewer } from './filters';
+
+const searchEnvSchema = z.object({
+  MEILI_HOST: z.url({ error: 'MEILI_HOST must be a URL such as http://127.0.0.1:7701' }).default('http://127.0.0.1:7701'),
+  MEILI_KEY: z.string().optional(),
+});
+
+export type SearchEnv = z.infer<typeof searchEnvSchema>;
+
+/** Reads MEILI_HOST and MEILI_KEY; an invalid value fails with a message naming the variable. */
+export function readSearchEnv(env: Record<string, string | undefined> = process.env): SearchEnv {
+  const parsed = searchEnvSchema.safeParse({ MEILI_HOST: env.MEILI_HOST || undefined, MEILI_KEY: env.MEILI_KEY || undefined });
+  if (!parsed.success) throw new Error(parsed.error.issues.map((issue) => issue.message).join('; '));
+  return parsed.data;
+}
+
+let cachedClient: Meilisearch | null = null;
+
+export function getSearchClient(): Meilisearch {
+  if (!cachedClient) {
+    const env = readSearchEnv();
+    cachedClient = new Meilisearch({ host: env.MEILI_HOST, apiKey: env.MEILI_KEY, timeout: 5_000 });
+  }
+  return cachedClient;
+}
+
+/** Results reachable by paging: every page a reader may ask for. */
+const MAX_TOTAL_HITS = 20_000;
+
+export const RECIPE_INDEX_SETTINGS: Settings = {
+  searchableAttributes: [...SEARCHABLE_ATTRIBUTES],
+  filterableAttributes: [...FILTERABLE_ATTRIBUTES],
+  sortableAttributes: [...SORTABLE_ATTRIBUTES],
+  // "sort" first: a reader who picks "newest" or "stars" gets that order, relevance breaks ties.
+  rankingRules: ['sort', 'words', 'typo', 'proximity', 'attribute', 'exactness'],
+  typoTolerance: { enabled: true, minWordSizeForTypos: { oneTypo: 5, twoTypos: 9 } },
+  faceting: { maxValuesPerFacet: 50, sortFacetValuesBy: { '*': 'count' } },
+  pagination: { maxTotalHits: MAX_TOTAL_HITS },
+};
+
+const WRITE_WAIT = { timeout: 30_000, interval: 25 };
+
+export class SearchTaskError extends Error {
+  constructor(readonly task: Task) {
+    super(`Search task ${task.uid} (${task.type}) ${task.status}: ${task.error?.message ?? 'no error message'}`);
+    this.name = 'SearchTaskError';
+  }
+}
+
+function assertSucceeded(task: Task): Task {
+  if (task.status !== 'succeeded') throw new SearchTaskError(task);
+  return task;
+}
+
+/** Creates the recipes index if missing and applies its settings; returns how many documents it holds. */
+export async function ensureRecipeIndex(client: Meilisearch = getSearchClient()): Promise<{ documentCount: number }> {
+  const created = await client.createIndex(RECIPES_INDEX, { primaryKey: RECIPES_PRIMARY_KEY }).waitTask(WRITE_WAIT);
+  if (created.status !== 'succeeded' && created.error?.code !== 'index_already_exists') throw new SearchTaskError(created);
+  const index = client.index(RECIPES_INDEX);
+  assertSucceeded(await index.updateSettings(RECIPE_INDEX_SETTINGS).waitTask(WRITE_WAIT));
+  const stats = await index.getStats();
+  return { documentCount: stats.numberOfDocuments };
+}
+
+const UPSERT_BATCH_SIZE = 1_000;
+
+/** Adds or replaces recipes; resolves once the index holds them, so the next search sees them. */
+export async function upsertRecipeDocuments(docs: RecipeSearchDocument[], client: Meilisearch = getSearchClient()): Promise<void> {
+  const index = client.index<RecipeSearchDocument>(RECIPES_INDEX);
+  for (let start = 0; start < docs.length; start += UPSERT_BATCH_SIZE) {
+    const batch = docs.slice(start, start + UPSERT_BATCH_SIZE);
+    assertSucceeded(await index.addDocuments(batch, { primaryKey: RECIPES_PRIMARY_KEY }).waitTask(WRITE_WAIT));
+  }
+}
+
+/** Removes recipes by id; resolves once they are gone from results. */
+export async function deleteRecipeDocuments(ids: string[], client: Meilisearch = getSearchClient()): Promise<void> {
+  if (ids.length === 0) return;
+  assertSucceeded(await client.index(RECIPES_INDEX).deleteDocuments(ids).waitTask(WRITE_WAIT));
+}
+
+export const RECIPE_HIT_FIELDS = [
+  'id',
+  'slug',
+  'title',
+  'authorName',
+  'authorHandle',
+  'styleCode',
+  'styleName',
+  'styleCategory',
+  'og',
+  'fg',
+  'abv',
+  'ibu',
+  'srm',
+  'forks',
+  'stars',
+  'hidden',
+  'visibility',
+  'updatedAt',
+] as const satisfies ReadonlyArray<keyof RecipeSearchDocument>;
+
+export type RecipeSearchHit = Pick<RecipeSearchDocument, (typeof RECIPE_HIT_FIELDS)[number]>;
+
+/** Facets that come back as value → count; the numeric ones come back as min/max only. */
+export const DISTRIBUTION_FACETS = ['styleCategory', 'styleCode', 'hops', 'fermentables', 'yeasts', 'yeastKinds'] as const;
+export type DistributionFacet = (typeof DISTRIBUTION_FACETS)[number];
+
+export interface RecipeSearchResult {
+  hits: RecipeSearchHit[];
+  total: number;
+  page: number;
+  pageCount: number;
+  pageSize: number;
+  facetDistribution: Record<DistributionFacet, Record<string, number>>;
+  facetStats: Partial<Record<'abv' | 'ibu' | 'srm' | 'og', { min: number; max: number }>>;
+  processingTimeMs: number;
+}
+
+interface SearchOptions {
+  hitsPerPage?: number;
+  withFacets?: boolean;
+}
+
+async function runRecipeSearch(
+  query: RecipeSearchQuery,
+  viewer: SearchViewer,
+  client: Meilisearch,
+  { hitsPerPage = SEARCH_PAGE_SIZE, withFacets = true }: SearchOptions = {},
+): Promise<RecipeSearchResult> {
+  const params = {
+    filter: buildRecipeFilter(query, viewer),
+    sort: sortFor(query.sort),
+    page: query.page,
+    hitsPerPage,
+    attributesToRetrieve: [...RECIPE_HIT_FIELDS],
+    facets: withFacets ? [...FACET_ATTRIBUTES] : undefined,
+  } satisfies SearchParams;
+  const response = await client.index(RECIPES_INDEX).search<RecipeSearchHit, typeof params>(query.q, params);
+  const distribution = response.facetDistribution ?? {};
+  return {
+    hits: response.hits.map((hit) => ({ ...hit, hidden: hit.hidden === true })),
+    total: response.totalHits,
+    page: response.page,
+    pageCount: response.totalPages,
+    pageSize: hitsPerPage,
+    facetDistribution: Object.fromEntries(DISTRIBUTION_FACETS.map((facet) => [facet, distribution[facet] ?? {}])) as RecipeSearchResult['facetDistribution'],
+    facetStats: response.facetStats ?? {},
+    processingTimeMs: response.processingTimeMs,
+  };
+}
+
+/** One page of recipes the viewer may see, with facet counts over the whole result. */
+export function searchRecipes(query: RecipeSearchQuery, viewer: SearchViewer, client: Meilisearch = getSearchClient()): Promise<RecipeSearchResult> {
+  return runRecipeSearch(query, viewer, client);
+}
+
+/** One way to widen an empty search: drop `field` (or just `value` from it) and `total` recipes match. */
+export interface LooseningSuggestion {
+  field: 'q' | 'style' | 'hop' | 'malt' | 'yeast' | 'abv' | 'ibu' | 'srm' | 'og';
+  value?: string;
+  total: number;
+}
+
+function loosenedQueries(query: RecipeSearchQuery): Array<{ suggestion: Omit<LooseningSuggestion, 'total'>; query: RecipeSearchQuery }> {
+  const variants: Array<{ suggestion: Omit<LooseningSuggestion, 'total'>; query: RecipeSearchQuery }> = [];
+  if (query.q !== '') variants.push({ suggestion: { field: 'q' }, query: { ...query, q: '' } });
+  for (const field of ['style', 'hop', 'malt', 'yeast'] as const) {
+    for (const value of query[field]) {
+      variants.push({ suggestion: { field, value }, query: { ...query, [field]: query[field].filter((v) => v !== value) } });
+    }
+  }
+  for (const field of ['abv', 'ibu', 'srm', 'og'] as const) {
+    if (query[`${field}Min`] !== undefined || query[`${field}Max`] !== undefined) {
+      variants.push({ suggestion: { field }, query: { ...query, [`${field}Min`]: undefined, [`${field}Max`]: undefined } });
+    }
+  }
+  return variants.map((variant) => ({ ...variant, query: { ...variant.query, page: 1 } }));
+}
+
+/**
+ * For a search with no results: re-runs it without each filter in turn and returns
+ * the ones whose removal would give results, most results first.
+ */
+export async function suggestLoosening(
+  query: RecipeSearchQuery,
+  viewer: SearchViewer,
+  client: Meilisearch = getSearchClient(),
+): Promise<LooseningSuggestion[]> {
+  const variants = loosenedQueries(query);
+  const totals = await Promise.all(
+    variants.map((variant) => runRecipeSearch(variant.query, viewer, client, { hitsPerPage: 0, withFacets: false }).then((result) => result.total)),
+  );
+  return variants
+    .map((variant, i) => ({ ...variant.suggestion, total: totals[i] }))
+    .filter((suggestion) => suggestion.total > 0)
+    .sort((a, b) => b.total - a.total);
+}
+
+/** True when the search engine answers its health check within a short time. */
+export async function isSearchAvailable(client: Meilisearch = getSearchClient()): Promise<boolean> {
+  const giveUp = new Promise<boolean>((resolve) => setTimeout(() => resolve(false), 1_500).unref());
+  return Promise.race([client.isHealthy(), giveUp]);
+}

@@ -1,0 +1,6 @@
+import 'server-only';
+
+export * from './client';
+export * from './document';
+export * from './schemas';
+export { buildRecipeFilter, quoteFilterValue, viewerFilter } from './filters';
