@@ -1,0 +1,91 @@
+import { describe, expect, it } from 'vitest';
+import {
+  abvHall,
+  abvSimple,
+  adjustedAttenuationPct,
+  apparentAttenuationPct,
+  caloriesPer355mL,
+  finalGravity,
+  mainSaccharificationTempC,
+  realAttenuationPct,
+  realExtractPlato,
+} from './alcohol';
+import { sgToPlato } from './gravity';
+
+describe('alcohol', () => {
+  // Common practice: OG 1.057 fermented to 1.017 is about 5.3% ABV.
+  it('gives about 5.3% ABV for 1.057 → 1.017', () => {
+    expect(abvSimple(1.057, 1.017)).toBeCloseTo(5.25, 2);
+    expect(Math.abs(abvSimple(1.057, 1.017) - 5.3)).toBeLessThan(0.1);
+  });
+
+  // Michael Hall, "Brew by the Numbers", Zymurgy (summer 1995): ABW = 76.08 (OG − FG) / (1.775 − OG),
+  // ABV = ABW × FG / 0.794. Recomputed: 1.050/1.010 → 5.34%; 1.065/1.012 → 7.24%.
+  it('follows Hall', () => {
+    expect(abvHall(1.05, 1.01)).toBeCloseTo(5.34, 2);
+    expect(abvHall(1.065, 1.012)).toBeCloseTo(7.24, 2);
+  });
+
+  it('gives no alcohol without a gravity drop', () => {
+    expect(abvSimple(1.05, 1.05)).toBe(0);
+    expect(abvHall(1.05, 1.05)).toBe(0);
+  });
+});
+
+describe('attenuation and extract', () => {
+  it('computes apparent attenuation as the share of gravity points gone', () => {
+    expect(apparentAttenuationPct(1.05, 1.01)).toBeCloseTo(80, 10);
+    expect(apparentAttenuationPct(1, 1)).toBe(0);
+  });
+
+  // Balling's relation (real extract = 0.1808 OE + 0.8192 AE; source not verified):
+  // real attenuation is about 0.82 of apparent attenuation.
+  it('computes real extract and real attenuation', () => {
+    expect(realExtractPlato(1.05, 1.01)).toBeCloseTo(0.1808 * sgToPlato(1.05) + 0.8192 * sgToPlato(1.01), 10);
+    const real = realAttenuationPct(1.05, 1.01);
+    expect(real).toBeGreaterThan(64);
+    expect(real).toBeLessThan(67);
+  });
+
+  // Calorie formula [6.9 ABW + 4.0 (RE − 0.1)] × FG × 3.55 (secondary source; recomputed: 1.050/1.010 → about 165 kcal).
+  it('estimates calories per 355 mL', () => {
+    expect(caloriesPer355mL(1.05, 1.01)).toBeGreaterThan(160);
+    expect(caloriesPer355mL(1.05, 1.01)).toBeLessThan(170);
+    expect(caloriesPer355mL(1, 1)).toBeGreaterThanOrEqual(0);
+  });
+});
+
+describe('final gravity from yeast and mash', () => {
+  it('uses FG = 1 + (OG − 1)(1 − attenuation)', () => {
+    expect(finalGravity(1.05, 75)).toBeCloseTo(1.0125, 10);
+  });
+
+  // Common practice: a single rest at 65–67 °C leaves the yeast's attenuation as stated;
+  // hotter mashes leave more dextrins (higher FG), cooler ones fewer.
+  it('keeps the attenuation for a 65–67 °C rest and moves it outside', () => {
+    expect(adjustedAttenuationPct(75, 65)).toBe(75);
+    expect(adjustedAttenuationPct(75, 67)).toBe(75);
+    expect(adjustedAttenuationPct(75, 69)).toBeLessThan(75);
+    expect(adjustedAttenuationPct(75, 63)).toBeGreaterThan(75);
+    expect(adjustedAttenuationPct(75, null)).toBe(75);
+  });
+
+  it('clamps the adjustment and the attenuation', () => {
+    expect(adjustedAttenuationPct(75, 79)).toBe(adjustedAttenuationPct(75, 72));
+    expect(adjustedAttenuationPct(75, 40)).toBe(adjustedAttenuationPct(75, 60));
+    expect(adjustedAttenuationPct(99, 60)).toBe(100);
+    expect(adjustedAttenuationPct(2, 72)).toBe(0);
+  });
+
+  it('weights the saccharification rests by time and ignores protein and mash-out rests', () => {
+    const steps = [
+      { tempC: 52, timeMin: 15 },
+      { tempC: 63, timeMin: 30 },
+      { tempC: 70, timeMin: 30 },
+      { tempC: 77, timeMin: 10 },
+    ];
+    expect(mainSaccharificationTempC(steps)).toBeCloseTo(66.5, 10);
+    expect(mainSaccharificationTempC([{ tempC: 77, timeMin: 10 }])).toBeNull();
+    expect(mainSaccharificationTempC([])).toBeNull();
+  });
+});
