@@ -1,9 +1,7 @@
-/**
- * Recipe search through the search engine's official client. Server code imports
- * this through `lib/search/index.ts`, which carries the `server-only` marker.
- */
+/** Recipe search through the search engine's official client, configured by MEILI_HOST and MEILI_KEY. */
+import 'server-only';
 import { Meilisearch, type SearchParams, type Settings, type Task } from 'meilisearch';
-import { z } from 'zod';
+import { env } from '../env';
 import {
   FACET_ATTRIBUTES,
   FILTERABLE_ATTRIBUTES,
@@ -19,26 +17,12 @@ import { SEARCH_PAGE_SIZE, type RecipeSearchQuery } from './schemas';
 export { RECIPES_INDEX } from './document';
 export type { SearchViewer } from './filters';
 
-const searchEnvSchema = z.object({
-  MEILI_HOST: z.url({ error: 'MEILI_HOST must be a URL such as http://127.0.0.1:7701' }).default('http://127.0.0.1:7701'),
-  MEILI_KEY: z.string().optional(),
-});
-
-export type SearchEnv = z.infer<typeof searchEnvSchema>;
-
-/** Reads MEILI_HOST and MEILI_KEY; an invalid value fails with a message naming the variable. */
-export function readSearchEnv(env: Record<string, string | undefined> = process.env): SearchEnv {
-  const parsed = searchEnvSchema.safeParse({ MEILI_HOST: env.MEILI_HOST || undefined, MEILI_KEY: env.MEILI_KEY || undefined });
-  if (!parsed.success) throw new Error(parsed.error.issues.map((issue) => issue.message).join('; '));
-  return parsed.data;
-}
-
 let cachedClient: Meilisearch | null = null;
 
 export function getSearchClient(): Meilisearch {
   if (!cachedClient) {
-    const env = readSearchEnv();
-    cachedClient = new Meilisearch({ host: env.MEILI_HOST, apiKey: env.MEILI_KEY, timeout: 5_000 });
+    const { MEILI_HOST, MEILI_KEY } = env();
+    cachedClient = new Meilisearch({ host: MEILI_HOST, apiKey: MEILI_KEY || undefined, timeout: 5_000 });
   }
   return cachedClient;
 }

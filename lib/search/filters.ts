@@ -3,10 +3,11 @@
  * `quoteFilterValue`; numbers come from the schema; nothing the reader typed is
  * spliced into the expression as is.
  */
+import type { Role } from '../auth/roles';
 import type { RecipeSearchQuery, SearchSort } from './schemas';
 
-/** Who is searching: null for an anonymous reader. */
-export type SearchViewer = { userId: string; role: 'member' | 'moderator' | 'admin' } | null;
+/** Who is searching (the signed-in viewer's id and role), or null for an anonymous reader. */
+export type SearchViewer = { id: string; role: Role } | null;
 
 /** A double-quoted filter literal with backslashes and double quotes escaped. */
 export function quoteFilterValue(value: string): string {
@@ -25,7 +26,7 @@ function canModerate(viewer: SearchViewer): boolean {
 export function viewerFilter(viewer: SearchViewer): string {
   const publicClause = canModerate(viewer) ? 'visibility = "public"' : '(visibility = "public" AND hidden = false)';
   if (!viewer) return publicClause;
-  return `(${publicClause} OR ownerId = ${quoteFilterValue(viewer.userId)})`;
+  return `(${publicClause} OR ownerId = ${quoteFilterValue(viewer.id)})`;
 }
 
 function allOf(attribute: string, values: string[]): string[] {

@@ -1,5 +1,3 @@
-import 'server-only';
-
 export * from './client';
 export * from './document';
 export * from './schemas';
