@@ -1,16 +1,8 @@
 /** Recipe search through the search engine's official client, configured by MEILI_HOST and MEILI_KEY. */
 import 'server-only';
-import { Meilisearch, type SearchParams, type Settings, type Task } from 'meilisearch';
+import { Meilisearch, type SearchParams, type Task } from 'meilisearch';
 import { env } from '../env';
-import {
-  FACET_ATTRIBUTES,
-  FILTERABLE_ATTRIBUTES,
-  RECIPES_INDEX,
-  RECIPES_PRIMARY_KEY,
-  SEARCHABLE_ATTRIBUTES,
-  SORTABLE_ATTRIBUTES,
-  type RecipeSearchDocument,
-} from './document';
+import { FACET_ATTRIBUTES, RECIPE_INDEX_SETTINGS, RECIPES_INDEX, RECIPES_PRIMARY_KEY, type RecipeSearchDocument } from './document';
 import { buildRecipeFilter, sortFor, type SearchViewer } from './filters';
 import { SEARCH_PAGE_SIZE, type RecipeSearchQuery } from './schemas';
 
@@ -26,20 +18,6 @@ export function getSearchClient(): Meilisearch {
   }
   return cachedClient;
 }
-
-/** Results reachable by paging: every page a reader may ask for. */
-const MAX_TOTAL_HITS = 20_000;
-
-export const RECIPE_INDEX_SETTINGS: Settings = {
-  searchableAttributes: [...SEARCHABLE_ATTRIBUTES],
-  filterableAttributes: [...FILTERABLE_ATTRIBUTES],
-  sortableAttributes: [...SORTABLE_ATTRIBUTES],
-  // "sort" first: a reader who picks "newest" or "stars" gets that order, relevance breaks ties.
-  rankingRules: ['sort', 'words', 'typo', 'proximity', 'attribute', 'exactness'],
-  typoTolerance: { enabled: true, minWordSizeForTypos: { oneTypo: 5, twoTypos: 9 } },
-  faceting: { maxValuesPerFacet: 50, sortFacetValuesBy: { '*': 'count' } },
-  pagination: { maxTotalHits: MAX_TOTAL_HITS },
-};
 
 const WRITE_WAIT = { timeout: 30_000, interval: 25 };
 

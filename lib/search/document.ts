@@ -1,4 +1,5 @@
-/** The shape of one recipe in the search index, and the index's attribute settings. */
+/** The shape of one recipe in the search index, and the index's settings. */
+import type { Settings } from 'meilisearch';
 
 export type RecipeVisibility = 'public' | 'unlisted' | 'private';
 
@@ -76,3 +77,17 @@ export const SORTABLE_ATTRIBUTES = ['createdAt', 'updatedAt', 'stars', 'forks', 
 export const FACET_ATTRIBUTES = ['styleCategory', 'styleCode', 'hops', 'fermentables', 'yeasts', 'yeastKinds', 'abv', 'ibu', 'srm', 'og'] as const;
 
 export type RecipeFacet = (typeof FACET_ATTRIBUTES)[number];
+
+/** Results reachable by paging: every page a reader may ask for. */
+const MAX_TOTAL_HITS = 20_000;
+
+export const RECIPE_INDEX_SETTINGS: Settings = {
+  searchableAttributes: [...SEARCHABLE_ATTRIBUTES],
+  filterableAttributes: [...FILTERABLE_ATTRIBUTES],
+  sortableAttributes: [...SORTABLE_ATTRIBUTES],
+  // "sort" first: a reader who picks "newest" or "stars" gets that order, relevance breaks ties.
+  rankingRules: ['sort', 'words', 'typo', 'proximity', 'attribute', 'exactness'],
+  typoTolerance: { enabled: true, minWordSizeForTypos: { oneTypo: 5, twoTypos: 9 } },
+  faceting: { maxValuesPerFacet: 50, sortFacetValuesBy: { '*': 'count' } },
+  pagination: { maxTotalHits: MAX_TOTAL_HITS },
+};
