@@ -248,53 +248,68 @@ function totalOf<T>(items: readonly T[], amount: (item: T) => number): number {
   return total;
 }
 
-export const recipeDocumentSchema = z
-  .object(
-    {
-      title: textField('Title', 120),
-      batch: batchSchema,
-      fermentables: listField('Fermentables', fermentableSchema, 50).min(1, 'Fermentables need at least one entry'),
-      hops: listField('Hops', hopSchema, 50),
-      yeasts: listField('Yeasts', yeastSchema, 10).min(1, 'Yeasts need at least one entry'),
-      mash: z.object({ steps: listField('Mash steps', mashStepSchema, 20) }, objectError('Mash')),
-      fermentation: z.object(
-        { steps: listField('Fermentation steps', fermentationStepSchema, 20) },
-        objectError('Fermentation'),
-      ),
-      water: waterSchema.optional(),
-      carbonation: carbonationSchema.optional(),
-      style: styleSchema.optional(),
-      notes: z.string({ error: 'Notes must be text' }).max(50000, 'Notes must be at most 50000 characters').default(''),
-    },
-    objectError('Recipe'),
-  )
-  .superRefine((doc, ctx) => {
-    const gristKg = totalOf(doc.fermentables, (f) => f.amountKg);
-    if (gristKg > MAX_GRIST_KG_PER_L * doc.batch.volumeL) {
-      ctx.addIssue({
-        code: 'custom',
-        path: ['fermentables'],
-        message: `Fermentables total ${round1(gristKg)} kg, too much for a ${round1(doc.batch.volumeL)} L batch (at most ${MAX_GRIST_KG_PER_L} kg per litre)`,
-      });
-    }
-    const hopsG = totalOf(doc.hops, (h) => h.amountG);
-    if (hopsG > MAX_HOPS_G_PER_L * doc.batch.volumeL) {
-      ctx.addIssue({
-        code: 'custom',
-        path: ['hops'],
-        message: `Hops total ${round1(hopsG)} g, too much for a ${round1(doc.batch.volumeL)} L batch (at most ${MAX_HOPS_G_PER_L} g per litre)`,
-      });
-    }
-    doc.hops.forEach((hop, index) => {
-      if ((hop.use === 'boil' || hop.use === 'first_wort') && hop.timeMin > doc.batch.boilTimeMin) {
-        ctx.addIssue({
-          code: 'custom',
-          path: ['hops', index, 'timeMin'],
-          message: `Hop time (${hop.timeMin} min) cannot be longer than the boil (${doc.batch.boilTimeMin} min)`,
-        });
-      }
+const documentShape = z.object(
+  {
+    title: textField('Title', 120),
+    batch: batchSchema,
+    fermentables: listField('Fermentables', fermentableSchema, 50).min(1, 'Fermentables need at least one entry'),
+    hops: listField('Hops', hopSchema, 50),
+    yeasts: listField('Yeasts', yeastSchema, 10).min(1, 'Yeasts need at least one entry'),
+    mash: z.object({ steps: listField('Mash steps', mashStepSchema, 20) }, objectError('Mash')),
+    fermentation: z.object(
+      { steps: listField('Fermentation steps', fermentationStepSchema, 20) },
+      objectError('Fermentation'),
+    ),
+    water: waterSchema.optional(),
+    carbonation: carbonationSchema.optional(),
+    style: styleSchema.optional(),
+    notes: z.string({ error: 'Notes must be text' }).max(50000, 'Notes must be at most 50000 characters').default(''),
+  },
+  objectError('Recipe'),
+);
+
+type DocumentShape = z.output<typeof documentShape>;
+
+export const recipeDocumentSchema = documentShape.superRefine((doc, ctx) => {
+  // A ratio to a batch volume or boil time that is itself refused says nothing: leave it to that field's message.
+  if (!hasIssueAt(ctx.issues, ['batch', 'volumeL'])) checkLoadsPerLitre(doc, ctx);
+  if (!hasIssueAt(ctx.issues, ['batch', 'boilTimeMin'])) checkHopTimesWithinBoil(doc, ctx);
+});
+
+function hasIssueAt(issues: readonly { path?: readonly PropertyKey[] }[], path: readonly PropertyKey[]): boolean {
+  return issues.some((issue) => path.every((part, i) => issue.path?.[i] === part));
+}
+
+function checkLoadsPerLitre(doc: DocumentShape, ctx: z.RefinementCtx<DocumentShape>): void {
+  const gristKg = totalOf(doc.fermentables, (f) => f.amountKg);
+  if (gristKg > MAX_GRIST_KG_PER_L * doc.batch.volumeL) {
+    ctx.addIssue({
+      code: 'custom',
+      path: ['fermentables'],
+      message: `Fermentables total ${round1(gristKg)} kg, too much for a ${round1(doc.batch.volumeL)} L batch (at most ${MAX_GRIST_KG_PER_L} kg per litre)`,
     });
+  }
+  const hopsG = totalOf(doc.hops, (h) => h.amountG);
+  if (hopsG > MAX_HOPS_G_PER_L * doc.batch.volumeL) {
+    ctx.addIssue({
+      code: 'custom',
+      path: ['hops'],
+      message: `Hops total ${round1(hopsG)} g, too much for a ${round1(doc.batch.volumeL)} L batch (at most ${MAX_HOPS_G_PER_L} g per litre)`,
+    });
+  }
+}
+
+function checkHopTimesWithinBoil(doc: DocumentShape, ctx: z.RefinementCtx<DocumentShape>): void {
+  doc.hops.forEach((hop, index) => {
+    if ((hop.use === 'boil' || hop.use === 'first_wort') && hop.timeMin > doc.batch.boilTimeMin) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['hops', index, 'timeMin'],
+        message: `Hop time (${hop.timeMin} min) cannot be longer than the boil (${doc.batch.boilTimeMin} min)`,
+      });
+    }
   });
+}
 
 function round1(value: number): number {
   return Math.round(value * 10) / 10;

@@ -1,0 +1,85 @@
+import { describe, expect, it } from 'vitest';
+import { abvHall } from './alcohol';
+import { hopIbu } from './bitterness';
+import { maltColourUnits, moreySrm } from './colour';
+import { originalGravity } from './extract';
+import { sgToPlato } from './gravity';
+import { recipeDocumentSchema } from './schema';
+import { ENGINE_VERSION, computeStats } from './stats';
+import { collectNumbers, examplePaleAle, minimalInput } from './test-fixtures';
+
+describe('computeStats', () => {
+  const doc = examplePaleAle();
+  const stats = computeStats(doc);
+
+  it('stamps the engine version', () => {
+    expect(ENGINE_VERSION).toMatch(/^\d+\.\d+\.\d+$/);
+    expect(stats.engineVersion).toBe(ENGINE_VERSION);
+  });
+
+  it('puts the formulas together for the example pale ale', () => {
+    expect(stats.og).toBeCloseTo(originalGravity(doc.fermentables, 20, 72), 12);
+    expect(stats.attenuationPct).toBe(77);
+    expect(stats.fg).toBeCloseTo(1 + (stats.og - 1) * 0.23, 12);
+    expect(stats.abv).toBeCloseTo((stats.og - stats.fg) * 131.25, 12);
+    expect(stats.abvAlternate).toBeCloseTo(abvHall(stats.og, stats.fg), 12);
+    expect(stats.plato).toBeCloseTo(sgToPlato(stats.og), 12);
+    expect(stats.srm).toBeCloseTo(moreySrm(maltColourUnits(doc.fermentables, 20)), 12);
+    expect(stats.ebc).toBeCloseTo(stats.srm * 1.97, 12);
+    expect(stats.buGu).toBeCloseTo(stats.ibu / ((stats.og - 1) * 1000), 12);
+    expect(stats.caloriesPer355mL).toBeGreaterThan(150);
+    expect(stats.caloriesPer355mL).toBeLessThan(220);
+  });
+
+  it("lists each hop's IBU in document order and totals them (Tinseth on OG and batch volume)", () => {
+    expect(stats.hops.map((h) => h.name)).toEqual(doc.hops.map((h) => h.name));
+    doc.hops.forEach((hop, i) => expect(stats.hops[i].ibu).toBeCloseTo(hopIbu(hop, stats.og, 20, 60), 12));
+    expect(stats.hops[3].ibu).toBe(0);
+    expect(stats.ibu).toBeCloseTo(stats.hops.reduce((sum, h) => sum + h.ibu, 0), 12);
+  });
+
+  it('reports the water after salts, its ratio and residual alkalinity', () => {
+    expect(stats.water?.calcium).toBeGreaterThan(doc.water!.source.calcium);
+    expect(stats.water?.sulfateToChloride).toBeCloseTo(stats.water!.sulfate / stats.water!.chloride, 12);
+    expect(Number.isFinite(stats.water?.residualAlkalinity)).toBe(true);
+  });
+
+  it('reports keg pressure in kPa and psi', () => {
+    expect(stats.carbonation?.kegPressureKPa).toBeCloseTo(stats.carbonation!.kegPressurePsi * 6.894757, 4);
+    expect(stats.carbonation?.kegPressurePsi).toBeGreaterThan(5);
+  });
+
+  it('returns null for absent water, carbonation and style, and for an unknown style', () => {
+    const bare = computeStats(recipeDocumentSchema.parse(minimalInput()));
+    expect(bare.water).toBeNull();
+    expect(bare.carbonation).toBeNull();
+    expect(bare.styleFit).toBeNull();
+    const unknown = computeStats(recipeDocumentSchema.parse({ ...minimalInput(), style: { code: '99Z', name: 'Mystery' } }));
+    expect(unknown.styleFit).toBeNull();
+  });
+
+  // Common practice: a hotter mash leaves a fuller beer (higher FG), a cooler one a drier beer.
+  it('raises FG for a hotter mash and lowers it for a cooler one', () => {
+    const at = (tempC: number) =>
+      computeStats(recipeDocumentSchema.parse({ ...minimalInput(), mash: { steps: [{ tempC, timeMin: 60 }] } })).fg;
+    expect(at(66)).toBeCloseTo(at(65), 12);
+    expect(at(70)).toBeGreaterThan(at(66));
+    expect(at(62)).toBeLessThan(at(66));
+  });
+
+  it('lets the most attenuative yeast set FG', () => {
+    const input = minimalInput();
+    input.yeasts = [...input.yeasts, { name: 'Dry yeast', kind: 'wild', attenuationPct: 88 }];
+    expect(computeStats(recipeDocumentSchema.parse(input)).attenuationPct).toBe(88);
+  });
+
+  it('returns only finite numbers', () => {
+    for (const { path, value } of collectNumbers(stats)) expect(Number.isFinite(value), path).toBe(true);
+  });
+
+  it('does not change the document', () => {
+    const before = JSON.stringify(doc);
+    computeStats(doc);
+    expect(JSON.stringify(doc)).toBe(before);
+  });
+});
