@@ -1,0 +1,55 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { SCREENSHOT_DIR, openBrowser, type BrowserSession } from '../helpers/browser';
+import { TEST_PASSWORD, createUser } from '../helpers/users';
+
+describe('home and sign-in in a real browser', () => {
+  let s: BrowserSession;
+  beforeAll(async () => {
+    s = await openBrowser();
+    console.log(`screenshots in ${SCREENSHOT_DIR}`);
+  });
+  afterAll(async () => s?.close());
+
+  it('shows the home page without errors', async () => {
+    const res = await s.page.goto('/');
+    expect(res?.status()).toBe(200);
+    expect(await s.page.getByRole('heading', { level: 1 }).textContent()).toMatch(/remember every change/);
+    await s.page.getByRole('link', { name: 'Sign in' }).waitFor();
+    await s.shot('home');
+    expect(await s.page.content()).not.toMatch(/Something went wrong|Application error/);
+    expect(s.problems).toEqual([]);
+  });
+
+  it('shows field messages, then signs a member in through the form', async () => {
+    const user = await createUser({ name: 'Form Tester' });
+    await s.page.goto('/sign-in');
+    await s.page.getByRole('button', { name: 'Sign in' }).click();
+    await s.page.getByText('Enter your e-mail address.').first().waitFor();
+    await s.shot('sign-in-errors');
+    await s.page.locator('#signin-email').fill(user.email);
+    await s.page.getByLabel('Password', { exact: true }).fill(TEST_PASSWORD);
+    await s.page.getByRole('button', { name: 'Sign in' }).click();
+    await s.page.waitForURL('/');
+    await s.page.getByText('Signed in as').waitFor();
+    expect(await s.page.getByText('Signed in as').textContent()).toContain('Form Tester');
+    await s.shot('signed-in-home');
+    expect(s.problems).toEqual([]);
+  });
+
+  it('tells a member when the password is wrong, without saying which part', async () => {
+    const user = await createUser();
+    const fresh = await openBrowser();
+    try {
+      await fresh.page.goto('/sign-in');
+      await fresh.page.locator('#signin-email').fill(user.email);
+      await fresh.page.getByLabel('Password', { exact: true }).fill('definitely-not-it');
+      await fresh.page.getByRole('button', { name: 'Sign in' }).click();
+      await fresh.page.getByText(/do not match an account/).waitFor();
+      await fresh.shot('sign-in-wrong-password');
+      // next-auth answers a refused credential sign-in with 401, which the browser logs; nothing else may fail.
+      expect(fresh.problems.filter((p) => !/^HTTP 401: .*\/api\/auth\/callback\/credentials/.test(p))).toEqual([]);
+    } finally {
+      await fresh.close();
+    }
+  });
+});

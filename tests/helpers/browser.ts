@@ -1,0 +1,69 @@
+import { mkdirSync } from 'node:fs';
+import path from 'node:path';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { BASE_URL } from './env';
+
+export const SCREENSHOT_DIR = path.resolve('tests/e2e/screenshots');
+
+export interface BrowserSession {
+  browser: Browser;
+  context: BrowserContext;
+  page: Page;
+  problems: string[];
+  shot(name: string): Promise<string>;
+  close(): Promise<void>;
+}
+
+/**
+ * Debian's Chromium driven by playwright-core, with a fresh profile each launch. Every console error, page error and failed
+ * request is collected in `problems`, which a test expects to stay empty.
+ */
+export async function openBrowser(opts: { width?: number; height?: number; colorScheme?: 'light' | 'dark' } = {}): Promise<BrowserSession> {
+  const browser = await chromium.launch({
+    executablePath: '/usr/bin/chromium',
+    headless: true,
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
+  });
+  const context = await browser.newContext({
+    baseURL: BASE_URL,
+    viewport: { width: opts.width ?? 1280, height: opts.height ?? 900 },
+    colorScheme: opts.colorScheme ?? 'light',
+  });
+  const page = await context.newPage();
+  const problems: string[] = [];
+  page.on('console', (msg) => {
+    // Failed responses are recorded with their URL below; the browser's own line for them adds nothing.
+    if (msg.type() === 'error' && !msg.text().startsWith('Failed to load resource')) problems.push(`console: ${msg.text()}`);
+  });
+  page.on('pageerror', (err) => problems.push(`page error: ${err.message}`));
+  page.on('requestfailed', (req) => {
+    // A navigation away cancels in-flight requests; that is not a failure of the page.
+    if (req.failure()?.errorText !== 'net::ERR_ABORTED') problems.push(`request failed: ${req.url()} ${req.failure()?.errorText}`);
+  });
+  page.on('response', (res) => {
+    if (res.status() >= 400) problems.push(`HTTP ${res.status()}: ${res.url()}`);
+  });
+  mkdirSync(SCREENSHOT_DIR, { recursive: true });
+  return {
+    browser,
+    context,
+    page,
+    problems,
+    async shot(name) {
+      const file = path.join(SCREENSHOT_DIR, `${name}.png`);
+      await page.screenshot({ path: file, fullPage: true });
+      return file;
+    },
+    async close() {
+      await browser.close();
+    },
+  };
+}
