@@ -10,6 +10,7 @@ import {
   postBoilVolumeL,
   preBoilGravity,
   preBoilVolumeL,
+  primaryFermentationFit,
   strikeWaterTempC,
 } from './brewday';
 import { KG_PER_LB, L_PER_US_GALLON, celsiusToFahrenheit, fahrenheitToCelsius } from './constants';
@@ -101,5 +102,23 @@ describe('measured results', () => {
     const cells = pitchCellsBillion(5.5 * L_PER_US_GALLON, 15, PITCH_RATE_MILLION_CELLS_PER_ML_PLATO.ale);
     expect(Math.abs(cells - 234)).toBeLessThan(1);
     expect(PITCH_RATE_MILLION_CELLS_PER_ML_PLATO.lager).toBe(1.5);
+  });
+});
+
+describe('primary fermentation against the yeast range', () => {
+  // Common practice: kveik ferments well around 29–35 °C and may stall when kept cool.
+  it('flags a kveik kept at ale temperature and accepts it hot', () => {
+    const kveik = { name: 'Kveik', kind: 'kveik' as const, attenuationPct: 80, tempMinC: 29, tempMaxC: 35 };
+    const at = (tempC: number) =>
+      primaryFermentationFit({ yeasts: [kveik], fermentation: { steps: [{ tempC, days: 5 }, { tempC: 2, days: 3 }] } });
+    expect(at(18)).toEqual([{ yeastIndex: 0, tempC: 18, position: 'below' }]);
+    expect(at(32)[0].position).toBe('within');
+    expect(at(38)[0].position).toBe('above');
+  });
+
+  it('says nothing without a range or without fermentation steps', () => {
+    const yeast = { name: 'Ale yeast', kind: 'ale' as const, attenuationPct: 75 };
+    expect(primaryFermentationFit({ yeasts: [yeast], fermentation: { steps: [{ tempC: 19, days: 10 }] } })).toEqual([]);
+    expect(primaryFermentationFit({ yeasts: [{ ...yeast, tempMinC: 15 }], fermentation: { steps: [] } })).toEqual([]);
   });
 });

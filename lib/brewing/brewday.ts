@@ -131,3 +131,27 @@ export const PITCH_RATE_MILLION_CELLS_PER_ML_PLATO = { ale: 0.75, lager: 1.5 } a
 export function pitchCellsBillion(volumeL: number, plato: number, rateMillionPerMlPlato: number): number {
   return (rateMillionPerMlPlato * volumeL * 1000 * plato) / 1000;
 }
+
+export interface YeastTemperatureFit {
+  yeastIndex: number;
+  tempC: number;
+  position: 'below' | 'within' | 'above';
+}
+
+/**
+ * Where the primary fermentation (the first fermentation step) sits in each
+ * yeast's stated range, for yeasts that give one. Too cool can stall a yeast
+ * (kveik especially, common practice); too warm brings off-flavours. Later
+ * steps are left out: a cold crash below the range is intended.
+ */
+export function primaryFermentationFit(doc: Pick<RecipeDocument, 'yeasts' | 'fermentation'>): YeastTemperatureFit[] {
+  const primary = doc.fermentation.steps[0];
+  if (!primary) return [];
+  return doc.yeasts.flatMap((yeast, yeastIndex) => {
+    if (yeast.tempMinC === undefined && yeast.tempMaxC === undefined) return [];
+    const tooCool = yeast.tempMinC !== undefined && primary.tempC < yeast.tempMinC;
+    const tooWarm = yeast.tempMaxC !== undefined && primary.tempC > yeast.tempMaxC;
+    const position = tooCool ? 'below' : tooWarm ? 'above' : 'within';
+    return [{ yeastIndex, tempC: primary.tempC, position }];
+  });
+}

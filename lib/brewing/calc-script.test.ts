@@ -2,9 +2,9 @@ import { spawnSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { EXAMPLE_PATH } from './test-fixtures';
 
 const PROJECT_ROOT = fileURLToPath(new URL('../..', import.meta.url));
+const EXAMPLE_PATH = fileURLToPath(new URL('./examples/pale-ale.json', import.meta.url));
 
 /** Runs `scripts/calc.ts` under tsx with `input` on stdin. */
 function runCalc(input: string) {

@@ -39,10 +39,10 @@ export function scaleRecipe(doc: RecipeDocument, target: ScaleTarget): RecipeDoc
   const volumeRatio = target.volumeL / doc.batch.volumeL;
   const grainRatio = volumeRatio * (doc.batch.efficiencyPct / efficiencyPct);
   const batch = { ...doc.batch, volumeL: target.volumeL, efficiencyPct };
-  const fermentables = doc.fermentables.map((fermentable) => ({
-    ...fermentable,
-    amountKg: Math.max(roundTo(fermentable.amountKg * (isMashed(fermentable.kind) ? grainRatio : volumeRatio), KG_DECIMALS), SMALLEST_KG),
-  }));
+  const fermentables = doc.fermentables.map((fermentable) => {
+    const ratio = isMashed(fermentable.kind) ? grainRatio : volumeRatio;
+    return { ...fermentable, amountKg: Math.max(roundTo(fermentable.amountKg * ratio, KG_DECIMALS), SMALLEST_KG) };
+  });
   const oldOg = originalGravity(doc.fermentables, doc.batch.volumeL, doc.batch.efficiencyPct);
   const newOg = originalGravity(fermentables, batch.volumeL, batch.efficiencyPct);
   const hops = doc.hops.map((hop) => {

@@ -1,8 +1,7 @@
 // Shared test data for the brewing engine's tests: an invented pale ale and
 // fast-check generators of documents inside the schema's bounds.
 import fc from 'fast-check';
-import { readFileSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
+import examplePaleAleJson from './examples/pale-ale.json';
 import {
   FERMENTABLE_KINDS,
   HOP_FORMS,
@@ -15,10 +14,9 @@ import {
 } from './schema';
 import { listStyles } from './styles';
 
-export const EXAMPLE_PATH = fileURLToPath(new URL('./examples/pale-ale.json', import.meta.url));
-
+/** A fresh copy of the example document, safe to change. */
 export function examplePaleAleInput(): RecipeDocumentInput {
-  return JSON.parse(readFileSync(EXAMPLE_PATH, 'utf8')) as RecipeDocumentInput;
+  return structuredClone(examplePaleAleJson) as RecipeDocumentInput;
 }
 
 export function examplePaleAle(): RecipeDocument {
