@@ -9,7 +9,7 @@ import { recipeSearchQuerySchema, SEARCH_PAGE_SIZE, type RecipeSearchQueryInput 
 import type { BenchRow } from './types';
 
 const DOCUMENTS = 50_000;
-const LOAD_BATCH = 5_000;
+const LOAD_BATCH = 1_000;
 const WARMUP_QUERIES = 50;
 const MEASURED_QUERIES = 500;
 const SEED = 0x6b66;
@@ -142,7 +142,7 @@ interface FakeChild {
 }
 
 function startFakeChild(): Promise<FakeChild> {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'scripts/search-fake.ts'], {
+  const child = spawn(process.execPath, ['--expose-gc', '--import', 'tsx', 'scripts/search-fake.ts'], {
     cwd: ROOT,
     env: { ...process.env, MEILI_FAKE_PORT: '0', MEILI_FAKE_KEY: '' },
     stdio: ['ignore', 'pipe', 'inherit', 'ipc'],

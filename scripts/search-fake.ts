@@ -30,7 +30,10 @@ async function main(): Promise<void> {
 
   if (process.send) {
     process.on('message', (message) => {
-      if (message === 'memory') process.send?.({ memory: process.memoryUsage() });
+      if (message === 'memory') {
+        (globalThis as { gc?: () => void }).gc?.();
+        process.send?.({ memory: process.memoryUsage() });
+      }
     });
     process.once('disconnect', stop);
   }

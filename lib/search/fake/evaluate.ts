@@ -35,7 +35,7 @@ function evaluateNode(index: FakeIndex, node: FilterNode, live: Bitset): Bitset 
     case 'range':
       return facet.range(numberOrFail(node.from, node.attribute), true, numberOrFail(node.to, node.attribute), true, size);
     case 'in':
-      return node.values.map((value) => facet.equals(value, size)).reduce((acc, set) => acc.or(set), new Bitset(size));
+      return facet.equals(node.values, size);
     case 'exists':
       return facet.exists(size);
     case 'isNull':
@@ -52,8 +52,8 @@ function compare(
   live: Bitset,
 ): Bitset {
   const { op, value, attribute } = node;
-  if (op === '=') return facet.equals(value, size);
-  if (op === '!=') return facet.equals(value, size).not().and(live);
+  if (op === '=') return facet.equals([value], size);
+  if (op === '!=') return facet.equals([value], size).not().and(live);
   const n = numberOrFail(value, attribute);
   if (op === '>') return facet.range(n, false, Infinity, true, size);
   if (op === '>=') return facet.range(n, true, Infinity, true, size);

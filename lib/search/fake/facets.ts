@@ -1,7 +1,9 @@
 /**
- * Per-attribute lookup structures for one filterable attribute: value → slots for
- * equality, a lazily sorted numeric column for ranges, and per-slot value ids so
- * facet counts are a walk over the matched slots.
+ * Lookup structures for one filterable attribute, kept compact for tens of thousands
+ * of documents: each distinct value gets an id, each slot holds its value id in a typed
+ * array (or a small list when it has several), and flags record EXISTS / NULL / EMPTY.
+ * Equality, IN and ranges pick the matching value ids first, then scan the slots once;
+ * facet counts walk only the matched slots.
  */
 import { Bitset } from './bitset';
 
@@ -27,173 +29,145 @@ function isEmptyValue(raw: unknown): boolean {
   return typeof raw === 'object' && raw !== null && Object.keys(raw).length === 0;
 }
 
-interface NumericColumn {
-  values: Float64Array;
-  slots: Int32Array;
-}
+const NO_VALUE = -1;
+const SEVERAL_VALUES = -2;
+const EXISTS = 1;
+const NULL = 2;
+const EMPTY = 4;
 
 export class FacetIndex {
-  private readonly bySlotValueIds: Array<number[] | undefined> = [];
-  private readonly stringSlots = new Map<string, Set<number>>();
-  private readonly numberBySlot = new Map<number, number[]>();
-  private readonly existing = new Set<number>();
-  private readonly nulls = new Set<number>();
-  private readonly empties = new Set<number>();
-  /** Facet value table: id → display label (the first spelling seen). */
+  /** Per slot: a value id, NO_VALUE, or SEVERAL_VALUES (then see `several`). */
+  private ids = new Int32Array(1024).fill(NO_VALUE);
+  private flags = new Uint8Array(1024);
+  private readonly several: Array<number[] | undefined> = [];
+  /** Value table: id → display label (the first spelling seen) and the number it stands for (NaN for text). */
   private readonly labels: string[] = [];
-  /** The number a numeric facet value stands for; NaN for strings. */
-  private readonly numericValue: number[] = [];
+  private readonly numbers: number[] = [];
   private readonly idByKey = new Map<string, number>();
-  private column: NumericColumn | null = null;
 
   add(slot: number, raw: unknown): void {
     if (raw === undefined) return;
-    this.existing.add(slot);
-    if (raw === null) this.nulls.add(slot);
-    if (isEmptyValue(raw)) this.empties.add(slot);
-    const ids: number[] = [];
-    const numbers: number[] = [];
-    for (const scalar of facetScalars(raw)) {
-      if (typeof scalar === 'number') {
-        numbers.push(scalar);
-        ids.push(this.valueId(`n:${scalar}`, String(scalar), scalar));
-      } else {
-        const key = normalizeFacetString(scalar);
-        addToMap(this.stringSlots, key, slot);
-        ids.push(this.valueId(`s:${key}`, scalar, NaN));
-      }
+    this.ensureCapacity(slot + 1);
+    this.flags[slot] = EXISTS | (raw === null ? NULL : 0) | (isEmptyValue(raw) ? EMPTY : 0);
+    const ids = [...new Set(facetScalars(raw).map((scalar) => this.valueId(scalar)))];
+    if (ids.length === 1) this.ids[slot] = ids[0];
+    else if (ids.length > 1) {
+      this.ids[slot] = SEVERAL_VALUES;
+      this.several[slot] = ids;
     }
-    if (numbers.length > 0) {
-      this.numberBySlot.set(slot, numbers);
-      this.column = null;
-    }
-    this.bySlotValueIds[slot] = ids.length > 0 ? [...new Set(ids)] : undefined;
   }
 
-  remove(slot: number, raw: unknown): void {
-    if (raw === undefined) return;
-    this.existing.delete(slot);
-    this.nulls.delete(slot);
-    this.empties.delete(slot);
-    for (const scalar of facetScalars(raw)) {
-      if (typeof scalar === 'string') this.stringSlots.get(normalizeFacetString(scalar))?.delete(slot);
-    }
-    if (this.numberBySlot.delete(slot)) this.column = null;
-    this.bySlotValueIds[slot] = undefined;
+  remove(slot: number): void {
+    if (slot >= this.ids.length) return;
+    this.ids[slot] = NO_VALUE;
+    this.flags[slot] = 0;
+    this.several[slot] = undefined;
   }
 
-  equals(value: string, capacity: number): Bitset {
-    const set = Bitset.fromIterable(capacity, this.stringSlots.get(normalizeFacetString(value)) ?? []);
-    const asNumber = parseNumber(value);
-    if (asNumber !== null) set.or(this.range(asNumber, true, asNumber, true, capacity));
-    return set;
+  /** Slots holding `value`, compared as text (case-insensitive) and, when it reads as a number, as a number. */
+  equals(values: string[], capacity: number): Bitset {
+    const wanted = new Uint8Array(this.labels.length);
+    for (const value of values) {
+      const textId = this.idByKey.get(`s:${normalizeFacetString(value)}`);
+      if (textId !== undefined) wanted[textId] = 1;
+      const n = parseNumber(value);
+      const numberId = n === null ? undefined : this.idByKey.get(`n:${n}`);
+      if (numberId !== undefined) wanted[numberId] = 1;
+    }
+    return this.slotsWith(wanted, capacity);
   }
 
   range(from: number, fromInclusive: boolean, to: number, toInclusive: boolean, capacity: number): Bitset {
-    const { values, slots } = this.numericColumn();
-    const set = new Bitset(capacity);
-    let i = fromInclusive ? lowerBound(values, from) : upperBound(values, from);
-    for (; i < values.length; i++) {
-      const v = values[i];
-      if (v > to || (!toInclusive && v === to)) break;
-      set.add(slots[i]);
-    }
-    return set;
+    const wanted = new Uint8Array(this.labels.length);
+    this.numbers.forEach((n, id) => {
+      const aboveFrom = fromInclusive ? n >= from : n > from;
+      const belowTo = toInclusive ? n <= to : n < to;
+      if (aboveFrom && belowTo) wanted[id] = 1;
+    });
+    return this.slotsWith(wanted, capacity);
   }
 
   exists(capacity: number): Bitset {
-    return Bitset.fromIterable(capacity, this.existing);
+    return this.slotsFlagged(EXISTS, capacity);
   }
 
   isNull(capacity: number): Bitset {
-    return Bitset.fromIterable(capacity, this.nulls);
+    return this.slotsFlagged(NULL, capacity);
   }
 
   isEmpty(capacity: number): Bitset {
-    return Bitset.fromIterable(capacity, this.empties);
+    return this.slotsFlagged(EMPTY, capacity);
   }
 
   /** Counts facet values over `slots`; numeric values also yield min/max. */
   distribution(slots: ArrayLike<number>): { counts: Map<string, number>; stats: { min: number; max: number } | null } {
     const tally = new Int32Array(this.labels.length);
-    let min = Infinity;
-    let max = -Infinity;
     for (let i = 0; i < slots.length; i++) {
-      const ids = this.bySlotValueIds[slots[i]];
-      if (ids === undefined) continue;
-      for (const id of ids) {
-        tally[id]++;
-        const n = this.numericValue[id];
-        if (!Number.isNaN(n)) {
-          if (n < min) min = n;
-          if (n > max) max = n;
-        }
-      }
+      const slot = slots[i];
+      const id = slot < this.ids.length ? this.ids[slot] : NO_VALUE;
+      if (id >= 0) tally[id]++;
+      else if (id === SEVERAL_VALUES) for (const each of this.several[slot] ?? []) tally[each]++;
     }
     const counts = new Map<string, number>();
+    let min = Infinity;
+    let max = -Infinity;
     tally.forEach((count, id) => {
-      if (count > 0) counts.set(this.labels[id], count);
+      if (count === 0) return;
+      counts.set(this.labels[id], count);
+      const n = this.numbers[id];
+      if (n < min) min = n;
+      if (n > max) max = n;
     });
     return { counts, stats: min <= max ? { min, max } : null };
   }
 
-  private valueId(key: string, label: string, numeric: number): number {
+  private slotsWith(wanted: Uint8Array, capacity: number): Bitset {
+    const set = new Bitset(capacity);
+    const end = Math.min(capacity, this.ids.length);
+    for (let slot = 0; slot < end; slot++) {
+      const id = this.ids[slot];
+      if (id >= 0) {
+        if (wanted[id] === 1) set.add(slot);
+      } else if (id === SEVERAL_VALUES && this.several[slot]?.some((each) => wanted[each] === 1)) {
+        set.add(slot);
+      }
+    }
+    return set;
+  }
+
+  private slotsFlagged(flag: number, capacity: number): Bitset {
+    const set = new Bitset(capacity);
+    const end = Math.min(capacity, this.flags.length);
+    for (let slot = 0; slot < end; slot++) if ((this.flags[slot] & flag) !== 0) set.add(slot);
+    return set;
+  }
+
+  private valueId(scalar: FacetScalar): number {
+    const key = typeof scalar === 'number' ? `n:${scalar}` : `s:${normalizeFacetString(scalar)}`;
     let id = this.idByKey.get(key);
     if (id === undefined) {
       id = this.labels.length;
       this.idByKey.set(key, id);
-      this.labels.push(label);
-      this.numericValue.push(numeric);
+      this.labels.push(String(scalar));
+      this.numbers.push(typeof scalar === 'number' ? scalar : NaN);
     }
     return id;
   }
 
-  private numericColumn(): NumericColumn {
-    if (this.column) return this.column;
-    const pairs: Array<[number, number]> = [];
-    for (const [slot, numbers] of this.numberBySlot) for (const n of numbers) pairs.push([n, slot]);
-    pairs.sort((a, b) => a[0] - b[0]);
-    this.column = {
-      values: Float64Array.from(pairs, (p) => p[0]),
-      slots: Int32Array.from(pairs, (p) => p[1]),
-    };
-    return this.column;
+  private ensureCapacity(size: number): void {
+    if (size <= this.ids.length) return;
+    const length = Math.max(size, this.ids.length * 2);
+    const ids = new Int32Array(length).fill(NO_VALUE);
+    ids.set(this.ids);
+    const flags = new Uint8Array(length);
+    flags.set(this.flags);
+    this.ids = ids;
+    this.flags = flags;
   }
-}
-
-function addToMap(map: Map<string, Set<number>>, key: string, slot: number): void {
-  let set = map.get(key);
-  if (!set) {
-    set = new Set();
-    map.set(key, set);
-  }
-  set.add(slot);
 }
 
 export function parseNumber(text: string): number | null {
   if (text.trim() === '') return null;
   const n = Number(text);
   return Number.isFinite(n) ? n : null;
-}
-
-function lowerBound(values: Float64Array, target: number): number {
-  let lo = 0;
-  let hi = values.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >>> 1;
-    if (values[mid] < target) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
-}
-
-function upperBound(values: Float64Array, target: number): number {
-  let lo = 0;
-  let hi = values.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >>> 1;
-    if (values[mid] <= target) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
 }

@@ -46,6 +46,7 @@ export class FakeIndex {
   private facets = new Map<string, FacetIndex>();
   private text: MiniSearch<TextEntry>;
   private textFields: string[] = [ALL_FIELDS];
+  private live: Bitset | null = null;
 
   constructor(
     readonly uid: string,
@@ -88,8 +89,10 @@ export class FakeIndex {
     return this.facets.get(attribute);
   }
 
+  /** Slots holding a document; shared between calls, so callers must not change it. */
   liveSlots(): Bitset {
-    return Bitset.fromIterable(this.capacity, this.slotByKey.values());
+    this.live ??= Bitset.fromIterable(this.capacity, this.slotByKey.values());
+    return this.live;
   }
 
   allDocuments(): Document[] {
@@ -109,6 +112,7 @@ export class FakeIndex {
     const slot = existing ?? this.slots.length;
     this.slots[slot] = doc;
     this.slotByKey.set(key, slot);
+    this.live = null;
     this.index(slot, doc);
     this.updatedAt = new Date();
   }
@@ -119,6 +123,7 @@ export class FakeIndex {
     this.unindex(slot);
     this.slots[slot] = undefined;
     this.slotByKey.delete(key);
+    this.live = null;
     this.updatedAt = new Date();
     return true;
   }
@@ -127,6 +132,7 @@ export class FakeIndex {
     const removed = this.documentCount;
     this.slots.length = 0;
     this.slotByKey.clear();
+    this.live = null;
     this.rebuild();
     return removed;
   }
@@ -182,7 +188,7 @@ export class FakeIndex {
   private unindex(slot: number): void {
     const doc = this.slots[slot];
     if (!doc) return;
-    for (const attribute of this.facetAttributes(doc)) this.facets.get(attribute)?.remove(slot, doc[attribute]);
+    for (const attribute of this.facetAttributes(doc)) this.facets.get(attribute)?.remove(slot);
     this.text.discard(slot);
   }
 
