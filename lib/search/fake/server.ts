@@ -21,7 +21,6 @@ const MAX_PAYLOAD_BYTES = 100 * 1024 * 1024;
 const FAKE_VERSION = { commitSha: 'fake', commitDate: '1970-01-01T00:00:00Z', pkgVersion: '1.20.0' };
 
 interface Call {
-  method: string;
   params: URLSearchParams;
   body: () => unknown;
   match: string[];
@@ -137,11 +136,18 @@ async function handle(engine: FakeEngine, apiKey: string | undefined, request: I
   for (const [routeMethod, pattern, handler] of ROUTES) {
     const match = routeMethod === method ? pattern.exec(path) : null;
     if (match) {
-      const groups = match.slice(1).map(decodeURIComponent);
-      return handler(engine, { method, params: url.searchParams, body: () => parseJson(text), match: groups });
+      return handler(engine, { params: url.searchParams, body: () => parseJson(text), match: match.slice(1).map(decodeSegment) });
     }
   }
   throw notFound();
+}
+
+function decodeSegment(segmentText: string): string {
+  try {
+    return decodeURIComponent(segmentText);
+  } catch {
+    throw badRequest('bad_request', `The path segment \`${segmentText}\` is not valid percent-encoding.`);
+  }
 }
 
 function toReply(error: unknown): Reply {
