@@ -4,4 +4,9 @@ export async function register() {
   const { authSecret, env } = await import('./lib/env');
   env();
   authSecret();
+  // Keeps the search index in step with PostgreSQL, also after a search outage.
+  if (process.env.KF_SEARCH_SYNC !== 'off') {
+    const { startSearchSyncLoop } = await import('./lib/search/sync');
+    startSearchSyncLoop();
+  }
 }
