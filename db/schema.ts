@@ -213,3 +213,18 @@ export const moderationActions = pgTable(
   (t) => [index('moderation_actions_created_idx').on(t.createdAt), index('moderation_actions_target_idx').on(t.targetType, t.targetId)],
 );
 export type ModerationAction = typeof moderationActions.$inferSelect;
+
+// Recipes whose search document must be rewritten. Inserted in the same transaction as the
+// change, removed once the search index has taken it, so an outage loses nothing.
+export const searchOutbox = pgTable(
+  'search_outbox',
+  {
+    id: bigint('id', { mode: 'number' }).primaryKey().generatedAlwaysAsIdentity(),
+    recipeId: uuid('recipe_id').notNull(),
+    attempts: integer('attempts').notNull().default(0),
+    lastError: text('last_error'),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('search_outbox_recipe_idx').on(t.recipeId)],
+);
+export type SearchOutboxEntry = typeof searchOutbox.$inferSelect;

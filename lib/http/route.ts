@@ -8,25 +8,30 @@ import { isDatabaseUnavailable } from '@/lib/db-errors';
 
 type Access = 'public' | 'user' | Role;
 
-interface RouteOptions<B extends z.ZodType | undefined> {
+interface RouteOptions<B extends z.ZodType | undefined, Q extends z.ZodType | undefined> {
   access: Access;
   body?: B;
+  /** Schema for the query string (each key's first value). */
+  query?: Q;
   /** Largest accepted body in bytes; checked before the body is read. */
   maxBodyBytes?: number;
 }
 
-interface RouteContext<B, P> {
+interface RouteContext<B, P, Q = unknown> {
   req: NextRequest;
   body: B;
+  query: Q;
   params: P;
   viewer: Viewer | null;
 }
 
-type UserContext<B, P> = RouteContext<B, P> & { viewer: Viewer };
+type UserContext<B, P, Q> = RouteContext<B, P, Q> & { viewer: Viewer };
 
-type Handler<B, P, A extends Access> = (
-  ctx: A extends 'public' ? RouteContext<B, P> : UserContext<B, P>,
+type Handler<B, P, Q, A extends Access> = (
+  ctx: A extends 'public' ? RouteContext<B, P, Q> : UserContext<B, P, Q>,
 ) => Promise<unknown> | unknown;
+
+type Parsed<S> = S extends z.ZodType ? z.infer<S> : undefined;
 
 const MUTATING = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
 
@@ -35,10 +40,12 @@ const MUTATING = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
  * enforces the access level, parses the JSON body with zod and maps errors to plain JSON.
  * Ownership is checked inside the handler, next to the query that loads the row.
  */
-export function route<B extends z.ZodType | undefined = undefined, P = Record<string, string>, A extends Access = Access>(
-  options: RouteOptions<B> & { access: A },
-  handler: Handler<B extends z.ZodType ? z.infer<B> : undefined, P, A>,
-) {
+export function route<
+  B extends z.ZodType | undefined = undefined,
+  P = Record<string, string>,
+  A extends Access = Access,
+  Q extends z.ZodType | undefined = undefined,
+>(options: RouteOptions<B, Q> & { access: A }, handler: Handler<Parsed<B>, P, Parsed<Q>, A>) {
   return async (req: NextRequest, context: { params: Promise<P> }) => {
     const requestId = crypto.randomUUID();
     try {
@@ -51,8 +58,9 @@ export function route<B extends z.ZodType | undefined = undefined, P = Record<st
         }
       }
       const body = options.body ? await parseJsonBody(req, options.body, options.maxBodyBytes ?? 512 * 1024) : undefined;
+      const query = options.query ? parseQuery(req, options.query) : undefined;
       const params = context?.params ? await context.params : ({} as P);
-      const result = await handler({ req, body, params, viewer } as never);
+      const result = await handler({ req, body, query, params, viewer } as never);
       if (result instanceof Response) return result;
       return NextResponse.json(result ?? { ok: true }, { status: req.method === 'POST' ? 201 : 200 });
     } catch (err) {
@@ -97,6 +105,12 @@ async function parseJsonBody<S extends z.ZodType>(req: NextRequest, schema: S, m
   }
   const parsed = schema.safeParse(json);
   if (!parsed.success) throw invalidInput(parsed.error);
+  return parsed.data;
+}
+
+function parseQuery<S extends z.ZodType>(req: NextRequest, schema: S): z.infer<S> {
+  const parsed = schema.safeParse(Object.fromEntries(req.nextUrl.searchParams));
+  if (!parsed.success) throw invalidInput(parsed.error, 'query');
   return parsed.data;
 }
 

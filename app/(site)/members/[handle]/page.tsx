@@ -1,0 +1,51 @@
+import { format } from 'date-fns';
+import { eq } from 'drizzle-orm';
+import type { Metadata } from 'next';
+import { notFound } from 'next/navigation';
+import { Markdown } from '@/components/markdown';
+import { RecipeCard } from '@/components/recipe-card';
+import { db } from '@/db';
+import { users } from '@/db/schema';
+import { getViewer } from '@/lib/auth/session';
+import { listRecipes } from '@/lib/recipes/listing';
+
+type Props = { params: Promise<{ handle: string }> };
+
+async function loadMember(handle: string) {
+  const [member] = await db
+    .select({ id: users.id, name: users.name, handle: users.handle, bio: users.bio, createdAt: users.createdAt, suspendedAt: users.suspendedAt })
+    .from(users)
+    .where(eq(users.handle, handle.slice(0, 40)));
+  if (!member || member.suspendedAt) notFound();
+  return member;
+}
+
+export async function generateMetadata({ params }: Props): Promise<Metadata> {
+  const member = await loadMember((await params).handle);
+  return { title: member.name ?? member.handle };
+}
+
+export default async function MemberPage({ params }: Props) {
+  const member = await loadMember((await params).handle);
+  const viewer = await getViewer();
+  const { cards } = await listRecipes(viewer, { ownerHandle: member.handle });
+  return (
+    <div>
+      <h1 className="text-3xl font-semibold">{member.name ?? member.handle}</h1>
+      <p className="font-sans text-sm text-muted">
+        @{member.handle} · brewing with Kettlefork since {format(member.createdAt, 'MMMM yyyy')}
+      </p>
+      {member.bio && <Markdown source={member.bio} className="mt-3 max-w-2xl" />}
+      <h2 className="mt-8 text-xl font-semibold">Recipes</h2>
+      {cards.length === 0 ? (
+        <p className="mt-2 text-muted">No public recipes yet.</p>
+      ) : (
+        <ul className="mt-4 grid gap-4 md:grid-cols-2">
+          {cards.map((card) => (
+            <RecipeCard key={card.id} card={card} />
+          ))}
+        </ul>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,114 @@
+import { format } from 'date-fns';
+import Link from 'next/link';
+import { RecipeDocumentView } from '@/components/recipe-document';
+import { StatsPanel } from '@/components/stats-panel';
+import type { Viewer } from '@/lib/auth/session';
+import { isOwner } from '@/lib/recipes/access';
+import type { VersionView } from '@/lib/recipes/versions';
+import { getVersionById } from '@/lib/recipes/versions';
+import { ForkForm } from './fork-form';
+import { RestoreButton } from './restore-button';
+import { VisibilitySelect } from './visibility-select';
+
+const VISIBILITY_WORDS = { public: 'Public', unlisted: 'Unlisted: only people with the link', private: 'Private: only you' } as const;
+
+async function forkSource(viewer: Viewer | null, versionId: string | null) {
+  if (!versionId) return null;
+  try {
+    const { recipe, version } = await getVersionById(viewer, versionId);
+    return { title: recipe.title, slug: recipe.slug, number: version.number, ownerName: recipe.ownerName };
+  } catch {
+    return { title: 'a recipe you cannot see', slug: null, number: null, ownerName: null };
+  }
+}
+
+/** A recipe version, read-only, with what its owner and readers can do from here. */
+export async function VersionPage({ viewer, recipe, version }: { viewer: Viewer | null } & VersionView) {
+  const units = viewer?.units ?? 'metric';
+  const owner = isOwner(recipe, viewer);
+  const isHead = version.id === recipe.headVersionId;
+  const source = await forkSource(viewer, recipe.forkedFromVersionId);
+  const base = `/recipes/${recipe.slug}`;
+  return (
+    <article>
+      {recipe.hiddenAt && (
+        <p role="status" className="mb-6 rounded-md border border-danger/40 bg-danger/5 p-3 font-sans text-sm text-danger">
+          Moderators hid this recipe{recipe.hiddenReason ? `: ${recipe.hiddenReason}` : '.'} {owner ? 'Only you and the moderators can see it.' : ''}
+        </p>
+      )}
+      {!isHead && (
+        <p role="status" className="mb-6 rounded-md border border-caution/40 bg-caution/5 p-3 font-sans text-sm">
+          You are reading version {version.number}. The latest is{' '}
+          <Link href={base}>version {recipe.headNumber}</Link>.{' '}
+          <Link href={`/compare?a=${version.id}&b=${recipe.headVersionId}`}>Compare with the latest</Link>
+        </p>
+      )}
+      <header className="flex flex-wrap items-start justify-between gap-4">
+        <div>
+          <h1 className="text-3xl font-semibold md:text-4xl">{version.document.title}</h1>
+          <p className="mt-2 font-sans text-sm text-muted">
+            by <Link href={`/members/${recipe.ownerHandle}`}>{recipe.ownerName}</Link>
+            {version.document.style && (
+              <>
+                {' '}· {version.document.style.code} {version.document.style.name}
+              </>
+            )}{' '}
+            · version {version.number} of {recipe.headNumber} · {VISIBILITY_WORDS[recipe.visibility]}
+          </p>
+          {source && (
+            <p className="mt-1 font-sans text-sm text-muted">
+              Forked from{' '}
+              {source.slug ? (
+                <Link href={`/recipes/${source.slug}/v/${source.number}`}>
+                  {source.title} (version {source.number}) by {source.ownerName}
+                </Link>
+              ) : (
+                source.title
+              )}
+              {source.slug && (
+                <>
+                  {' '}· <Link href={`/compare?a=${recipe.forkedFromVersionId}&b=${recipe.headVersionId}`}>What changed since the fork</Link>
+                </>
+              )}
+            </p>
+          )}
+          <p className="mt-1 font-sans text-sm text-muted">
+            Saved {format(version.createdAt, 'd MMM yyyy')} by {version.authorName}
+            {version.message && <> · “{version.message}”</>}
+          </p>
+        </div>
+        <nav aria-label="Recipe actions" className="flex flex-wrap items-center gap-2 font-sans text-sm">
+          {owner && isHead && (
+            <Link href={`${base}/edit`} className="kf-btn">
+              Edit
+            </Link>
+          )}
+          {owner && !isHead && <RestoreButton recipeId={recipe.id} versionId={version.id} number={version.number} headVersionId={recipe.headVersionId!} />}
+          <Link href={`${base}/history`} className="kf-btn-quiet">
+            History ({recipe.headNumber})
+          </Link>
+          <Link href={`${base}/lineage`} className="kf-btn-quiet">
+            Forks ({recipe.forkCount})
+          </Link>
+        </nav>
+      </header>
+
+      <div className="mt-8 grid gap-8 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+        <RecipeDocumentView doc={version.document} units={units} />
+        <aside className="space-y-6">
+          <StatsPanel stats={version.stats} units={units} />
+          {viewer && !recipe.hiddenAt && (
+            <ForkForm versionId={version.id} defaultTitle={`${version.document.title} (my take)`} number={version.number} />
+          )}
+          {!viewer && (
+            <p className="kf-card font-sans text-sm">
+              <Link href={`/sign-in?callbackUrl=${encodeURIComponent(`${base}/v/${version.number}`)}`}>Sign in</Link> to fork this recipe and brew
+              it your way.
+            </p>
+          )}
+          {owner && <VisibilitySelect recipeId={recipe.id} visibility={recipe.visibility} />}
+        </aside>
+      </div>
+    </article>
+  );
+}

@@ -1,0 +1,188 @@
+import Link from 'next/link';
+import type { ChangeStatus, DocumentComparison, ItemComparison, SectionComparison, StatDelta } from '@/lib/recipes/compare';
+
+const SECTION_TITLE: Record<SectionComparison['section'], string> = {
+  settings: 'Batch and style',
+  fermentables: 'Fermentables',
+  hops: 'Hops',
+  yeasts: 'Yeast',
+  mash: 'Mash',
+  fermentation: 'Fermentation',
+  water: 'Water',
+  salts: 'Water salts',
+  carbonation: 'Carbonation',
+};
+
+const STATUS_STYLE: Record<ChangeStatus, string> = {
+  added: 'border-l-4 border-bine bg-bine/10',
+  removed: 'border-l-4 border-danger bg-danger/5',
+  changed: 'border-l-4 border-copper bg-copper/5',
+  same: 'border-l-4 border-transparent',
+};
+
+const STATUS_WORD: Record<ChangeStatus, string> = { added: 'added', removed: 'removed', changed: 'changed', same: 'same' };
+
+const STAT_LABEL: Record<string, { label: string; digits: number }> = {
+  og: { label: 'OG', digits: 3 },
+  fg: { label: 'FG', digits: 3 },
+  abv: { label: 'ABV %', digits: 2 },
+  ibu: { label: 'IBU', digits: 1 },
+  srm: { label: 'Colour (SRM)', digits: 1 },
+  ebc: { label: 'Colour (EBC)', digits: 1 },
+  buGu: { label: 'BU:GU', digits: 2 },
+  caloriesPer355mL: { label: 'kcal per 355 mL', digits: 0 },
+  attenuationPct: { label: 'Attenuation %', digits: 1 },
+  sulfateToChloride: { label: 'Sulfate : chloride', digits: 2 },
+  residualAlkalinity: { label: 'Residual alkalinity', digits: 0 },
+  kegPressureKPa: { label: 'Keg pressure (kPa)', digits: 0 },
+};
+
+function describe(values: Record<string, unknown> | null): string {
+  if (!values) return '';
+  return Object.entries(values)
+    .filter(([k]) => k !== 'name')
+    .map(([k, v]) => `${k} ${v}`)
+    .join(' · ');
+}
+
+function Item({ item }: { item: ItemComparison }) {
+  return (
+    <li className={`rounded-sm px-3 py-2 ${STATUS_STYLE[item.status]}`}>
+      <p className="font-semibold">
+        {item.label} <span className="ml-1 font-sans text-xs font-normal uppercase tracking-wide text-muted">{STATUS_WORD[item.status]}</span>
+      </p>
+      {item.status === 'changed' && (
+        <ul className="kf-data mt-1 text-sm">
+          {item.changes.map((c) => (
+            <li key={c.field}>
+              {c.field}: <del className="text-danger">{String(c.before ?? '—')}</del> → <ins className="text-bine no-underline">{String(c.after ?? '—')}</ins>
+            </li>
+          ))}
+        </ul>
+      )}
+      {(item.status === 'added' || item.status === 'removed') && (
+        <p className="kf-data mt-1 text-sm text-muted">{describe(item.status === 'added' ? item.after : item.before)}</p>
+      )}
+    </li>
+  );
+}
+
+function StatRow({ row }: { row: StatDelta }) {
+  const meta = STAT_LABEL[row.stat] ?? { label: row.stat, digits: 2 };
+  const fmt = (n: number | null) => (n === null ? '—' : n.toFixed(meta.digits));
+  const moved = row.delta !== null && Number(row.delta.toFixed(meta.digits)) !== 0;
+  return (
+    <tr className={`border-b border-line/50 ${moved ? 'font-semibold' : ''}`}>
+      <th scope="row" className="py-1.5 pr-3 text-left font-normal">
+        {meta.label}
+      </th>
+      <td className="py-1.5 pr-3">{fmt(row.before)}</td>
+      <td className="py-1.5 pr-3">{fmt(row.after)}</td>
+      <td className={`py-1.5 ${moved ? 'text-copper-strong' : 'text-muted'}`}>
+        {row.delta === null ? '—' : `${row.delta > 0 ? '+' : ''}${row.delta.toFixed(meta.digits)}`}
+      </td>
+    </tr>
+  );
+}
+
+export interface CompareSide {
+  title: string;
+  slug: string;
+  number: number;
+  ownerName: string;
+}
+
+/** Two versions side by side: what changed in the ingredients, every number with its delta, and the notes. */
+export function CompareView({ a, b, comparison, showUnchanged }: { a: CompareSide; b: CompareSide; comparison: DocumentComparison; showUnchanged: boolean }) {
+  const sides = [a, b];
+  return (
+    <div className="space-y-10">
+      <div className="grid gap-3 sm:grid-cols-2">
+        {sides.map((s, i) => (
+          <div key={i} className="kf-card">
+            <p className="font-sans text-xs uppercase tracking-wide text-muted">{i === 0 ? 'From' : 'To'}</p>
+            <p className="text-lg font-semibold">
+              <Link href={`/recipes/${s.slug}/v/${s.number}`}>
+                {s.title}, version {s.number}
+              </Link>
+            </p>
+            <p className="font-sans text-sm text-muted">by {s.ownerName}</p>
+          </div>
+        ))}
+      </div>
+      <section aria-labelledby="numbers-heading">
+        <h2 id="numbers-heading" className="text-xl font-semibold">
+          Numbers
+        </h2>
+        <div className="mt-3 overflow-x-auto">
+          <table className="kf-data w-full max-w-2xl border-collapse text-sm">
+            <thead>
+              <tr className="border-b border-line text-left text-muted">
+                <th scope="col" className="py-1.5 pr-3">Number</th>
+                <th scope="col" className="py-1.5 pr-3">Version {a.number}</th>
+                <th scope="col" className="py-1.5 pr-3">Version {b.number}</th>
+                <th scope="col" className="py-1.5">Change</th>
+              </tr>
+            </thead>
+            <tbody>
+              {comparison.stats.map((row) => (
+                <StatRow key={row.stat} row={row} />
+              ))}
+            </tbody>
+          </table>
+        </div>
+      </section>
+      <section aria-labelledby="ingredients-heading">
+        <h2 id="ingredients-heading" className="text-xl font-semibold">
+          Ingredients and schedule{' '}
+          <span className="font-sans text-sm font-normal text-muted">
+            ({comparison.changeCount} {comparison.changeCount === 1 ? 'difference' : 'differences'})
+          </span>
+        </h2>
+        <p className="mt-1 font-sans text-sm">
+          <span className="text-muted">{showUnchanged ? 'Showing every ingredient.' : 'Showing differences only.'}</span>
+        </p>
+        <div className="mt-4 grid gap-6 md:grid-cols-2">
+          {comparison.sections.map((section) => {
+            const items = showUnchanged ? section.items : section.items.filter((i) => i.status !== 'same');
+            if (!items.length) return null;
+            return (
+              <div key={section.section}>
+                <h3 className="font-semibold">{SECTION_TITLE[section.section]}</h3>
+                <ul className="mt-2 space-y-2 font-sans text-sm">
+                  {items.map((item, i) => (
+                    <Item key={i} item={item} />
+                  ))}
+                </ul>
+              </div>
+            );
+          })}
+          {comparison.changeCount === 0 && <p className="font-sans text-sm text-muted">The ingredients and schedules are the same.</p>}
+        </div>
+      </section>
+      <section aria-labelledby="notes-diff-heading">
+        <h2 id="notes-diff-heading" className="text-xl font-semibold">
+          Notes
+        </h2>
+        <p className="mt-1 font-sans text-xs text-muted">
+          <ins className="bg-bine/15 no-underline">Added words</ins> and <del className="bg-danger/10">removed words</del> are marked.
+        </p>
+        <p className="kf-card mt-3 whitespace-pre-wrap leading-relaxed">
+          {comparison.notes.map((part, i) =>
+            part.added ? (
+              <ins key={i} className="bg-bine/15 no-underline">
+                {part.value}
+              </ins>
+            ) : part.removed ? (
+              <del key={i} className="bg-danger/10">
+                {part.value}
+              </del>
+            ) : (
+              <span key={i}>{part.value}</span>
+            ),
+          )}
+        </p>
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,87 @@
+import 'server-only';
+import { and, desc, eq, isNull, sql } from 'drizzle-orm';
+import { db } from '@/db';
+import { recipeVersions, recipes, users } from '@/db/schema';
+import type { Viewer } from '@/lib/auth/session';
+import { compareDocuments, type DocumentComparison } from './compare';
+import { getVersionById, type VersionView } from './versions';
+
+export interface RecipeCard {
+  id: string;
+  slug: string;
+  title: string;
+  ownerName: string;
+  ownerHandle: string;
+  visibility: 'public' | 'unlisted' | 'private';
+  hidden: boolean;
+  styleCode: string | null;
+  styleName: string | null;
+  og: number;
+  fg: number;
+  abv: number;
+  ibu: number;
+  srm: number;
+  forkCount: number;
+  starCount: number;
+  headNumber: number;
+  updatedAt: Date;
+}
+
+const PAGE_SIZE = 24;
+
+/**
+ * Recipe cards, newest first. Others' recipes appear only when public and not hidden; an owner
+ * listing their own sees all of theirs.
+ */
+export async function listRecipes(viewer: Pick<Viewer, 'id'> | null, opts: { ownerHandle?: string; page?: number } = {}): Promise<{ cards: RecipeCard[]; hasMore: boolean }> {
+  const page = opts.page ?? 1;
+  const owner = opts.ownerHandle ? await db.select({ id: users.id }).from(users).where(eq(users.handle, opts.ownerHandle)) : [];
+  if (opts.ownerHandle && !owner.length) return { cards: [], hasMore: false };
+  const ownListing = Boolean(viewer && owner[0]?.id === viewer.id);
+  const conditions = [
+    owner[0] ? eq(recipes.ownerId, owner[0].id) : undefined,
+    ownListing ? undefined : and(eq(recipes.visibility, 'public'), isNull(recipes.hiddenAt)),
+  ].filter(Boolean);
+  const rows = await db
+    .select({
+      id: recipes.id,
+      slug: recipes.slug,
+      title: recipes.title,
+      ownerName: users.name,
+      ownerHandle: users.handle,
+      visibility: recipes.visibility,
+      hiddenAt: recipes.hiddenAt,
+      styleCode: recipeVersions.styleCode,
+      styleName: sql<string | null>`${recipeVersions.document} -> 'style' ->> 'name'`,
+      og: recipeVersions.og,
+      fg: recipeVersions.fg,
+      abv: recipeVersions.abv,
+      ibu: recipeVersions.ibu,
+      srm: recipeVersions.srm,
+      forkCount: recipes.forkCount,
+      starCount: recipes.starCount,
+      headNumber: recipes.headNumber,
+      updatedAt: recipes.updatedAt,
+    })
+    .from(recipes)
+    .innerJoin(users, eq(users.id, recipes.ownerId))
+    .innerJoin(recipeVersions, eq(recipeVersions.id, recipes.headVersionId))
+    .where(and(...conditions))
+    .orderBy(desc(recipes.updatedAt))
+    .limit(PAGE_SIZE + 1)
+    .offset((page - 1) * PAGE_SIZE);
+  const cards = rows.slice(0, PAGE_SIZE).map(({ hiddenAt, ownerName, ...r }) => ({ ...r, ownerName: ownerName ?? r.ownerHandle, hidden: Boolean(hiddenAt) }));
+  return { cards, hasMore: rows.length > PAGE_SIZE };
+}
+
+export interface VersionComparison {
+  a: VersionView;
+  b: VersionView;
+  comparison: DocumentComparison;
+}
+
+/** Any two versions the viewer can see, of one recipe or across forks. */
+export async function compareVersions(viewer: Pick<Viewer, 'id' | 'role'> | null, aId: string, bId: string): Promise<VersionComparison> {
+  const [a, b] = await Promise.all([getVersionById(viewer, aId), getVersionById(viewer, bId)]);
+  return { a, b, comparison: compareDocuments(a.version.document, b.version.document, a.version.stats, b.version.stats) };
+}

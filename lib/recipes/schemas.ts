@@ -1,0 +1,54 @@
+import { z } from 'zod';
+import { recipeDocumentSchema } from '@/lib/brewing';
+
+export const VISIBILITIES = ['public', 'unlisted', 'private'] as const;
+export type Visibility = (typeof VISIBILITIES)[number];
+
+export const visibilitySchema = z.enum(VISIBILITIES, { error: 'Visibility must be public, unlisted or private.' });
+
+const versionMessage = z
+  .string({ error: 'Say in a few words what changed.' })
+  .trim()
+  .max(200, 'Keep the message under 200 characters.');
+
+const idSchema = (label: string) => z.uuid({ error: `${label} must be a version id.` });
+
+export const createRecipeSchema = z.object({
+  document: recipeDocumentSchema,
+  visibility: visibilitySchema.default('public'),
+  message: versionMessage.default(''),
+});
+export type CreateRecipeInput = z.input<typeof createRecipeSchema>;
+
+export const saveVersionSchema = z.object({
+  document: recipeDocumentSchema,
+  baseVersionId: idSchema('The version you started from'),
+  message: versionMessage.min(1, 'Say in a few words what changed.'),
+});
+export type SaveVersionInput = z.input<typeof saveVersionSchema>;
+
+export const restoreVersionSchema = z.object({
+  versionId: idSchema('The version to restore'),
+  baseVersionId: idSchema('The version you started from'),
+  message: versionMessage.optional(),
+});
+
+export const forkSchema = z.object({
+  title: z.string({ error: 'Give your fork a title.' }).trim().min(1, 'Give your fork a title.').max(120, 'Keep the title under 120 characters.'),
+  visibility: visibilitySchema.default('public'),
+});
+export type ForkInput = z.input<typeof forkSchema>;
+
+export const updateRecipeSchema = z.object({ visibility: visibilitySchema });
+
+export const computeStatsSchema = z.object({ document: recipeDocumentSchema });
+
+export const compareQuerySchema = z.object({
+  a: idSchema('Version a'),
+  b: idSchema('Version b'),
+});
+
+export const listRecipesQuerySchema = z.object({
+  owner: z.string().trim().max(40, 'Owner handle is too long.').optional(),
+  page: z.coerce.number({ error: 'Page must be a whole number.' }).int('Page must be a whole number.').min(1, 'Page starts at 1.').max(1000, 'Page must be at most 1000.').default(1),
+});

@@ -1,0 +1,304 @@
+import 'server-only';
+import { and, desc, eq, sql } from 'drizzle-orm';
+import { db, type Transaction } from '@/db';
+import { recipeVersions, recipes, users, type Recipe, type RecipeVersion } from '@/db/schema';
+import { computeStats, ENGINE_VERSION, recipeDocumentSchema, type RecipeDocument, type RecipeStats } from '@/lib/brewing';
+import type { Viewer } from '@/lib/auth/session';
+import { AppError } from '@/lib/errors';
+import { canView, isOwner } from './access';
+import type { Visibility } from './schemas';
+import { slugFor } from './slug';
+import { afterRecipeCommit, recordRecipeChange } from './events';
+
+export interface SavedVersion {
+  recipe: { id: string; slug: string };
+  version: { id: string; number: number };
+}
+
+type VersionRow = typeof recipeVersions.$inferInsert;
+
+/** The row for a new version: the document with its freshly computed numbers. */
+function versionRow(
+  doc: RecipeDocument,
+  fields: { recipeId: string; number: number; parentVersionId: string | null; authorId: string; message: string; coAuthorId?: string | null },
+): VersionRow {
+  const stats = computeStats(doc);
+  return {
+    ...fields,
+    document: doc,
+    stats,
+    og: stats.og,
+    fg: stats.fg,
+    abv: stats.abv,
+    ibu: stats.ibu,
+    srm: stats.srm,
+    styleCode: doc.style?.code ?? null,
+    engineVersion: ENGINE_VERSION,
+  };
+}
+
+async function insertRecipeWithFirstVersion(
+  tx: Transaction,
+  opts: { ownerId: string; doc: RecipeDocument; visibility: Visibility; message: string; forkedFromVersionId: string | null },
+): Promise<SavedVersion> {
+  const [recipe] = await tx
+    .insert(recipes)
+    .values({
+      slug: slugFor(opts.doc.title),
+      ownerId: opts.ownerId,
+      title: opts.doc.title,
+      visibility: opts.visibility,
+      forkedFromVersionId: opts.forkedFromVersionId,
+    })
+    .returning({ id: recipes.id, slug: recipes.slug });
+  const [version] = await tx
+    .insert(recipeVersions)
+    .values(
+      versionRow(opts.doc, {
+        recipeId: recipe.id,
+        number: 1,
+        parentVersionId: opts.forkedFromVersionId,
+        authorId: opts.ownerId,
+        message: opts.message,
+      }),
+    )
+    .returning({ id: recipeVersions.id, number: recipeVersions.number });
+  await tx.update(recipes).set({ headVersionId: version.id, headNumber: 1 }).where(eq(recipes.id, recipe.id));
+  await recordRecipeChange(tx, recipe.id);
+  return { recipe, version };
+}
+
+/** A new recipe with its first version, in one transaction. */
+export async function createRecipe(
+  viewer: Viewer,
+  input: { document: RecipeDocument; visibility: Visibility; message: string },
+): Promise<SavedVersion> {
+  const saved = await db.transaction((tx) =>
+    insertRecipeWithFirstVersion(tx, {
+      ownerId: viewer.id,
+      doc: input.document,
+      visibility: input.visibility,
+      message: input.message || 'First version',
+      forkedFromVersionId: null,
+    }),
+  );
+  afterRecipeCommit();
+  return saved;
+}
+
+export interface HeadSummary {
+  id: string;
+  number: number;
+  message: string;
+  authorName: string;
+  createdAt: Date;
+  document: RecipeDocument;
+}
+
+async function headSummary(tx: Transaction | typeof db, versionId: string): Promise<HeadSummary> {
+  const [row] = await tx
+    .select({
+      id: recipeVersions.id,
+      number: recipeVersions.number,
+      message: recipeVersions.message,
+      authorName: users.name,
+      createdAt: recipeVersions.createdAt,
+      document: recipeVersions.document,
+    })
+    .from(recipeVersions)
+    .innerJoin(users, eq(users.id, recipeVersions.authorId))
+    .where(eq(recipeVersions.id, versionId));
+  return { ...row, authorName: row.authorName ?? 'a brewer', document: row.document as RecipeDocument };
+}
+
+/**
+ * Appends a version to a recipe the viewer owns. The save names the version it was based on;
+ * if the head has moved since, nothing is written and a 409 carries the newer head.
+ * The row lock on the recipe makes concurrent saves take turns.
+ */
+export async function saveVersion(
+  viewer: Viewer,
+  recipeId: string,
+  input: { document: RecipeDocument; baseVersionId: string; message: string; coAuthorId?: string | null },
+): Promise<SavedVersion> {
+  const saved = await db.transaction(async (tx) => {
+    const [recipe] = await tx.select().from(recipes).where(eq(recipes.id, recipeId)).for('update');
+    if (!recipe || !canView(recipe, viewer)) throw new AppError('not_found', 'recipe');
+    if (!isOwner(recipe, viewer)) throw new AppError('forbidden', 'recipe', 'Only the owner can save versions of this recipe. Fork it to make your own.');
+    if (recipe.headVersionId !== input.baseVersionId) {
+      const head = await headSummary(tx, recipe.headVersionId!);
+      throw new AppError(
+        'conflict',
+        'recipe',
+        `Version ${head.number} was saved after the version you started from. Your changes are kept; look at what changed, then save on top of it.`,
+        [],
+        { head },
+      );
+    }
+    const number = recipe.headNumber + 1;
+    const [version] = await tx
+      .insert(recipeVersions)
+      .values(
+        versionRow(input.document, {
+          recipeId,
+          number,
+          parentVersionId: recipe.headVersionId,
+          authorId: viewer.id,
+          coAuthorId: input.coAuthorId ?? null,
+          message: input.message,
+        }),
+      )
+      .returning({ id: recipeVersions.id, number: recipeVersions.number });
+    await tx
+      .update(recipes)
+      .set({ headVersionId: version.id, headNumber: number, title: input.document.title, updatedAt: new Date() })
+      .where(eq(recipes.id, recipeId));
+    await recordRecipeChange(tx, recipeId);
+    return { recipe: { id: recipe.id, slug: recipe.slug }, version };
+  });
+  afterRecipeCommit();
+  return saved;
+}
+
+/** Restoring makes a new version holding an older version's document; history is never rewritten. */
+export async function restoreVersion(
+  viewer: Viewer,
+  recipeId: string,
+  input: { versionId: string; baseVersionId: string; message?: string },
+): Promise<SavedVersion> {
+  const [old] = await db
+    .select({ number: recipeVersions.number, document: recipeVersions.document })
+    .from(recipeVersions)
+    .where(and(eq(recipeVersions.id, input.versionId), eq(recipeVersions.recipeId, recipeId)));
+  if (!old) throw new AppError('not_found', 'version');
+  // Documents written by an older engine are re-checked (and given today's defaults) on the way in.
+  const document = recipeDocumentSchema.parse(old.document);
+  return saveVersion(viewer, recipeId, {
+    document,
+    baseVersionId: input.baseVersionId,
+    message: input.message || `Restored version ${old.number}`,
+  });
+}
+
+export interface VersionView {
+  recipe: Recipe & { ownerName: string; ownerHandle: string };
+  version: RecipeVersion & { authorName: string; authorHandle: string; document: RecipeDocument; stats: RecipeStats };
+}
+
+/** One version and its recipe, if the viewer may see it (404 otherwise, never a hint that it exists). */
+export async function getVersionById(viewer: Pick<Viewer, 'id' | 'role'> | null, versionId: string): Promise<VersionView> {
+  const [row] = await db
+    .select({ version: recipeVersions, recipe: recipes, authorName: users.name, authorHandle: users.handle })
+    .from(recipeVersions)
+    .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+    .innerJoin(users, eq(users.id, recipeVersions.authorId))
+    .where(eq(recipeVersions.id, versionId));
+  if (!row || !canView(row.recipe, viewer)) throw new AppError('not_found', 'version');
+  return withOwner(row.recipe, row.version, row.authorName, row.authorHandle);
+}
+
+export async function getVersionByNumber(viewer: Pick<Viewer, 'id' | 'role'> | null, recipeId: string, number: number): Promise<VersionView> {
+  const [row] = await db
+    .select({ id: recipeVersions.id })
+    .from(recipeVersions)
+    .where(and(eq(recipeVersions.recipeId, recipeId), eq(recipeVersions.number, number)));
+  if (!row) throw new AppError('not_found', 'version');
+  return getVersionById(viewer, row.id);
+}
+
+async function withOwner(recipe: Recipe, version: RecipeVersion, authorName: string | null, authorHandle: string): Promise<VersionView> {
+  const [owner] = await db.select({ name: users.name, handle: users.handle }).from(users).where(eq(users.id, recipe.ownerId));
+  return {
+    recipe: { ...recipe, ownerName: owner.name ?? owner.handle, ownerHandle: owner.handle },
+    version: {
+      ...version,
+      authorName: authorName ?? authorHandle,
+      authorHandle,
+      document: version.document as RecipeDocument,
+      stats: version.stats as RecipeStats,
+    },
+  };
+}
+
+/** A recipe by slug or id, if the viewer may see it. */
+export async function getRecipe(viewer: Pick<Viewer, 'id' | 'role'> | null, key: { slug?: string; id?: string }): Promise<Recipe> {
+  const where = key.id ? eq(recipes.id, key.id) : eq(recipes.slug, key.slug ?? '');
+  if (key.id && !/^[0-9a-f-]{36}$/i.test(key.id)) throw new AppError('not_found', 'recipe');
+  const [recipe] = await db.select().from(recipes).where(where);
+  if (!recipe || !canView(recipe, viewer)) throw new AppError('not_found', 'recipe');
+  return recipe;
+}
+
+export interface HistoryEntry {
+  id: string;
+  number: number;
+  message: string;
+  authorName: string;
+  authorHandle: string;
+  coAuthorName: string | null;
+  createdAt: Date;
+  og: number;
+  fg: number;
+  abv: number;
+  ibu: number;
+  srm: number;
+}
+
+/** Every version of a recipe, newest first, with the numbers the timeline shows. */
+export async function getVersionsByRecipeId({ recipeId }: { recipeId: string }): Promise<HistoryEntry[]> {
+  const coAuthor = sql<string | null>`(select coalesce(name, handle) from users c where c.id = ${recipeVersions.coAuthorId})`;
+  const rows = await db
+    .select({
+      id: recipeVersions.id,
+      number: recipeVersions.number,
+      message: recipeVersions.message,
+      authorName: users.name,
+      authorHandle: users.handle,
+      coAuthorName: coAuthor,
+      createdAt: recipeVersions.createdAt,
+      og: recipeVersions.og,
+      fg: recipeVersions.fg,
+      abv: recipeVersions.abv,
+      ibu: recipeVersions.ibu,
+      srm: recipeVersions.srm,
+    })
+    .from(recipeVersions)
+    .innerJoin(users, eq(users.id, recipeVersions.authorId))
+    .where(eq(recipeVersions.recipeId, recipeId))
+    .orderBy(desc(recipeVersions.number));
+  return rows.map((r) => ({ ...r, authorName: r.authorName ?? r.authorHandle }));
+}
+
+/** Forks a version the viewer can see into a new recipe of theirs, remembering the exact source version. */
+export async function forkRecipe(viewer: Viewer, versionId: string, input: { title: string; visibility: Visibility }): Promise<SavedVersion> {
+  const source = await getVersionById(viewer, versionId);
+  const document = recipeDocumentSchema.parse({ ...source.version.document, title: input.title });
+  const saved = await db.transaction(async (tx) => {
+    const created = await insertRecipeWithFirstVersion(tx, {
+      ownerId: viewer.id,
+      doc: document,
+      visibility: input.visibility,
+      message: `Forked from ${source.recipe.title} (version ${source.version.number})`,
+      forkedFromVersionId: versionId,
+    });
+    await tx
+      .update(recipes)
+      .set({ forkCount: sql`${recipes.forkCount} + 1` })
+      .where(eq(recipes.id, source.recipe.id));
+    await recordRecipeChange(tx, source.recipe.id);
+    return created;
+  });
+  afterRecipeCommit();
+  return saved;
+}
+
+/** The owner changes who can see a recipe. */
+export async function setVisibility(viewer: Viewer, recipeId: string, visibility: Visibility): Promise<void> {
+  const recipe = await getRecipe(viewer, { id: recipeId });
+  if (!isOwner(recipe, viewer)) throw new AppError('forbidden', 'recipe', 'Only the owner can change who sees this recipe.');
+  await db.transaction(async (tx) => {
+    await tx.update(recipes).set({ visibility, updatedAt: new Date() }).where(eq(recipes.id, recipeId));
+    await recordRecipeChange(tx, recipeId);
+  });
+  afterRecipeCommit();
+}
