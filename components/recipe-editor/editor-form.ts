@@ -1,0 +1,107 @@
+import type { z } from 'zod';
+import type { RecipeDocumentInput } from '@/lib/brewing/schema';
+import { createRecipeSchema, saveVersionSchema, type Visibility } from '@/lib/recipes/schemas';
+
+/**
+ * The editor's form: the same body the server checks, without the base
+ * version id (the editor keeps that itself), so a server error's path such as
+ * `document.hops.2.alphaPct` names a form field as it is.
+ */
+export const editVersionFormSchema = saveVersionSchema.omit({ baseVersionId: true });
+
+export function editorFormSchema(mode: 'create' | 'edit') {
+  return mode === 'create' ? createRecipeSchema : editVersionFormSchema;
+}
+
+export interface EditorValues {
+  document: RecipeDocumentInput;
+  message: string;
+  visibility: Visibility;
+}
+
+export type CreateBody = z.output<typeof createRecipeSchema>;
+export type EditBody = z.output<typeof editVersionFormSchema>;
+
+export const MESSAGE_MAX_LENGTH = 200;
+
+/**
+ * An input left empty. The form holds it as undefined so the schema answers
+ * "… is required"; the document type has no room for that, hence the cast.
+ */
+export function emptyNumber(): number {
+  return undefined as unknown as number;
+}
+
+export function newFermentable(): RecipeDocumentInput['fermentables'][number] {
+  return { name: '', amountKg: emptyNumber(), potentialPpg: emptyNumber(), colorLovibond: emptyNumber(), kind: 'grain' };
+}
+
+export function newHop(): RecipeDocumentInput['hops'][number] {
+  return { name: '', amountG: emptyNumber(), alphaPct: emptyNumber(), use: 'boil', timeMin: emptyNumber(), form: 'pellet' };
+}
+
+export function newYeast(): RecipeDocumentInput['yeasts'][number] {
+  return { name: '', kind: 'ale', attenuationPct: emptyNumber() };
+}
+
+export function newMashStep(): RecipeDocumentInput['mash']['steps'][number] {
+  return { tempC: emptyNumber(), timeMin: emptyNumber() };
+}
+
+export function newFermentationStep(): RecipeDocumentInput['fermentation']['steps'][number] {
+  return { tempC: emptyNumber(), days: emptyNumber() };
+}
+
+/** Water switched on starts from zero ions: distilled or reverse-osmosis water. */
+export function newWater(): NonNullable<RecipeDocumentInput['water']> {
+  return {
+    volumeL: emptyNumber(),
+    source: { calcium: 0, magnesium: 0, sodium: 0, chloride: 0, sulfate: 0, bicarbonate: 0 },
+    salts: [],
+  };
+}
+
+export function newCarbonation(): NonNullable<RecipeDocumentInput['carbonation']> {
+  return { volumesCO2: emptyNumber(), servingTempC: emptyNumber() };
+}
+
+export interface ServerFieldIssue {
+  path: string;
+  message: string;
+}
+
+/** Paths the editor shows an input (or a list) for; anything else goes into the summary. */
+const PLACEABLE_PATHS: readonly RegExp[] = [
+  /^(message|visibility)$/,
+  /^document\.(title|notes|style)$/,
+  /^document\.batch\.(volumeL|boilTimeMin|efficiencyPct|boilOffLPerHour|trubLossL|grainAbsorptionLPerKg|mashWaterLPerKg)$/,
+  /^document\.(fermentables|hops|yeasts|mash\.steps|fermentation\.steps|water\.salts)$/,
+  /^document\.fermentables\.\d+\.(name|amountKg|potentialPpg|colorLovibond|kind)$/,
+  /^document\.hops\.\d+\.(name|amountG|alphaPct|use|timeMin|form|tempC)$/,
+  /^document\.yeasts\.\d+\.(name|kind|attenuationPct|tempMinC|tempMaxC)$/,
+  /^document\.mash\.steps\.\d+\.(name|tempC|timeMin)$/,
+  /^document\.fermentation\.steps\.\d+\.(tempC|days)$/,
+  /^document\.water\.(volumeL|source\.(calcium|magnesium|sodium|chloride|sulfate|bicarbonate))$/,
+  /^document\.water\.salts\.\d+\.(salt|grams)$/,
+  /^document\.carbonation\.(volumesCO2|servingTempC)$/,
+];
+
+/** The style's code and name are one choice in the editor. */
+function editorPath(path: string): string {
+  return path.startsWith('document.style.') ? 'document.style' : path;
+}
+
+/** Splits a server's field issues into those an input can show and those only the summary can. */
+export function placeServerIssues(issues: readonly ServerFieldIssue[]): {
+  placed: ServerFieldIssue[];
+  unplaced: ServerFieldIssue[];
+} {
+  const placed: ServerFieldIssue[] = [];
+  const unplaced: ServerFieldIssue[] = [];
+  for (const issue of issues) {
+    const path = editorPath(issue.path);
+    if (PLACEABLE_PATHS.some((pattern) => pattern.test(path))) placed.push({ path, message: issue.message });
+    else unplaced.push(issue);
+  }
+  return { placed, unplaced };
+}

@@ -1,0 +1,108 @@
+'use client';
+
+import { useEffect, useState } from 'react';
+import type { UseFormReturn } from 'react-hook-form';
+import { StatsPanel } from '@/components/stats-panel';
+import { formatIssues, recipeDocumentSchema, type FieldIssue } from '@/lib/brewing/schema';
+import { computeStats, type RecipeStats } from '@/lib/brewing/stats';
+import type { UnitSystem } from '@/lib/brewing/units';
+import { fieldId } from './editor-fields';
+import type { EditorValues } from './editor-form';
+
+/** Long enough to skip most keystrokes in a burst, short enough to feel live. */
+const RECOMPUTE_DELAY_MS = 150;
+const ISSUES_SHOWN = 3;
+
+export interface LiveStats {
+  /** The last numbers of a valid document; null until there has been one. */
+  stats: RecipeStats | null;
+  /** False while the form holds something the schema refuses: the numbers are older than the form. */
+  current: boolean;
+  issues: FieldIssue[];
+}
+
+function evaluate(document: unknown, previous: RecipeStats | null): LiveStats {
+  const parsed = recipeDocumentSchema.safeParse(document);
+  if (parsed.success) return { stats: computeStats(parsed.data), current: true, issues: [] };
+  return { stats: previous, current: false, issues: formatIssues(parsed.error) };
+}
+
+/** The recipe's numbers, recomputed shortly after each change while the document is valid. */
+export function useLiveStats(form: UseFormReturn<EditorValues, unknown, unknown>): LiveStats {
+  const { subscribe, getValues } = form;
+  const [live, setLive] = useState<LiveStats>(() => evaluate(getValues('document'), null));
+  useEffect(() => {
+    let timer: ReturnType<typeof setTimeout> | undefined;
+    const unsubscribe = subscribe({
+      formState: { values: true },
+      callback: () => {
+        clearTimeout(timer);
+        timer = setTimeout(() => setLive((previous) => evaluate(getValues('document'), previous.stats)), RECOMPUTE_DELAY_MS);
+      },
+    });
+    return () => {
+      clearTimeout(timer);
+      unsubscribe();
+    };
+  }, [subscribe, getValues]);
+  return live;
+}
+
+function focusField(path: string): void {
+  const element = document.getElementById(fieldId(`document.${path}`));
+  if (element) element.focus();
+}
+
+function StaleNote({ issues }: { issues: FieldIssue[] }) {
+  return (
+    <div role="status" className="mb-3 rounded-md border border-caution p-3 font-sans text-sm">
+      <p className="font-semibold text-caution">Fix the marked fields to update the numbers.</p>
+      <ul className="mt-1 space-y-1">
+        {issues.slice(0, ISSUES_SHOWN).map((issue) => (
+          <li key={`${issue.path}:${issue.message}`}>
+            <button type="button" className="text-left text-copper-strong underline underline-offset-2" onClick={() => focusField(issue.path)}>
+              {issue.message}
+            </button>
+          </li>
+        ))}
+      </ul>
+      {issues.length > ISSUES_SHOWN && <p className="mt-1 text-muted">and {issues.length - ISSUES_SHOWN} more</p>}
+    </div>
+  );
+}
+
+export function LiveNumbers({ live, units }: { live: LiveStats; units: UnitSystem }) {
+  return (
+    <section id="numbers" aria-labelledby="numbers-title" className="kf-card">
+      <h2 id="numbers-title" className="text-xl font-semibold">
+        Numbers
+      </h2>
+      <p className="mb-3 font-sans text-xs text-muted">Worked out as you type, with the same formulas used when you save.</p>
+      {!live.current && <StaleNote issues={live.issues} />}
+      {live.stats ? (
+        <div className={live.current ? '' : 'opacity-60'}>
+          <StatsPanel stats={live.stats} units={units} />
+        </div>
+      ) : (
+        <p className="font-sans text-sm text-muted">
+          The numbers appear once the recipe has a batch volume, a fermentable and a yeast.
+        </p>
+      )}
+    </section>
+  );
+}
+
+/** A one-line summary pinned to the bottom of small screens, where the full panel is far down the page. */
+export function NumbersBar({ live, units }: { live: LiveStats; units: UnitSystem }) {
+  if (!live.stats) return null;
+  return (
+    <div className="fixed inset-x-0 bottom-0 z-20 border-t border-line bg-card px-4 py-2 shadow-lg lg:hidden">
+      <div className={`flex items-center justify-between gap-3 ${live.current ? '' : 'opacity-70'}`}>
+        <StatsPanel stats={live.stats} units={units} compact />
+        <a href="#numbers" className="shrink-0 font-sans text-xs">
+          {live.current ? 'All numbers' : 'Not updated: see why'}
+        </a>
+      </div>
+    </div>
+  );
+}
