@@ -10,6 +10,8 @@ const securityHeaders = [
 
 const nextConfig: NextConfig = {
   reactStrictMode: true,
+  // The test command builds into its own folder so it never clobbers the build being served.
+  distDir: process.env.KF_DIST_DIR ?? '.next',
   poweredByHeader: false,
   // Photos are resized by jimp when they are uploaded, so Next's optimiser (and sharp) is not needed.
   images: { unoptimized: true },

@@ -12,32 +12,43 @@ if [ ! -x /usr/bin/chromium ]; then
   apt-get update -qq && apt-get install -y -qq chromium >/dev/null
 fi
 
+# KF_TEST_SLOT=N runs a second, independent suite beside the first (its own ports, database and build).
+SLOT=${KF_TEST_SLOT:-0}
+APP_PORT=$((3100 + SLOT * 10))
+SMTP_PORT=$((2526 + SLOT * 10))
+OUTBOX_PORT=$((2581 + SLOT * 10))
+SEARCH_PORT=$((7702 + SLOT * 10))
+DB_NAME=kettlefork_test$([ "$SLOT" = 0 ] || echo "_$SLOT")
+SUFFIX=$([ "$SLOT" = 0 ] || echo "-$SLOT")
+
 scripts/db.sh start
-scripts/db.sh drop kettlefork_test >/dev/null
-scripts/db.sh create kettlefork_test
+scripts/db.sh drop "$DB_NAME" >/dev/null
+scripts/db.sh create "$DB_NAME"
 
 export NODE_ENV=test
-export DATABASE_URL=$(scripts/db.sh url kettlefork_test)
-export NEXTAUTH_URL=http://127.0.0.1:3100
+export DATABASE_URL=$(scripts/db.sh url "$DB_NAME")
+export NEXTAUTH_URL=http://127.0.0.1:$APP_PORT
 export NEXTAUTH_SECRET=test-secret-0123456789abcdef0123456789abcdef
-export SMTP_URL=smtp://127.0.0.1:2526
-export MAIL_OUTBOX_URL=http://127.0.0.1:2581
-export MEILI_HOST=http://127.0.0.1:7702
+export SMTP_URL=smtp://127.0.0.1:$SMTP_PORT
+export MAIL_OUTBOX_URL=http://127.0.0.1:$OUTBOX_PORT
+export MEILI_HOST=http://127.0.0.1:$SEARCH_PORT
 export TRUST_PROXY=1
 export KF_BASE_URL=$NEXTAUTH_URL
+export KF_DIST_DIR=.next-test$SUFFIX
 
-cleanup() { stop_bg test-app; stop_bg test-mail-fake; stop_bg test-search-fake; }
+cleanup() { stop_bg "test-app$SUFFIX"; stop_bg "test-mail-fake$SUFFIX"; stop_bg "test-search-fake$SUFFIX"; }
 trap cleanup EXIT INT TERM
 
-MAIL_FAKE_SMTP_PORT=2526 MAIL_FAKE_HTTP_PORT=2581 start_bg test-mail-fake node --import tsx scripts/mail-fake.ts
-MEILI_FAKE_PORT=7702 start_bg test-search-fake node --import tsx scripts/search-fake.ts
+MAIL_FAKE_SMTP_PORT=$SMTP_PORT MAIL_FAKE_HTTP_PORT=$OUTBOX_PORT start_bg "test-mail-fake$SUFFIX" node --import tsx scripts/mail-fake.ts
+MEILI_FAKE_PORT=$SEARCH_PORT start_bg "test-search-fake$SUFFIX" node --import tsx scripts/search-fake.ts
 tsx_server db/migrate.ts
 
 # The app under test is a production build, as brewers get it.
-NODE_ENV=production npx next build > .data/logs/test-build.log 2>&1 || { tail -n 60 .data/logs/test-build.log; exit 1; }
-NODE_ENV=production start_bg test-app node node_modules/next/dist/bin/next start -H 127.0.0.1 -p 3100
-wait_port 2526 test-mail-fake
-wait_port 7702 test-search-fake
-wait_http http://127.0.0.1:3100/api/health test-app 90
+mkdir -p .data/logs
+NODE_ENV=production npx next build > ".data/logs/test-build$SUFFIX.log" 2>&1 || { tail -n 60 ".data/logs/test-build$SUFFIX.log"; exit 1; }
+NODE_ENV=production start_bg "test-app$SUFFIX" node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$APP_PORT"
+wait_port "$SMTP_PORT" "test-mail-fake$SUFFIX"
+wait_port "$SEARCH_PORT" "test-search-fake$SUFFIX"
+wait_http "http://127.0.0.1:$APP_PORT/api/health" "test-app$SUFFIX" 90
 
 npx vitest run "$@"
