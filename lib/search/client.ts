@@ -2,7 +2,7 @@
 import 'server-only';
 import { Meilisearch, type SearchParams, type Task } from 'meilisearch';
 import { env } from '../env';
-import { FACET_ATTRIBUTES, RECIPE_INDEX_SETTINGS, RECIPES_INDEX, RECIPES_PRIMARY_KEY, type RecipeSearchDocument } from './document';
+import { FACET_ATTRIBUTES, RECIPE_INDEX_SETTINGS, RECIPES_INDEX, RECIPES_PRIMARY_KEY, type RecipeFacet, type RecipeSearchDocument } from './document';
 import { buildRecipeFilter, sortFor, type SearchViewer } from './filters';
 import { SEARCH_PAGE_SIZE, type RecipeSearchQuery } from './schemas';
 
@@ -100,14 +100,14 @@ export interface RecipeSearchResult {
 
 interface SearchOptions {
   hitsPerPage?: number;
-  withFacets?: boolean;
+  facets?: readonly RecipeFacet[];
 }
 
 async function runRecipeSearch(
   query: RecipeSearchQuery,
   viewer: SearchViewer,
   client: Meilisearch,
-  { hitsPerPage = SEARCH_PAGE_SIZE, withFacets = true }: SearchOptions = {},
+  { hitsPerPage = SEARCH_PAGE_SIZE, facets = FACET_ATTRIBUTES }: SearchOptions = {},
 ): Promise<RecipeSearchResult> {
   const params = {
     filter: buildRecipeFilter(query, viewer),
@@ -115,7 +115,7 @@ async function runRecipeSearch(
     page: query.page,
     hitsPerPage,
     attributesToRetrieve: [...RECIPE_HIT_FIELDS],
-    facets: withFacets ? [...FACET_ATTRIBUTES] : undefined,
+    facets: facets.length > 0 ? [...facets] : undefined,
   } satisfies SearchParams;
   const response = await client.index(RECIPES_INDEX).search<RecipeSearchHit, typeof params>(query.q, params);
   const distribution = response.facetDistribution ?? {};
@@ -131,9 +131,21 @@ async function runRecipeSearch(
   };
 }
 
-/** One page of recipes the viewer may see, with facet counts over the whole result. */
-export function searchRecipes(query: RecipeSearchQuery, viewer: SearchViewer, client: Meilisearch = getSearchClient()): Promise<RecipeSearchResult> {
-  return runRecipeSearch(query, viewer, client);
+const STYLE_FACETS = ['styleCategory', 'styleCode'] as const;
+
+/**
+ * One page of recipes the viewer may see, with facet counts over the whole result. Chosen styles
+ * are alternatives (any of them), so style counts are taken as if no style were chosen: a reader
+ * sees how many recipes each further style would add.
+ */
+export async function searchRecipes(query: RecipeSearchQuery, viewer: SearchViewer, client: Meilisearch = getSearchClient()): Promise<RecipeSearchResult> {
+  if (query.style.length === 0) return runRecipeSearch(query, viewer, client);
+  const [result, withoutStyle] = await Promise.all([
+    runRecipeSearch(query, viewer, client),
+    runRecipeSearch({ ...query, style: [], page: 1 }, viewer, client, { hitsPerPage: 0, facets: STYLE_FACETS }),
+  ]);
+  for (const facet of STYLE_FACETS) result.facetDistribution[facet] = withoutStyle.facetDistribution[facet];
+  return result;
 }
 
 /** One way to widen an empty search: drop `field` (or just `value` from it) and `total` recipes match. */
@@ -170,7 +182,7 @@ export async function suggestLoosening(
 ): Promise<LooseningSuggestion[]> {
   const variants = loosenedQueries(query);
   const totals = await Promise.all(
-    variants.map((variant) => runRecipeSearch(variant.query, viewer, client, { hitsPerPage: 0, withFacets: false }).then((result) => result.total)),
+    variants.map((variant) => runRecipeSearch(variant.query, viewer, client, { hitsPerPage: 0, facets: [] }).then((result) => result.total)),
   );
   return variants
     .map((variant, i) => ({ ...variant.suggestion, total: totals[i] }))
@@ -182,4 +194,20 @@ export async function suggestLoosening(
 export async function isSearchAvailable(client: Meilisearch = getSearchClient()): Promise<boolean> {
   const giveUp = new Promise<boolean>((resolve) => setTimeout(() => resolve(false), 1_500).unref());
   return Promise.race([client.isHealthy(), giveUp]);
+}
+
+export interface RecipeSearchResponse extends RecipeSearchResult {
+  /** Ways to widen a search that found nothing; empty when it found something. */
+  suggestions: LooseningSuggestion[];
+}
+
+/** What the search page and the search API answer: results, and hints when there are none. */
+export async function searchRecipesWithHints(
+  query: RecipeSearchQuery,
+  viewer: SearchViewer,
+  client: Meilisearch = getSearchClient(),
+): Promise<RecipeSearchResponse> {
+  const result = await searchRecipes(query, viewer, client);
+  const suggestions = result.total === 0 ? await suggestLoosening(query, viewer, client) : [];
+  return { ...result, suggestions };
 }

@@ -154,3 +154,34 @@ export function serializeSearchQuery(query: RecipeSearchQueryInput): string {
   if (query.sort && query.sort !== 'relevance') params.set('sort', query.sort);
   return params.toString();
 }
+
+export interface LenientSearchParse {
+  query: RecipeSearchQuery;
+  /** Fields left out of the search, each with the reasons. */
+  ignored: Array<{ field: SearchQueryField; messages: string[] }>;
+}
+
+/** A range is left out whole when either end is unusable: half of an inverted range means nothing. */
+function paramsOf(field: string): string[] {
+  const range = /^(abv|ibu|srm|og)(Min|Max)$/.exec(field);
+  return range ? [`${range[1]}Min`, `${range[1]}Max`] : [field];
+}
+
+/**
+ * For a search page's URL, which people edit and share: searches with every usable part and
+ * reports the parts it left out, instead of refusing the whole address.
+ */
+export function parseSearchParamsLeniently(params: URLSearchParams): LenientSearchParse {
+  const usable = new URLSearchParams(params);
+  const ignored: LenientSearchParse['ignored'] = [];
+  for (;;) {
+    const parsed = parseSearchParams(usable);
+    if (parsed.success) return { query: parsed.data, ignored };
+    const failed = Object.entries(parsed.fieldErrors) as Array<[SearchQueryField, string[]]>;
+    if (failed.length === 0) return { query: recipeSearchQuerySchema.parse({}), ignored };
+    for (const [field, messages] of failed) {
+      ignored.push({ field, messages });
+      for (const key of paramsOf(field)) usable.delete(key);
+    }
+  }
+}

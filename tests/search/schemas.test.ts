@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { parseRecipeSearchQuery, parseSearchParams, serializeSearchQuery } from '../../lib/search/schemas';
+import { parseRecipeSearchQuery, parseSearchParams, parseSearchParamsLeniently, serializeSearchQuery } from '../../lib/search/schemas';
 
 const parse = (query: string) => parseSearchParams(new URLSearchParams(query));
 
@@ -90,5 +90,20 @@ describe('serializing back to the URL', () => {
     const serialized = serializeSearchQuery(parsed.data);
     expect(parse(serialized)).toEqual(parsed);
     expect(serializeSearchQuery({ q: '', sort: 'relevance', page: 1 })).toBe('');
+  });
+});
+
+describe('reading a hand-edited search address', () => {
+  it('searches with the usable parts and names the parts left out', () => {
+    const { query, ignored } = parseSearchParamsLeniently(new URLSearchParams('q=pale&hop=Saaz&abvMin=7&abvMax=4&sort=oldest&page=0'));
+    expect(query).toMatchObject({ q: 'pale', hop: ['Saaz'], sort: 'relevance', page: 1 });
+    expect([query.abvMin, query.abvMax]).toEqual([undefined, undefined]);
+    expect(ignored.map((entry) => entry.field).sort()).toEqual(['abvMin', 'page', 'sort']);
+    expect(ignored.find((entry) => entry.field === 'abvMin')?.messages).toEqual(['abvMin must not be greater than abvMax']);
+  });
+
+  it('leaves a clean address untouched', () => {
+    const params = new URLSearchParams('q=porter&style=20A&ibuMax=40');
+    expect(parseSearchParamsLeniently(params)).toEqual({ query: (parseSearchParams(params) as { data: unknown }).data, ignored: [] });
   });
 });

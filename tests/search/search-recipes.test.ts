@@ -104,6 +104,14 @@ describe('filters, facets and paging', () => {
     expect(result.facetStats.abv).toEqual({ min: 5.4, max: 6.6 });
   });
 
+  it('counts styles as if none were chosen, so a reader can add a second style', async () => {
+    const result = await searchRecipes(query({ style: ['4A'] }), null, fake.client);
+    expect(result.total).toBe(1);
+    expect(result.facetDistribution.styleCode).toEqual({ '18B': 2, '4A': 1, '20A': 1 });
+    expect(result.facetDistribution.styleCategory).toEqual({ 'Pale American Ale': 2, 'Pale Malty European Lager': 1, 'Dark Ale': 1 });
+    expect(result.facetDistribution.hops).toEqual({ 'Hallertau Mittelfrüh': 1, Saaz: 1 });
+  });
+
   it('sorts by stars, forks and newest, and pages', async () => {
     expect((await searchRecipes(query({ sort: 'stars' }), null, fake.client)).hits[0].title).toBe('Cellar Door Lager');
     expect((await searchRecipes(query({ sort: 'forks' }), null, fake.client)).hits[0].title).toBe('Smoke Signal Porter');
