@@ -228,3 +228,4 @@ export const searchOutbox = pgTable(
   (t) => [index('search_outbox_recipe_idx').on(t.recipeId)],
 );
 export type SearchOutboxEntry = typeof searchOutbox.$inferSelect;
+export * from './tables/brew-days';
