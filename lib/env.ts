@@ -12,6 +12,11 @@ const envSchema = z.object({
   MEILI_HOST: z.string().url().default('http://127.0.0.1:7701'),
   MEILI_KEY: z.string().optional(),
   KF_SECURE_COOKIES: z.enum(['true', 'false']).optional(),
+  S3_ENDPOINT: z.string().url().default('http://127.0.0.1:4569'),
+  S3_BUCKET: z.string().min(3).default('kettlefork-photos'),
+  S3_ACCESS_KEY_ID: z.string().default('S3RVER'),
+  S3_SECRET_ACCESS_KEY: z.string().default('S3RVER'),
+  S3_REGION: z.string().default('us-east-1'),
 });
 
 export type Env = z.infer<typeof envSchema>;
