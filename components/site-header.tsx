@@ -12,6 +12,8 @@ export function SiteHeader() {
           <span className="font-serif text-xl font-semibold">Kettlefork</span>
         </Link>
         <nav aria-label="Main" className="flex flex-1 flex-wrap items-center gap-4 font-sans text-sm">
+          <Link href="/search">Find recipes</Link>
+          <Link href="/recipes">Recent</Link>
           <Link href="/about">About</Link>
         </nav>
         <AccountMenu />
