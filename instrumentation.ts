@@ -9,4 +9,9 @@ export async function register() {
     const { startSearchSyncLoop } = await import('./lib/search/sync');
     startSearchSyncLoop();
   }
+  // Sends queued notification e-mails as digests; they wait in the database while SMTP is down.
+  if (process.env.KF_EMAIL_SENDER !== 'off') {
+    const { startEmailNotificationLoop } = await import('./lib/notifications/email');
+    startEmailNotificationLoop();
+  }
 }

@@ -66,3 +66,9 @@ export function clientAddress(headers: Headers | Record<string, string | string[
   if (process.env.TRUST_PROXY !== '1') return 'direct';
   return get('x-forwarded-for')?.split(',')[0]?.trim() || get('x-real-ip') || 'direct';
 }
+
+// Community posting, per member (key: the member's id).
+export const COMMENT_PER_MEMBER: LimitRule = { name: 'comment-member', points: 10, durationSec: 10 * 60 };
+export const REPORT_PER_MEMBER: LimitRule = { name: 'report-member', points: 20, durationSec: 60 * 60 };
+/** Stars and follows together. */
+export const REACTION_PER_MEMBER: LimitRule = { name: 'reaction-member', points: 120, durationSec: 60 * 60 };

@@ -15,16 +15,15 @@ import {
   varchar,
   type AnyPgColumn,
 } from 'drizzle-orm/pg-core';
+import { REPORT_REASONS, REPORT_TARGETS } from '../../lib/moderation/words';
+import { NOTIFICATION_KINDS } from '../../lib/notifications/kinds';
 import { photos, recipes, users } from '../schema';
 
 // Community: comments, stars, follows, notifications (with their e-mail queue) and reports.
 
-export const NOTIFICATION_KINDS = ['fork', 'comment', 'reply', 'star', 'brewed', 'new_recipe'] as const;
 export const notificationKind = pgEnum('notification_kind', NOTIFICATION_KINDS);
 export const commentStatus = pgEnum('comment_status', ['published', 'held']);
-export const REPORT_TARGETS = ['recipe', 'version', 'comment', 'photo', 'member'] as const;
 export const reportTarget = pgEnum('report_target', REPORT_TARGETS);
-export const REPORT_REASONS = ['spam', 'abuse', 'unsafe', 'other'] as const;
 export const reportReason = pgEnum('report_reason', REPORT_REASONS);
 export const reportStatus = pgEnum('report_status', ['open', 'hidden', 'dismissed', 'suspended']);
 

@@ -1,10 +1,12 @@
 import 'server-only';
 import { and, desc, eq, sql } from 'drizzle-orm';
+import { alias } from 'drizzle-orm/pg-core';
 import { db, type Transaction } from '@/db';
 import { recipeVersions, recipes, users, type Recipe, type RecipeVersion } from '@/db/schema';
 import { computeStats, ENGINE_VERSION, recipeDocumentSchema, type RecipeDocument, type RecipeStats } from '@/lib/brewing';
 import type { Viewer } from '@/lib/auth/session';
 import { AppError } from '@/lib/errors';
+import { notifyRecipeCreated } from '@/lib/notifications/recipe-events';
 import { canView, isOwner } from './access';
 import type { Visibility } from './schemas';
 import { slugFor } from './slug';
@@ -65,6 +67,7 @@ async function insertRecipeWithFirstVersion(
     .returning({ id: recipeVersions.id, number: recipeVersions.number });
   await tx.update(recipes).set({ headVersionId: version.id, headNumber: 1 }).where(eq(recipes.id, recipe.id));
   await recordRecipeChange(tx, recipe.id);
+  await notifyRecipeCreated(tx, { ...recipe, ownerId: opts.ownerId, visibility: opts.visibility, forkedFromVersionId: opts.forkedFromVersionId });
   return { recipe, version };
 }
 
@@ -185,39 +188,58 @@ export interface VersionView {
   version: RecipeVersion & { authorName: string; authorHandle: string; document: RecipeDocument; stats: RecipeStats };
 }
 
-/** One version and its recipe, if the viewer may see it (404 otherwise, never a hint that it exists). */
-export async function getVersionById(viewer: Pick<Viewer, 'id' | 'role'> | null, versionId: string): Promise<VersionView> {
+const owners = alias(users, 'owners');
+
+type VersionKey = { versionId: string } | { recipeId: string; number: number } | { slug: string; number?: number };
+
+function versionWhere(key: VersionKey) {
+  if ('versionId' in key) return eq(recipeVersions.id, key.versionId);
+  if ('recipeId' in key) return and(eq(recipeVersions.recipeId, key.recipeId), eq(recipeVersions.number, key.number));
+  return and(eq(recipes.slug, key.slug), eq(recipeVersions.number, key.number ?? recipes.headNumber));
+}
+
+/** One version with its recipe, author and owner, in a single query; 404 unless the viewer may see it. */
+async function loadVersionView(viewer: Pick<Viewer, 'id' | 'role'> | null, key: VersionKey): Promise<VersionView> {
   const [row] = await db
-    .select({ version: recipeVersions, recipe: recipes, authorName: users.name, authorHandle: users.handle })
+    .select({
+      version: recipeVersions,
+      recipe: recipes,
+      authorName: users.name,
+      authorHandle: users.handle,
+      ownerName: owners.name,
+      ownerHandle: owners.handle,
+    })
     .from(recipeVersions)
     .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
     .innerJoin(users, eq(users.id, recipeVersions.authorId))
-    .where(eq(recipeVersions.id, versionId));
+    .innerJoin(owners, eq(owners.id, recipes.ownerId))
+    .where(versionWhere(key))
+    .limit(1);
   if (!row || !canView(row.recipe, viewer)) throw new AppError('not_found', 'version');
-  return withOwner(row.recipe, row.version, row.authorName, row.authorHandle);
-}
-
-export async function getVersionByNumber(viewer: Pick<Viewer, 'id' | 'role'> | null, recipeId: string, number: number): Promise<VersionView> {
-  const [row] = await db
-    .select({ id: recipeVersions.id })
-    .from(recipeVersions)
-    .where(and(eq(recipeVersions.recipeId, recipeId), eq(recipeVersions.number, number)));
-  if (!row) throw new AppError('not_found', 'version');
-  return getVersionById(viewer, row.id);
-}
-
-async function withOwner(recipe: Recipe, version: RecipeVersion, authorName: string | null, authorHandle: string): Promise<VersionView> {
-  const [owner] = await db.select({ name: users.name, handle: users.handle }).from(users).where(eq(users.id, recipe.ownerId));
   return {
-    recipe: { ...recipe, ownerName: owner.name ?? owner.handle, ownerHandle: owner.handle },
+    recipe: { ...row.recipe, ownerName: row.ownerName ?? row.ownerHandle, ownerHandle: row.ownerHandle },
     version: {
-      ...version,
-      authorName: authorName ?? authorHandle,
-      authorHandle,
-      document: version.document as RecipeDocument,
-      stats: version.stats as RecipeStats,
+      ...row.version,
+      authorName: row.authorName ?? row.authorHandle,
+      authorHandle: row.authorHandle,
+      document: row.version.document as RecipeDocument,
+      stats: row.version.stats as RecipeStats,
     },
   };
+}
+
+/** One version and its recipe, if the viewer may see it (404 otherwise, never a hint that it exists). */
+export function getVersionById(viewer: Pick<Viewer, 'id' | 'role'> | null, versionId: string): Promise<VersionView> {
+  return loadVersionView(viewer, { versionId });
+}
+
+export function getVersionByNumber(viewer: Pick<Viewer, 'id' | 'role'> | null, recipeId: string, number: number): Promise<VersionView> {
+  return loadVersionView(viewer, { recipeId, number });
+}
+
+/** A recipe's version by the recipe's slug: the head when no number is given. */
+export function getVersionBySlug(viewer: Pick<Viewer, 'id' | 'role'> | null, slug: string, number?: number): Promise<VersionView> {
+  return loadVersionView(viewer, { slug, number });
 }
 
 /** A recipe by slug or id, if the viewer may see it. */
