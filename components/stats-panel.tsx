@@ -138,11 +138,11 @@ function WaterBlock({ water, units }: { water: NonNullable<RecipeStats['water']>
       <h3 className="text-base font-semibold">
         Water after salts
       </h3>
-      <dl className="kf-data mt-2 grid grid-cols-2 gap-x-4 gap-y-1 text-sm sm:grid-cols-3">
+      <dl className="kf-data mt-2 grid grid-cols-2 gap-x-4 gap-y-1 text-sm @md:grid-cols-3">
         {ION_NAMES.map((ion) => (
           <div key={ion} className="flex justify-between gap-2 border-b border-line/60 py-0.5">
             <dt className="text-muted">{ION_WORDS[ion]}</dt>
-            <dd>
+            <dd className="whitespace-nowrap">
               {fixed(water[ion], 0)} {unit}
             </dd>
           </div>
@@ -258,8 +258,8 @@ export function StatsPanel({ stats, units, styleCode, compact = false }: StatsPa
   if (compact) return <CompactStats stats={stats} />;
   const styleFit = styleFitFor(stats, styleCode);
   return (
-    <div>
-      <dl className="grid grid-cols-2 gap-x-4 gap-y-4">
+    <div className="@container">
+      <dl className="grid grid-cols-2 gap-x-4 gap-y-4 @xl:grid-cols-3">
         <Figure
           term="OG"
           value={fixed(stats.og, 3)}

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import paleAle from '@/lib/brewing/examples/pale-ale.json';
-import { editorFormSchema, newHop, placeServerIssues } from './editor-form';
+import { editorFormSchema, newHop, placeServerIssues, withoutEmpty } from './editor-form';
 
 describe('placeServerIssues', () => {
   it('keeps paths that name an input and sends the rest to the summary', () => {
@@ -31,9 +31,15 @@ describe('editorFormSchema', () => {
 
   it('says an empty amount is required', () => {
     const values = { document: { ...paleAle, hops: [{ ...newHop(), name: 'Cascade', alphaPct: 6, timeMin: 10 }] }, message: 'x' };
-    const result = editorFormSchema('edit').safeParse(values);
+    const result = editorFormSchema('edit').safeParse(withoutEmpty(values));
     expect(result.error?.issues.map((issue) => [issue.path.join('.'), issue.message])).toEqual([
       ['document.hops.0.amountG', 'Hop amount is required'],
     ]);
+  });
+});
+
+describe('withoutEmpty', () => {
+  it('leaves out empty inputs at any depth and keeps everything else', () => {
+    expect(withoutEmpty({ a: null, b: 0, c: [{ d: null, e: '' }], f: { g: null } })).toEqual({ b: 0, c: [{ e: '' }], f: {} });
   });
 });

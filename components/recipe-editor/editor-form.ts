@@ -25,11 +25,23 @@ export type EditBody = z.output<typeof editVersionFormSchema>;
 export const MESSAGE_MAX_LENGTH = 200;
 
 /**
- * An input left empty. The form holds it as undefined so the schema answers
- * "… is required"; the document type has no room for that, hence the cast.
+ * An input left empty. The form holds it as null, because the form library
+ * reads undefined as "use the starting value"; the document type has no room
+ * for null, hence the cast. withoutEmpty() turns it back into a missing value.
  */
 export function emptyNumber(): number {
-  return undefined as unknown as number;
+  return null as unknown as number;
+}
+
+/** The form's values with empty inputs (null) left out, as the schema expects them. */
+export function withoutEmpty<T>(value: T): T {
+  if (Array.isArray(value)) return value.map(withoutEmpty) as T;
+  if (value === null || typeof value !== 'object') return value;
+  const kept: Record<string, unknown> = {};
+  for (const [key, inner] of Object.entries(value)) {
+    if (inner !== null && inner !== undefined) kept[key] = withoutEmpty(inner);
+  }
+  return kept as T;
 }
 
 export function newFermentable(): RecipeDocumentInput['fermentables'][number] {

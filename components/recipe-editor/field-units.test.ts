@@ -52,7 +52,7 @@ describe('parseTyped', () => {
   const percent = plainUnit('%', 1);
 
   it('reads empty text as no value', () => {
-    expect(parseTyped('  ', percent)).toBeUndefined();
+    expect(parseTyped('  ', percent)).toBeNull();
   });
 
   it('reads a decimal comma', () => {

@@ -65,19 +65,19 @@ function converted(label: string, quantity: 'mass' | 'hopMass' | 'volume' | 'tem
 }
 
 /** A stored value as the text an input shows: at most `decimals` places, no trailing zeros. */
-export function formatForInput(stored: number | undefined, unit: FieldUnit): string {
-  if (stored === undefined || !Number.isFinite(stored)) return '';
+export function formatForInput(stored: number | null | undefined, unit: FieldUnit): string {
+  if (stored === undefined || stored === null || !Number.isFinite(stored)) return '';
   return String(Number(unit.toDisplay(stored).toFixed(unit.decimals)));
 }
 
 /**
- * Typed text as a stored value: undefined when empty (the schema then says the
- * field is required, or leaves an optional one out), NaN when it is not a
- * number (the schema says so). A decimal comma is read as a point.
+ * Typed text as a stored value: null when empty (the form holds it so; the
+ * schema then says the field is required, or leaves an optional one out), NaN
+ * when it is not a number (the schema says so). A decimal comma is read as a point.
  */
-export function parseTyped(text: string, unit: FieldUnit): number | undefined {
+export function parseTyped(text: string, unit: FieldUnit): number | null {
   const trimmed = text.trim().replace(',', '.');
-  if (trimmed === '') return undefined;
+  if (trimmed === '') return null;
   if (!/^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(trimmed)) return Number.NaN;
   return unit.fromDisplay(Number(trimmed));
 }

@@ -13,11 +13,12 @@ import {
   yeastFill,
 } from './catalogue-fill';
 import { EditorSection, NumberField, SelectField, SuggestionList, TextField } from './editor-fields';
-import { newFermentable, newHop, newYeast, type EditorValues } from './editor-form';
+import { emptyNumber, newFermentable, newHop, newYeast, type EditorValues } from './editor-form';
 import { DAYS_FROM_MINUTES, fieldUnit, formatForInput, plainUnit } from './field-units';
 import { RowList } from './row-list';
 
-const PICK_HINT = 'Pick a suggestion to fill typical values, or type any name.';
+const PICK_HINT =
+  'Names suggest from a starter list as you type; picking one fills in typical values. Any other name works too.';
 
 const FERMENTABLE_KIND_OPTIONS = [
   ['grain', 'Grain'],
@@ -49,22 +50,24 @@ const YEAST_KIND_OPTIONS = [
 ] as const;
 
 const TIME_LABEL: Record<HopUse, string> = {
-  boil: 'Time in the boil',
-  first_wort: 'Time in the boil',
-  mash: 'Time in the mash',
+  boil: 'Boil time',
+  first_wort: 'Boil time',
+  mash: 'Mash time',
   whirlpool: 'Stand time',
   dry_hop: 'Contact time',
 };
 
 const FILL_OPTIONS = { shouldDirty: true, shouldValidate: true } as const;
-const GRID = 'grid grid-cols-2 gap-3 sm:grid-cols-4 lg:grid-cols-6';
+const WIDE_GRID = 'grid grid-cols-2 gap-3 sm:grid-cols-6';
+const GRID = 'grid grid-cols-2 gap-3 sm:grid-cols-4';
+const NAME_SPAN = 'col-span-2';
 
 export function FermentablesSection({ units }: { units: UnitSystem }) {
   const { control, setValue } = useFormContext<EditorValues>();
   const { fields, append, remove, move } = useFieldArray({ control, name: 'document.fermentables' });
   const potential = plainUnit('ppg', 1);
   return (
-    <EditorSection id="fermentables" title="Fermentables" description="Malts, extracts, sugars and adjuncts, in the order you add them.">
+    <EditorSection id="fermentables" title="Fermentables" description={`Malts, extracts, sugars and adjuncts. ${PICK_HINT}`}>
       <SuggestionList id="kf-fermentable-names" names={FERMENTABLE_SUGGESTIONS} />
       <RowList
         path="document.fermentables"
@@ -77,13 +80,12 @@ export function FermentablesSection({ units }: { units: UnitSystem }) {
         onRemove={remove}
         emptyText="No fermentables yet. A recipe needs at least one."
         renderRow={(i) => (
-          <div className={GRID}>
+          <div className={WIDE_GRID}>
             <TextField
               path={`document.fermentables.${i}.name`}
               label="Name"
-              hint={PICK_HINT}
               suggestions="kf-fermentable-names"
-              className="col-span-2 sm:col-span-4 lg:col-span-2"
+              className={NAME_SPAN}
               onPicked={(name) => {
                 const fill = fermentableFill(name);
                 if (!fill) return;
@@ -107,7 +109,7 @@ export function HopsSection({ units }: { units: UnitSystem }) {
   const { control } = useFormContext<EditorValues>();
   const { fields, append, remove, move } = useFieldArray({ control, name: 'document.hops' });
   return (
-    <EditorSection id="hops" title="Hops" description="Every addition is its own row, even when the variety repeats.">
+    <EditorSection id="hops" title="Hops" description={`Every addition is its own row, even when the variety repeats. ${PICK_HINT}`}>
       <SuggestionList id="kf-hop-names" names={HOP_SUGGESTIONS} />
       <RowList
         path="document.hops"
@@ -135,9 +137,8 @@ function HopRow({ index, units }: { index: number; units: UnitSystem }) {
       <TextField
         path={`document.hops.${index}.name`}
         label="Name"
-        hint={PICK_HINT}
         suggestions="kf-hop-names"
-        className="col-span-2 sm:col-span-4 lg:col-span-2"
+        className={NAME_SPAN}
         onPicked={(name) => {
           const fill = hopFill(name);
           if (fill) setValue(`document.hops.${index}.alphaPct`, fill.alphaPct, FILL_OPTIONS);
@@ -150,7 +151,7 @@ function HopRow({ index, units }: { index: number; units: UnitSystem }) {
         label="Use"
         options={HOP_USE_OPTIONS}
         onChosen={(chosen) => {
-          if (chosen !== 'whirlpool') setValue(`document.hops.${index}.tempC`, undefined, { shouldDirty: true });
+          if (chosen !== 'whirlpool') setValue(`document.hops.${index}.tempC`, emptyNumber(), { shouldDirty: true });
         }}
       />
       <NumberField
@@ -177,7 +178,7 @@ export function YeastsSection({ units }: { units: UnitSystem }) {
   const { fields, append, remove, move } = useFieldArray({ control, name: 'document.yeasts' });
   const temperature = fieldUnit('temperature', units);
   return (
-    <EditorSection id="yeasts" title="Yeast" description="With more than one yeast, the most attenuative sets the final gravity.">
+    <EditorSection id="yeasts" title="Yeast" description={`With more than one yeast, the most attenuative sets the final gravity. ${PICK_HINT}`}>
       <SuggestionList id="kf-yeast-names" names={YEAST_SUGGESTIONS} />
       <RowList
         path="document.yeasts"
@@ -194,9 +195,8 @@ export function YeastsSection({ units }: { units: UnitSystem }) {
             <TextField
               path={`document.yeasts.${i}.name`}
               label="Name"
-              hint={PICK_HINT}
               suggestions="kf-yeast-names"
-              className="col-span-2 sm:col-span-4 lg:col-span-2"
+              className={NAME_SPAN}
               onPicked={(name) => {
                 const fill = yeastFill(name);
                 if (!fill) return;

@@ -7,7 +7,7 @@ import { formatIssues, recipeDocumentSchema, type FieldIssue } from '@/lib/brewi
 import { computeStats, type RecipeStats } from '@/lib/brewing/stats';
 import type { UnitSystem } from '@/lib/brewing/units';
 import { fieldId } from './editor-fields';
-import type { EditorValues } from './editor-form';
+import { withoutEmpty, type EditorValues } from './editor-form';
 
 /** Long enough to skip most keystrokes in a burst, short enough to feel live. */
 const RECOMPUTE_DELAY_MS = 150;
@@ -22,29 +22,26 @@ export interface LiveStats {
 }
 
 function evaluate(document: unknown, previous: RecipeStats | null): LiveStats {
-  const parsed = recipeDocumentSchema.safeParse(document);
+  const parsed = recipeDocumentSchema.safeParse(withoutEmpty(document));
   if (parsed.success) return { stats: computeStats(parsed.data), current: true, issues: [] };
   return { stats: previous, current: false, issues: formatIssues(parsed.error) };
 }
 
 /** The recipe's numbers, recomputed shortly after each change while the document is valid. */
 export function useLiveStats(form: UseFormReturn<EditorValues, unknown, unknown>): LiveStats {
-  const { subscribe, getValues } = form;
+  const { watch, getValues } = form;
   const [live, setLive] = useState<LiveStats>(() => evaluate(getValues('document'), null));
   useEffect(() => {
     let timer: ReturnType<typeof setTimeout> | undefined;
-    const unsubscribe = subscribe({
-      formState: { values: true },
-      callback: () => {
-        clearTimeout(timer);
-        timer = setTimeout(() => setLive((previous) => evaluate(getValues('document'), previous.stats)), RECOMPUTE_DELAY_MS);
-      },
+    const subscription = watch(() => {
+      clearTimeout(timer);
+      timer = setTimeout(() => setLive((previous) => evaluate(getValues('document'), previous.stats)), RECOMPUTE_DELAY_MS);
     });
     return () => {
       clearTimeout(timer);
-      unsubscribe();
+      subscription.unsubscribe();
     };
-  }, [subscribe, getValues]);
+  }, [watch, getValues]);
   return live;
 }
 
@@ -97,8 +94,10 @@ export function NumbersBar({ live, units }: { live: LiveStats; units: UnitSystem
   if (!live.stats) return null;
   return (
     <div className="fixed inset-x-0 bottom-0 z-20 border-t border-line bg-card px-4 py-2 shadow-lg lg:hidden">
-      <div className={`flex items-center justify-between gap-3 ${live.current ? '' : 'opacity-70'}`}>
-        <StatsPanel stats={live.stats} units={units} compact />
+      <div className="flex items-center justify-between gap-3">
+        <div className={live.current ? '' : 'opacity-60'}>
+          <StatsPanel stats={live.stats} units={units} compact />
+        </div>
         <a href="#numbers" className="shrink-0 font-sans text-xs">
           {live.current ? 'All numbers' : 'Not updated: see why'}
         </a>

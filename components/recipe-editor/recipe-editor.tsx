@@ -16,6 +16,7 @@ import {
   MESSAGE_MAX_LENGTH,
   editorFormSchema,
   placeServerIssues,
+  withoutEmpty,
   type CreateBody,
   type EditBody,
   type EditorValues,
@@ -86,9 +87,10 @@ export function RecipeEditor({
   units,
 }: RecipeEditorProps) {
   const router = useRouter();
+  // The server's body schema; its input type spells defaulted fields as optional, the form always holds them.
+  const schemaResolver = zodResolver(editorFormSchema(mode)) as Resolver<EditorValues, unknown, CreateBody | EditBody>;
   const form = useForm<EditorValues, unknown, CreateBody | EditBody>({
-    // The server's body schema; its input type spells defaulted fields as optional, the form always holds them.
-    resolver: zodResolver(editorFormSchema(mode)) as Resolver<EditorValues, unknown, CreateBody | EditBody>,
+    resolver: (values, context, options) => schemaResolver(withoutEmpty(values), context, options),
     mode: 'onBlur',
     reValidateMode: 'onChange',
     defaultValues: { document: initialDocument, message: '', visibility: initialVisibility },
@@ -190,7 +192,13 @@ export function RecipeEditor({
         {mode === 'edit' && base.number !== undefined && (
           <p className="mb-4 font-sans text-sm text-muted">
             You are editing from{' '}
-            {slug ? <a href={`/recipes/${slug}/v/${base.number}`}>version {base.number}</a> : `version ${base.number}`}. Saving
+            {slug ? (
+              <a href={`/recipes/${slug}/v/${base.number}`} className="underline">
+                version {base.number}
+              </a>
+            ) : (
+              `version ${base.number}`
+            )}. Saving
             adds a new version; the earlier ones stay as they are.
           </p>
         )}

@@ -3,17 +3,17 @@
 import { useState, type Ref } from 'react';
 import { formatForInput, parseTyped, type FieldUnit } from './field-units';
 
-function sameNumber(a: number | undefined, b: number | undefined): boolean {
+function sameNumber(a: number | null | undefined, b: number | null | undefined): boolean {
   return a === b || (Number.isNaN(a) && Number.isNaN(b));
 }
 
 export interface UnitNumberInputProps {
   id: string;
   name: string;
-  /** The stored (metric) value. */
-  value: number | undefined;
-  /** Receives the stored (metric) value: undefined when empty, NaN when the text is not a number. */
-  onChange: (stored: number | undefined) => void;
+  /** The stored (metric) value; null or undefined when empty. */
+  value: number | null | undefined;
+  /** Receives the stored (metric) value: null when empty, NaN when the text is not a number. */
+  onChange: (stored: number | null) => void;
   onBlur?: () => void;
   unit: FieldUnit;
   invalid?: boolean;
