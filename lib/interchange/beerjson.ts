@@ -1,0 +1,787 @@
+import type {
+  FermentableKind,
+  HopForm,
+  HopUse,
+  RecipeDocument,
+  RecipeDocumentInput,
+  SaltName,
+  WaterProfile,
+  YeastKind,
+} from '@/lib/brewing/schema';
+import { ION_NAMES } from '@/lib/brewing/schema';
+import { findStyle } from '@/lib/brewing/styles';
+import { checkBeerJsonSchema } from './beerjson/schema';
+import { assertWithinLimit } from './limits';
+import {
+  DEFAULT_ATTENUATION_PCT,
+  DEFAULT_BOIL_TIME_MIN,
+  DEFAULT_SERVING_TEMP_C,
+  SALT_FILE_NAMES,
+  finishRecipe,
+  matchStyle,
+  newDraft,
+  notesWith,
+  saltFromName,
+  splitStyleCode,
+  type Draft,
+} from './shared';
+import { InterchangeError, type ImportResult, type ImportedRecipe } from './types';
+import {
+  isMassUnit,
+  plain,
+  potentialSgToPpg,
+  ppgToPotentialSg,
+  round,
+  toCelsius,
+  toKg,
+  toLitres,
+  toLovibond,
+  toMgPerL,
+  toMinutes,
+  toPercent,
+  yieldPctToPpg,
+  type Measured,
+} from './units';
+
+/**
+ * BeerJSON 1.0 (the BeerJSON project, "BeerJSON: a JSON schema for beer recipes", 1.0).
+ * Every measured value carries its unit; the file is checked against the published schema
+ * before any of it is read.
+ */
+
+const FORMAT_NAME = 'BeerJSON';
+
+type Json = Record<string, unknown>;
+
+// ---------------------------------------------------------------------------------------------
+// Reading
+
+export function parseBeerJson(text: string): ImportResult {
+  assertWithinLimit(text);
+  let data: unknown;
+  try {
+    data = JSON.parse(text);
+  } catch (err) {
+    throw new InterchangeError(`the file is not valid JSON: ${(err as Error).message}`, '(file)', 'malformed');
+  }
+  const problem = checkBeerJsonSchema(data);
+  if (problem) throw new InterchangeError(problem.message, problem.path);
+  const root = (data as { beerjson: Json }).beerjson;
+  const recipes = (root.recipes as Json[] | undefined) ?? [];
+  if (recipes.length === 0) throw new InterchangeError('the file holds no recipe', 'beerjson.recipes');
+  const library = {
+    cultures: (root.cultures as Json[] | undefined) ?? [],
+    equipments: (root.equipments as Json[] | undefined) ?? [],
+  };
+  return { recipes: recipes.map((recipe, index) => readRecipe(recipe, `beerjson.recipes[${index}]`, library)) };
+}
+
+interface Library {
+  cultures: Json[];
+  equipments: Json[];
+}
+
+/** A BeerJSON object with its path in the file, for messages. */
+class Node {
+  constructor(
+    readonly data: Json,
+    readonly path: string,
+  ) {}
+
+  at(key: string): string {
+    return `${this.path}.${key}`;
+  }
+
+  str(key: string): string | undefined {
+    const value = this.data[key];
+    return typeof value === 'string' && value.trim() ? value : undefined;
+  }
+
+  child(key: string): Node | undefined {
+    const value = this.data[key];
+    return value && typeof value === 'object' && !Array.isArray(value) ? new Node(value as Json, this.at(key)) : undefined;
+  }
+
+  list(key: string): Node[] {
+    const value = this.data[key];
+    if (!Array.isArray(value)) return [];
+    return value.map((item, i) => {
+      const name = (item as Json).name;
+      return new Node(item as Json, `${this.at(key)}[${i}]${typeof name === 'string' && name ? ` (${name.slice(0, 60)})` : ''}`);
+    });
+  }
+
+  /** A measured value; negative ones are refused here, since the schema allows them. */
+  measured(key: string, opts: { allowNegative?: boolean } = {}): Measured | undefined {
+    const value = this.data[key] as Measured | undefined;
+    if (!value) return undefined;
+    if (!opts.allowNegative && value.value < 0) throw new InterchangeError(`must not be negative (got ${value.value} ${value.unit})`, this.at(key));
+    return value;
+  }
+}
+
+const FIELD_NAMES: Record<string, string> = {
+  title: 'name',
+  notes: 'notes',
+  'batch.volumeL': 'batch_size',
+  'batch.boilTimeMin': 'boil.boil_time',
+  'batch.efficiencyPct': 'efficiency.brewhouse',
+  'batch.boilOffLPerHour': 'equipment boil_rate_per_hour',
+  'batch.trubLossL': 'equipment loss',
+  'batch.grainAbsorptionLPerKg': 'equipment grain_absorption_rate',
+  'batch.mashWaterLPerKg': 'mash.mash_steps[0].water_grain_ratio',
+  'carbonation.volumesCO2': 'carbonation',
+  'carbonation.servingTempC': 'packaging.packaging_vessels[0].start_temperature',
+  'water.volumeL': 'ingredients.water_additions',
+  'water.salts': 'ingredients.miscellaneous_additions',
+  fermentables: 'ingredients.fermentable_additions',
+  hops: 'ingredients.hop_additions',
+  yeasts: 'ingredients.culture_additions',
+  amountKg: 'amount',
+  amountG: 'amount',
+  potentialPpg: 'yield',
+  colorLovibond: 'color',
+  alphaPct: 'alpha_acid',
+  attenuationPct: 'attenuation',
+  tempMinC: 'temperature_range.minimum',
+  tempMaxC: 'temperature_range.maximum',
+  timeMin: 'step_time',
+  tempC: 'step_temperature',
+  days: 'step_time',
+};
+
+type Origins = Map<string, Node>;
+
+function describer(recipe: Node, origins: Origins) {
+  return (path: string): string => {
+    const parts = path.split('.');
+    for (let n = parts.length; n > 0; n--) {
+      const origin = origins.get(parts.slice(0, n).join('.'));
+      if (!origin) continue;
+      const field = parts.slice(n).join('.');
+      let name = FIELD_NAMES[field] ?? field;
+      if (parts[0] === 'hops' && field === 'timeMin') name = 'timing.duration';
+      if (parts[0] === 'hops' && field === 'tempC') name = 'hop stand step temperature';
+      if (parts[0] === 'fermentation' && field === 'tempC') name = 'start_temperature';
+      return field ? `${origin.path}.${name}` : origin.path;
+    }
+    return recipe.at(FIELD_NAMES[path] ?? path);
+  };
+}
+
+function readRecipe(data: Json, basePath: string, library: Library): ImportedRecipe {
+  const name = typeof data.name === 'string' ? data.name : '';
+  const recipe = new Node(data, `${basePath}${name ? ` (${name.slice(0, 60)})` : ''}`);
+  const draft = newDraft();
+  const origins: Origins = new Map();
+  const volumeL = toLitres(recipe.measured('batch_size')!, recipe.at('batch_size'));
+  const efficiency = recipe.child('efficiency')!;
+  const efficiencyPct = toPercent(efficiency.measured('brewhouse')!, efficiency.at('brewhouse'));
+  const boil = recipe.child('boil');
+  let boilTimeMin = DEFAULT_BOIL_TIME_MIN;
+  if (boil) boilTimeMin = toMinutes(boil.measured('boil_time')!, boil.at('boil_time'));
+  else draft.guessed.push(`Boil time: the recipe has no boil; used ${DEFAULT_BOIL_TIME_MIN} min`);
+  const boilSteps = boil?.list('boil_steps') ?? [];
+  const ingredients = recipe.child('ingredients')!;
+  const fermentables = readFermentables(ingredients, draft, origins);
+  const gristKg = fermentables.filter((f) => f.kind === 'grain' || f.kind === 'adjunct').reduce((n, f) => n + f.amountKg, 0);
+  const mash = readMash(recipe, draft, origins, gristKg);
+  const equipment = readEquipment(recipe, library, draft, { volumeL, boilTimeMin, preBoil: boil?.measured('pre_boil_size') });
+  const salts = readMiscs(ingredients, draft, origins);
+  const document: RecipeDocumentInput = {
+    title: name.trim().slice(0, 120) || 'Imported recipe',
+    batch: { volumeL, boilTimeMin, efficiencyPct, ...equipment, mashWaterLPerKg: mash.mashWaterLPerKg },
+    fermentables,
+    hops: readHops(ingredients, boilSteps, draft, origins),
+    yeasts: readCultures(ingredients, library, draft, origins),
+    mash: { steps: mash.steps },
+    fermentation: { steps: readFermentation(recipe, draft, origins) },
+    water: readWater(ingredients, salts, draft, volumeL),
+    carbonation: readCarbonation(recipe, draft),
+    style: readStyle(recipe, draft),
+    notes: '',
+  };
+  if (!name.trim()) draft.guessed.push('Title: the recipe has no name; called it "Imported recipe"');
+  readKeptExtras(recipe, draft);
+  document.notes = notesWith(recipe.str('notes') ?? '', draft.kept, FORMAT_NAME);
+  return finishRecipe(document, draft, describer(recipe, origins));
+}
+
+function amountKg(node: Node, what: string): number {
+  const amount = node.measured('amount');
+  if (!amount) throw new InterchangeError('is required', node.at('amount'));
+  if (!isMassUnit(amount.unit)) {
+    throw new InterchangeError(`${what} given as a volume (${amount.value} ${amount.unit}); Kettlefork needs a weight (kg, g, lb or oz)`, node.at('amount'));
+  }
+  return toKg(amount, node.at('amount'));
+}
+
+function readFermentables(ingredients: Node, draft: Draft, origins: Origins) {
+  return ingredients.list('fermentable_additions').map((f, index) => {
+    origins.set(`fermentables.${index}`, f);
+    const type = String(f.data.type);
+    const group = f.str('grain_group');
+    let kind: FermentableKind;
+    if (type === 'grain') kind = group === 'adjunct' || group === 'flaked' ? 'adjunct' : 'grain';
+    else if (type === 'extract' || type === 'dry extract') kind = 'extract';
+    else if (type === 'sugar' || type === 'honey') kind = 'sugar';
+    else {
+      kind = 'adjunct';
+      draft.guessed.push(`${f.path}: a "${type}" fermentable counted as an adjunct`);
+    }
+    const yieldNode = f.child('yield')!;
+    let potentialPpg: number;
+    const potential = yieldNode.measured('potential');
+    const fine = yieldNode.measured('fine_grind');
+    const coarse = yieldNode.measured('coarse_grind');
+    if (potential) {
+      if (potential.unit !== 'sg') throw new InterchangeError(`a potential in ${potential.unit} is not supported; give it as sg`, yieldNode.at('potential'));
+      let sg = potential.value;
+      // Some files write the potential as gravity times 1000 (1037 for 1.037).
+      if (sg >= 1000 && sg < 1200) {
+        sg /= 1000;
+        draft.guessed.push(`${yieldNode.at('potential')}: ${potential.value} read as ${sg}`);
+      }
+      potentialPpg = potentialSgToPpg(sg);
+    } else if (fine) potentialPpg = yieldPctToPpg(toPercent(fine, yieldNode.at('fine_grind')));
+    else if (coarse) {
+      potentialPpg = yieldPctToPpg(toPercent(coarse, yieldNode.at('coarse_grind')));
+      draft.guessed.push(`${f.path}: only a coarse-grind yield is given; used it as the potential`);
+    } else throw new InterchangeError('gives no potential, fine_grind or coarse_grind yield', yieldNode.path);
+    const colorLovibond = round(toLovibond(f.measured('color')!, f.at('color')), 2);
+    const timing = f.child('timing');
+    if (timing?.str('use') && timing.str('use') !== 'add_to_mash' && timing.str('use') !== 'add_to_boil') {
+      draft.kept.push(`${f.data.name}: added ${String(timing.str('use')).replace(/_/g, ' ')}`);
+    }
+    return { name: String(f.data.name).slice(0, 80), amountKg: round(amountKg(f, 'the amount'), 6), potentialPpg, colorLovibond, kind };
+  });
+}
+
+/** How each boil step is read for hop timing: a step named for first wort, or a hop stand below boiling. */
+function boilStepKind(step: Node | undefined): { use: 'first_wort' | 'whirlpool' | 'boil'; tempC?: number } {
+  if (!step) return { use: 'boil' };
+  const name = step.str('name') ?? '';
+  if (/first wort/i.test(name)) return { use: 'first_wort' };
+  const start = step.measured('start_temperature', { allowNegative: true });
+  const startC = start ? toCelsius(start, step.at('start_temperature')) : undefined;
+  const end = step.measured('end_temperature', { allowNegative: true });
+  const endC = end ? toCelsius(end, step.at('end_temperature')) : undefined;
+  if (/whirlpool|hop stand|steep/i.test(name) || (endC !== undefined && endC < 99)) {
+    return { use: 'whirlpool', tempC: endC ?? startC };
+  }
+  return { use: 'boil' };
+}
+
+function readHops(ingredients: Node, boilSteps: Node[], draft: Draft, origins: Origins) {
+  const byWeight = ingredients.list('hop_additions').filter((h) => {
+    const amount = h.measured('amount');
+    if (!amount || isMassUnit(amount.unit)) return true;
+    // Hop oils and liquid extracts are measured by volume; they add aroma, and we count hops by weight.
+    draft.dropped.push(`${h.path}: measured by volume (${plain(amount.value, 3)} ${amount.unit}); hops are counted by weight`);
+    draft.kept.push(`${String(h.data.name)}: ${plain(amount.value, 3)} ${amount.unit}`);
+    return false;
+  });
+  return byWeight.map((h, index) => {
+    origins.set(`hops.${index}`, h);
+    const name = String(h.data.name).slice(0, 80);
+    const amountG = round(amountKg(h, 'the hop amount') * 1000, 3);
+    const alphaPct = toPercent(h.measured('alpha_acid')!, h.at('alpha_acid'));
+    const form = readHopForm(h.str('form'), h.path, draft);
+    const timing = h.child('timing')!;
+    const useText = timing.str('use');
+    const duration = timing.measured('duration');
+    const time = timing.measured('time');
+    const minutes = (m: Measured | undefined, key: string) => (m ? toMinutes(m, timing.at(key)) : undefined);
+    let use: HopUse;
+    let tempC: number | undefined;
+    let timeMin: number | undefined;
+    if (useText === 'add_to_mash') {
+      use = 'mash';
+      timeMin = minutes(duration, 'duration') ?? minutes(time, 'time');
+    } else if (useText === 'add_to_fermentation' || useText === 'add_to_package') {
+      use = 'dry_hop';
+      timeMin = minutes(duration, 'duration');
+      if (time) draft.kept.push(`${name}: dry hop added ${plain(minutes(time, 'time')! / 1440, 2)} days into fermentation`);
+      if (useText === 'add_to_package') draft.guessed.push(`${h.path}: a hop added at packaging, counted as a dry hop`);
+    } else {
+      const step = typeof timing.data.step === 'number' ? boilSteps[(timing.data.step as number) - 1] : undefined;
+      const kind = boilStepKind(step);
+      use = kind.use;
+      tempC = kind.tempC;
+      timeMin = minutes(duration, 'duration');
+      if (timeMin === undefined && time) {
+        timeMin = minutes(time, 'time');
+        draft.guessed.push(`${h.path}: timing gives only "time"; read it as ${timeMin} minutes of contact`);
+      }
+      if (!useText) draft.guessed.push(`${h.path}: timing names no use; counted as a boil addition`);
+    }
+    if (timeMin === undefined) {
+      timeMin = 0;
+      draft.guessed.push(`${h.path}: timing gives no duration; used 0 min`);
+    }
+    if (use === 'whirlpool' && tempC === undefined) draft.guessed.push(`${h.path}: hop stand temperature not given; counted at 80 °C`);
+    return { name, amountG, alphaPct, use, timeMin: round(timeMin, 3), form, ...(tempC === undefined ? {} : { tempC: round(tempC, 1) }) };
+  });
+}
+
+function readHopForm(form: string | undefined, path: string, draft: Draft): HopForm {
+  if (form === undefined || form === 'pellet') return 'pellet';
+  if (form === 'leaf' || form === 'leaf (wet)' || form === 'plug') {
+    if (form !== 'leaf') draft.guessed.push(`${path}: "${form}" hops counted as leaf`);
+    return 'leaf';
+  }
+  draft.guessed.push(`${path}: "${form}" hops counted as pellet`);
+  return 'pellet';
+}
+
+const CULTURE_KINDS: Record<string, YeastKind> = {
+  ale: 'ale',
+  lager: 'lager',
+  kveik: 'kveik',
+  brett: 'wild',
+  lacto: 'wild',
+  pedio: 'wild',
+  bacteria: 'wild',
+  spontaneous: 'wild',
+  'mixed-culture': 'wild',
+  wine: 'other',
+  champagne: 'other',
+  malolactic: 'other',
+  other: 'other',
+};
+
+function readCultures(ingredients: Node, library: Library, draft: Draft, origins: Origins) {
+  const cultures = ingredients.list('culture_additions');
+  if (cultures.length === 0) {
+    draft.guessed.push(`Yeast: the recipe names none; added a clean ale yeast at ${DEFAULT_ATTENUATION_PCT.ale}% attenuation so the numbers can be worked out`);
+    return [{ name: 'Clean ale yeast', kind: 'ale' as const, attenuationPct: DEFAULT_ATTENUATION_PCT.ale }];
+  }
+  return cultures.map((c, index) => {
+    origins.set(`yeasts.${index}`, c);
+    const name = String(c.data.name).slice(0, 80);
+    let kind = CULTURE_KINDS[String(c.data.type)] ?? 'other';
+    // BeerJSON has no wheat-beer type; such yeasts travel as ale and are known by name.
+    if (kind === 'ale' && /wheat|weizen|weiss/i.test(name)) {
+      kind = 'wheat';
+      draft.guessed.push(`${name}: read as a wheat-beer yeast from its name`);
+    }
+    const info = library.cultures.find((entry) => entry.name === c.data.name);
+    const infoNode = info ? new Node(info, `beerjson.cultures (${name})`) : undefined;
+    const attenuation = c.measured('attenuation');
+    let attenuationPct: number;
+    if (attenuation) attenuationPct = toPercent(attenuation, c.at('attenuation'));
+    else {
+      const range = infoNode?.child('attenuation_range');
+      if (range) {
+        attenuationPct = round((toPercent(range.measured('minimum')!, range.at('minimum')) + toPercent(range.measured('maximum')!, range.at('maximum'))) / 2, 1);
+        draft.guessed.push(`${name}: attenuation taken as the middle of its range, ${attenuationPct}%`);
+      } else {
+        attenuationPct = DEFAULT_ATTENUATION_PCT[kind];
+        draft.guessed.push(`${name}: the file gives no attenuation; used ${attenuationPct}%`);
+      }
+    }
+    const range = c.child('temperature_range') ?? infoNode?.child('temperature_range');
+    const tempMinC = range ? round(toCelsius(range.measured('minimum', { allowNegative: true })!, range.at('minimum')), 2) : undefined;
+    const tempMaxC = range ? round(toCelsius(range.measured('maximum', { allowNegative: true })!, range.at('maximum')), 2) : undefined;
+    const producer = [c.str('producer'), c.str('product_id')].filter(Boolean).join(' ');
+    if (producer) draft.kept.push(`Culture ${name}: ${producer}`);
+    return {
+      name,
+      kind,
+      attenuationPct,
+      ...(tempMinC === undefined ? {} : { tempMinC }),
+      ...(tempMaxC === undefined ? {} : { tempMaxC }),
+    };
+  });
+}
+
+function readEquipment(recipe: Node, library: Library, draft: Draft, batch: { volumeL: number; boilTimeMin: number; preBoil?: Measured }) {
+  // Equipment sits beside the recipes in BeerJSON; one set (or one named like the recipe) is the recipe's.
+  const match = library.equipments.find((e) => e.name === recipe.data.name) ?? (library.equipments.length === 1 ? library.equipments[0] : undefined);
+  const items = match ? new Node(match, `beerjson.equipments (${String(match.name)})`).list('equipment_items') : [];
+  const kettle = items.find((i) => i.data.form === 'Brew Kettle');
+  const tun = items.find((i) => i.data.form === 'Mash Tun' || i.data.form === 'Lauter Tun');
+  const rate = kettle?.measured('boil_rate_per_hour');
+  const loss = kettle?.measured('loss');
+  const absorption = tun?.measured('grain_absorption_rate');
+  const trubLossL = loss ? round(toLitres(loss, kettle!.at('loss')), 3) : 1;
+  if (!loss) draft.guessed.push('Kettle trub loss: the file gives none; used 1 L');
+  let boilOffLPerHour: number;
+  if (rate) boilOffLPerHour = round(toLitres(rate, kettle!.at('boil_rate_per_hour')), 3);
+  else if (batch.preBoil && batch.boilTimeMin > 0) {
+    const preBoilL = toLitres(batch.preBoil, recipe.at('boil.pre_boil_size'));
+    const worked = round((preBoilL - batch.volumeL - trubLossL) / (batch.boilTimeMin / 60), 2);
+    boilOffLPerHour = worked > 0 ? Math.min(worked, 100) : 4;
+    draft.guessed.push(`Boil-off rate: worked out from the pre-boil and batch sizes as ${boilOffLPerHour} L per hour`);
+  } else {
+    boilOffLPerHour = 4;
+    draft.guessed.push('Boil-off rate: the file gives none; used 4 L per hour');
+  }
+  let grainAbsorptionLPerKg = 1;
+  if (absorption) grainAbsorptionLPerKg = round(specificVolumeToLPerKg(absorption, tun!.at('grain_absorption_rate')), 3);
+  else draft.guessed.push('Grain absorption: the file gives none; used 1 L/kg');
+  return { boilOffLPerHour, trubLossL, grainAbsorptionLPerKg };
+}
+
+/** Mash thickness and grain absorption: litres per kg from the schema's specific-volume units. */
+function specificVolumeToLPerKg(m: Measured, element: string): number {
+  const perKg = (volume: string, mass: string) => toLitres({ value: m.value, unit: volume }, element) / toKg({ value: 1, unit: mass }, element);
+  switch (m.unit) {
+    case 'l/kg':
+      return m.value;
+    case 'l/g':
+      return m.value * 1000;
+    case 'qt/lb':
+      return perKg('qt', 'lb');
+    case 'gal/lb':
+      return perKg('gal', 'lb');
+    case 'gal/oz':
+      return perKg('gal', 'oz');
+    case 'floz/oz':
+      return perKg('floz', 'oz');
+    case 'm^3/kg':
+      return m.value * 1000;
+    case 'ft^3/lb':
+      return (m.value * 28.316846592) / toKg({ value: 1, unit: 'lb' }, element);
+    default:
+      throw new InterchangeError(`unknown specific volume unit "${m.unit}"`, element);
+  }
+}
+
+function readMash(recipe: Node, draft: Draft, origins: Origins, gristKg: number) {
+  const mash = recipe.child('mash');
+  const steps: { name?: string; tempC: number; timeMin: number }[] = [];
+  let mashWaterLPerKg = 3;
+  if (!mash) return { steps, mashWaterLPerKg };
+  let thicknessGiven = false;
+  mash.list('mash_steps').forEach((step, index) => {
+    const type = String(step.data.type);
+    if (type === 'sparge' || type === 'drain mash tun') {
+      draft.dropped.push(`${step.path}: a ${type} step (not a rest)`);
+      return;
+    }
+    const tempC = round(toCelsius(step.measured('step_temperature')!, step.at('step_temperature')), 2);
+    const timeMin = round(toMinutes(step.measured('step_time')!, step.at('step_time')), 3);
+    if (index === 0) {
+      const ratio = step.measured('water_grain_ratio');
+      const amount = step.measured('amount');
+      if (ratio) {
+        mashWaterLPerKg = round(specificVolumeToLPerKg(ratio, step.at('water_grain_ratio')), 3);
+        thicknessGiven = true;
+      } else if (amount && gristKg > 0) {
+        mashWaterLPerKg = round(toLitres(amount, step.at('amount')) / gristKg, 3);
+        thicknessGiven = true;
+      }
+    }
+    if (timeMin === 0) {
+      draft.dropped.push(`${step.path}: a step of 0 minutes`);
+      return;
+    }
+    origins.set(`mash.steps.${steps.length}`, step);
+    const name = step.str('name');
+    steps.push({ ...(name ? { name: name.slice(0, 60) } : {}), tempC, timeMin });
+  });
+  if (steps.length && !thicknessGiven) draft.guessed.push('Mash thickness: the first step gives no water-to-grain ratio; used 3 L/kg');
+  return { steps, mashWaterLPerKg };
+}
+
+function readFermentation(recipe: Node, draft: Draft, origins: Origins) {
+  const fermentation = recipe.child('fermentation');
+  if (!fermentation) return [];
+  const steps: { tempC: number; days: number }[] = [];
+  let lastC: number | undefined;
+  for (const step of fermentation.list('fermentation_steps')) {
+    const start = step.measured('start_temperature', { allowNegative: true });
+    const end = step.measured('end_temperature', { allowNegative: true });
+    const time = step.measured('step_time');
+    if (!time || time.value === 0) {
+      draft.dropped.push(`${step.path}: a step with no time`);
+      continue;
+    }
+    let tempC = start ? toCelsius(start, step.at('start_temperature')) : end ? toCelsius(end, step.at('end_temperature')) : undefined;
+    if (tempC === undefined) {
+      tempC = lastC ?? 18;
+      draft.guessed.push(`${step.path}: no temperature given; used ${tempC} °C`);
+    }
+    if (start && end && Math.abs(toCelsius(end, step.at('end_temperature')) - tempC) > 0.05) {
+      draft.kept.push(`${step.str('name') ?? 'Fermentation step'}: from ${plain(tempC, 1)} °C to ${plain(toCelsius(end, step.at('end_temperature')), 1)} °C`);
+    }
+    lastC = tempC;
+    origins.set(`fermentation.steps.${steps.length}`, step);
+    steps.push({ tempC: round(tempC, 2), days: round(toMinutes(time, step.at('step_time')) / 1440, 4) });
+  }
+  return steps;
+}
+
+function readMiscs(ingredients: Node, draft: Draft, origins: Origins): { salt: SaltName; grams: number }[] {
+  const salts: { salt: SaltName; grams: number }[] = [];
+  for (const m of ingredients.list('miscellaneous_additions')) {
+    const name = String(m.data.name);
+    const salt = saltFromName(name);
+    const amount = m.measured('amount');
+    if (salt && amount && isMassUnit(amount.unit)) {
+      const grams = round(toKg(amount, m.at('amount')) * 1000, 3);
+      const existing = salts.find((s) => s.salt === salt);
+      if (existing) existing.grams = round(existing.grams + grams, 3);
+      else salts.push({ salt, grams });
+      origins.set('water.salts', m);
+      continue;
+    }
+    draft.dropped.push(`${m.path}: ${String(m.data.type)} ingredients are not modelled`);
+    const use = m.child('timing')?.str('use');
+    draft.kept.push(`${name} (${String(m.data.type)}): ${amount ? `${plain(amount.value, 3)} ${amount.unit}` : 'amount not given'}${use ? `, ${use.replace(/_/g, ' ')}` : ''}`);
+  }
+  return salts;
+}
+
+function readWater(ingredients: Node, salts: { salt: SaltName; grams: number }[], draft: Draft, batchL: number) {
+  const waters = ingredients.list('water_additions');
+  if (waters.length === 0 && salts.length === 0) return undefined;
+  const readings = waters.map((w) => {
+    const ions = Object.fromEntries(
+      ION_NAMES.map((ion) => [ion, round(toMgPerL(w.measured(ion)!, w.at(ion)), 3)]),
+    ) as WaterProfile;
+    const amount = w.measured('amount');
+    return { ions, volumeL: amount ? toLitres(amount, w.at('amount')) : 0 };
+  });
+  const source: WaterProfile = { calcium: 0, magnesium: 0, sodium: 0, chloride: 0, sulfate: 0, bicarbonate: 0 };
+  let volumeL = readings.reduce((n, r) => n + r.volumeL, 0);
+  if (readings.length) {
+    const weights = volumeL > 0 ? readings.map((r) => r.volumeL / volumeL) : readings.map(() => 1 / readings.length);
+    for (const ion of ION_NAMES) source[ion] = round(readings.reduce((n, r, i) => n + r.ions[ion] * weights[i], 0), 3);
+    if (readings.length > 1) draft.guessed.push(`Water: ${readings.length} waters mixed into one profile by volume`);
+  } else draft.guessed.push('Water: salts without a water profile; assumed water with no ions (distilled)');
+  if (volumeL <= 0) {
+    volumeL = round(batchL * 1.5, 2);
+    draft.guessed.push(`Water volume: the file gives none; used ${volumeL} L`);
+  }
+  return { volumeL: round(volumeL, 3), source, salts };
+}
+
+function readCarbonation(recipe: Node, draft: Draft) {
+  const vessel = recipe.child('packaging')?.list('packaging_vessels')[0];
+  const volumes = typeof recipe.data.carbonation === 'number' ? recipe.data.carbonation : undefined;
+  const vesselCarbonation = typeof vessel?.data.carbonation === 'number' ? (vessel.data.carbonation as number) : undefined;
+  const volumesCO2 = volumes ?? vesselCarbonation;
+  if (volumesCO2 === undefined) return undefined;
+  if (volumesCO2 < 0) throw new InterchangeError(`must not be negative (got ${volumesCO2})`, recipe.at('carbonation'));
+  const start = vessel?.measured('start_temperature', { allowNegative: true });
+  if (!start) draft.guessed.push(`Serving temperature: the file gives none; used ${DEFAULT_SERVING_TEMP_C} °C`);
+  return { volumesCO2, servingTempC: start ? round(toCelsius(start, vessel!.at('start_temperature')), 2) : DEFAULT_SERVING_TEMP_C };
+}
+
+function readStyle(recipe: Node, draft: Draft) {
+  const style = recipe.child('style');
+  if (!style) return undefined;
+  const number = typeof style.data.category_number === 'number' ? String(style.data.category_number) : undefined;
+  return matchStyle({ name: style.str('name'), number, letter: style.str('style_letter'), guide: style.str('style_guide') }, draft);
+}
+
+function readKeptExtras(recipe: Node, draft: Draft): void {
+  const author = [recipe.str('author'), recipe.str('coauthor')].filter(Boolean).join(' and ');
+  if (author) draft.dropped.push(`${recipe.at('author')}: ${author} (the recipe is saved under your name)`);
+  const measured = (key: string) => {
+    const m = recipe.data[key] as Measured | undefined;
+    return m && typeof m === 'object' ? `${plain(m.value, 3)} ${m.unit}` : undefined;
+  };
+  const og = measured('original_gravity');
+  const fg = measured('final_gravity');
+  if (og || fg) draft.dropped.push(`${recipe.path}: the file's own gravity estimates (${[og && `OG ${og}`, fg && `FG ${fg}`].filter(Boolean).join(', ')}); Kettlefork recomputes them`);
+  for (const key of ['ibu_estimate', 'color_estimate', 'alcohol_by_volume', 'apparent_attenuation', 'calories_per_pint']) {
+    if (recipe.data[key] !== undefined) draft.dropped.push(`${recipe.at(key)}: recomputed by Kettlefork`);
+  }
+  const taste = recipe.child('taste');
+  if (taste?.str('notes')) draft.kept.push(`Tasting notes: ${taste.str('notes')}`);
+}
+
+// ---------------------------------------------------------------------------------------------
+// Writing
+
+/** Whole numbers of a unit, as the schema's time type wants; minutes when exact, else seconds. */
+function time(minutes: number): Measured {
+  if (Number.isInteger(minutes)) return { unit: 'min', value: minutes };
+  return { unit: 'sec', value: Math.round(minutes * 60) };
+}
+
+function days(value: number): Measured {
+  if (Number.isInteger(value)) return { unit: 'day', value };
+  if (Number.isInteger(value * 24)) return { unit: 'hr', value: value * 24 };
+  return { unit: 'min', value: Math.round(value * 1440) };
+}
+
+const kg = (value: number): Measured => ({ unit: 'kg', value: round(value, 6) });
+const g = (value: number): Measured => ({ unit: 'g', value: round(value, 4) });
+const litres = (value: number): Measured => ({ unit: 'l', value: round(value, 4) });
+const celsius = (value: number): Measured => ({ unit: 'C', value });
+const percent = (value: number): Measured => ({ unit: '%', value });
+
+const FERMENTABLE_TYPES: Record<FermentableKind, string> = { grain: 'grain', adjunct: 'grain', extract: 'extract', sugar: 'sugar' };
+const CULTURE_TYPES: Record<YeastKind, string> = { ale: 'ale', lager: 'lager', kveik: 'kveik', wheat: 'ale', wild: 'brett', other: 'other' };
+
+/** One recipe as a BeerJSON 1.0 file, with its equipment and cultures beside it as the format keeps them. */
+export function toBeerJson(doc: RecipeDocument, opts: { author?: string } = {}): Json {
+  const boilSteps = buildBoilSteps(doc);
+  const gristKg = doc.fermentables.filter((f) => f.kind === 'grain' || f.kind === 'adjunct').reduce((n, f) => n + f.amountKg, 0);
+  const recipe: Json = {
+    name: doc.title,
+    type: recipeType(doc),
+    author: opts.author ?? '',
+    batch_size: litres(doc.batch.volumeL),
+    efficiency: { brewhouse: percent(doc.batch.efficiencyPct) },
+    ...(styleFor(doc) ? { style: styleFor(doc) } : {}),
+    ingredients: {
+      fermentable_additions: doc.fermentables.map((f) => ({
+        name: f.name,
+        type: FERMENTABLE_TYPES[f.kind],
+        ...(f.kind === 'adjunct' ? { grain_group: 'adjunct' } : {}),
+        yield: { potential: { unit: 'sg', value: ppgToPotentialSg(f.potentialPpg) } },
+        color: { unit: 'Lovi', value: f.colorLovibond },
+        amount: kg(f.amountKg),
+      })),
+      hop_additions: doc.hops.map((h) => ({
+        name: h.name,
+        form: h.form,
+        alpha_acid: percent(h.alphaPct),
+        amount: g(h.amountG),
+        timing: hopTiming(h, doc, boilSteps),
+      })),
+      culture_additions: doc.yeasts.map((y) => ({
+        name: y.name,
+        type: CULTURE_TYPES[y.kind],
+        form: 'dry',
+        attenuation: percent(y.attenuationPct),
+        amount: { unit: 'pkg', value: 1 },
+      })),
+      ...(doc.water
+        ? {
+            water_additions: [
+              {
+                name: 'Source water',
+                ...Object.fromEntries(ION_NAMES.map((ion) => [ion, { unit: 'mg/l', value: doc.water!.source[ion] }])),
+                amount: litres(doc.water.volumeL),
+              },
+            ],
+            miscellaneous_additions: doc.water.salts.map((s) => ({
+              name: SALT_FILE_NAMES[s.salt],
+              type: 'water agent',
+              amount: g(s.grams),
+              timing: { use: 'add_to_mash' },
+            })),
+          }
+        : {}),
+    },
+    mash: {
+      name: 'Mash',
+      grain_temperature: celsius(20),
+      mash_steps: doc.mash.steps.map((s, i) => ({
+        name: s.name ?? '',
+        type: i === 0 ? 'infusion' : 'temperature',
+        ...(i === 0 && gristKg > 0 ? { water_grain_ratio: { unit: 'l/kg', value: doc.batch.mashWaterLPerKg } } : {}),
+        step_temperature: celsius(s.tempC),
+        step_time: time(s.timeMin),
+      })),
+    },
+    notes: doc.notes,
+    boil: {
+      name: 'Boil',
+      pre_boil_size: litres(doc.batch.volumeL + (doc.batch.boilOffLPerHour * doc.batch.boilTimeMin) / 60 + doc.batch.trubLossL),
+      boil_time: time(doc.batch.boilTimeMin),
+      ...(boilSteps.length > 1 ? { boil_steps: boilSteps.map((s) => s.json) } : {}),
+    },
+    fermentation: {
+      name: 'Fermentation',
+      fermentation_steps: doc.fermentation.steps.map((s, i) => ({
+        name: `Step ${i + 1}`,
+        start_temperature: celsius(s.tempC),
+        step_time: days(s.days),
+      })),
+    },
+    ...(doc.carbonation
+      ? {
+          carbonation: doc.carbonation.volumesCO2,
+          packaging: {
+            name: 'Packaging',
+            packaging_vessels: [{ name: 'Serving vessel', carbonation: doc.carbonation.volumesCO2, start_temperature: celsius(doc.carbonation.servingTempC) }],
+          },
+        }
+      : {}),
+  };
+  return {
+    beerjson: {
+      version: 1,
+      recipes: [recipe],
+      cultures: doc.yeasts
+        .filter((y) => y.tempMinC !== undefined && y.tempMaxC !== undefined)
+        .map((y) => ({ name: y.name, type: CULTURE_TYPES[y.kind], form: 'dry', temperature_range: { minimum: celsius(y.tempMinC!), maximum: celsius(y.tempMaxC!) } })),
+      equipments: [
+        {
+          name: doc.title,
+          equipment_items: [
+            { name: 'Kettle', form: 'Brew Kettle', maximum_volume: litres(doc.batch.volumeL * 2), boil_rate_per_hour: litres(doc.batch.boilOffLPerHour), loss: litres(doc.batch.trubLossL) },
+            { name: 'Mash tun', form: 'Mash Tun', maximum_volume: litres(doc.batch.volumeL * 2), loss: litres(0), grain_absorption_rate: { unit: 'l/kg', value: doc.batch.grainAbsorptionLPerKg } },
+          ],
+        },
+      ],
+    },
+  };
+}
+
+interface BoilStep {
+  key: string;
+  json: Json;
+}
+
+/** The boil as BeerJSON steps: first wort (if used), the boil, then one hop stand per temperature. */
+function buildBoilSteps(doc: RecipeDocument): BoilStep[] {
+  const steps: BoilStep[] = [];
+  if (doc.hops.some((h) => h.use === 'first_wort')) steps.push({ key: 'first_wort', json: { name: 'First wort', step_time: time(0) } });
+  steps.push({ key: 'boil', json: { name: 'Boil', start_temperature: celsius(100), end_temperature: celsius(100), step_time: time(doc.batch.boilTimeMin) } });
+  const stands = [...new Set(doc.hops.filter((h) => h.use === 'whirlpool').map((h) => h.tempC))];
+  for (const tempC of stands) {
+    const longest = Math.max(...doc.hops.filter((h) => h.use === 'whirlpool' && h.tempC === tempC).map((h) => h.timeMin));
+    const temps = tempC === undefined ? {} : { start_temperature: celsius(tempC), end_temperature: celsius(tempC) };
+    steps.push({ key: `stand:${tempC ?? 'unstated'}`, json: { name: tempC === undefined ? 'Hop stand' : `Hop stand at ${tempC} °C`, ...temps, step_time: time(longest) } });
+  }
+  return steps;
+}
+
+function hopTiming(h: RecipeDocument['hops'][number], doc: RecipeDocument, steps: BoilStep[]): Json {
+  const stepNumber = (key: string) => steps.findIndex((s) => s.key === key) + 1;
+  switch (h.use) {
+    case 'mash':
+      return { use: 'add_to_mash', duration: time(h.timeMin) };
+    case 'dry_hop':
+      return { use: 'add_to_fermentation', duration: time(h.timeMin) };
+    case 'first_wort':
+      return { use: 'add_to_boil', step: stepNumber('first_wort'), duration: time(h.timeMin) };
+    case 'whirlpool':
+      return { use: 'add_to_boil', step: stepNumber(`stand:${h.tempC ?? 'unstated'}`), duration: time(h.timeMin) };
+    case 'boil':
+      return {
+        use: 'add_to_boil',
+        ...(steps.length > 1 ? { step: stepNumber('boil') } : {}),
+        time: time(Math.max(doc.batch.boilTimeMin - h.timeMin, 0)),
+        duration: time(h.timeMin),
+      };
+  }
+}
+
+function recipeType(doc: RecipeDocument): string {
+  const mashed = doc.fermentables.some((f) => f.kind === 'grain' || f.kind === 'adjunct');
+  const extract = doc.fermentables.some((f) => f.kind === 'extract');
+  return mashed && extract ? 'partial mash' : extract ? 'extract' : 'all grain';
+}
+
+function styleFor(doc: RecipeDocument): Json | undefined {
+  const guideline = doc.style ? findStyle(doc.style.code) : undefined;
+  if (!guideline) return undefined;
+  const { number, letter } = splitStyleCode(guideline.code);
+  return {
+    name: guideline.name,
+    category: guideline.category,
+    category_number: Number(number),
+    ...(letter ? { style_letter: letter } : {}),
+    style_guide: 'BJCP 2021',
+    type: 'beer',
+  };
+}

@@ -1,0 +1,692 @@
+import { findStyle } from '@/lib/brewing/styles';
+import type {
+  FermentableKind,
+  HopForm,
+  HopUse,
+  RecipeDocument,
+  RecipeDocumentInput,
+  SaltName,
+  WaterProfile,
+  YeastKind,
+} from '@/lib/brewing/schema';
+import { ION_NAMES } from '@/lib/brewing/schema';
+import {
+  DEFAULT_ATTENUATION_PCT,
+  DEFAULT_BOIL_TIME_MIN,
+  DEFAULT_EFFICIENCY_PCT,
+  DEFAULT_SERVING_TEMP_C,
+  SALT_FILE_NAMES,
+  finishRecipe,
+  matchStyle,
+  newDraft,
+  notesWith,
+  saltFromName,
+  splitStyleCode,
+  type Draft,
+} from './shared';
+import { InterchangeError, type ImportResult, type ImportedRecipe } from './types';
+import { lovibondToSrmClamped, plain, ppgToYieldPct, round, srmToLovibondClamped, yieldPctToPpg } from './units';
+import { XmlRecord, escapeXml, parseXmlSafely } from './xml-reader';
+
+/**
+ * BeerXML 1.0 (Smith, Avis, Taylor, Perron and Johnson, "BeerXML: An XML Standard for Beer
+ * Brewing Data", version 1.0, 2004). Units are fixed: kg, L, °C, minutes (days for
+ * fermentation ages), colour in °L (SRM for liquid extract), yield in % of sucrose.
+ */
+
+const FORMAT_NAME = 'BeerXML';
+
+// ---------------------------------------------------------------------------------------------
+// Reading
+
+export function parseBeerXml(text: string): ImportResult {
+  const root = parseXmlSafely(text);
+  const recipes = recipeRecords(root);
+  if (recipes.length === 0) throw new InterchangeError('the file holds no RECIPE record', 'RECIPES');
+  return { recipes: recipes.map(readRecipe) };
+}
+
+function recipeRecords(root: Record<string, unknown>): XmlRecord[] {
+  if (root.RECIPES !== undefined) {
+    const holder = new XmlRecord({ RECIPES: root.RECIPES }, '');
+    return holder.list('RECIPES', 'RECIPE').map((r, i) => relabel(r, i));
+  }
+  if (Array.isArray(root.RECIPE)) {
+    return root.RECIPE.map((node, i) => relabel(new XmlRecord(node as Record<string, unknown>, ''), i));
+  }
+  return [];
+}
+
+function relabel(record: XmlRecord, index: number): XmlRecord {
+  const name = record.node.NAME;
+  return new XmlRecord(record.node, `RECIPE ${index + 1}${typeof name === 'string' && name ? ` (${name.slice(0, 60)})` : ''}`);
+}
+
+/** Where each part of our document came from, so a refusal can name the file's element. */
+type Origins = Map<string, XmlRecord>;
+
+const FIELD_TAGS: Record<string, string> = {
+  title: 'NAME',
+  notes: 'NOTES',
+  'batch.volumeL': 'BATCH_SIZE',
+  'batch.boilTimeMin': 'BOIL_TIME',
+  'batch.efficiencyPct': 'EFFICIENCY',
+  'batch.boilOffLPerHour': 'EQUIPMENT › EVAP_RATE',
+  'batch.trubLossL': 'EQUIPMENT › TRUB_CHILLER_LOSS',
+  'batch.mashWaterLPerKg': 'MASH › MASH_STEPS › MASH_STEP 1 › INFUSE_AMOUNT',
+  'carbonation.volumesCO2': 'CARBONATION',
+  'carbonation.servingTempC': 'CARBONATION_TEMP',
+  'water.volumeL': 'WATERS › WATER › AMOUNT',
+  'water.salts': 'MISCS',
+  fermentables: 'FERMENTABLES',
+  hops: 'HOPS',
+  yeasts: 'YEASTS',
+  amountKg: 'AMOUNT',
+  potentialPpg: 'YIELD',
+  colorLovibond: 'COLOR',
+  kind: 'TYPE',
+  name: 'NAME',
+  amountG: 'AMOUNT',
+  alphaPct: 'ALPHA',
+  use: 'USE',
+  form: 'FORM',
+  timeMin: 'STEP_TIME',
+  tempC: 'STEP_TEMP',
+  attenuationPct: 'ATTENUATION',
+  tempMinC: 'MIN_TEMPERATURE',
+  tempMaxC: 'MAX_TEMPERATURE',
+  days: 'AGE',
+  grams: 'AMOUNT',
+};
+
+function describer(recipe: XmlRecord, origins: Origins) {
+  return (path: string): string => {
+    const parts = path.split('.');
+    for (let n = parts.length; n > 0; n--) {
+      const origin = origins.get(parts.slice(0, n).join('.'));
+      if (!origin) continue;
+      const field = parts.slice(n).join('.');
+      let tag = FIELD_TAGS[field] ?? field;
+      if (parts[0] === 'hops' && field === 'timeMin') tag = 'TIME';
+      if (parts[0] === 'hops' && field === 'tempC') tag = 'NOTES (hop stand temperature)';
+      return field ? `${origin.path} › ${tag}` : origin.path;
+    }
+    const tag = FIELD_TAGS[path] ?? path;
+    return tag ? recipe.at(tag) : recipe.path;
+  };
+}
+
+function readRecipe(recipe: XmlRecord): ImportedRecipe {
+  const draft = newDraft();
+  const origins: Origins = new Map();
+  const title = recipe.text('NAME', { required: true })!.slice(0, 120);
+  const volumeL = recipe.num('BATCH_SIZE', { required: true, min: 0 })!;
+  const boilSizeL = recipe.num('BOIL_SIZE', { min: 0 });
+  let boilTimeMin = recipe.num('BOIL_TIME', { min: 0 });
+  if (boilTimeMin === undefined) {
+    boilTimeMin = DEFAULT_BOIL_TIME_MIN;
+    draft.guessed.push(`Boil time: the file gives none; used ${DEFAULT_BOIL_TIME_MIN} min`);
+  }
+  const type = recipe.text('TYPE');
+  let efficiencyPct = recipe.num('EFFICIENCY', { min: 0 });
+  if (efficiencyPct === undefined || efficiencyPct < 10) {
+    draft.guessed.push(`Brewhouse efficiency: the file gives ${efficiencyPct === undefined ? 'none' : `${efficiencyPct}%`}; used ${DEFAULT_EFFICIENCY_PCT}%`);
+    efficiencyPct = DEFAULT_EFFICIENCY_PCT;
+  }
+  if (type) draft.dropped.push(`${recipe.at('TYPE')}: ${type} (the ingredients say how it is brewed)`);
+
+  const fermentables = readFermentables(recipe, draft, origins);
+  const gristKg = fermentables.filter((f) => f.kind === 'grain' || f.kind === 'adjunct').reduce((n, f) => n + f.amountKg, 0);
+  const equipment = readEquipment(recipe, draft, { volumeL, boilSizeL, boilTimeMin });
+  const mash = readMash(recipe, draft, origins, gristKg);
+  const miscs = readMiscs(recipe, draft, origins);
+  const water = readWater(recipe, draft, miscs.salts, boilSizeL ?? volumeL);
+  const style = readStyle(recipe, draft);
+  const carbonation = readCarbonation(recipe, draft);
+  readKeptExtras(recipe, draft);
+
+  const document: RecipeDocumentInput = {
+    title,
+    batch: {
+      volumeL,
+      boilTimeMin,
+      efficiencyPct,
+      boilOffLPerHour: equipment.boilOffLPerHour,
+      trubLossL: equipment.trubLossL,
+      grainAbsorptionLPerKg: 1,
+      mashWaterLPerKg: mash.mashWaterLPerKg,
+    },
+    fermentables,
+    hops: readHops(recipe, draft, origins),
+    yeasts: readYeasts(recipe, draft, origins),
+    mash: { steps: mash.steps },
+    fermentation: { steps: readFermentation(recipe, draft) },
+    water,
+    carbonation,
+    style,
+    notes: '',
+  };
+  draft.guessed.push('Grain absorption: BeerXML 1.0 has no field for it; used 1 L/kg');
+  const notes = [recipe.text('NOTES'), recipe.text('TASTE_NOTES') && `Tasting notes: ${recipe.text('TASTE_NOTES')}`].filter(Boolean).join('\n\n');
+  listUnread(recipe, draft);
+  document.notes = notesWith(notes, draft.kept, FORMAT_NAME);
+  return finishRecipe(document, draft, describer(recipe, origins));
+}
+
+function listUnread(record: XmlRecord, draft: Draft): void {
+  const tags = record.unread();
+  if (tags.length) draft.dropped.push(`${record.path}: ${tags.join(', ')}`);
+}
+
+const FERMENTABLE_TYPES: Record<string, FermentableKind> = {
+  grain: 'grain',
+  sugar: 'sugar',
+  extract: 'extract',
+  'dry extract': 'extract',
+  adjunct: 'adjunct',
+};
+
+function readFermentables(recipe: XmlRecord, draft: Draft, origins: Origins) {
+  return recipe.list('FERMENTABLES', 'FERMENTABLE').map((f, index) => {
+    origins.set(`fermentables.${index}`, f);
+    const name = f.text('NAME', { required: true })!;
+    const typeText = f.text('TYPE', { required: true })!;
+    const kind = FERMENTABLE_TYPES[typeText.trim().toLowerCase()];
+    if (!kind) throw new InterchangeError(`unknown fermentable type "${typeText}" (expected Grain, Sugar, Extract, Dry Extract or Adjunct)`, f.at('TYPE'));
+    const amountKg = f.num('AMOUNT', { required: true, min: 0 })!;
+    const yieldPct = f.num('YIELD', { required: true, min: 0 })!;
+    const colour = f.num('COLOR', { required: true, min: 0 })!;
+    // The specification gives liquid extract colour in SRM and everything else in °L.
+    const isLiquidExtract = typeText.trim().toLowerCase() === 'extract';
+    const colorLovibond = isLiquidExtract ? round(srmToLovibondClamped(colour), 2) : colour;
+    if (f.bool('ADD_AFTER_BOIL')) draft.kept.push(`${name}: added after the boil`);
+    listUnread(f, draft);
+    return { name: name.slice(0, 80), amountKg, potentialPpg: yieldPctToPpg(yieldPct), colorLovibond, kind };
+  });
+}
+
+const HOP_USES: Record<string, HopUse> = {
+  boil: 'boil',
+  'dry hop': 'dry_hop',
+  mash: 'mash',
+  'first wort': 'first_wort',
+  aroma: 'whirlpool',
+  whirlpool: 'whirlpool',
+};
+
+const HOP_STAND_NOTE = /hop stand at (\d+(?:\.\d+)?) ?°?C/i;
+
+function readHops(recipe: XmlRecord, draft: Draft, origins: Origins) {
+  return recipe.list('HOPS', 'HOP').map((h, index) => {
+    origins.set(`hops.${index}`, h);
+    const name = h.text('NAME', { required: true })!;
+    const useText = h.text('USE', { required: true })!;
+    const use = HOP_USES[useText.trim().toLowerCase()];
+    if (!use) throw new InterchangeError(`unknown hop use "${useText}" (expected Boil, Dry Hop, Mash, First Wort or Aroma)`, h.at('USE'));
+    const amountKg = h.num('AMOUNT', { required: true, min: 0 })!;
+    const alphaPct = h.num('ALPHA', { required: true, min: 0 })!;
+    const timeMin = h.num('TIME', { required: true, min: 0 })!;
+    const formText = h.text('FORM');
+    const form = readHopForm(formText, name, draft);
+    const notes = h.text('NOTES');
+    let tempC: number | undefined;
+    if (use === 'whirlpool') {
+      const stand = notes ? HOP_STAND_NOTE.exec(notes) : null;
+      if (stand) tempC = Number(stand[1]);
+      else draft.guessed.push(`${h.path}: an "Aroma" addition, read as a hop stand at 80 °C for ${timeMin} min`);
+    }
+    if (notes && !HOP_STAND_NOTE.test(notes)) draft.dropped.push(`${h.at('NOTES')}: ${notes.slice(0, 80)}`);
+    listUnread(h, draft);
+    return { name: name.slice(0, 80), amountG: round(amountKg * 1000, 3), alphaPct, use, timeMin, form, ...(tempC === undefined ? {} : { tempC }) };
+  });
+}
+
+function readHopForm(formText: string | undefined, name: string, draft: Draft): HopForm {
+  const form = formText?.trim().toLowerCase();
+  if (form === undefined || form === 'pellet') return 'pellet';
+  if (form === 'leaf') return 'leaf';
+  if (form === 'plug') {
+    draft.guessed.push(`${name}: plug hops counted as leaf`);
+    return 'leaf';
+  }
+  draft.guessed.push(`${name}: hop form "${formText}" counted as pellet`);
+  return 'pellet';
+}
+
+const YEAST_TYPES: Record<string, YeastKind> = { ale: 'ale', lager: 'lager', wheat: 'wheat', wine: 'other', champagne: 'other' };
+
+function readYeasts(recipe: XmlRecord, draft: Draft, origins: Origins) {
+  const yeasts = recipe.list('YEASTS', 'YEAST');
+  if (yeasts.length === 0) {
+    draft.guessed.push(`Yeast: the recipe names none; added a clean ale yeast at ${DEFAULT_ATTENUATION_PCT.ale}% attenuation so the numbers can be worked out`);
+    return [{ name: 'Clean ale yeast', kind: 'ale' as const, attenuationPct: DEFAULT_ATTENUATION_PCT.ale }];
+  }
+  return yeasts.map((y, index) => {
+    origins.set(`yeasts.${index}`, y);
+    const name = y.text('NAME', { required: true })!;
+    const typeText = y.text('TYPE', { required: true })!;
+    let kind = YEAST_TYPES[typeText.trim().toLowerCase()];
+    if (!kind) throw new InterchangeError(`unknown yeast type "${typeText}" (expected Ale, Lager, Wheat, Wine or Champagne)`, y.at('TYPE'));
+    if (kind === 'ale' && /kveik/i.test(name)) {
+      kind = 'kveik';
+      draft.guessed.push(`${name}: read as a kveik yeast from its name`);
+    } else if (kind !== 'wheat' && /brett|lacto|pedio|wild|sour/i.test(name)) {
+      kind = 'wild';
+      draft.guessed.push(`${name}: read as a wild culture from its name`);
+    }
+    let attenuationPct = y.num('ATTENUATION', { min: 0 });
+    if (attenuationPct === undefined) {
+      attenuationPct = DEFAULT_ATTENUATION_PCT[kind];
+      draft.guessed.push(`${name}: the file gives no attenuation; used ${attenuationPct}%`);
+    }
+    const tempMinC = y.num('MIN_TEMPERATURE');
+    const tempMaxC = y.num('MAX_TEMPERATURE');
+    y.markRead('FORM', 'AMOUNT', 'AMOUNT_IS_WEIGHT');
+    const source = [y.text('LABORATORY'), y.text('PRODUCT_ID')].filter(Boolean).join(' ');
+    if (source) draft.kept.push(`Yeast ${name}: ${source}`);
+    const notes = y.text('NOTES');
+    if (notes) draft.kept.push(`Yeast ${name}: ${notes}`);
+    listUnread(y, draft);
+    return {
+      name: name.slice(0, 80),
+      kind,
+      attenuationPct,
+      ...(tempMinC === undefined ? {} : { tempMinC }),
+      ...(tempMaxC === undefined ? {} : { tempMaxC }),
+    };
+  });
+}
+
+function readEquipment(recipe: XmlRecord, draft: Draft, batch: { volumeL: number; boilSizeL?: number; boilTimeMin: number }) {
+  const equipment = recipe.child('EQUIPMENT');
+  const evapRatePct = equipment?.num('EVAP_RATE', { min: 0 });
+  const boilSizeL = equipment?.num('BOIL_SIZE', { min: 0 }) ?? batch.boilSizeL;
+  let trubLossL = equipment?.num('TRUB_CHILLER_LOSS', { min: 0 });
+  if (trubLossL === undefined) {
+    trubLossL = 1;
+    draft.guessed.push('Kettle trub loss: the file gives none; used 1 L');
+  }
+  let boilOffLPerHour: number;
+  if (evapRatePct !== undefined && boilSizeL !== undefined) {
+    // BeerXML's evaporation rate is a percentage of the pre-boil volume per hour.
+    boilOffLPerHour = round((evapRatePct / 100) * boilSizeL, 3);
+  } else if (boilSizeL !== undefined && batch.boilTimeMin > 0 && boilSizeL - batch.volumeL - trubLossL > 0) {
+    boilOffLPerHour = round((boilSizeL - batch.volumeL - trubLossL) / (batch.boilTimeMin / 60), 2);
+    draft.guessed.push(`Boil-off rate: worked out from the boil and batch sizes as ${boilOffLPerHour} L per hour`);
+  } else {
+    boilOffLPerHour = 4;
+    draft.guessed.push('Boil-off rate: the file gives none; used 4 L per hour');
+  }
+  if (equipment) {
+    equipment.markRead('NAME', 'BATCH_SIZE', 'BOIL_TIME', 'CALC_BOIL_VOLUME');
+    listUnread(equipment, draft);
+  }
+  return { boilOffLPerHour: Math.min(boilOffLPerHour, 100), trubLossL };
+}
+
+function readMash(recipe: XmlRecord, draft: Draft, origins: Origins, gristKg: number) {
+  const mash = recipe.child('MASH');
+  if (!mash) return { steps: [], mashWaterLPerKg: 3 };
+  const steps: { name?: string; tempC: number; timeMin: number }[] = [];
+  let mashWaterLPerKg = 3;
+  let infusionGiven = false;
+  mash.list('MASH_STEPS', 'MASH_STEP').forEach((step, index) => {
+    const name = step.text('NAME');
+    const tempC = step.num('STEP_TEMP', { required: true, min: 0 })!;
+    const timeMin = step.num('STEP_TIME', { required: true, min: 0 })!;
+    const infuseL = step.num('INFUSE_AMOUNT', { min: 0 });
+    step.markRead('TYPE', 'RAMP_TIME', 'END_TEMP', 'DESCRIPTION', 'WATER_GRAIN_RATIO', 'INFUSE_TEMP');
+    if (index === 0 && infuseL && gristKg > 0) {
+      infusionGiven = true;
+      const ratio = infuseL / gristKg;
+      if (ratio >= 1 && ratio <= 10) mashWaterLPerKg = round(ratio, 3);
+      else draft.guessed.push(`Mash thickness: ${round(ratio, 2)} L/kg from the first infusion is outside 1–10 L/kg; used 3 L/kg`);
+    }
+    listUnread(step, draft);
+    if (timeMin === 0) {
+      draft.dropped.push(`${step.path}: a step of 0 minutes`);
+      return;
+    }
+    origins.set(`mash.steps.${steps.length}`, step);
+    steps.push({ ...(name ? { name: name.slice(0, 60) } : {}), tempC, timeMin });
+  });
+  if (steps.length && !infusionGiven) {
+    draft.guessed.push('Mash thickness: the first step gives no infusion amount; used 3 L/kg');
+  }
+  mash.markRead('NAME', 'GRAIN_TEMP', 'TUN_TEMP', 'SPARGE_TEMP', 'TUN_WEIGHT', 'TUN_SPECIFIC_HEAT', 'EQUIP_ADJUST');
+  const spargeC = mash.num('SPARGE_TEMP');
+  if (spargeC !== undefined) draft.kept.push(`Sparge water at ${spargeC} °C`);
+  const ph = mash.num('PH');
+  if (ph !== undefined) draft.kept.push(`Mash pH ${ph}`);
+  listUnread(mash, draft);
+  return { steps, mashWaterLPerKg };
+}
+
+function readFermentation(recipe: XmlRecord, draft: Draft) {
+  const steps: { tempC: number; days: number }[] = [];
+  recipe.markRead('FERMENTATION_STAGES');
+  let lastTempC: number | undefined;
+  for (const stage of ['PRIMARY', 'SECONDARY', 'TERTIARY'] as const) {
+    const days = recipe.num(`${stage}_AGE`, { min: 0 });
+    let tempC = recipe.num(`${stage}_TEMP`);
+    if (!days) continue;
+    if (tempC === undefined) {
+      tempC = lastTempC ?? 18;
+      draft.guessed.push(`${stage.toLowerCase()} fermentation: the file gives no temperature; used ${tempC} °C`);
+    }
+    lastTempC = tempC;
+    steps.push({ tempC, days });
+  }
+  const ageDays = recipe.num('AGE', { min: 0 });
+  const ageC = recipe.num('AGE_TEMP');
+  if (ageDays) draft.kept.push(`Age ${ageDays} days after packaging${ageC === undefined ? '' : ` at ${ageC} °C`}`);
+  return steps;
+}
+
+function readCarbonation(recipe: XmlRecord, draft: Draft) {
+  const volumesCO2 = recipe.num('CARBONATION', { min: 0 });
+  let servingTempC = recipe.num('CARBONATION_TEMP');
+  recipe.markRead('FORCED_CARBONATION', 'PRIMING_SUGAR_NAME', 'PRIMING_SUGAR_EQUIV', 'KEG_PRIMING_FACTOR');
+  const sugar = recipe.text('PRIMING_SUGAR_NAME');
+  if (sugar) draft.kept.push(`Priming sugar: ${sugar}`);
+  if (!volumesCO2) return undefined;
+  if (servingTempC === undefined) {
+    servingTempC = DEFAULT_SERVING_TEMP_C;
+    draft.guessed.push(`Serving temperature: the file gives no carbonation temperature; used ${DEFAULT_SERVING_TEMP_C} °C`);
+  }
+  return { volumesCO2, servingTempC };
+}
+
+function readStyle(recipe: XmlRecord, draft: Draft) {
+  const style = recipe.child('STYLE');
+  if (!style) return undefined;
+  if (!style.text('CATEGORY_NUMBER') && /^(unspecified|none)?$/i.test(style.text('NAME') ?? '')) {
+    style.markRead(...Object.keys(style.node));
+    return undefined;
+  }
+  const matched = matchStyle(
+    { name: style.text('NAME'), number: style.text('CATEGORY_NUMBER'), letter: style.text('STYLE_LETTER'), guide: style.text('STYLE_GUIDE') },
+    draft,
+  );
+  // The style's own ranges are the guide's, not the recipe's; we fit against our copy of the guidelines.
+  style.markRead(...Object.keys(style.node));
+  return matched;
+}
+
+interface MiscReading {
+  salts: { salt: SaltName; grams: number }[];
+}
+
+function readMiscs(recipe: XmlRecord, draft: Draft, origins: Origins): MiscReading {
+  const salts: { salt: SaltName; grams: number }[] = [];
+  recipe.list('MISCS', 'MISC').forEach((m) => {
+    const name = m.text('NAME', { required: true })!;
+    const type = m.text('TYPE') ?? '';
+    const amount = m.num('AMOUNT', { required: true, min: 0 })!;
+    const isWeight = m.bool('AMOUNT_IS_WEIGHT') ?? false;
+    const use = m.text('USE') ?? '';
+    const time = m.num('TIME', { min: 0 });
+    m.markRead('USE_FOR', 'NOTES', 'VERSION');
+    const salt = saltFromName(name);
+    if (salt && isWeight) {
+      const existing = salts.find((s) => s.salt === salt);
+      const grams = round(amount * 1000, 3);
+      if (existing) existing.grams = round(existing.grams + grams, 3);
+      else salts.push({ salt, grams });
+      origins.set('water.salts', m);
+      return;
+    }
+    const amountText = isWeight ? `${plain(amount * 1000, 2)} g` : `${plain(amount * 1000, 1)} mL`;
+    draft.dropped.push(`${m.path}: ${type || 'miscellaneous'} ingredients are not modelled`);
+    draft.kept.push(`${name} (${type || 'other'}): ${amountText}${use ? `, ${use}` : ''}${time ? ` ${time} min` : ''}`);
+  });
+  return { salts };
+}
+
+function readWater(recipe: XmlRecord, draft: Draft, salts: MiscReading['salts'], fallbackVolumeL: number) {
+  const waters = recipe.list('WATERS', 'WATER');
+  if (waters.length === 0 && salts.length === 0) return undefined;
+  const source: WaterProfile = { calcium: 0, magnesium: 0, sodium: 0, chloride: 0, sulfate: 0, bicarbonate: 0 };
+  const readings = waters.map((w) => {
+    const volumeL = w.num('AMOUNT', { min: 0 }) ?? 0;
+    const ions = Object.fromEntries(ION_NAMES.map((ion) => [ion, w.num(ion.toUpperCase(), { min: 0 }) ?? 0])) as WaterProfile;
+    w.markRead('NAME', 'NOTES');
+    const ph = w.num('PH');
+    if (ph !== undefined) draft.kept.push(`Water ${w.text('NAME') ?? ''} pH ${ph}`.replace('  ', ' '));
+    listUnread(w, draft);
+    return { volumeL, ions };
+  });
+  let volumeL = readings.reduce((n, r) => n + r.volumeL, 0);
+  if (readings.length) {
+    const weights = volumeL > 0 ? readings.map((r) => r.volumeL / volumeL) : readings.map(() => 1 / readings.length);
+    for (const ion of ION_NAMES) source[ion] = round(readings.reduce((n, r, i) => n + r.ions[ion] * weights[i], 0), 2);
+    if (readings.length > 1) draft.guessed.push(`Water: ${readings.length} waters mixed into one profile by volume`);
+  } else {
+    draft.guessed.push('Water: salts without a water profile; assumed water with no ions (distilled)');
+  }
+  if (volumeL <= 0) {
+    volumeL = round(fallbackVolumeL, 2);
+    draft.guessed.push(`Water volume: the file gives none; used ${volumeL} L`);
+  }
+  return { volumeL, source, salts };
+}
+
+function readKeptExtras(recipe: XmlRecord, draft: Draft): void {
+  recipe.markRead('VERSION', 'DATE', 'TASTE_RATING', 'NOTES', 'TASTE_NOTES');
+  const brewer = [recipe.text('BREWER'), recipe.text('ASST_BREWER')].filter(Boolean).join(' and ');
+  if (brewer) draft.dropped.push(`${recipe.at('BREWER')}: ${brewer} (the recipe is saved under your name)`);
+  const og = recipe.num('OG');
+  const fg = recipe.num('FG');
+  if (og !== undefined || fg !== undefined) {
+    draft.kept.push(`Measured in the file: ${[og !== undefined && `OG ${og}`, fg !== undefined && `FG ${fg}`].filter(Boolean).join(', ')}`);
+  }
+  const date = recipe.text('DATE');
+  if (date) draft.kept.push(`Brewed on ${date}`);
+}
+
+// ---------------------------------------------------------------------------------------------
+// Writing
+
+interface Tag {
+  tag: string;
+  value?: string | number | boolean;
+  children?: Tag[];
+}
+
+const t = (tag: string, value: string | number | boolean): Tag => ({ tag, value });
+const group = (tag: string, children: Tag[]): Tag => ({ tag, children });
+
+function render(node: Tag, depth: number): string {
+  const pad = ' '.repeat(depth);
+  if (node.children) {
+    if (node.children.length === 0) return `${pad}<${node.tag}></${node.tag}>`;
+    return `${pad}<${node.tag}>\n${node.children.map((c) => render(c, depth + 1)).join('\n')}\n${pad}</${node.tag}>`;
+  }
+  const value = typeof node.value === 'boolean' ? (node.value ? 'TRUE' : 'FALSE') : typeof node.value === 'number' ? plain(node.value) : escapeXml(node.value ?? '');
+  return `${pad}<${node.tag}>${value}</${node.tag}>`;
+}
+
+const HOP_USE_WORDS: Record<HopUse, string> = { boil: 'Boil', dry_hop: 'Dry Hop', mash: 'Mash', first_wort: 'First Wort', whirlpool: 'Aroma' };
+const FERMENTABLE_WORDS: Record<FermentableKind, string> = { grain: 'Grain', sugar: 'Sugar', extract: 'Extract', adjunct: 'Adjunct' };
+// BeerXML 1.0 has no kveik or wild type: they go out as Ale and are recognised again by name.
+const YEAST_WORDS: Record<YeastKind, string> = { ale: 'Ale', lager: 'Lager', kveik: 'Ale', wheat: 'Wheat', wild: 'Ale', other: 'Wine' };
+
+/** Pre-boil volume: into the fermenter, plus what the boil drives off and the kettle keeps. */
+export function preBoilVolumeL(doc: RecipeDocument): number {
+  return doc.batch.volumeL + (doc.batch.boilOffLPerHour * doc.batch.boilTimeMin) / 60 + doc.batch.trubLossL;
+}
+
+/** One recipe as a BeerXML 1.0 file (a RECIPES group holding one RECIPE). */
+export function toBeerXml(doc: RecipeDocument, opts: { brewer?: string } = {}): string {
+  const boilSizeL = round(preBoilVolumeL(doc), 3);
+  const gristKg = doc.fermentables.filter((f) => f.kind === 'grain' || f.kind === 'adjunct').reduce((n, f) => n + f.amountKg, 0);
+  const recipe: Tag[] = [
+    t('NAME', doc.title),
+    t('VERSION', 1),
+    t('TYPE', recipeType(doc)),
+    style(doc),
+    t('BREWER', opts.brewer ?? ''),
+    t('BATCH_SIZE', doc.batch.volumeL),
+    t('BOIL_SIZE', boilSizeL),
+    t('BOIL_TIME', doc.batch.boilTimeMin),
+    t('EFFICIENCY', doc.batch.efficiencyPct),
+    group(
+      'HOPS',
+      doc.hops.map((h) =>
+        group('HOP', [
+          t('NAME', h.name),
+          t('VERSION', 1),
+          t('ALPHA', h.alphaPct),
+          t('AMOUNT', round(h.amountG / 1000, 6)),
+          t('USE', HOP_USE_WORDS[h.use]),
+          t('TIME', h.timeMin),
+          ...(h.use === 'whirlpool' && h.tempC !== undefined ? [t('NOTES', `Hop stand at ${h.tempC} °C`)] : []),
+          t('FORM', h.form === 'leaf' ? 'Leaf' : 'Pellet'),
+        ]),
+      ),
+    ),
+    group(
+      'FERMENTABLES',
+      doc.fermentables.map((f) =>
+        group('FERMENTABLE', [
+          t('NAME', f.name),
+          t('VERSION', 1),
+          t('TYPE', FERMENTABLE_WORDS[f.kind]),
+          t('AMOUNT', f.amountKg),
+          t('YIELD', ppgToYieldPct(f.potentialPpg)),
+          // Liquid extract colour is SRM in BeerXML; everything else °L.
+          t('COLOR', f.kind === 'extract' ? round(lovibondToSrmClamped(f.colorLovibond), 4) : f.colorLovibond),
+        ]),
+      ),
+    ),
+    group(
+      'MISCS',
+      (doc.water?.salts ?? []).map((s) =>
+        group('MISC', [
+          t('NAME', SALT_FILE_NAMES[s.salt]),
+          t('VERSION', 1),
+          t('TYPE', 'Water Agent'),
+          t('USE', 'Mash'),
+          t('TIME', 0),
+          t('AMOUNT', round(s.grams / 1000, 6)),
+          t('AMOUNT_IS_WEIGHT', true),
+        ]),
+      ),
+    ),
+    group(
+      'YEASTS',
+      doc.yeasts.map((y) =>
+        group('YEAST', [
+          t('NAME', y.name),
+          t('VERSION', 1),
+          t('TYPE', YEAST_WORDS[y.kind]),
+          t('FORM', 'Dry'),
+          t('AMOUNT', 0.011),
+          t('AMOUNT_IS_WEIGHT', true),
+          ...(y.tempMinC === undefined ? [] : [t('MIN_TEMPERATURE', y.tempMinC)]),
+          ...(y.tempMaxC === undefined ? [] : [t('MAX_TEMPERATURE', y.tempMaxC)]),
+          t('ATTENUATION', y.attenuationPct),
+        ]),
+      ),
+    ),
+    group(
+      'WATERS',
+      doc.water
+        ? [
+            group('WATER', [
+              t('NAME', 'Source water'),
+              t('VERSION', 1),
+              t('AMOUNT', doc.water.volumeL),
+              ...ION_NAMES.map((ion) => t(ion.toUpperCase(), doc.water!.source[ion])),
+            ]),
+          ]
+        : [],
+    ),
+    group('EQUIPMENT', [
+      t('NAME', `${doc.title} kit`),
+      t('VERSION', 1),
+      t('BOIL_SIZE', boilSizeL),
+      t('BATCH_SIZE', doc.batch.volumeL),
+      t('TRUB_CHILLER_LOSS', doc.batch.trubLossL),
+      t('EVAP_RATE', boilSizeL > 0 ? round((doc.batch.boilOffLPerHour / boilSizeL) * 100, 6) : 0),
+      t('BOIL_TIME', doc.batch.boilTimeMin),
+    ]),
+    group('MASH', [
+      t('NAME', 'Mash'),
+      t('VERSION', 1),
+      t('GRAIN_TEMP', 20),
+      group(
+        'MASH_STEPS',
+        doc.mash.steps.map((s, i) =>
+          group('MASH_STEP', [
+            t('NAME', s.name ?? ''),
+            t('VERSION', 1),
+            t('TYPE', i === 0 ? 'Infusion' : 'Temperature'),
+            ...(i === 0 ? [t('INFUSE_AMOUNT', round(doc.batch.mashWaterLPerKg * gristKg, 4))] : []),
+            t('STEP_TEMP', s.tempC),
+            t('STEP_TIME', s.timeMin),
+          ]),
+        ),
+      ),
+    ]),
+    t('NOTES', notesForExport(doc)),
+    ...fermentationTags(doc),
+    ...(doc.carbonation ? [t('CARBONATION', doc.carbonation.volumesCO2), t('CARBONATION_TEMP', doc.carbonation.servingTempC)] : []),
+  ];
+  return `<?xml version="1.0" encoding="UTF-8"?>\n${render(group('RECIPES', [group('RECIPE', recipe)]), 0)}\n`;
+}
+
+function recipeType(doc: RecipeDocument): string {
+  const mashed = doc.fermentables.some((f) => f.kind === 'grain' || f.kind === 'adjunct');
+  const extract = doc.fermentables.some((f) => f.kind === 'extract');
+  return mashed && extract ? 'Partial Mash' : extract ? 'Extract' : 'All Grain';
+}
+
+function style(doc: RecipeDocument): Tag {
+  const code = doc.style?.code;
+  const guideline = code ? findStyle(code) : undefined;
+  if (!doc.style || !guideline) {
+    return group('STYLE', [t('NAME', doc.style?.name ?? 'Unspecified'), t('CATEGORY', ''), t('VERSION', 1), t('CATEGORY_NUMBER', ''), t('STYLE_LETTER', ''), t('STYLE_GUIDE', ''), t('TYPE', 'Ale'), ...rangeTags(undefined)]);
+  }
+  const { number, letter } = splitStyleCode(guideline.code);
+  return group('STYLE', [
+    t('NAME', guideline.name),
+    t('CATEGORY', guideline.category),
+    t('VERSION', 1),
+    t('CATEGORY_NUMBER', number),
+    t('STYLE_LETTER', letter),
+    t('STYLE_GUIDE', 'BJCP 2021'),
+    t('TYPE', /lager|pils|bock|helles|märzen|marzen|schwarz|dunkel/i.test(guideline.name) ? 'Lager' : 'Ale'),
+    ...rangeTags(guideline.vitals),
+  ]);
+}
+
+function rangeTags(vitals: NonNullable<ReturnType<typeof findStyle>>['vitals'] | undefined): Tag[] {
+  const range = (min: string, max: string, r: { min: number; max: number } | null | undefined, fallback: [number, number]) => [
+    t(min, r?.min ?? fallback[0]),
+    t(max, r?.max ?? fallback[1]),
+  ];
+  return [
+    ...range('OG_MIN', 'OG_MAX', vitals?.og, [1, 1.2]),
+    ...range('FG_MIN', 'FG_MAX', vitals?.fg, [0.99, 1.1]),
+    ...range('IBU_MIN', 'IBU_MAX', vitals?.ibu, [0, 150]),
+    ...range('COLOR_MIN', 'COLOR_MAX', vitals?.srm, [0, 80]),
+  ];
+}
+
+function fermentationTags(doc: RecipeDocument): Tag[] {
+  const stages = ['PRIMARY', 'SECONDARY', 'TERTIARY'];
+  const steps = doc.fermentation.steps.slice(0, 3);
+  return [
+    t('FERMENTATION_STAGES', steps.length),
+    ...steps.flatMap((s, i) => [t(`${stages[i]}_AGE`, s.days), t(`${stages[i]}_TEMP`, s.tempC)]),
+  ];
+}
+
+/** BeerXML 1.0 has three fermentation stages; later steps are written into the notes so they are not lost. */
+function notesForExport(doc: RecipeDocument): string {
+  const extra = doc.fermentation.steps.slice(3);
+  if (!extra.length) return doc.notes;
+  const lines = extra.map((s, i) => `- Step ${i + 4}: ${s.days} days at ${s.tempC} °C`);
+  return `${doc.notes}\n\nFurther fermentation steps:\n${lines.join('\n')}`.trim();
+}

@@ -1,0 +1,23 @@
+import { parseBeerJson } from './beerjson';
+import { parseBeerXml } from './beerxml';
+import { InterchangeError, type ImportResult, type InterchangeFormat } from './types';
+
+export { parseBeerJson, toBeerJson } from './beerjson';
+export { parseBeerXml, toBeerXml, preBoilVolumeL } from './beerxml';
+export { MAX_IMPORT_BYTES, readLimitedText } from './limits';
+export { InterchangeError, type ImportResult, type ImportedRecipe, type InterchangeFormat } from './types';
+
+/** Which format a text is in, by its first meaningful character: `<` for XML, `{` for JSON. */
+export function detectFormat(text: string): InterchangeFormat {
+  const start = text.replace(/^\uFEFF/, '').trimStart()[0];
+  if (start === '<') return 'beerxml';
+  if (start === '{') return 'beerjson';
+  throw new InterchangeError('the text is neither XML (BeerXML) nor JSON (BeerJSON)', '(file)', 'malformed');
+}
+
+/** Reads a recipe file in either open format; the format is detected when not given. */
+export function parseRecipeFile(text: string, format?: InterchangeFormat): { format: InterchangeFormat } & ImportResult {
+  const chosen = format ?? detectFormat(text);
+  const body = text.replace(/^\uFEFF/, '');
+  return { format: chosen, ...(chosen === 'beerxml' ? parseBeerXml(body) : parseBeerJson(body)) };
+}

@@ -1,0 +1,102 @@
+import { formatIssues, recipeDocumentSchema, type RecipeDocumentInput, type SaltName } from '@/lib/brewing/schema';
+import { findStyle, listStyles } from '@/lib/brewing/styles';
+import { InterchangeError, type ImportedRecipe } from './types';
+
+/** What one reader collects while it maps a recipe: the draft document and its two lists. */
+export interface Draft {
+  dropped: string[];
+  guessed: string[];
+  /** Lines kept for the notes: things we do not model but a brewer would want to read. */
+  kept: string[];
+}
+
+export function newDraft(): Draft {
+  return { dropped: [], guessed: [], kept: [] };
+}
+
+/** The notes of an imported recipe: the file's own notes, then what we kept from the rest of it. */
+export function notesWith(notes: string, kept: readonly string[], formatName: string): string {
+  const parts = [notes.trim()];
+  if (kept.length) parts.push(`### Also in the ${formatName} file\n\n${kept.map((line) => `- ${line}`).join('\n')}`);
+  return parts.filter(Boolean).join('\n\n').slice(0, 50000);
+}
+
+/**
+ * Checks a mapped document against our schema. A refusal names the element of the file
+ * (through `describe`, which turns `hops.1.amountG` into the file's own words) and the rule.
+ */
+export function finishRecipe(input: RecipeDocumentInput, draft: Draft, describe: (path: string) => string): ImportedRecipe {
+  const parsed = recipeDocumentSchema.safeParse(input);
+  if (!parsed.success) {
+    const issues = formatIssues(parsed.error);
+    const first = issues[0];
+    const more = issues.length > 1 ? ` (and ${issues.length - 1} more problem${issues.length > 2 ? 's' : ''})` : '';
+    throw new InterchangeError(`${first.message}${more}`, describe(first.path));
+  }
+  return { document: parsed.data, dropped: draft.dropped, guessed: draft.guessed };
+}
+
+/** Salt names as brewers and both formats write them, to our salt list. */
+const SALT_PATTERNS: [RegExp, SaltName][] = [
+  [/gypsum|calcium sulph?ate|caso4/i, 'gypsum'],
+  [/epsom|magnesium sulph?ate|mgso4/i, 'epsom'],
+  [/calcium chloride|cacl2/i, 'calcium_chloride'],
+  [/baking soda|sodium bicarbonate|nahco3|bicarbonate of soda/i, 'baking_soda'],
+  [/table salt|sodium chloride|nacl|^salt$|canning salt|non-iodi[sz]ed salt/i, 'table_salt'],
+];
+
+export function saltFromName(name: string): SaltName | null {
+  for (const [pattern, salt] of SALT_PATTERNS) if (pattern.test(name.trim())) return salt;
+  return null;
+}
+
+export const SALT_FILE_NAMES: Record<SaltName, string> = {
+  gypsum: 'Gypsum (calcium sulfate)',
+  epsom: 'Epsom salt (magnesium sulfate)',
+  table_salt: 'Table salt (sodium chloride)',
+  calcium_chloride: 'Calcium chloride',
+  baking_soda: 'Baking soda (sodium bicarbonate)',
+};
+
+/** Splits our style code `21A` into the category number and letter both formats use. */
+export function splitStyleCode(code: string): { number: string; letter: string } {
+  const match = /^(\d+)([A-Z]?)$/i.exec(code.trim());
+  return match ? { number: match[1], letter: match[2].toUpperCase() } : { number: code, letter: '' };
+}
+
+/**
+ * A style from a file, matched to the BJCP 2021 guidelines we fit against: by code when the
+ * file names that edition, else by name. Null (and the style kept in the notes) when neither fits.
+ */
+export function matchStyle(
+  file: { name?: string; number?: string; letter?: string; guide?: string },
+  draft: Draft,
+): { code: string; name: string } | undefined {
+  const code = `${file.number ?? ''}${file.letter ?? ''}`.trim();
+  const byCode = code ? findStyle(code) : undefined;
+  const name = (file.name ?? '').trim().toLowerCase();
+  const guide = file.guide ?? '';
+  if (byCode && (/2021/.test(guide) || byCode.name.toLowerCase() === name)) return { code: byCode.code, name: byCode.name };
+  const byName = name ? listStyles().find((s) => s.name.toLowerCase() === name) : undefined;
+  if (byName) {
+    draft.guessed.push(`Style "${file.name}" matched by name to ${byName.code} ${byName.name} (BJCP 2021)`);
+    return { code: byName.code, name: byName.name };
+  }
+  if (byCode && !guide) {
+    draft.guessed.push(`Style code ${code} read as ${byCode.code} ${byCode.name} (BJCP 2021); the file names no guide`);
+    return { code: byCode.code, name: byCode.name };
+  }
+  if (file.name || code) {
+    const label = [code, file.name, guide && `(${guide})`].filter(Boolean).join(' ');
+    draft.dropped.push(`Style ${label}: not found in the BJCP 2021 guidelines`);
+    draft.kept.push(`Style: ${label}`);
+  }
+  return undefined;
+}
+
+/** Typical attenuation by yeast kind, used when a file gives none (common practice). */
+export const DEFAULT_ATTENUATION_PCT = { ale: 75, lager: 76, kveik: 78, wheat: 74, wild: 85, other: 75 } as const;
+
+export const DEFAULT_EFFICIENCY_PCT = 72;
+export const DEFAULT_BOIL_TIME_MIN = 60;
+export const DEFAULT_SERVING_TEMP_C = 4;
