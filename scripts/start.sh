@@ -21,7 +21,7 @@ fi
 export NEXTAUTH_URL=${NEXTAUTH_URL:-http://127.0.0.1:3000}
 PORT=${PORT:-3000}
 
-cleanup() { stop_bg mail-fake; stop_bg search-fake; }
+cleanup() { stop_bg mail-fake; stop_bg search-fake; stop_bg s3-fake; }
 trap cleanup EXIT INT TERM
 
 if [ -z "${SMTP_URL:-}" ]; then
@@ -31,6 +31,10 @@ fi
 if [ -z "${MEILI_HOST:-}" ]; then
   start_bg search-fake node --import tsx scripts/search-fake.ts
   wait_port 7701 search-fake
+fi
+if [ -z "${S3_ENDPOINT:-}" ]; then
+  start_bg s3-fake node --import tsx scripts/s3-fake.ts
+  wait_port "${S3_FAKE_PORT:-4569}" s3-fake
 fi
 
 tsx_server db/migrate.ts

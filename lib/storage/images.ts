@@ -70,8 +70,10 @@ async function loadCodecs(): Promise<void> {
     WebAssembly.compile(await readFile(path.join(process.cwd(), 'node_modules', pkg, 'codec', 'dec', file)));
   // The decoders' own messages about bad files would only clutter the server log; the refusal says it.
   const quiet = { print: () => {}, printErr: () => {} };
-  await initJpegDecoder(await wasm('@jsquash/jpeg', 'mozjpeg_dec.wasm'), quiet);
-  await initWebpDecoder(await wasm('@jsquash/webp', 'webp_dec.wasm'), quiet);
+  // The published typings omit init's (module, options) form, which the code accepts.
+  type InitWithModule = (module: WebAssembly.Module, options: typeof quiet) => Promise<void>;
+  await (initJpegDecoder as unknown as InitWithModule)(await wasm('@jsquash/jpeg', 'mozjpeg_dec.wasm'), quiet);
+  await (initWebpDecoder as unknown as InitWithModule)(await wasm('@jsquash/webp', 'webp_dec.wasm'), quiet);
 }
 
 function damaged(detail?: string): AppError {

@@ -1,5 +1,5 @@
 import 'server-only';
-import { DeleteObjectsCommand, GetObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
+import { DeleteObjectCommand, GetObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 import { env } from '@/lib/env';
 
 /**
@@ -37,7 +37,7 @@ export async function getObject(key: string): Promise<Buffer | null> {
   }
 }
 
+/** Deletes each key (deleting a missing key is not an error in S3). */
 export async function deleteObjects(keys: string[]): Promise<void> {
-  if (keys.length === 0) return;
-  await client().send(new DeleteObjectsCommand({ Bucket: env().S3_BUCKET, Delete: { Objects: keys.map((Key) => ({ Key })), Quiet: true } }));
+  await Promise.all(keys.map((Key) => client().send(new DeleteObjectCommand({ Bucket: env().S3_BUCKET, Key }))));
 }

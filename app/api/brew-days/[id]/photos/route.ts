@@ -1,0 +1,66 @@
+import type { NextRequest } from 'next/server';
+import { loadOwnBrewDay } from '@/lib/brew-days/brew-days';
+import { uploadPhoto } from '@/lib/brew-days/photos';
+import { photoCaptionSchema } from '@/lib/brew-days/schemas';
+import { AppError, invalidInput } from '@/lib/errors';
+import { route } from '@/lib/http/route';
+import { MAX_PHOTO_BYTES } from '@/lib/storage/images';
+
+/** Room for the multipart boundaries, part headers and a caption around the file itself. */
+const ENVELOPE_BYTES = 64 * 1024;
+const LIMIT_MB = MAX_PHOTO_BYTES / 1024 / 1024;
+
+function tooLarge(): AppError {
+  const message = `The photo is larger than ${LIMIT_MB} MB.`;
+  return new AppError('too_large', 'photo', message, [{ path: 'photo', message }]);
+}
+
+/** Reads the body, stopping as soon as it passes the limit (a missing or false Content-Length proves nothing). */
+async function readLimited(req: NextRequest, limit: number): Promise<Buffer> {
+  if (!req.body) return Buffer.alloc(0);
+  const reader = req.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > limit) {
+      await reader.cancel().catch(() => {});
+      throw tooLarge();
+    }
+    chunks.push(value);
+  }
+  return Buffer.concat(chunks);
+}
+
+// POST /api/brew-days/[id]/photos – the brewer uploads a photo (multipart field "photo", optional "caption")
+export const POST = route<undefined, { id: string }, 'user'>({ access: 'user' }, async ({ req, viewer, params }) => {
+  const declared = Number(req.headers.get('content-length'));
+  if (Number.isFinite(declared) && declared > MAX_PHOTO_BYTES + ENVELOPE_BYTES) throw tooLarge();
+  const contentType = req.headers.get('content-type') ?? '';
+  if (!/^multipart\/form-data;/i.test(contentType)) {
+    const message = 'Send the photo as a multipart form with the image in the field "photo".';
+    throw new AppError('bad_request', 'photo', message, [{ path: 'photo', message }]);
+  }
+  await loadOwnBrewDay(viewer, params.id, 'add photos to');
+  const body = await readLimited(req, MAX_PHOTO_BYTES + ENVELOPE_BYTES);
+  let form: FormData;
+  try {
+    form = await new Response(new Uint8Array(body), { headers: { 'content-type': contentType } }).formData();
+  } catch {
+    throw new AppError('bad_request', 'photo', 'The upload is not a complete multipart form; please try again.');
+  }
+  const file = form.get('photo');
+  if (!(file instanceof File)) {
+    const message = 'Attach the image in the form field "photo".';
+    throw new AppError('bad_request', 'photo', message, [{ path: 'photo', message }]);
+  }
+  if (file.size > MAX_PHOTO_BYTES) throw tooLarge();
+  if (file.size === 0) {
+    throw new AppError('bad_request', 'photo', 'The photo file is empty.', [{ path: 'photo', message: 'The photo file is empty.' }]);
+  }
+  const caption = photoCaptionSchema.safeParse(typeof form.get('caption') === 'string' ? form.get('caption') : '');
+  if (!caption.success) throw invalidInput(caption.error, 'caption');
+  return uploadPhoto(viewer, params.id, new Uint8Array(await file.arrayBuffer()), caption.data);
+});
