@@ -99,7 +99,7 @@ describe('BeerJSON files we refuse', () => {
     const file = base();
     file.beerjson.recipes[0].ingredients.hop_additions[0].amount.unit = 'stone';
     const err = refusal(() => parseBeerJson(JSON.stringify(file)));
-    expect(err.message).toMatch(/^beerjson\.recipes\[0\]\.ingredients\.hop_additions\[0\]\.amount\.unit: "stone" is not allowed; use one of: .*gal.*kg);
+    expect(err.message).toMatch(/^beerjson\.recipes\[0\]\.ingredients\.hop_additions\[0\]\.amount\.unit: "stone" is not allowed; use one of: .*gal.*kg/);
   });
 
   it('refuses a negative amount, which the schema itself allows', () => {
