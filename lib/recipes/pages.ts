@@ -2,7 +2,8 @@ import 'server-only';
 import { notFound } from 'next/navigation';
 import { getViewer } from '@/lib/auth/session';
 import { AppError } from '@/lib/errors';
-import { getRecipe, getVersionByNumber, type VersionView } from './versions';
+import { cache } from 'react';
+import { getVersionBySlug, type VersionView } from './versions';
 
 /** For pages: a missing or hidden-from-you row becomes the plain 404 page. */
 export async function orNotFound<T>(load: () => Promise<T>): Promise<T> {
@@ -14,12 +15,12 @@ export async function orNotFound<T>(load: () => Promise<T>): Promise<T> {
   }
 }
 
-/** The version a recipe page shows (the head when no number is given) and who is looking. */
-export async function loadRecipePage(slug: string, number?: number) {
+/**
+ * The version a recipe page shows (the head when no number is given) and who is looking.
+ * Cached per request, so the page and its metadata share one query.
+ */
+export const loadRecipePage = cache(async (slug: string, number?: number) => {
   const viewer = await getViewer();
-  const view: VersionView = await orNotFound(async () => {
-    const recipe = await getRecipe(viewer, { slug });
-    return getVersionByNumber(viewer, recipe.id, number ?? recipe.headNumber);
-  });
+  const view: VersionView = await orNotFound(() => getVersionBySlug(viewer, slug, number));
   return { viewer, ...view };
-}
+});

@@ -1,0 +1,148 @@
+// Saves and compares against a scratch database of 10,000 recipes and 50,000 versions,
+// then the recipe page under 20 concurrent clients.
+import { execFileSync, spawn } from 'node:child_process';
+import autocannon from 'autocannon';
+import { sql } from 'drizzle-orm';
+import type { BenchRow } from './types';
+import { quantile, round } from './stats';
+
+const RECIPES = 10_000;
+const VERSIONS_PER_RECIPE = 5;
+const PAGE_PORT = 3900;
+
+function scratchDatabaseUrl(): string {
+  execFileSync('bash', ['scripts/db.sh', 'start'], { stdio: 'ignore' });
+  execFileSync('bash', ['scripts/db.sh', 'drop', 'kettlefork_bench'], { stdio: 'ignore' });
+  execFileSync('bash', ['scripts/db.sh', 'create', 'kettlefork_bench'], { stdio: 'ignore' });
+  return execFileSync('bash', ['scripts/db.sh', 'url', 'kettlefork_bench']).toString().trim();
+}
+
+/** A 20-ingredient invented recipe, varied by n so rows differ. */
+function twentyIngredientDocument(n: number) {
+  const malts = ['Pale ale malt', 'Munich malt', 'Vienna malt', 'Wheat malt', 'Crystal malt 40 °L', 'Crystal malt 60 °L', 'Flaked oats', 'Rye malt'];
+  const hops = ['Cascade', 'Centennial', 'Chinook', 'Willamette', 'Saaz', 'Fuggle', 'Magnum', 'Nugget', 'Tettnang', 'Perle'];
+  return {
+    title: `Bench recipe ${n}`,
+    batch: { volumeL: 20, boilTimeMin: 60, efficiencyPct: 70 + (n % 10) },
+    fermentables: malts.map((name, i) => ({ name, amountKg: 0.2 + ((n + i) % 7) * 0.1 + (i === 0 ? 3 : 0), potentialPpg: 35, colorLovibond: 2 + i * 5, kind: 'grain' as const })),
+    hops: hops.map((name, i) => ({ name, amountG: 10 + ((n + i) % 5) * 5, alphaPct: 4 + (i % 8), use: i < 8 ? ('boil' as const) : ('dry_hop' as const), timeMin: i < 8 ? 60 - i * 7 : 4320, form: 'pellet' as const })),
+    yeasts: [
+      { name: 'Clean ale yeast', kind: 'ale' as const, attenuationPct: 74 + (n % 6) },
+      { name: 'Kveik, farmhouse', kind: 'kveik' as const, attenuationPct: 75 },
+    ],
+    mash: { steps: [{ tempC: 64 + (n % 5), timeMin: 60 }] },
+    fermentation: { steps: [{ tempC: 18, days: 14 }] },
+    style: { code: '18B', name: 'American Pale Ale' },
+    notes: `Notes for bench recipe ${n}: bright, bitter, ${n % 2 ? 'dry' : 'round'} finish.`,
+  };
+}
+
+export async function benchRecipes(): Promise<BenchRow[]> {
+  process.env.DATABASE_URL = scratchDatabaseUrl();
+  process.env.KF_PG_POOL_MAX = '20';
+  const { db, getPool } = await import('../db');
+  const { migrate } = await import('drizzle-orm/node-postgres/migrator');
+  const schema = await import('../db/schema');
+  const brewing = await import('../lib/brewing');
+  const { saveVersion } = await import('../lib/recipes/versions');
+  const { compareVersions } = await import('../lib/recipes/listing');
+  await migrate(db, { migrationsFolder: 'drizzle' });
+
+  const [owner] = await db
+    .insert(schema.users)
+    .values({ email: 'bench@kettlefork.test', handle: 'bench', name: 'Bench Brewer' })
+    .returning();
+  const viewer = { id: owner.id, name: 'Bench Brewer', email: owner.email, handle: 'bench', role: 'member' as const, units: 'metric' as const };
+
+  // Bulk-load the scratch data directly; triggers on versions forbid only updates and deletes.
+  const seedStart = performance.now();
+  const heads: { recipeId: string; headId: string; slug: string }[] = [];
+  for (let start = 0; start < RECIPES; start += 500) {
+    const batch = Array.from({ length: Math.min(500, RECIPES - start) }, (_, i) => start + i);
+    const recipeRows = await db
+      .insert(schema.recipes)
+      .values(batch.map((n) => ({ slug: `bench-${n}`, ownerId: owner.id, title: `Bench recipe ${n}`, headNumber: VERSIONS_PER_RECIPE })))
+      .returning({ id: schema.recipes.id, slug: schema.recipes.slug });
+    const versionRows = recipeRows.flatMap((r, i) =>
+      Array.from({ length: VERSIONS_PER_RECIPE }, (_, v) => {
+        const doc = brewing.recipeDocumentSchema.parse(twentyIngredientDocument(batch[i] + v));
+        const stats = brewing.computeStats(doc);
+        return { recipeId: r.id, number: v + 1, authorId: owner.id, message: `v${v + 1}`, document: doc, stats, og: stats.og, fg: stats.fg, abv: stats.abv, ibu: stats.ibu, srm: stats.srm, styleCode: '18B', engineVersion: brewing.ENGINE_VERSION };
+      }),
+    );
+    const inserted = await db.insert(schema.recipeVersions).values(versionRows).returning({ id: schema.recipeVersions.id, recipeId: schema.recipeVersions.recipeId, number: schema.recipeVersions.number });
+    for (const r of recipeRows) {
+      const head = inserted.find((v) => v.recipeId === r.id && v.number === VERSIONS_PER_RECIPE)!;
+      heads.push({ recipeId: r.id, headId: head.id, slug: r.slug });
+    }
+  }
+  await db.execute(sql`update recipes r set head_version_id = v.id from recipe_versions v where v.recipe_id = r.id and v.number = r.head_number`);
+  const seedMs = performance.now() - seedStart;
+
+  // Saving: validate, compute, insert, move the head — the whole path a save takes.
+  const saveMs: number[] = [];
+  for (let i = 0; i < 300; i++) {
+    const target = heads[(i * 37) % heads.length];
+    const input = twentyIngredientDocument(i + 100_000);
+    const t = performance.now();
+    const document = brewing.recipeDocumentSchema.parse(input);
+    const saved = await saveVersion(viewer, target.recipeId, { document, baseVersionId: target.headId, message: 'bench save' });
+    saveMs.push(performance.now() - t);
+    target.headId = saved.version.id;
+  }
+
+  const compareMs: number[] = [];
+  for (let i = 0; i < 300; i++) {
+    const a = heads[(i * 11) % heads.length];
+    const b = heads[(i * 13 + 7) % heads.length];
+    const t = performance.now();
+    await compareVersions(viewer, a.headId, b.headId);
+    compareMs.push(performance.now() - t);
+  }
+
+  const pageRows = await benchRecipePage(process.env.DATABASE_URL, heads.slice(0, 200).map((h) => `/recipes/${h.slug}`));
+  await getPool().end();
+  return [
+    { area: 'recipes', metric: `bulk load ${RECIPES} recipes / ${RECIPES * VERSIONS_PER_RECIPE} versions`, value: round(seedMs / 1000), unit: 's' },
+    { area: 'recipes', metric: 'save a version (validate, compute, insert, move head) p50', value: round(quantile(saveMs, 0.5), 2), unit: 'ms' },
+    { area: 'recipes', metric: 'save a version p95', value: round(quantile(saveMs, 0.95), 2), unit: 'ms', target: { op: '<', value: 30 } },
+    { area: 'recipes', metric: 'compare two 20-ingredient versions (load both, diff) p95', value: round(quantile(compareMs, 0.95), 2), unit: 'ms', target: { op: '<', value: 10 } },
+    ...pageRows,
+  ];
+}
+
+/** The recipe page served by `next start` on the scratch data, under 20 concurrent clients for 15 s. */
+async function benchRecipePage(databaseUrl: string, paths: string[]): Promise<BenchRow[]> {
+  const env = { ...process.env, DATABASE_URL: databaseUrl, NODE_ENV: 'production', NEXTAUTH_SECRET: 'bench-secret-0123456789abcdef0123456789', NEXTAUTH_URL: `http://127.0.0.1:${PAGE_PORT}`, KF_SEARCH_SYNC: 'off', KF_DIST_DIR: '.next-bench', NEXT_TELEMETRY_DISABLED: '1' } as NodeJS.ProcessEnv;
+  execFileSync('npx', ['next', 'build'], { env, stdio: 'ignore' });
+  const server = spawn('node', ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(PAGE_PORT)], { env, detached: true, stdio: 'ignore' });
+  try {
+    for (let i = 0; i < 120; i++) {
+      const ok = await fetch(`http://127.0.0.1:${PAGE_PORT}/api/health`).then((r) => r.ok, () => false);
+      if (ok) break;
+      await new Promise((r) => setTimeout(r, 500));
+    }
+    // Warm up every page once, as a running site would be.
+    for (const p of paths) await fetch(`http://127.0.0.1:${PAGE_PORT}${p}`).then((r) => r.text());
+    let next = 0;
+    const result = await autocannon({
+      url: `http://127.0.0.1:${PAGE_PORT}`,
+      connections: 20,
+      duration: 15,
+      requests: [{ setupRequest: (req) => ({ ...req, path: paths[next++ % paths.length] }) }],
+    });
+    const non2xx = result.non2xx;
+    return [
+      { area: 'pages', metric: 'recipe page, 20 concurrent clients: requests per second', value: round(result.requests.average, 0), unit: 'req/s' },
+      { area: 'pages', metric: 'recipe page p50', value: result.latency.p50, unit: 'ms' },
+      { area: 'pages', metric: 'recipe page p97.5', value: result.latency.p97_5, unit: 'ms', target: { op: '<', value: 150 }, note: 'autocannon reports p97.5, a stricter figure than p95' },
+      { area: 'pages', metric: 'recipe page non-2xx answers', value: non2xx, unit: 'count', target: { op: '<', value: 1 } },
+    ];
+  } finally {
+    try {
+      process.kill(-server.pid!, 'SIGTERM');
+    } catch {
+      // already gone
+    }
+  }
+}
