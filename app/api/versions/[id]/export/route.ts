@@ -1,0 +1,45 @@
+import { z } from 'zod';
+import { route } from '@/lib/http/route';
+import { toBeerJson, toBeerXml } from '@/lib/interchange';
+import { idParam } from '@/lib/recipes/http';
+import { getVersionById } from '@/lib/recipes/versions';
+
+const exportQuerySchema = z.object({
+  format: z.enum(['beerxml', 'beerjson', 'kettlefork'], { error: 'Format must be beerxml, beerjson or kettlefork.' }).default('beerxml'),
+});
+
+/** A file name from the title: plain letters, digits and dashes, with the version number. */
+function fileName(title: string, number: number, extension: string): string {
+  const base =
+    title
+      .normalize('NFKD')
+      .replace(/[\u0300-\u036f]/g, '')
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, '-')
+      .replace(/^-+|-+$/g, '')
+      .slice(0, 60) || 'recipe';
+  return `${base}-v${number}.${extension}`;
+}
+
+// GET /api/versions/[id]/export – download a version as BeerXML 1.0, BeerJSON 1.0 or Kettlefork's own JSON document
+export const GET = route<undefined, { id: string }, 'public', typeof exportQuerySchema>(
+  { access: 'public', query: exportQuerySchema },
+  async ({ viewer, params, query }) => {
+    const { recipe, version } = await getVersionById(viewer, idParam(params.id, 'version'));
+    const doc = version.document;
+    const file =
+      query.format === 'beerxml'
+        ? { body: toBeerXml(doc, { brewer: recipe.ownerName }), type: 'application/xml; charset=utf-8', extension: 'xml' }
+        : query.format === 'beerjson'
+          ? { body: `${JSON.stringify(toBeerJson(doc, { author: recipe.ownerName }), null, 2)}\n`, type: 'application/json; charset=utf-8', extension: 'beer.json' }
+          : { body: `${JSON.stringify(doc, null, 2)}\n`, type: 'application/json; charset=utf-8', extension: 'kettlefork.json' };
+    const cacheable = recipe.visibility === 'public' && !recipe.hiddenAt;
+    return new Response(file.body, {
+      headers: {
+        'content-type': file.type,
+        'content-disposition': `attachment; filename="${fileName(doc.title, version.number, file.extension)}"`,
+        'cache-control': cacheable ? 'public, max-age=60, stale-while-revalidate=600' : 'private, no-store',
+      },
+    });
+  },
+);
