@@ -1,6 +1,7 @@
 'use client';
 
 import Link from 'next/link';
+import { MemberLinks } from '@/components/community/member-links';
 import { useMe } from '@/hooks/use-me';
 import { SignOutButton } from './sign-out-button';
 
@@ -27,6 +28,7 @@ export function AccountMenu() {
           <Link href="/admin/outbox">Outbox</Link>
         </>
       )}
+      <MemberLinks role={viewer.role} />
       <span className="text-muted">
         Signed in as <strong className="text-ink">{viewer.name}</strong>
         {viewer.role !== 'member' && <span className="ml-1 rounded bg-bine/15 px-1.5 py-0.5 text-xs text-bine">{viewer.role}</span>}

@@ -2,6 +2,7 @@ import { format } from 'date-fns';
 import { eq } from 'drizzle-orm';
 import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
+import { MemberCommunity } from '@/components/community/member-community';
 import { Markdown } from '@/components/markdown';
 import { RecipeCard } from '@/components/recipe-card';
 import { db } from '@/db';
@@ -36,6 +37,7 @@ export default async function MemberPage({ params }: Props) {
         @{member.handle} · brewing with Kettlefork since {format(member.createdAt, 'MMMM yyyy')}
       </p>
       {member.bio && <Markdown source={member.bio} className="mt-3 max-w-2xl" />}
+      <MemberCommunity member={member} viewer={viewer} />
       <h2 className="mt-8 text-xl font-semibold">Recipes</h2>
       {cards.length === 0 ? (
         <p className="mt-2 text-muted">No public recipes yet.</p>

@@ -1,5 +1,7 @@
 import { format } from 'date-fns';
 import Link from 'next/link';
+import { RecipeCommunityBar } from '@/components/community/recipe-community-bar';
+import { RecipeComments } from '@/components/community/recipe-comments';
 import { RecipeDocumentView } from '@/components/recipe-document';
 import { StatsPanel } from '@/components/stats-panel';
 import type { Viewer } from '@/lib/auth/session';
@@ -90,6 +92,7 @@ export async function VersionPage({ viewer, recipe, version }: { viewer: Viewer 
           <Link href={`${base}/lineage`} className="kf-btn-quiet">
             Forks ({recipe.forkCount})
           </Link>
+          <RecipeCommunityBar viewer={viewer} recipe={recipe} />
         </nav>
       </header>
 
@@ -109,6 +112,7 @@ export async function VersionPage({ viewer, recipe, version }: { viewer: Viewer 
           {owner && <VisibilitySelect recipeId={recipe.id} visibility={recipe.visibility} />}
         </aside>
       </div>
+      <RecipeComments viewer={viewer} recipe={recipe} versionNumber={version.number} />
     </article>
   );
 }

@@ -1,0 +1,152 @@
+'use client';
+
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useQueryClient } from '@tanstack/react-query';
+import { useRouter } from 'next/navigation';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { toast } from 'sonner';
+import { z } from 'zod';
+import { describedBy, FormField } from '@/components/form-field';
+import { meKeys } from '@/hooks/use-me';
+import { gallonsToLitres, litresToGallons } from '@/lib/brewing/units';
+import { settingsSchema, type SettingsInput } from '@/lib/community/schemas';
+import { KIND_LABELS, NOTIFICATION_KINDS } from '@/lib/notifications/kinds';
+
+// The form shows the batch volume in the member's chosen units; the server keeps litres.
+const formSchema = settingsSchema.omit({ defaultBatchVolumeL: true }).extend({
+  batchVolume: z.number({ error: 'Give the batch volume as a number.' }).positive('The batch volume must be more than zero.'),
+});
+type FormValues = z.infer<typeof formSchema>;
+
+const round = (n: number, places = 2) => Math.round(n * 10 ** places) / 10 ** places;
+
+interface ApiError {
+  error?: { message?: string; fields?: { path: string; message: string }[] };
+}
+
+export function SettingsForm({ initial }: { initial: SettingsInput }) {
+  const router = useRouter();
+  const queryClient = useQueryClient();
+  const [formError, setFormError] = useState<string>();
+  const { register, handleSubmit, setError, watch, getValues, setValue, formState } = useForm<FormValues>({
+    resolver: zodResolver(formSchema),
+    defaultValues: {
+      name: initial.name,
+      bio: initial.bio,
+      units: initial.units,
+      batchVolume: round(initial.units === 'us' ? litresToGallons(initial.defaultBatchVolumeL) : initial.defaultBatchVolumeL),
+      defaultEfficiencyPct: initial.defaultEfficiencyPct,
+      emailChoices: initial.emailChoices,
+    },
+  });
+  const { errors, isSubmitting } = formState;
+  const units = watch('units');
+  const volumeUnit = units === 'us' ? 'gal' : 'L';
+
+  const onSubmit = handleSubmit(async ({ batchVolume, ...values }) => {
+    setFormError(undefined);
+    const body: SettingsInput = { ...values, defaultBatchVolumeL: round(values.units === 'us' ? gallonsToLitres(batchVolume) : batchVolume, 3) };
+    const res = await fetch('/api/me/settings', { method: 'PUT', headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) });
+    if (!res.ok) {
+      const data = (await res.json().catch(() => ({}))) as ApiError;
+      const fields = data.error?.fields ?? [];
+      for (const f of fields) {
+        const path = f.path === 'defaultBatchVolumeL' ? 'batchVolume' : f.path;
+        setError(path as keyof FormValues, { message: f.message });
+      }
+      setFormError(data.error?.message ?? 'Saving did not work. Please try again.');
+      return;
+    }
+    toast.success('Settings saved.');
+    await queryClient.invalidateQueries({ queryKey: meKeys.all });
+    router.refresh();
+  });
+
+  const text = (name: 'name' | 'bio', label: string, hint?: string) => (
+    <FormField id={`settings-${name}`} label={label} error={errors[name]?.message} hint={hint}>
+      {name === 'bio' ? (
+        <textarea id="settings-bio" rows={5} className="kf-input" aria-invalid={Boolean(errors.bio)} aria-describedby={describedBy('settings-bio', errors.bio?.message, hint)} {...register('bio')} />
+      ) : (
+        <input id="settings-name" className="kf-input" autoComplete="nickname" aria-invalid={Boolean(errors.name)} aria-describedby={describedBy('settings-name', errors.name?.message, hint)} {...register('name')} />
+      )}
+    </FormField>
+  );
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="mt-4">
+      <fieldset className="kf-card">
+        <legend className="px-1 text-lg font-semibold">Profile</legend>
+        {text('name', 'Display name')}
+        {text('bio', 'A few words about your brewing', 'Shown on your member page. Markdown works; pictures show as links.')}
+      </fieldset>
+
+      <fieldset className="kf-card mt-6">
+        <legend className="px-1 text-lg font-semibold">Units and brewhouse</legend>
+        <FormField id="settings-units" label="Units" error={errors.units?.message}>
+          <select
+            id="settings-units"
+            className="kf-input"
+            {...register('units', {
+              onChange: (e: { target: { value: string } }) => {
+                const v = getValues('batchVolume');
+                if (Number.isFinite(v)) setValue('batchVolume', round(e.target.value === 'us' ? litresToGallons(v) : gallonsToLitres(v)));
+              },
+            })}
+          >
+            <option value="metric">Metric (kg, L, °C)</option>
+            <option value="us">US (lb, gal, °F)</option>
+          </select>
+        </FormField>
+        <FormField id="settings-volume" label={`Usual batch volume (${volumeUnit})`} error={errors.batchVolume?.message} hint="New recipes start from this volume.">
+          <input
+            id="settings-volume"
+            type="number"
+            step="any"
+            inputMode="decimal"
+            className="kf-input"
+            aria-invalid={Boolean(errors.batchVolume)}
+            aria-describedby={describedBy('settings-volume', errors.batchVolume?.message, 'New recipes start from this volume.')}
+            {...register('batchVolume', { valueAsNumber: true })}
+          />
+        </FormField>
+        <FormField id="settings-efficiency" label="Brewhouse efficiency (%)" error={errors.defaultEfficiencyPct?.message}>
+          <input
+            id="settings-efficiency"
+            type="number"
+            step="any"
+            inputMode="decimal"
+            className="kf-input"
+            aria-invalid={Boolean(errors.defaultEfficiencyPct)}
+            aria-describedby={describedBy('settings-efficiency', errors.defaultEfficiencyPct?.message)}
+            {...register('defaultEfficiencyPct', { valueAsNumber: true })}
+          />
+        </FormField>
+      </fieldset>
+
+      <fieldset className="kf-card mt-6">
+        <legend className="px-1 text-lg font-semibold">E-mail me when…</legend>
+        <p className="font-sans text-sm text-muted">Several notices close together arrive as one e-mail. You always see them under the bell.</p>
+        <ul className="mt-3 space-y-2 font-sans text-sm">
+          {NOTIFICATION_KINDS.map((kind) => (
+            <li key={kind}>
+              <label className="flex items-center gap-2">
+                <input type="checkbox" {...register(`emailChoices.${kind}`)} />
+                {KIND_LABELS[kind]}
+              </label>
+            </li>
+          ))}
+        </ul>
+      </fieldset>
+
+      {formError && (
+        <p role="alert" className="kf-field-error mt-4">
+          {formError}
+        </p>
+      )}
+      <button type="submit" className="kf-btn mt-6" disabled={isSubmitting}>
+        {isSubmitting ? 'Saving…' : 'Save settings'}
+      </button>
+    </form>
+  );
+}

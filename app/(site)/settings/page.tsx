@@ -1,0 +1,20 @@
+import type { Metadata } from 'next';
+import { requirePageViewer } from '@/lib/auth/page-guard';
+import { getSettings } from '@/lib/community/settings';
+import { SettingsForm } from './_components/settings-form';
+
+export const metadata: Metadata = { title: 'Settings' };
+
+export default async function SettingsPage() {
+  const viewer = await requirePageViewer('/settings');
+  const settings = await getSettings(viewer);
+  return (
+    <div className="max-w-2xl">
+      <h1 className="text-3xl font-semibold">Settings</h1>
+      <p className="mt-1 font-sans text-sm text-muted">
+        Signed in as @{settings.handle} ({settings.email}).
+      </p>
+      <SettingsForm initial={settings} />
+    </div>
+  );
+}

@@ -1,0 +1,50 @@
+import Link from 'next/link';
+import type { Viewer } from '@/lib/auth/session';
+import { isFollowing } from '@/lib/community/follows';
+import { getMemberCommunity } from '@/lib/community/profile';
+import { FollowButton } from './follow-button';
+import { ReportButton } from './report-button';
+
+/** A member page's community part: stars received, followers, follow and report, and their forks. */
+export async function MemberCommunity({ member, viewer }: { member: { id: string; name: string | null; handle: string }; viewer: Viewer | null }) {
+  const [info, following] = await Promise.all([getMemberCommunity(member.id, viewer), isFollowing(viewer, 'member', member.id)]);
+  const name = member.name ?? member.handle;
+  const own = viewer?.id === member.id;
+  return (
+    <>
+      <div className="mt-4 flex flex-wrap items-center gap-4 font-sans text-sm">
+        <p className="text-muted">
+          <span className="kf-data text-ink">{info.starsReceived}</span> {info.starsReceived === 1 ? 'star' : 'stars'} received ·{' '}
+          <span className="kf-data text-ink">{info.followers}</span> {info.followers === 1 ? 'follower' : 'followers'} · following{' '}
+          <span className="kf-data text-ink">{info.following}</span>
+        </p>
+        {viewer && !own && <FollowButton type="member" id={member.id} following={following} label={name} />}
+        {viewer && !own && <ReportButton targetType="member" targetId={member.id} />}
+        {own && (
+          <Link href="/settings" className="kf-btn-quiet">
+            Edit profile and settings
+          </Link>
+        )}
+      </div>
+      {info.forks.length > 0 && (
+        <section aria-labelledby="forks-heading">
+          <h2 id="forks-heading" className="mt-8 text-xl font-semibold">
+            Forks
+          </h2>
+          <ul className="mt-2 space-y-1">
+            {info.forks.map((f) => (
+              <li key={f.id}>
+                <Link href={`/recipes/${f.slug}`}>{f.title}</Link>
+                {f.hidden && <span className="ml-2 font-sans text-xs text-danger">hidden by moderators</span>}
+                <span className="font-sans text-sm text-muted">
+                  {' '}
+                  — forked from {f.sourceSlug ? <Link href={`/recipes/${f.sourceSlug}`}>{f.sourceTitle}</Link> : f.sourceTitle}
+                </span>
+              </li>
+            ))}
+          </ul>
+        </section>
+      )}
+    </>
+  );
+}
