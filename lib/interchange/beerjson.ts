@@ -9,6 +9,7 @@ import type {
   YeastKind,
 } from '@/lib/brewing/schema';
 import { ION_NAMES } from '@/lib/brewing/schema';
+import { preBoilVolumeL } from '@/lib/brewing/brewday';
 import { findStyle } from '@/lib/brewing/styles';
 import { checkBeerJsonSchema } from './beerjson/schema';
 import { assertWithinLimit } from './limits';
@@ -684,7 +685,7 @@ export function toBeerJson(doc: RecipeDocument, opts: { author?: string } = {}):
     notes: doc.notes,
     boil: {
       name: 'Boil',
-      pre_boil_size: litres(doc.batch.volumeL + (doc.batch.boilOffLPerHour * doc.batch.boilTimeMin) / 60 + doc.batch.trubLossL),
+      pre_boil_size: litres(preBoilVolumeL(doc.batch)),
       boil_time: time(doc.batch.boilTimeMin),
       ...(boilSteps.length > 1 ? { boil_steps: boilSteps.map((s) => s.json) } : {}),
     },

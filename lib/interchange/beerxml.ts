@@ -1,3 +1,4 @@
+import { preBoilVolumeL } from '@/lib/brewing/brewday';
 import { findStyle } from '@/lib/brewing/styles';
 import type {
   FermentableKind,
@@ -511,14 +512,9 @@ const FERMENTABLE_WORDS: Record<FermentableKind, string> = { grain: 'Grain', sug
 // BeerXML 1.0 has no kveik or wild type: they go out as Ale and are recognised again by name.
 const YEAST_WORDS: Record<YeastKind, string> = { ale: 'Ale', lager: 'Lager', kveik: 'Ale', wheat: 'Wheat', wild: 'Ale', other: 'Wine' };
 
-/** Pre-boil volume: into the fermenter, plus what the boil drives off and the kettle keeps. */
-export function preBoilVolumeL(doc: RecipeDocument): number {
-  return doc.batch.volumeL + (doc.batch.boilOffLPerHour * doc.batch.boilTimeMin) / 60 + doc.batch.trubLossL;
-}
-
 /** One recipe as a BeerXML 1.0 file (a RECIPES group holding one RECIPE). */
 export function toBeerXml(doc: RecipeDocument, opts: { brewer?: string } = {}): string {
-  const boilSizeL = round(preBoilVolumeL(doc), 3);
+  const boilSizeL = round(preBoilVolumeL(doc.batch), 3);
   const gristKg = doc.fermentables.filter((f) => f.kind === 'grain' || f.kind === 'adjunct').reduce((n, f) => n + f.amountKg, 0);
   const recipe: Tag[] = [
     t('NAME', doc.title),

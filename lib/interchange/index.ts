@@ -3,7 +3,7 @@ import { parseBeerXml } from './beerxml';
 import { InterchangeError, type ImportResult, type InterchangeFormat } from './types';
 
 export { parseBeerJson, toBeerJson } from './beerjson';
-export { parseBeerXml, toBeerXml, preBoilVolumeL } from './beerxml';
+export { parseBeerXml, toBeerXml } from './beerxml';
 export { MAX_IMPORT_BYTES, readLimitedText } from './limits';
 export { InterchangeError, type ImportResult, type ImportedRecipe, type InterchangeFormat } from './types';
 
