@@ -14,6 +14,7 @@ export function SiteHeader() {
         <nav aria-label="Main" className="flex flex-1 flex-wrap items-center gap-4 font-sans text-sm">
           <Link href="/search">Find recipes</Link>
           <Link href="/recipes">Recent</Link>
+          <Link href="/guides">Guides</Link>
           <Link href="/about">About</Link>
         </nav>
         <AccountMenu />

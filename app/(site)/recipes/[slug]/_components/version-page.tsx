@@ -92,6 +92,17 @@ export async function VersionPage({ viewer, recipe, version }: { viewer: Viewer 
           <Link href={`${base}/lineage`} className="kf-btn-quiet">
             Forks ({recipe.forkCount})
           </Link>
+          <Link href={`/print/recipes/${recipe.slug}/v/${version.number}`} className="kf-btn-quiet">
+            Print brew sheet
+          </Link>
+          <span className="inline-flex flex-wrap items-center gap-2">
+            Download:
+            {(['beerxml', 'beerjson', 'kettlefork'] as const).map((format) => (
+              <a key={format} href={`/api/versions/${version.id}/export?format=${format}`} download>
+                {{ beerxml: 'BeerXML', beerjson: 'BeerJSON', kettlefork: 'JSON' }[format]}
+              </a>
+            ))}
+          </span>
           <RecipeCommunityBar viewer={viewer} recipe={recipe} />
         </nav>
       </header>
