@@ -103,7 +103,7 @@ export function ConflictPanel({
       <p className="mt-2 font-sans text-sm">
         {head.authorName} saved version {head.number}
         {whenSaved(head.createdAt)}
-        {head.message ? `: “${head.message}”` : '.'} Your changes are still in the form below and have not been saved.
+        {head.message ? `: “${head.message}”.` : '.'} Your changes are still in the form below and have not been saved.
       </p>
       <h3 className="mt-4 text-base font-semibold">
         What version {head.number} changed since {from}
