@@ -1,6 +1,6 @@
 /** Recipe search through the search engine's official client, configured by MEILI_HOST and MEILI_KEY. */
 import 'server-only';
-import { Meilisearch, type SearchParams, type Task } from 'meilisearch';
+import { Meilisearch, type EnqueuedTask, type SearchParams, type Task } from 'meilisearch';
 import { env } from '../env';
 import { FACET_ATTRIBUTES, RECIPE_INDEX_SETTINGS, RECIPES_INDEX, RECIPES_PRIMARY_KEY, type RecipeFacet, type RecipeSearchDocument } from './document';
 import { buildRecipeFilter, sortFor, type SearchViewer } from './filters';
@@ -52,6 +52,22 @@ export async function upsertRecipeDocuments(docs: RecipeSearchDocument[], client
     const batch = docs.slice(start, start + UPSERT_BATCH_SIZE);
     assertSucceeded(await index.addDocuments(batch, { primaryKey: RECIPES_PRIMARY_KEY }).waitTask(WRITE_WAIT));
   }
+}
+
+/**
+ * Queues a batch of recipes without waiting for the engine to take it: for bulk loads, where the
+ * engine works through queued batches while the next one is read. Hand every task to
+ * `waitForRecipeTasks` before relying on the documents.
+ */
+export async function enqueueRecipeDocuments(docs: RecipeSearchDocument[], client: Meilisearch = getSearchClient()): Promise<EnqueuedTask> {
+  return client.index<RecipeSearchDocument>(RECIPES_INDEX).addDocuments(docs, { primaryKey: RECIPES_PRIMARY_KEY });
+}
+
+/** Resolves once every queued task has succeeded; throws on the first that failed. */
+export async function waitForRecipeTasks(tasks: EnqueuedTask[], client: Meilisearch = getSearchClient()): Promise<void> {
+  if (tasks.length === 0) return;
+  const done = await client.tasks.waitForTasks(tasks, { timeout: 120_000, interval: 50 });
+  done.forEach(assertSucceeded);
 }
 
 /** Removes recipes by id; resolves once they are gone from results. */

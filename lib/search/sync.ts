@@ -6,11 +6,19 @@
  */
 import 'server-only';
 import { asc, count, eq, gt, inArray, isNotNull, sql, type SQL } from 'drizzle-orm';
-import type { Meilisearch } from 'meilisearch';
+import type { EnqueuedTask, Meilisearch } from 'meilisearch';
 import { db, type Database, type Transaction } from '@/db';
 import { recipes, recipeVersions, searchOutbox, users } from '@/db/schema';
 import { toSearchDocument, MAX_INDEXED_NOTES_CHARS, type IndexedDocumentParts, type RecipeIndexRow } from './build-document';
-import { deleteRecipeDocuments, ensureRecipeIndex, getSearchClient, isSearchAvailable, upsertRecipeDocuments } from './client';
+import {
+  deleteRecipeDocuments,
+  enqueueRecipeDocuments,
+  ensureRecipeIndex,
+  getSearchClient,
+  isSearchAvailable,
+  upsertRecipeDocuments,
+  waitForRecipeTasks,
+} from './client';
 import { FILTERABLE_ATTRIBUTES, RECIPES_INDEX } from './document';
 
 type Executor = Database | Transaction;
@@ -162,24 +170,23 @@ export function processSearchOutbox(client: Meilisearch = getSearchClient(), dat
 }
 
 /**
- * Reindexes every recipe from PostgreSQL, 1,000 at a time in id order (keyset pagination),
- * reading the next batch while the engine takes the previous one.
+ * Reindexes every recipe from PostgreSQL, 1,000 at a time in id order (keyset pagination). Each
+ * batch is queued without waiting, so the engine indexes one batch while the next is read.
  */
 export async function rebuildSearchIndex(client: Meilisearch = getSearchClient(), database: Executor = db): Promise<{ count: number; ms: number }> {
   const started = performance.now();
+  const tasks: EnqueuedTask[] = [];
   let total = 0;
   let after: string | null = null;
-  let sending: Promise<void> = Promise.resolve();
   for (;;) {
     const rows = await selectIndexRows(database, after === null ? undefined : gt(recipes.id, after), REBUILD_BATCH);
-    await sending;
     if (rows.length === 0) break;
     total += rows.length;
     after = rows[rows.length - 1].id;
-    sending = upsertRecipeDocuments(rows.map(toSearchDocument), client);
+    tasks.push(await enqueueRecipeDocuments(rows.map(toSearchDocument), client));
     if (rows.length < REBUILD_BATCH) break;
   }
-  await sending;
+  await waitForRecipeTasks(tasks, client);
   return { count: total, ms: Math.round(performance.now() - started) };
 }
 

@@ -151,7 +151,8 @@ export function RecipeSearch({ categories, unavailableAtFirst }: RecipeSearchPro
         <aside id="search-filters" aria-label="Filters" className={`${filtersOpen ? 'block' : 'hidden'} mb-6 lg:mb-0 lg:block`}>
           <div className="kf-card p-4">
             <div className="mb-3 flex items-baseline justify-between gap-2">
-              <h2 className="font-sans text-base font-semibold">Filters</h2>
+              {/* On a phone the disclosure button already says "Filters". */}
+              <h2 className="font-sans text-base font-semibold max-lg:sr-only">Filters</h2>
               {filterCount > 0 && (
                 <button type="button" className="font-sans text-sm text-copper-strong underline underline-offset-2" onClick={() => navigate(withoutFilters(query))}>
                   Clear all
