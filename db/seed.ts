@@ -1,6 +1,8 @@
 import { sql } from 'drizzle-orm';
 import { db, getPool } from './index';
 import { recipes, users } from './schema';
+import { seedCommunity } from './seed/community';
+import type { SeedContext } from './seed/context';
 import { DEMO_PASSWORD, demoPeople } from './seed/people';
 import { demoForks, demoRecipes } from './seed/recipes';
 import { hashPassword } from '@/lib/auth/password';
@@ -35,14 +37,14 @@ async function saveChain(viewer: Viewer, recipeId: string, first: { id: string }
   return numbers;
 }
 
-async function seedRecipes(people: Map<string, Viewer>): Promise<void> {
+async function seedRecipes(people: Map<string, Viewer>): Promise<Map<string, string> | null> {
   const owner = (handle: string) => {
     const v = people.get(handle);
     if (!v) throw new Error(`no demo member ${handle}`);
     return v;
   };
   const [{ n }] = (await db.execute(sql`select count(*)::int as n from recipes r join users u on u.id = r.owner_id where u.email like '%@kettlefork.test' and u.handle = 'wren'`)).rows as { n: number }[];
-  if (n > 0) return;
+  if (n > 0) return null;
   const ids = new Map<string, string>();
   for (const r of demoRecipes) {
     const viewer = owner(r.owner);
@@ -59,10 +61,16 @@ async function seedRecipes(people: Map<string, Viewer>): Promise<void> {
     await saveChain(viewer, forked.recipe.id, forked.version, start, f.versions);
     ids.set(f.key, forked.recipe.id);
   }
+  return ids;
 }
 
 const people = await seedPeople();
-await seedRecipes(people);
+const recipeIds = await seedRecipes(people);
+if (recipeIds) {
+  // The rest of the demo world is added once, together with the recipes it belongs to.
+  const context: SeedContext = { people, recipes: recipeIds };
+  await seedCommunity(context);
+}
 const [{ members }] = (await db.execute(sql`select count(*)::int as members from users`)).rows as { members: number }[];
 const recipeCount = await db.$count(recipes);
 console.log(`seed: ${members} members, ${recipeCount} recipes`);
