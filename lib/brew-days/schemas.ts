@@ -19,8 +19,18 @@ function num(label: string) {
   return z.number({ error: `${label} must be a number` }).refine(Number.isFinite, `${label} must be a number`);
 }
 
+/** An empty form field (blank text, or a gravity with no reading typed) counts as not measured. */
+function blankToNull(value: unknown): unknown {
+  if (value === '') return null;
+  if (value && typeof value === 'object' && 'value' in value) {
+    const v = (value as { value: unknown }).value;
+    if (v === undefined || v === null || v === '') return null;
+  }
+  return value;
+}
+
 function optional<T extends z.ZodType>(schema: T) {
-  return schema.nullish().transform((v) => v ?? null);
+  return z.preprocess(blankToNull, schema.nullish()).transform((v) => (v ?? null) as z.output<T> | null);
 }
 
 export function temperatureField(label: string) {

@@ -2,6 +2,7 @@ import { format } from 'date-fns';
 import { eq } from 'drizzle-orm';
 import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
+import { MemberBrewDays } from '@/components/brew-days/member-brew-days';
 import { MemberCommunity } from '@/components/community/member-community';
 import { Markdown } from '@/components/markdown';
 import { RecipeCard } from '@/components/recipe-card';
@@ -48,6 +49,7 @@ export default async function MemberPage({ params }: Props) {
           ))}
         </ul>
       )}
+      <MemberBrewDays memberId={member.id} viewer={viewer} />
     </div>
   );
 }

@@ -1,5 +1,6 @@
 import { format } from 'date-fns';
 import Link from 'next/link';
+import { RecipeBrewDays } from '@/components/brew-days/recipe-brew-days';
 import { RecipeCommunityBar } from '@/components/community/recipe-community-bar';
 import { RecipeComments } from '@/components/community/recipe-comments';
 import { RecipeDocumentView } from '@/components/recipe-document';
@@ -92,6 +93,11 @@ export async function VersionPage({ viewer, recipe, version }: { viewer: Viewer 
           <Link href={`${base}/lineage`} className="kf-btn-quiet">
             Forks ({recipe.forkCount})
           </Link>
+          {viewer && !recipe.hiddenAt && (
+            <Link href={`${base}/v/${version.number}/brew`} className="kf-btn-quiet">
+              Log a brew day
+            </Link>
+          )}
           <Link href={`/print/recipes/${recipe.slug}/v/${version.number}`} className="kf-btn-quiet">
             Print brew sheet
           </Link>
@@ -123,6 +129,7 @@ export async function VersionPage({ viewer, recipe, version }: { viewer: Viewer 
           {owner && <VisibilitySelect recipeId={recipe.id} visibility={recipe.visibility} />}
         </aside>
       </div>
+      <RecipeBrewDays recipeId={recipe.id} viewer={viewer} brewHref={viewer && !recipe.hiddenAt ? `${base}/v/${version.number}/brew` : null} />
       <RecipeComments viewer={viewer} recipe={recipe} versionNumber={version.number} />
     </article>
   );

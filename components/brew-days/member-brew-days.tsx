@@ -1,0 +1,16 @@
+import type { Viewer } from '@/lib/auth/session';
+import { getBrewDaysByBrewerId } from '@/lib/brew-days/brew-days';
+import { BrewDayList } from './brew-day-list';
+
+/** A member page's section: their brew days of recipes the viewer can see. */
+export async function MemberBrewDays({ memberId, viewer }: { memberId: string; viewer: Viewer | null }) {
+  const days = await getBrewDaysByBrewerId({ brewerId: memberId, viewer });
+  return (
+    <section aria-labelledby="member-brew-days-title">
+      <h2 id="member-brew-days-title" className="mt-8 text-xl font-semibold">
+        Brew days
+      </h2>
+      {days.length === 0 ? <p className="mt-2 text-muted">No brew days logged yet.</p> : <BrewDayList days={days} show="brewer" />}
+    </section>
+  );
+}

@@ -1,0 +1,24 @@
+import Link from 'next/link';
+import type { Viewer } from '@/lib/auth/session';
+import { getBrewDaysByRecipeId } from '@/lib/brew-days/brew-days';
+import { BrewDayList } from './brew-day-list';
+
+/** The recipe page's section: how it came out for everyone who brewed it, across all versions. */
+export async function RecipeBrewDays({ recipeId, viewer, brewHref }: { recipeId: string; viewer: Viewer | null; brewHref: string | null }) {
+  const days = await getBrewDaysByRecipeId({ recipeId, viewer });
+  return (
+    <section aria-labelledby="brew-days-title" className="mt-10">
+      <div className="flex flex-wrap items-center justify-between gap-2">
+        <h2 id="brew-days-title" className="text-xl font-semibold">
+          Brew days ({days.length})
+        </h2>
+        {brewHref && (
+          <Link href={brewHref} className="kf-btn-quiet font-sans text-sm">
+            Log a brew day
+          </Link>
+        )}
+      </div>
+      {days.length === 0 ? <p className="mt-2 font-sans text-sm text-muted">Nobody has logged a brew of this recipe yet.</p> : <BrewDayList days={days} show="recipe" />}
+    </section>
+  );
+}
