@@ -1,6 +1,7 @@
 import { sql } from 'drizzle-orm';
 import { db, getPool } from './index';
 import { recipes, users } from './schema';
+import { seedBrewDays } from './seed/brew-days';
 import { seedCommunity } from './seed/community';
 import type { SeedContext } from './seed/context';
 import { DEMO_PASSWORD, demoPeople } from './seed/people';
@@ -70,6 +71,7 @@ if (recipeIds) {
   // The rest of the demo world is added once, together with the recipes it belongs to.
   const context: SeedContext = { people, recipes: recipeIds };
   await seedCommunity(context);
+  await seedBrewDays(context);
 }
 const [{ members }] = (await db.execute(sql`select count(*)::int as members from users`)).rows as { members: number }[];
 const recipeCount = await db.$count(recipes);
