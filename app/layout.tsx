@@ -6,8 +6,6 @@ import './globals.css';
 import type { Metadata, Viewport } from 'next';
 import type { ReactNode } from 'react';
 import { Providers } from '@/components/providers';
-import { SiteFooter } from '@/components/site-footer';
-import { SiteHeader } from '@/components/site-header';
 
 export const metadata: Metadata = {
   title: { default: 'Kettlefork — homebrew recipes with a history', template: '%s · Kettlefork' },
@@ -20,16 +18,7 @@ export default function RootLayout({ children }: { children: ReactNode }) {
   return (
     <html lang="en">
       <body className="min-h-screen">
-        <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:bg-card focus:p-2">
-          Skip to content
-        </a>
-        <Providers>
-          <SiteHeader />
-          <main id="main" className="mx-auto max-w-page px-4 py-8">
-            {children}
-          </main>
-          <SiteFooter />
-        </Providers>
+        <Providers>{children}</Providers>
       </body>
     </html>
   );

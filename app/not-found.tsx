@@ -1,7 +1,9 @@
 import Link from 'next/link';
+import { SiteChrome } from '@/components/site-chrome';
 
 export default function NotFound() {
   return (
+    <SiteChrome>
     <div className="mx-auto max-w-md py-10 text-center">
       <p className="kf-data text-sm text-muted">404</p>
       <h1 className="mt-2 text-3xl font-semibold">Nothing on this shelf</h1>
@@ -12,5 +14,6 @@ export default function NotFound() {
         </Link>
       </p>
     </div>
+    </SiteChrome>
   );
 }

@@ -1,7 +1,7 @@
 import './print.css';
 import type { ReactNode } from 'react';
 
-/** Printable pages: the site's header, footer and skip link are hidden around them (see print.css). */
+/** Printable pages: outside the site's page groups, so without its header, footer and navigation. */
 export default function PrintLayout({ children }: { children: ReactNode }) {
-  return <div className="kf-print-page">{children}</div>;
+  return <main className="kf-print-page">{children}</main>;
 }

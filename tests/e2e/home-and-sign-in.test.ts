@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SCREENSHOT_DIR, openBrowser, type BrowserSession } from '../helpers/browser';
 import { TEST_PASSWORD, createUser } from '../helpers/users';
 
-describe('home and sign-in in a real browser', () => {
+describe('home and sign-in in a real browser', { timeout: 120_000 }, () => {
   let s: BrowserSession;
   beforeAll(async () => {
     s = await openBrowser();
