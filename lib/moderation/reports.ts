@@ -35,7 +35,7 @@ export async function createReport(viewer: Viewer, input: ReportInput): Promise<
       .returning({ id: reports.id });
     return row;
   } catch (err) {
-    if ((err as { code?: string }).code === '23505') {
+    if (isUniqueViolation(err)) {
       throw new AppError('conflict', 'report', 'You have already reported this; a moderator will look at it soon.');
     }
     throw err;
@@ -181,6 +181,12 @@ export async function resolveReport(actor: Viewer, reportId: string, input: Reso
   });
   if (recipeChanged) afterRecipeCommit();
   return result;
+}
+
+/** Drizzle wraps the driver's error; the SQLSTATE is on it or on its cause. */
+function isUniqueViolation(err: unknown): boolean {
+  const e = err as { code?: string; cause?: { code?: string } };
+  return e.code === '23505' || e.cause?.code === '23505';
 }
 
 async function checkSuspendable(actor: Viewer, ownerId: string | null): Promise<void> {
