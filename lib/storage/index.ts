@@ -1,5 +1,5 @@
 import 'server-only';
-import { DeleteObjectCommand, GetObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
+import { DeleteObjectCommand, GetObjectCommand, ListObjectsV2Command, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 import { env } from '@/lib/env';
 
 /**
@@ -40,4 +40,16 @@ export async function getObject(key: string): Promise<Buffer | null> {
 /** Deletes each key (deleting a missing key is not an error in S3). */
 export async function deleteObjects(keys: string[]): Promise<void> {
   await Promise.all(keys.map((Key) => client().send(new DeleteObjectCommand({ Bucket: env().S3_BUCKET, Key }))));
+}
+
+/** Every key in the bucket (all pages of the listing), for backups. */
+export async function listObjectKeys(prefix = ''): Promise<string[]> {
+  const keys: string[] = [];
+  let token: string | undefined;
+  do {
+    const page = await client().send(new ListObjectsV2Command({ Bucket: env().S3_BUCKET, Prefix: prefix || undefined, ContinuationToken: token }));
+    for (const item of page.Contents ?? []) if (item.Key) keys.push(item.Key);
+    token = page.IsTruncated ? page.NextContinuationToken : undefined;
+  } while (token);
+  return keys;
 }
