@@ -230,3 +230,4 @@ export const searchOutbox = pgTable(
 export type SearchOutboxEntry = typeof searchOutbox.$inferSelect;
 export * from './tables/brew-days';
 export * from './tables/community';
+export * from './tables/proposals';

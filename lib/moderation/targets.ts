@@ -5,6 +5,7 @@ import { brewDays, comments, hiddenPhotos, moderationActions, photos, recipes, u
 import { hasRole } from '@/lib/auth/roles';
 import type { Viewer } from '@/lib/auth/session';
 import { getVisibleComment } from '@/lib/community/comments';
+import { getVisibleProposal, hideProposal } from '@/lib/proposals/proposals';
 import { AppError } from '@/lib/errors';
 import { canView } from '@/lib/recipes/access';
 import { idParam } from '@/lib/recipes/http';
@@ -65,6 +66,10 @@ export async function resolveTarget(viewer: MaybeViewer, type: ReportTarget, id:
       if (!member) throw new AppError('not_found', 'member');
       return { ownerId: member.id, recipeId: null };
     }
+    case 'proposal': {
+      const proposal = await getVisibleProposal(viewer, id);
+      return { ownerId: proposal.proposerId, recipeId: proposal.sourceRecipeId };
+    }
   }
 }
 
@@ -93,6 +98,10 @@ export async function hideTarget(tx: Transaction, actor: Viewer, target: { type:
     case 'photo':
       await tx.insert(hiddenPhotos).values({ photoId: target.id, reason, hiddenById: actor.id }).onConflictDoNothing();
       await log(tx, actor, 'hide_photo', 'photo', target.id, reason, details);
+      return { recipeChanged: false };
+    case 'proposal':
+      await hideProposal(tx, target.id, reason);
+      await log(tx, actor, 'hide_proposal', 'proposal', target.id, reason, details);
       return { recipeChanged: false };
     case 'member':
       throw new AppError('bad_request', 'action', 'A member cannot be hidden: suspend them, or dismiss the report.', [

@@ -1,6 +1,6 @@
 // Pure: names of report targets and reasons, shared by server and client code.
 
-export const REPORT_TARGETS = ['recipe', 'version', 'comment', 'photo', 'member'] as const;
+export const REPORT_TARGETS = ['recipe', 'version', 'comment', 'photo', 'member', 'proposal'] as const;
 export type ReportTarget = (typeof REPORT_TARGETS)[number];
 
 export const REPORT_REASONS = ['spam', 'abuse', 'unsafe', 'other'] as const;
@@ -19,4 +19,5 @@ export const TARGET_LABELS: Record<ReportTarget, string> = {
   comment: 'comment',
   photo: 'photo',
   member: 'member',
+  proposal: 'proposal',
 };

@@ -1,6 +1,6 @@
 // Pure: shared by the server, the e-mail sender and client components.
 
-export const NOTIFICATION_KINDS = ['fork', 'comment', 'reply', 'star', 'brewed', 'new_recipe'] as const;
+export const NOTIFICATION_KINDS = ['fork', 'comment', 'reply', 'star', 'brewed', 'new_recipe', 'proposal', 'proposal_decision'] as const;
 export type NotificationKind = (typeof NOTIFICATION_KINDS)[number];
 
 /** How each kind is named on the settings page and in unsubscribe messages. */
@@ -11,6 +11,8 @@ export const KIND_LABELS: Record<NotificationKind, string> = {
   star: 'Someone starred your recipe',
   brewed: 'Someone brewed your recipe',
   new_recipe: 'A member you follow published a new recipe',
+  proposal: 'Someone proposed a change to your recipe',
+  proposal_decision: 'The owner decided on your proposal',
 };
 
 /** The one line a notification reads as, in the site and in e-mails. */
@@ -28,5 +30,9 @@ export function describeNotification(kind: NotificationKind, actorName: string, 
       return `${actorName} brewed “${recipeTitle}”`;
     case 'new_recipe':
       return `${actorName} published a new recipe: “${recipeTitle}”`;
+    case 'proposal':
+      return `${actorName} proposed a change to your recipe “${recipeTitle}”`;
+    case 'proposal_decision':
+      return `${actorName} decided on your proposal to “${recipeTitle}”`;
   }
 }

@@ -124,43 +124,51 @@ export async function saveVersion(
   recipeId: string,
   input: { document: RecipeDocument; baseVersionId: string; message: string; coAuthorId?: string | null },
 ): Promise<SavedVersion> {
-  const saved = await db.transaction(async (tx) => {
-    const [recipe] = await tx.select().from(recipes).where(eq(recipes.id, recipeId)).for('update');
-    if (!recipe || !canView(recipe, viewer)) throw new AppError('not_found', 'recipe');
-    if (!isOwner(recipe, viewer)) throw new AppError('forbidden', 'recipe', 'Only the owner can save versions of this recipe. Fork it to make your own.');
-    if (recipe.headVersionId !== input.baseVersionId) {
-      const head = await headSummary(tx, recipe.headVersionId!);
-      throw new AppError(
-        'conflict',
-        'recipe',
-        `Version ${head.number} was saved after the version you started from. Your changes are kept; look at what changed, then save on top of it.`,
-        [],
-        { head },
-      );
-    }
-    const number = recipe.headNumber + 1;
-    const [version] = await tx
-      .insert(recipeVersions)
-      .values(
-        versionRow(input.document, {
-          recipeId,
-          number,
-          parentVersionId: recipe.headVersionId,
-          authorId: viewer.id,
-          coAuthorId: input.coAuthorId ?? null,
-          message: input.message,
-        }),
-      )
-      .returning({ id: recipeVersions.id, number: recipeVersions.number });
-    await tx
-      .update(recipes)
-      .set({ headVersionId: version.id, headNumber: number, title: input.document.title, updatedAt: new Date() })
-      .where(eq(recipes.id, recipeId));
-    await recordRecipeChange(tx, recipeId);
-    return { recipe: { id: recipe.id, slug: recipe.slug }, version };
-  });
+  const saved = await db.transaction((tx) => saveVersionInTransaction(tx, viewer, recipeId, input));
   afterRecipeCommit();
   return saved;
+}
+
+/** saveVersion's work inside a caller's transaction (call afterRecipeCommit() after the commit). */
+export async function saveVersionInTransaction(
+  tx: Transaction,
+  viewer: Viewer,
+  recipeId: string,
+  input: { document: RecipeDocument; baseVersionId: string; message: string; coAuthorId?: string | null },
+): Promise<SavedVersion> {
+  const [recipe] = await tx.select().from(recipes).where(eq(recipes.id, recipeId)).for('update');
+  if (!recipe || !canView(recipe, viewer)) throw new AppError('not_found', 'recipe');
+  if (!isOwner(recipe, viewer)) throw new AppError('forbidden', 'recipe', 'Only the owner can save versions of this recipe. Fork it to make your own.');
+  if (recipe.headVersionId !== input.baseVersionId) {
+    const head = await headSummary(tx, recipe.headVersionId!);
+    throw new AppError(
+      'conflict',
+      'recipe',
+      `Version ${head.number} was saved after the version you started from. Your changes are kept; look at what changed, then save on top of it.`,
+      [],
+      { head },
+    );
+  }
+  const number = recipe.headNumber + 1;
+  const [version] = await tx
+    .insert(recipeVersions)
+    .values(
+      versionRow(input.document, {
+        recipeId,
+        number,
+        parentVersionId: recipe.headVersionId,
+        authorId: viewer.id,
+        coAuthorId: input.coAuthorId ?? null,
+        message: input.message,
+      }),
+    )
+    .returning({ id: recipeVersions.id, number: recipeVersions.number });
+  await tx
+    .update(recipes)
+    .set({ headVersionId: version.id, headNumber: number, title: input.document.title, updatedAt: new Date() })
+    .where(eq(recipes.id, recipeId));
+  await recordRecipeChange(tx, recipeId);
+  return { recipe: { id: recipe.id, slug: recipe.slug }, version };
 }
 
 /** Restoring makes a new version holding an older version's document; history is never rewritten. */

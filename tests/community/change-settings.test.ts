@@ -12,7 +12,7 @@ const valid = {
   units: 'us',
   defaultBatchVolumeL: 23,
   defaultEfficiencyPct: 75,
-  emailChoices: { fork: true, comment: true, reply: true, star: false, brewed: true, new_recipe: false },
+  emailChoices: { fork: true, comment: true, reply: true, star: false, brewed: true, new_recipe: false, proposal: true, proposal_decision: true },
 };
 
 describe('member settings', () => {

@@ -8,6 +8,7 @@ import { unsubscribeToken } from '@/lib/notifications/unsubscribe-token';
 import { TestClient } from '../helpers/http';
 import { createRecipeVia, paleAle, type Saved } from '../helpers/recipes';
 import { createUser, signedInClient, uniqueEmail } from '../helpers/users';
+import { forkVia, proposalFrom, proposalTo } from '../proposals/helpers';
 
 /**
  * Every mutating route × anonymous, member, owner, moderator and admin → the expected status.
@@ -183,10 +184,35 @@ const ROWS: Record<string, Row> = {
         units: 'metric',
         defaultBatchVolumeL: 20,
         defaultEfficiencyPct: 72,
-        emailChoices: { fork: true, comment: true, reply: true, star: true, brewed: true, new_recipe: true },
+        emailChoices: { fork: true, comment: true, reply: true, star: true, brewed: true, new_recipe: true, proposal: true, proposal_decision: true },
       },
     }),
     expect: signedIn(200),
+  },
+  'POST /api/proposals': {
+    prepare: async (w) => {
+      const source = await createRecipeVia((await signedInClient()).client);
+      const fork = await forkVia(w.owner.client, source.version.id);
+      return { path: '/api/proposals', body: { versionId: fork.version.id, title: 'A proposal', description: '' } };
+    },
+    expect: ownerOnly(201),
+  },
+  'PATCH /api/proposals/[id]': { prepare: async (w) => ({ path: `/api/proposals/${(await proposalFrom(w.owner.client)).id}`, body: { title: 'Reworded' } }), expect: ownerOnly(200) },
+  'POST /api/proposals/[id]/withdraw': { prepare: async (w) => ({ path: `/api/proposals/${(await proposalFrom(w.owner.client)).id}/withdraw` }), expect: ownerOnly(200) },
+  'POST /api/proposals/[id]/accept': {
+    prepare: async (w) => {
+      const p = await proposalTo(w.owner.client);
+      return { path: `/api/proposals/${p.id}/accept`, body: { sourceHeadVersionId: p.source.version.id } };
+    },
+    expect: ownerOnly(201),
+  },
+  'POST /api/proposals/[id]/decision': {
+    prepare: async (w) => ({ path: `/api/proposals/${(await proposalTo(w.owner.client)).id}/decision`, body: { decision: 'declined', comment: 'Not for this one.' } }),
+    expect: ownerOnly(200),
+  },
+  'POST /api/proposals/[id]/comments': {
+    prepare: async (w) => ({ path: `/api/proposals/${(await proposalTo(w.owner.client)).id}/comments`, body: { body: 'Tried it?' } }),
+    expect: signedIn(201),
   },
   'POST /api/unsubscribe': {
     prepare: async (w) => ({ path: `/api/unsubscribe?token=${encodeURIComponent(unsubscribeToken(w.owner.user.id, 'star'))}` }),

@@ -5,6 +5,7 @@ import { TestClient } from '../helpers/http';
 import { createRecipeVia, paleAle, type Saved } from '../helpers/recipes';
 import { signedInClient } from '../helpers/users';
 import { ageAccount } from '../community/helpers';
+import { proposalTo } from '../proposals/helpers';
 
 /**
  * Known XSS payloads go through every place that renders user text: comments, recipe notes and
@@ -39,8 +40,8 @@ const PAYLOADS = [
 
 const ALL = PAYLOADS.join('\n\n');
 
-// Next.js's own inline scripts (the streamed page data and its bootstrapping) start like this.
-const FRAMEWORK_INLINE = [/^\(?self\.__next_[a-z]/, /^\$R[A-Z]/, /^requestAnimationFrame\(/, /^document\.currentScript/];
+// Next.js's own inline scripts (the streamed page data, the bundler's chunk list and its bootstrapping) start like this.
+const FRAMEWORK_INLINE = [/^\(?self\.__next_[a-z]/, /^\(globalThis\["TURBOPACK"\]/, /^\$R[A-Z]/, /^requestAnimationFrame\(/, /^document\.currentScript/];
 const URL_ATTRIBUTES = new Set(['href', 'src', 'action', 'formaction', 'xlink:href', 'data', 'poster', 'background']);
 const FORBIDDEN_TAGS = new Set(['iframe', 'object', 'embed', 'frame', 'frameset', 'applet', 'base', 'meta', 'link']);
 
@@ -98,7 +99,7 @@ describe('user text cannot run script', () => {
       units: 'metric',
       defaultBatchVolumeL: 20,
       defaultEfficiencyPct: 72,
-      emailChoices: { fork: true, comment: true, reply: true, star: true, brewed: true, new_recipe: true },
+      emailChoices: { fork: true, comment: true, reply: true, star: true, brewed: true, new_recipe: true, proposal: true, proposal_decision: true },
     });
     // An established member: a new one's link comments would wait for review instead of showing.
     await ageAccount(commenterUser.id);
@@ -121,7 +122,12 @@ describe('user text cannot run script', () => {
     expect((await reporter.post('/api/reports', { targetType: 'comment', targetId: comment.body.comment.id, reason: 'abuse', note: halves[0] })).status).toBe(201);
     expect((await reporter.post('/api/reports', { targetType: 'member', targetId: commenterUser.id, reason: 'other', note: halves[1] })).status).toBe(201);
 
+    // A proposal's title, description and discussion.
+    const proposal = await proposalTo(owner, { proposal: { title: '<script>kfXss()</script> idea', description: ALL.slice(0, 5000) } });
+    expect((await commenter.post(`/api/proposals/${proposal.id}/comments`, { body: '<img src=x onerror=kfXss()>' })).status).toBe(201);
+
     pages.push(
+      { name: 'proposal page with its title, description and discussion', client: new TestClient(), path: `/proposals/${proposal.id}` },
       { name: 'recipe page with notes, comments and names', client: new TestClient(), path: `/recipes/${recipe.recipe.slug}` },
       { name: 'recipe page seen by its owner', client: owner, path: `/recipes/${recipe.recipe.slug}` },
       { name: 'a payload title', client: new TestClient(), path: `/recipes/${titled[0].recipe.slug}` },

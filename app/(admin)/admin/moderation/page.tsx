@@ -40,6 +40,11 @@ function Context({ item }: { item: QueueItem }) {
         </>
       )}
       {item.targetType === 'photo' && <p className="font-sans text-sm text-muted">Photo {item.targetId} on a brew day of this recipe.</p>}
+      {item.targetType === 'proposal' && (
+        <p className="font-sans text-sm">
+          <Link href={`/proposals/${item.targetId}`}>Read the reported proposal</Link> to this recipe.
+        </p>
+      )}
     </div>
   );
 }

@@ -3,6 +3,7 @@ import Link from 'next/link';
 import { RecipeBrewDays } from '@/components/brew-days/recipe-brew-days';
 import { RecipeCommunityBar } from '@/components/community/recipe-community-bar';
 import { RecipeComments } from '@/components/community/recipe-comments';
+import { RecipeProposals } from '@/components/proposals/recipe-proposals';
 import { RecipeDocumentView } from '@/components/recipe-document';
 import { StatsPanel } from '@/components/stats-panel';
 import type { Viewer } from '@/lib/auth/session';
@@ -130,6 +131,7 @@ export async function VersionPage({ viewer, recipe, version }: { viewer: Viewer 
         </aside>
       </div>
       <RecipeBrewDays recipeId={recipe.id} viewer={viewer} brewHref={viewer && !recipe.hiddenAt ? `${base}/v/${version.number}/brew` : null} />
+      <RecipeProposals viewer={viewer} recipe={recipe} version={version} />
       <RecipeComments viewer={viewer} recipe={recipe} versionNumber={version.number} />
     </article>
   );

@@ -1,0 +1,56 @@
+import Link from 'next/link';
+import type { Recipe } from '@/db/schema';
+import type { Viewer } from '@/lib/auth/session';
+import { getProposalsByRecipeId, getProposalTargets } from '@/lib/proposals/proposals';
+import { isOwner } from '@/lib/recipes/access';
+import { ProposalList } from './proposal-list';
+import { ProposeForm } from './propose-form';
+
+/**
+ * The recipe page's section: changes offered to this recipe by its forks, and (on a fork) the ones
+ * it offered upstream, with "Propose to the original" for the fork's owner.
+ */
+export async function RecipeProposals({ viewer, recipe, version }: { viewer: Viewer | null; recipe: Recipe & { ownerName: string }; version: { id: string; number: number } }) {
+  const owner = isOwner(recipe, viewer);
+  const [items, targets] = await Promise.all([
+    getProposalsByRecipeId({ viewer, recipeId: recipe.id }),
+    owner && recipe.forkedFromVersionId && !recipe.hiddenAt ? getProposalTargets(viewer, recipe.id) : Promise.resolve([]),
+  ]);
+  if (items.length === 0 && targets.length === 0) return null;
+  const openCount = items.filter((p) => p.status === 'open' || p.status === 'changes_requested').length;
+  const incoming = items.filter((p) => p.direction === 'incoming');
+  const outgoing = items.filter((p) => p.direction === 'outgoing');
+  return (
+    <section aria-labelledby="proposals-title" className="mt-10">
+      <h2 id="proposals-title" className="text-xl font-semibold">
+        Proposals ({openCount} open)
+      </h2>
+      {targets.length > 0 && (
+        <div className="mt-3">
+          <ProposeForm
+            versionId={version.id}
+            number={version.number}
+            targets={targets.map((t) => ({ recipeId: t.recipeId, title: t.title, ownerName: t.ownerName }))}
+          />
+        </div>
+      )}
+      {incoming.length > 0 && (
+        <>
+          <h3 className="mt-4 font-semibold">Offered to this recipe</h3>
+          <ProposalList items={incoming} empty="" />
+        </>
+      )}
+      {outgoing.length > 0 && (
+        <>
+          <h3 className="mt-4 font-semibold">Offered from this fork</h3>
+          <ProposalList items={outgoing} empty="" />
+        </>
+      )}
+      {viewer && (
+        <p className="mt-3 font-sans text-sm">
+          <Link href="/proposals">All your proposals</Link>
+        </p>
+      )}
+    </section>
+  );
+}
