@@ -4,7 +4,6 @@ const securityHeaders = [
   { key: 'X-Content-Type-Options', value: 'nosniff' },
   { key: 'Referrer-Policy', value: 'strict-origin-when-cross-origin' },
   { key: 'X-Frame-Options', value: 'DENY' },
-  { key: 'Content-Security-Policy', value: "frame-ancestors 'none'; base-uri 'self'; form-action 'self'; object-src 'none'" },
   { key: 'Permissions-Policy', value: 'camera=(), microphone=(), geolocation=()' },
 ];
 
@@ -17,7 +16,11 @@ const nextConfig: NextConfig = {
   images: { unoptimized: true },
   serverExternalPackages: ['pg', 'smtp-server', 'mailparser', 'bcryptjs', 'jimp', 's3rver'],
   async headers() {
-    return [{ source: '/:path*', headers: securityHeaders }];
+    return [
+      { source: '/:path*', headers: securityHeaders },
+      // Pages get a per-request policy with a script nonce from proxy.ts; JSON and files need none of that.
+      { source: '/api/:path*', headers: [{ key: 'Content-Security-Policy', value: "default-src 'none'; frame-ancestors 'none'" }] },
+    ];
   },
 };
 

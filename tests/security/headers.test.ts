@@ -1,0 +1,51 @@
+import { describe, expect, it } from 'vitest';
+import { TestClient } from '../helpers/http';
+import { createRecipeVia } from '../helpers/recipes';
+import { signedInClient } from '../helpers/users';
+
+function scriptSrc(policy: string): string {
+  return policy.split(';').map((d) => d.trim()).find((d) => d.startsWith('script-src')) ?? '';
+}
+
+describe('security headers', () => {
+  it('gives every page a fresh script nonce that all of its scripts carry, and no inline scripts without it', async () => {
+    const { client } = await signedInClient();
+    const recipe = await createRecipeVia(client);
+    const anon = new TestClient();
+    for (const path of ['/', '/sign-in', `/recipes/${recipe.recipe.slug}`, '/no-such-page']) {
+      const res = await anon.fetch(path);
+      const policy = res.headers.get('content-security-policy') ?? '';
+      const src = scriptSrc(policy);
+      const nonce = src.match(/'nonce-([^']+)'/)?.[1];
+      expect(nonce, path).toBeTruthy();
+      expect(src, path).not.toContain("'unsafe-inline'");
+      expect(src, path).not.toContain("'unsafe-eval'");
+      expect(policy).toContain("frame-ancestors 'none'");
+      expect(policy).toContain("object-src 'none'");
+      const html = await res.text();
+      const scripts = [...html.matchAll(/<script\b[^>]*>/g)].map((m) => m[0]);
+      expect(scripts.length, path).toBeGreaterThan(0);
+      for (const tag of scripts) expect(tag, `${path}: ${tag}`).toContain(`nonce="${nonce}"`);
+      const again = (await anon.fetch(path)).headers.get('content-security-policy');
+      expect(again).not.toBe(policy);
+    }
+  });
+
+  it('sends nosniff, the referrer policy and frame refusal on pages and on JSON', async () => {
+    const anon = new TestClient();
+    for (const path of ['/', '/api/me', '/api/recipes']) {
+      const res = await anon.fetch(path);
+      expect(res.headers.get('x-content-type-options'), path).toBe('nosniff');
+      expect(res.headers.get('referrer-policy'), path).toBe('strict-origin-when-cross-origin');
+      expect(res.headers.get('x-frame-options'), path).toBe('DENY');
+      expect(res.headers.get('content-security-policy'), path).toContain("frame-ancestors 'none'");
+    }
+  });
+
+  it('answers errors with a plain message and a request id, never a stack trace', async () => {
+    const res = await new TestClient().json<{ error: { message: string; requestId: string } }>('POST', '/api/accounts', '{not json', { 'content-type': 'application/json' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.requestId).toMatch(/^[0-9a-f-]{36}$/);
+    expect(JSON.stringify(res.body)).not.toMatch(/at .*\.(ts|js):\d+/);
+  });
+});
