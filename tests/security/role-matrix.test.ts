@@ -198,7 +198,7 @@ const ROWS: Record<string, Row> = {
     expect: ownerOnly(201),
   },
   'PATCH /api/proposals/[id]': { prepare: async (w) => ({ path: `/api/proposals/${(await proposalFrom(w.owner.client)).id}`, body: { title: 'Reworded' } }), expect: ownerOnly(200) },
-  'POST /api/proposals/[id]/withdraw': { prepare: async (w) => ({ path: `/api/proposals/${(await proposalFrom(w.owner.client)).id}/withdraw` }), expect: ownerOnly(200) },
+  'POST /api/proposals/[id]/withdraw': { prepare: async (w) => ({ path: `/api/proposals/${(await proposalFrom(w.owner.client)).id}/withdraw` }), expect: ownerOnly(201) },
   'POST /api/proposals/[id]/accept': {
     prepare: async (w) => {
       const p = await proposalTo(w.owner.client);
@@ -208,7 +208,7 @@ const ROWS: Record<string, Row> = {
   },
   'POST /api/proposals/[id]/decision': {
     prepare: async (w) => ({ path: `/api/proposals/${(await proposalTo(w.owner.client)).id}/decision`, body: { decision: 'declined', comment: 'Not for this one.' } }),
-    expect: ownerOnly(200),
+    expect: ownerOnly(201),
   },
   'POST /api/proposals/[id]/comments': {
     prepare: async (w) => ({ path: `/api/proposals/${(await proposalTo(w.owner.client)).id}/comments`, body: { body: 'Tried it?' } }),
