@@ -8,6 +8,7 @@ type Bench = { name: string; load: () => Promise<() => Promise<BenchRow[]>> };
 const benches: Bench[] = [
   { name: 'engine', load: async () => (await import('./engine')).benchEngine },
   { name: 'search', load: async () => (await import('./search')).benchSearch },
+  { name: 'uploads', load: async () => (await import('./uploads')).benchUploads },
   { name: 'recipes', load: async () => (await import('./recipes')).benchRecipes },
 ];
 
