@@ -59,6 +59,14 @@ describe('a brew day in a real browser', () => {
     await s.page.keyboard.press('Escape');
     await dialog.waitFor({ state: 'hidden' });
 
+    // A fermentation reading draws the chart beside the predicted FG.
+    await s.page.locator('#reading-value').fill('1.021');
+    await s.page.locator('#reading-beerTempC').fill('19');
+    await s.page.getByRole('button', { name: 'Add reading' }).click();
+    await s.page.getByRole('figure', { name: /Fermentation chart/ }).locator('svg.recharts-surface').first().waitFor();
+    await s.page.getByText(/Predicted FG 1\.0\d\d/).first().waitFor();
+    await s.shot('brew-day-chart');
+
     await s.page.setViewportSize({ width: 375, height: 800 });
     await s.shot('brew-day-narrow');
     expect(s.problems).toEqual([]);

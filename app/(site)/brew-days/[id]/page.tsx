@@ -30,6 +30,10 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
   return { title: `${view.recipe.title}: brewed ${format(parseISO(view.day.brewedOn), 'd MMM yyyy')} by ${view.brewer.name}` };
 }
 
+function pressureText(kPa: number, units: UnitSystem): string {
+  return `${toDisplayUnits(kPa, 'pressure', units).toFixed(0)} ${units === 'us' ? 'psi' : 'kPa'}`;
+}
+
 function shown(value: number | null, c: Comparison, units: UnitSystem, signed = false): string {
   if (value === null) return '—';
   const sign = signed && value > 0 ? '+' : '';
@@ -46,7 +50,7 @@ function shown(value: number | null, c: Comparison, units: UnitSystem, signed = 
     case 'volume':
       return `${sign}${formatAmount(value, 'volume', units, 1)}`;
     case 'pressure':
-      return `${sign}${toDisplayUnits(value, 'pressure', units).toFixed(0)} ${units === 'us' ? 'psi' : 'kPa'}`;
+      return `${sign}${pressureText(value, units)}`;
   }
 }
 
@@ -127,7 +131,7 @@ export default async function BrewDayPage({ params }: Props) {
             <>
               {' '}
               · packaged {format(parseISO(day.packagedOn), 'd MMM yyyy')} in {day.packaging === 'keg' ? 'a keg' : day.packaging === 'bottles' ? 'bottles' : '—'}
-              {day.packaging === 'keg' && day.kegPressureKPa !== null && <> at {shown(day.kegPressureKPa, { quantity: 'pressure' } as Comparison, units)}</>}
+              {day.packaging === 'keg' && day.kegPressureKPa !== null && <> at {pressureText(day.kegPressureKPa, units)}</>}
               {day.packaging === 'bottles' && day.primingSugarG !== null && <> with {formatAmount(day.primingSugarG, 'hopMass', units, 1)} priming sugar</>}
             </>
           )}

@@ -3,7 +3,7 @@ import { loadOwnBrewDay } from '@/lib/brew-days/brew-days';
 import { uploadPhoto } from '@/lib/brew-days/photos';
 import { photoCaptionSchema } from '@/lib/brew-days/schemas';
 import { AppError, invalidInput } from '@/lib/errors';
-import { route } from '@/lib/http/route';
+import { errorResponse, route } from '@/lib/http/route';
 import { MAX_PHOTO_BYTES } from '@/lib/storage/images';
 
 /** Room for the multipart boundaries, part headers and a caption around the file itself. */
@@ -34,9 +34,17 @@ async function readLimited(req: NextRequest, limit: number): Promise<Buffer> {
   return Buffer.concat(chunks);
 }
 
+/** A refusal after reading was cut off mid-stream: that connection cannot be reused, so say so. */
+function closing(err: unknown): Response {
+  const res = errorResponse(err);
+  res.headers.set('Connection', 'close');
+  return res;
+}
+
 // POST /api/brew-days/[id]/photos – the brewer uploads a photo (multipart field "photo", optional "caption")
 export const POST = route<undefined, { id: string }, 'user'>({ access: 'user' }, async ({ req, viewer, params }) => {
   const declared = Number(req.headers.get('content-length'));
+  // Refused before reading; the server discards the declared body so the connection stays usable.
   if (Number.isFinite(declared) && declared > MAX_PHOTO_BYTES + ENVELOPE_BYTES) throw tooLarge();
   const contentType = req.headers.get('content-type') ?? '';
   if (!/^multipart\/form-data;/i.test(contentType)) {
@@ -44,7 +52,12 @@ export const POST = route<undefined, { id: string }, 'user'>({ access: 'user' },
     throw new AppError('bad_request', 'photo', message, [{ path: 'photo', message }]);
   }
   await loadOwnBrewDay(viewer, params.id, 'add photos to');
-  const body = await readLimited(req, MAX_PHOTO_BYTES + ENVELOPE_BYTES);
+  let body: Buffer;
+  try {
+    body = await readLimited(req, MAX_PHOTO_BYTES + ENVELOPE_BYTES);
+  } catch (err) {
+    return closing(err);
+  }
   let form: FormData;
   try {
     form = await new Response(new Uint8Array(body), { headers: { 'content-type': contentType } }).formData();
