@@ -250,6 +250,25 @@ export function getVersionBySlug(viewer: Pick<Viewer, 'id' | 'role'> | null, slu
   return loadVersionView(viewer, { slug, number });
 }
 
+export interface ForkSource {
+  title: string;
+  slug: string | null;
+  number: number | null;
+  ownerName: string | null;
+}
+
+/** Where a fork came from, in one light query; a source the viewer may not see is named only vaguely. */
+export async function getForkSource(viewer: Pick<Viewer, 'id' | 'role'> | null, versionId: string): Promise<ForkSource> {
+  const [row] = await db
+    .select({ recipe: { ownerId: recipes.ownerId, visibility: recipes.visibility, hiddenAt: recipes.hiddenAt, slug: recipes.slug, title: recipes.title }, number: recipeVersions.number, ownerName: users.name, ownerHandle: users.handle })
+    .from(recipeVersions)
+    .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
+    .innerJoin(users, eq(users.id, recipes.ownerId))
+    .where(eq(recipeVersions.id, versionId));
+  if (!row || !canView(row.recipe, viewer)) return { title: 'a recipe you cannot see', slug: null, number: null, ownerName: null };
+  return { title: row.recipe.title, slug: row.recipe.slug, number: row.number, ownerName: row.ownerName ?? row.ownerHandle };
+}
+
 /** A recipe by slug or id, if the viewer may see it. */
 export async function getRecipe(viewer: Pick<Viewer, 'id' | 'role'> | null, key: { slug?: string; id?: string }): Promise<Recipe> {
   const where = key.id ? eq(recipes.id, key.id) : eq(recipes.slug, key.slug ?? '');

@@ -9,29 +9,19 @@ import { StatsPanel } from '@/components/stats-panel';
 import type { Viewer } from '@/lib/auth/session';
 import { isOwner } from '@/lib/recipes/access';
 import type { VersionView } from '@/lib/recipes/versions';
-import { getVersionById } from '@/lib/recipes/versions';
+import { getForkSource } from '@/lib/recipes/versions';
 import { ForkForm } from './fork-form';
 import { RestoreButton } from './restore-button';
 import { VisibilitySelect } from './visibility-select';
 
 const VISIBILITY_WORDS = { public: 'Public', unlisted: 'Unlisted: only people with the link', private: 'Private: only you' } as const;
 
-async function forkSource(viewer: Viewer | null, versionId: string | null) {
-  if (!versionId) return null;
-  try {
-    const { recipe, version } = await getVersionById(viewer, versionId);
-    return { title: recipe.title, slug: recipe.slug, number: version.number, ownerName: recipe.ownerName };
-  } catch {
-    return { title: 'a recipe you cannot see', slug: null, number: null, ownerName: null };
-  }
-}
-
 /** A recipe version, read-only, with what its owner and readers can do from here. */
 export async function VersionPage({ viewer, recipe, version }: { viewer: Viewer | null } & VersionView) {
   const units = viewer?.units ?? 'metric';
   const owner = isOwner(recipe, viewer);
   const isHead = version.id === recipe.headVersionId;
-  const source = await forkSource(viewer, recipe.forkedFromVersionId);
+  const source = recipe.forkedFromVersionId ? await getForkSource(viewer, recipe.forkedFromVersionId) : null;
   const base = `/recipes/${recipe.slug}`;
   return (
     <article>
