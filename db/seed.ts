@@ -5,6 +5,7 @@ import { seedBrewDays } from './seed/brew-days';
 import { seedCommunity } from './seed/community';
 import type { SeedContext } from './seed/context';
 import { DEMO_PASSWORD, demoPeople } from './seed/people';
+import { seedProposals } from './seed/proposals';
 import { demoForks, demoRecipes } from './seed/recipes';
 import { hashPassword } from '@/lib/auth/password';
 import type { Viewer } from '@/lib/auth/session';
@@ -72,6 +73,7 @@ if (recipeIds) {
   const context: SeedContext = { people, recipes: recipeIds };
   await seedCommunity(context);
   await seedBrewDays(context);
+  await seedProposals(context);
 }
 const [{ members }] = (await db.execute(sql`select count(*)::int as members from users`)).rows as { members: number }[];
 const recipeCount = await db.$count(recipes);
