@@ -37,6 +37,7 @@ function focusById(...ids: string[]): void {
 export function RowList({ path, noun, keys, maxRows, namePath, onAdd, onMove, onRemove, renderRow, emptyText }: RowListProps) {
   const [announcement, setAnnouncement] = useState('');
   const addButton = useRef<HTMLButtonElement>(null);
+  const list = useRef<HTMLOListElement>(null);
   const listId = fieldId(path);
 
   const move = (from: number, to: number, rowName: string, direction: 'up' | 'down') => {
@@ -44,6 +45,12 @@ export function RowList({ path, noun, keys, maxRows, namePath, onAdd, onMove, on
     setAnnouncement(`${rowName} moved to position ${to + 1} of ${keys.length}.`);
     const other = direction === 'up' ? 'down' : 'up';
     requestAnimationFrame(() => focusById(`${listId}-${to}-${direction}`, `${listId}-${to}-${other}`));
+  };
+
+  const add = () => {
+    onAdd();
+    // Focus moves into the new row, so the member types its name straight away.
+    requestAnimationFrame(() => list.current?.lastElementChild?.querySelector<HTMLElement>('input, select, textarea')?.focus());
   };
 
   const remove = (index: number, rowName: string) => {
@@ -58,7 +65,7 @@ export function RowList({ path, noun, keys, maxRows, namePath, onAdd, onMove, on
       {keys.length === 0 ? (
         <p className="font-sans text-sm text-muted">{emptyText}</p>
       ) : (
-        <ol className="space-y-3">
+        <ol ref={list} className="space-y-3">
           {keys.map((key, index) => (
             <li key={key} className="rounded-md border border-line p-3">
               <RowHeader
@@ -79,7 +86,7 @@ export function RowList({ path, noun, keys, maxRows, namePath, onAdd, onMove, on
         ref={addButton}
         type="button"
         className="kf-btn-quiet mt-3"
-        onClick={onAdd}
+        onClick={add}
         disabled={keys.length >= maxRows}
       >
         Add {noun}
