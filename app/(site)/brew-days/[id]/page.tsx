@@ -62,7 +62,7 @@ function ComparisonTable({ view, units }: { view: BrewDayView; units: UnitSystem
       <thead>
         <tr className="border-b border-line text-left text-muted">
           <th scope="col" className="py-1 pr-2 font-normal">
-            &nbsp;
+            <span className="sr-only">Number</span>
           </th>
           <th scope="col" className="py-1 pr-2 text-right font-normal">
             Measured

@@ -47,7 +47,7 @@ export function LineagePicture({ recipes, currentId }: { recipes: LineageRecipe[
       viewBox={`0 0 ${width} ${height}`}
       width={width}
       height={height}
-      role="img"
+      role="group"
       aria-labelledby="lineage-title"
       className="max-w-none font-sans"
     >

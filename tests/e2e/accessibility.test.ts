@@ -1,0 +1,214 @@
+import path from 'node:path';
+import type { Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { openBrowser, type BrowserSession } from '../helpers/browser';
+import { BASE_URL } from '../helpers/env';
+import type { TestClient } from '../helpers/http';
+import { createRecipeVia, paleAle, saveVia } from '../helpers/recipes';
+import { signedInClient } from '../helpers/users';
+
+const AXE_SCRIPT = path.resolve('node_modules/axe-core/axe.min.js');
+
+interface AxeViolation {
+  id: string;
+  impact: string | null;
+  help: string;
+  helpUrl: string;
+  nodes: { target: string; summary: string }[];
+}
+
+/** Runs axe-core in the page (injected once per document) and returns its violations, flattened for printing. */
+async function axeViolations(page: Page): Promise<AxeViolation[]> {
+  if (!(await page.evaluate(() => 'axe' in window))) await page.addScriptTag({ path: AXE_SCRIPT });
+  return page.evaluate(async () => {
+    type Result = {
+      violations: { id: string; impact: string | null; help: string; helpUrl: string; nodes: { target: unknown[]; failureSummary?: string }[] }[];
+    };
+    const axe = (window as unknown as { axe: { run(context: Document, options: object): Promise<Result> } }).axe;
+    const result = await axe.run(document, { resultTypes: ['violations'] });
+    return result.violations.map((v) => ({
+      id: v.id,
+      impact: v.impact,
+      help: v.help,
+      helpUrl: v.helpUrl,
+      nodes: v.nodes.map((n) => ({ target: n.target.map(String).join(' '), summary: (n.failureSummary ?? '').replace(/\s+/g, ' ') })),
+    }));
+  });
+}
+
+function describeViolations(violations: AxeViolation[]): string {
+  return violations
+    .map((v) => [`${v.id} (${v.impact}): ${v.help} — ${v.helpUrl}`, ...v.nodes.slice(0, 8).map((n) => `    at ${n.target}: ${n.summary}`)].join('\n'))
+    .join('\n');
+}
+
+/** Elements that reach past the right edge of the window, so the page would scroll sideways. */
+async function sidewaysOverflow(page: Page): Promise<{ scrollWidth: number; innerWidth: number; culprits: string[] } | null> {
+  return page.evaluate(() => {
+    const { scrollWidth } = document.documentElement;
+    if (scrollWidth <= window.innerWidth + 1) return null;
+    const culprits = [...document.querySelectorAll<HTMLElement>('body *')]
+      .filter((el) => el.getBoundingClientRect().right > window.innerWidth + 1)
+      .slice(0, 10)
+      .map((el) => `${el.tagName.toLowerCase()}${el.id ? `#${el.id}` : ''}.${String(el.className).split(/\s+/).slice(0, 4).join('.')} right=${Math.round(el.getBoundingClientRect().right)}`);
+    return { scrollWidth, innerWidth: window.innerWidth, culprits };
+  });
+}
+
+/** Copies a signed-in API client's session into the browser, so pages open as that member. */
+async function signInBrowser(s: BrowserSession, client: TestClient): Promise<void> {
+  const cookies = client
+    .cookieHeader()
+    .split('; ')
+    .filter(Boolean)
+    .map((pair) => {
+      const eq = pair.indexOf('=');
+      return { name: pair.slice(0, eq), value: pair.slice(eq + 1), url: BASE_URL };
+    });
+  await s.context.addCookies(cookies);
+}
+
+/** Polls search until the recipe is in the index (it follows PostgreSQL through the outbox). */
+async function waitForSearchHit(client: TestClient, q: string, recipeId: string): Promise<void> {
+  const deadline = Date.now() + 20_000;
+  while (Date.now() < deadline) {
+    const res = await client.get<{ hits: { id: string }[] }>(`/api/search?q=${encodeURIComponent(q)}`);
+    if (res.status === 200 && res.body.hits.some((h) => h.id === recipeId)) return;
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new Error(`recipe ${recipeId} did not reach the search index`);
+}
+
+function isoDay(offsetDays: number): string {
+  return new Date(Date.now() + offsetDays * 86_400_000).toISOString().slice(0, 10);
+}
+
+interface Fixture {
+  slug: string;
+  firstVersionId: string;
+  secondVersionId: string;
+  brewDayId: string;
+  ownerHandle: string;
+}
+
+interface PageToCheck {
+  name: string;
+  path: (f: Fixture) => string;
+  /** Opened without a session (sign-in and sign-up). */
+  anonymous?: boolean;
+}
+
+const PAGES: PageToCheck[] = [
+  { name: 'home', path: () => '/' },
+  { name: 'search', path: () => '/search?q=pale' },
+  { name: 'recipe', path: (f) => `/recipes/${f.slug}` },
+  { name: 'editor', path: (f) => `/recipes/${f.slug}/edit` },
+  { name: 'new-recipe', path: () => '/recipes/new' },
+  { name: 'history', path: (f) => `/recipes/${f.slug}/history` },
+  { name: 'compare', path: (f) => `/compare?a=${f.firstVersionId}&b=${f.secondVersionId}` },
+  { name: 'lineage', path: (f) => `/recipes/${f.slug}/lineage` },
+  { name: 'brew-day', path: (f) => `/brew-days/${f.brewDayId}` },
+  { name: 'profile', path: (f) => `/members/${f.ownerHandle}` },
+  { name: 'moderation', path: () => '/admin/moderation' },
+  { name: 'guide', path: () => '/guides/numbers' },
+  { name: 'settings', path: () => '/settings' },
+  { name: 'sign-in', path: () => '/sign-in', anonymous: true },
+  { name: 'sign-up', path: () => '/sign-up', anonymous: true },
+];
+
+let fixture: Fixture;
+let owner: TestClient;
+
+beforeAll(async () => {
+  // The owner is a moderator, so one session sees the editor of their own recipe and the moderation queue.
+  const ownerSession = await signedInClient('moderator');
+  owner = ownerSession.client;
+  const { client: brewer } = await signedInClient();
+  const stamp = Date.now().toString(36);
+  const created = await createRecipeVia(owner, { document: paleAle({ title: `Axe Check Pale Ale ${stamp}` }), message: 'First brew of the season' });
+  const v2doc = paleAle({ title: `Axe Check Pale Ale ${stamp}`, notes: 'A bright, bitter pale ale for **long summer evenings**.' });
+  v2doc.hops[1].amountG = 40;
+  v2doc.fermentables.push({ name: 'Wheat malt', amountKg: 0.4, potentialPpg: 37, colorLovibond: 3, kind: 'grain' });
+  const v2 = await saveVia(owner, created.recipe.id, created.version.id, v2doc, 'More late Cascade and some wheat');
+  expect(v2.status).toBe(201);
+
+  const fork = await brewer.post<{ id: string }>(`/api/versions/${v2.body.version.id}/fork`, { title: `Axe Check Fork ${stamp}` });
+  expect(fork.status).toBe(201);
+  expect((await brewer.post(`/api/recipes/${created.recipe.id}/comments`, { body: 'Brewed this last weekend: lovely **citrus** aroma.' })).status).toBe(201);
+  expect((await brewer.put(`/api/recipes/${created.recipe.id}/star`)).status).toBeLessThan(300);
+  expect((await brewer.post('/api/follows', { type: 'member', id: ownerSession.user.id })).status).toBeLessThan(300);
+  expect((await brewer.post('/api/reports', { targetType: 'recipe', targetId: created.recipe.id, reason: 'other', note: 'Checking how the queue reads.' })).status).toBe(201);
+
+  const day = await owner.post<{ id: string }>('/api/brew-days', {
+    versionId: v2.body.version.id,
+    brewedOn: isoDay(-12),
+    mashTempC: 66,
+    preBoilVolumeL: 26,
+    og: { method: 'hydrometer', value: 1.05, sampleTempC: 20 },
+    fermenterVolumeL: 20,
+    fg: { method: 'hydrometer', value: 1.011, sampleTempC: 20 },
+    packagedOn: isoDay(-2),
+    packaging: 'bottles',
+    primingSugarG: 110,
+    notes: 'Mash ran a little cool; topped up with **hot water**.',
+  });
+  expect(day.status).toBe(201);
+  expect((await owner.post(`/api/brew-days/${day.body.id}/readings`, { takenOn: isoDay(-8), method: 'hydrometer', value: 1.02, beerTempC: 18, note: 'Krausen falling' })).status).toBe(201);
+  expect((await owner.post(`/api/brew-days/${day.body.id}/tastings`, { tastedOn: isoDay(-1), aroma: 'Grapefruit and bread crust', overall: 'Clean and bright', rating: 4 })).status).toBe(201);
+
+  await waitForSearchHit(owner, 'pale', created.recipe.id);
+
+  fixture = {
+    slug: created.recipe.slug,
+    firstVersionId: created.version.id,
+    secondVersionId: v2.body.version.id,
+    brewDayId: day.body.id,
+    ownerHandle: ownerSession.user.handle,
+  };
+});
+
+for (const colorScheme of ['light', 'dark'] as const) {
+  for (const width of [1280, 375]) {
+    describe(`every main page in the ${colorScheme} scheme at ${width} px`, { timeout: 180_000 }, () => {
+      let s: BrowserSession;
+      let signedIn = false;
+
+      beforeAll(async () => {
+        s = await openBrowser({ colorScheme, width, height: width > 600 ? 900 : 812 });
+      });
+      afterAll(async () => {
+        await s?.close();
+      });
+
+      for (const target of PAGES) {
+        it(`${target.name} has no serious or critical axe violations${width < 600 ? ' and no sideways scroll' : ''}`, async () => {
+          if (target.anonymous && signedIn) {
+            await s.context.clearCookies();
+            signedIn = false;
+          } else if (!target.anonymous && !signedIn) {
+            await signInBrowser(s, owner);
+            signedIn = true;
+          }
+          s.problems.length = 0;
+          const url = target.path(fixture);
+          const res = await s.page.goto(url, { waitUntil: 'networkidle' });
+          expect(res?.status(), `${url} answered`).toBe(200);
+          await s.page.evaluate(() => document.fonts.ready);
+          await s.shot(`a11y-${target.name}-${colorScheme}-${width}`);
+
+          const violations = await axeViolations(s.page);
+          const serious = violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
+          const minor = violations.filter((v) => !serious.includes(v));
+          if (minor.length > 0) console.log(`${url} (${colorScheme}, ${width} px), minor axe findings:\n${describeViolations(minor)}`);
+          expect(serious.map((v) => v.id), `${url} (${colorScheme}, ${width} px):\n${describeViolations(serious)}`).toEqual([]);
+
+          if (width < 600) {
+            const overflow = await sidewaysOverflow(s.page);
+            expect(overflow, `${url} scrolls sideways at ${width} px: ${JSON.stringify(overflow)}`).toBeNull();
+          }
+          expect(s.problems).toEqual([]);
+        });
+      }
+    });
+  }
+}
