@@ -21,7 +21,7 @@ export function FermentationChart({ points, predictedFg, tempLabel }: { points: 
             <CartesianGrid strokeDasharray="3 3" stroke="rgb(var(--kf-line))" />
             <XAxis dataKey="day" type="number" domain={['dataMin', 'dataMax']} allowDecimals={false} label={{ value: 'Day', position: 'insideBottom', offset: -5 }} />
             <YAxis yAxisId="gravity" domain={[low, high]} tickFormatter={(v: number) => v.toFixed(3)} width={56} />
-            <YAxis yAxisId="temp" orientation="right" width={44} tickFormatter={(v: number) => `${Math.round(v)}`} />
+            <YAxis yAxisId="temp" orientation="right" width={44} domain={['dataMin - 2', 'dataMax + 2']} tickFormatter={(v: number) => `${Math.round(v)}`} />
             <Tooltip formatter={(value, name) => (typeof value === 'number' ? [name === 'Gravity' ? value.toFixed(3) : `${value.toFixed(1)} ${tempLabel}`, name] : [String(value), name])} />
             <Legend />
             <ReferenceLine yAxisId="gravity" y={predictedFg} stroke="rgb(var(--kf-bine))" strokeDasharray="6 4" label={{ value: `Predicted FG ${predictedFg.toFixed(3)}`, position: 'insideTopRight' }} />

@@ -1,3 +1,4 @@
+import Link from 'next/link';
 import type { Viewer } from '@/lib/auth/session';
 import { getBrewDaysByBrewerId } from '@/lib/brew-days/brew-days';
 import { BrewDayList } from './brew-day-list';
@@ -10,6 +11,11 @@ export async function MemberBrewDays({ memberId, viewer }: { memberId: string; v
       <h2 id="member-brew-days-title" className="mt-8 text-xl font-semibold">
         Brew days
       </h2>
+      {viewer?.id === memberId && (
+        <p className="mt-1 font-sans text-sm">
+          <Link href="/brew-days">Your brew days and your measured efficiency and attenuation</Link>
+        </p>
+      )}
       {days.length === 0 ? <p className="mt-2 text-muted">No brew days logged yet.</p> : <BrewDayList days={days} show="brewer" />}
     </section>
   );
