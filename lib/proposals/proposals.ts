@@ -447,6 +447,8 @@ export interface ProposalView {
   accepted: { number: number } | null;
   /** The source's head has had versions since the fork: the three-way picture applies. */
   headMoved: boolean;
+  /** The source's version the comparison starts from: the head while open, the fork's base once closed. */
+  compareFrom: { id: string; number: number };
   comparison: DocumentComparison | null;
   conflicts: MergeConflict[];
   fromTheirs: string[];
@@ -479,9 +481,11 @@ export async function getProposalView(viewer: MaybeViewer, id: string): Promise<
   let comparison: DocumentComparison | null = null;
   let conflicts: MergeConflict[] = [];
   let fromTheirs: string[] = [];
+  // An open proposal is read against the source as it is now; a closed one as what it offered.
+  const compareFrom = live ? headDoc : baseDoc;
   if (forkVisible) {
     // The fork's own name is not part of the proposal: compare under the source's title.
-    comparison = compareDocuments(headDoc.document, { ...proposedDoc.document, title: headDoc.document.title }, headDoc.stats, proposedDoc.stats);
+    comparison = compareDocuments(compareFrom.document, { ...proposedDoc.document, title: compareFrom.document.title }, compareFrom.stats, proposedDoc.stats);
     if (live && headMoved) ({ conflicts, fromTheirs } = mergeDocuments(baseDoc.document, headDoc.document, proposedDoc.document));
   }
   const [commentRows, brewDays, newer, accepted] = await Promise.all([
@@ -525,6 +529,7 @@ export async function getProposalView(viewer: MaybeViewer, id: string): Promise<
     proposed: forkVisible ? { id: proposedDoc.id, number: proposedDoc.number, message: proposedDoc.message } : null,
     accepted: accepted[0] ?? null,
     headMoved,
+    compareFrom: { id: compareFrom.id, number: compareFrom.number },
     comparison,
     conflicts,
     fromTheirs,

@@ -125,11 +125,11 @@ export default async function ProposalPage({ params, searchParams }: Props) {
       {view.comparison && proposed && (
         <section aria-labelledby="compare-title" className="mt-10">
           <h2 id="compare-title" className="text-2xl font-semibold">
-            What changes: version {source.headNumber} of {source.title} → the proposal
+            {view.compareFrom.id === source.headVersionId ? 'What changes' : 'What it changed'}: version {view.compareFrom.number} of {source.title} → the proposal
           </h2>
           <div className="mt-4">
             <CompareView
-              a={{ title: source.title, slug: source.slug, number: source.headNumber, ownerName: source.ownerName }}
+              a={{ title: source.title, slug: source.slug, number: view.compareFrom.number, ownerName: source.ownerName }}
               b={{ title: fork.title, slug: fork.slug, number: proposed.number, ownerName: fork.ownerName }}
               comparison={view.comparison}
               showUnchanged={all === '1'}
