@@ -1,3 +1,4 @@
+import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -165,6 +166,64 @@ beforeAll(async () => {
     brewDayId: day.body.id,
     ownerHandle: ownerSession.user.handle,
   };
+});
+
+type Rgb = [number, number, number];
+
+/** The palette's custom properties (`--kf-ink: 33 28 22;`) inside one CSS block. */
+function paletteIn(block: string): Record<string, Rgb> {
+  const palette: Record<string, Rgb> = {};
+  for (const [, name, rgb] of block.matchAll(/--kf-([a-z-]+):\s*(\d+ \d+ \d+);/g)) palette[name] = rgb.split(' ').map(Number) as Rgb;
+  return palette;
+}
+
+// Relative luminance and contrast ratio as defined in W3C, Web Content Accessibility Guidelines (WCAG) 2.1, 2018.
+function luminance(rgb: Rgb): number {
+  const [r, g, b] = rgb.map((v) => {
+    const c = v / 255;
+    return c <= 0.04045 ? c / 12.92 : ((c + 0.055) / 1.055) ** 2.4;
+  });
+  return 0.2126 * r + 0.7152 * g + 0.0722 * b;
+}
+
+function contrast(a: Rgb, b: Rgb): number {
+  const [hi, lo] = [luminance(a), luminance(b)].sort((x, y) => y - x);
+  return (hi + 0.05) / (lo + 0.05);
+}
+
+/** A colour laid at `alpha` over a background, as `bg-bine/15` is over a card. */
+function over(colour: Rgb, alpha: number, background: Rgb): Rgb {
+  return colour.map((c, i) => c * alpha + background[i] * (1 - alpha)) as Rgb;
+}
+
+describe('the palette in app/globals.css', () => {
+  const css = readFileSync(path.resolve('app/globals.css'), 'utf8');
+  const darkStart = css.indexOf('@media (prefers-color-scheme: dark)');
+  const darkButton = css.slice(css.lastIndexOf('@media (prefers-color-scheme: dark)')).match(/\.kf-btn\s*{\s*color:\s*rgb\((\d+) (\d+) (\d+)\)/);
+  const schemes: { name: string; palette: Record<string, Rgb>; buttonText: Rgb }[] = [
+    // The light button's text is Tailwind's text-white.
+    { name: 'light', palette: paletteIn(css.slice(0, darkStart)), buttonText: [255, 255, 255] },
+    { name: 'dark', palette: paletteIn(css.slice(darkStart)), buttonText: darkButton ? (darkButton.slice(1, 4).map(Number) as Rgb) : [0, 0, 0] },
+  ];
+
+  it.each(schemes)('keeps WCAG AA contrast for text in the $name scheme', ({ palette, buttonText }) => {
+    expect(Object.keys(palette)).toHaveLength(10);
+    const pairs: [string, Rgb, Rgb, number][] = [];
+    for (const ground of ['paper', 'card']) {
+      // Normal-size text needs 4.5:1 (WCAG 2.1, 1.4.3).
+      for (const ink of ['ink', 'muted', 'copper', 'copper-strong', 'bine', 'danger', 'caution']) pairs.push([`${ink} on ${ground}`, palette[ink], palette[ground], 4.5]);
+      // Badges and notices: coloured text on a wash of its own colour.
+      pairs.push([`bine on bine/15 over ${ground}`, palette.bine, over(palette.bine, 0.15, palette[ground]), 4.5]);
+      pairs.push([`danger on danger/10 over ${ground}`, palette.danger, over(palette.danger, 0.1, palette[ground]), 4.5]);
+      pairs.push([`caution on caution/5 over ${ground}`, palette.caution, over(palette.caution, 0.05, palette[ground]), 4.5]);
+      // The focus ring is a non-text indicator: 3:1 (WCAG 2.1, 1.4.11).
+      pairs.push([`focus ring (copper) on ${ground}`, palette.copper, palette[ground], 3]);
+    }
+    pairs.push(['button text on copper', buttonText, palette.copper, 4.5]);
+    pairs.push(['button text on copper-strong (hover)', buttonText, palette['copper-strong'], 4.5]);
+    const failing = pairs.filter(([, a, b, needed]) => contrast(a, b) < needed).map(([name, a, b, needed]) => `${name}: ${contrast(a, b).toFixed(2)} < ${needed}`);
+    expect(failing).toEqual([]);
+  });
 });
 
 for (const colorScheme of ['light', 'dark'] as const) {
