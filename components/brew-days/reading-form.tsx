@@ -11,6 +11,7 @@ import { fieldUnit, plainUnit } from '@/components/recipe-editor/field-units';
 import { UnitNumberInput } from '@/components/recipe-editor/unit-number-input';
 import { readingSchema } from '@/lib/brew-days/schemas';
 import type { UnitSystem } from '@/lib/brewing/units';
+import { requestJson } from '@/lib/http/client';
 
 type Input = z.input<typeof readingSchema>;
 type Output = z.output<typeof readingSchema>;
@@ -30,11 +31,10 @@ export function ReadingForm({ brewDayId, units, brewedOn }: { brewDayId: string;
 
   const onSubmit = async (values: Output) => {
     setFormError(undefined);
-    const res = await fetch(`/api/brew-days/${brewDayId}/readings`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(values) });
-    const body = (await res.json().catch(() => ({}))) as { error?: { message: string; fields?: { path: string; message: string }[] } };
-    if (!res.ok) {
-      for (const f of body.error?.fields ?? []) setError(f.path as Path<Input>, { message: f.message });
-      setFormError(body.error?.message ?? 'The reading was not saved.');
+    const result = await requestJson(`/api/brew-days/${brewDayId}/readings`, 'POST', values);
+    if (!result.ok) {
+      for (const f of result.fields) setError(f.path as Path<Input>, { message: f.message });
+      setFormError(result.message);
       return;
     }
     toast.success('Reading added.');

@@ -7,6 +7,7 @@ import { useForm, type Path } from 'react-hook-form';
 import { toast } from 'sonner';
 import type { z } from 'zod';
 import { tastingSchema } from '@/lib/brew-days/schemas';
+import { requestJson } from '@/lib/http/client';
 
 type Input = z.input<typeof tastingSchema>;
 type Output = z.output<typeof tastingSchema>;
@@ -30,11 +31,10 @@ export function TastingForm({ brewDayId }: { brewDayId: string }) {
   const errors = formState.errors as Record<string, { message?: string } | undefined>;
   const onSubmit = async (values: Output) => {
     setFormError(undefined);
-    const res = await fetch(`/api/brew-days/${brewDayId}/tastings`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(values) });
-    const body = (await res.json().catch(() => ({}))) as { error?: { message: string; fields?: { path: string; message: string }[] } };
-    if (!res.ok) {
-      for (const f of body.error?.fields ?? []) setError(f.path as Path<Input>, { message: f.message });
-      setFormError(body.error?.message ?? 'The tasting was not saved.');
+    const result = await requestJson(`/api/brew-days/${brewDayId}/tastings`, 'POST', values);
+    if (!result.ok) {
+      for (const f of result.fields) setError(f.path as Path<Input>, { message: f.message });
+      setFormError(result.message);
       return;
     }
     toast.success('Tasting added.');

@@ -6,7 +6,7 @@ import { useState } from 'react';
 import { toast } from 'sonner';
 import { CommentForm } from './comment-form';
 import { ReportButton } from './report-button';
-import { sendJson } from './send-json';
+import { sendJson } from '@/lib/http/client';
 
 interface Props {
   recipeId: string;

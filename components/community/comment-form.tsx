@@ -4,7 +4,7 @@ import { useMutation } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
 import { useId, useState } from 'react';
 import { toast } from 'sonner';
-import { sendJson } from './send-json';
+import { sendJson } from '@/lib/http/client';
 
 interface Props {
   recipeId: string;

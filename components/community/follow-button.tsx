@@ -3,7 +3,7 @@
 import { useMutation } from '@tanstack/react-query';
 import { useState } from 'react';
 import { toast } from 'sonner';
-import { sendJson } from './send-json';
+import { sendJson } from '@/lib/http/client';
 
 export function FollowButton({ type, id, following, label }: { type: 'member' | 'recipe'; id: string; following: boolean; label: string }) {
   const [on, setOn] = useState(following);

@@ -4,7 +4,7 @@ import { useMutation } from '@tanstack/react-query';
 import { useId, useState } from 'react';
 import { toast } from 'sonner';
 import { REASON_LABELS, REPORT_REASONS, TARGET_LABELS, type ReportReason, type ReportTarget } from '@/lib/moderation/words';
-import { sendJson } from './send-json';
+import { sendJson } from '@/lib/http/client';
 
 /** A small disclosure with a form that reports something to the moderators. */
 export function ReportButton({ targetType, targetId, compact = false }: { targetType: ReportTarget; targetId: string; compact?: boolean }) {

@@ -8,11 +8,8 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { FormField, describedBy } from '@/components/form-field';
 import { meKeys } from '@/hooks/use-me';
+import { requestJson } from '@/lib/http/client';
 import { PASSWORD_MIN_LENGTH, signUpSchema, type SignUpInput } from '@/lib/auth/schemas';
-
-interface ApiError {
-  error?: { message?: string; fields?: { path: string; message: string }[] };
-}
 
 export function SignUpForm() {
   const router = useRouter();
@@ -23,18 +20,12 @@ export function SignUpForm() {
 
   const onSubmit = handleSubmit(async (values) => {
     setFormError(undefined);
-    const res = await fetch('/api/accounts', {
-      method: 'POST',
-      headers: { 'content-type': 'application/json' },
-      body: JSON.stringify(values),
-    });
-    if (!res.ok) {
-      const body = (await res.json().catch(() => ({}))) as ApiError;
-      const fields = body.error?.fields ?? [];
-      for (const f of fields) {
+    const result = await requestJson('/api/accounts', 'POST', values);
+    if (!result.ok) {
+      for (const f of result.fields) {
         if (f.path === 'name' || f.path === 'email' || f.path === 'password') setError(f.path, { message: f.message });
       }
-      if (!fields.length) setFormError(body.error?.message ?? 'Signing up did not work. Please try again.');
+      if (!result.fields.length) setFormError(result.message);
       return;
     }
     const signedIn = await signIn('credentials', { email: values.email, password: values.password, redirect: false });

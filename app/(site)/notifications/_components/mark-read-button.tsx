@@ -4,7 +4,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
 import { toast } from 'sonner';
 import { notificationKeys } from '@/components/community/notification-bell';
-import { sendJson } from '@/components/community/send-json';
+import { sendJson } from '@/lib/http/client';
 
 export function MarkReadButton() {
   const router = useRouter();

@@ -2,7 +2,7 @@
 
 import { useMutation } from '@tanstack/react-query';
 import { useState } from 'react';
-import { sendJson } from '@/components/community/send-json';
+import { sendJson } from '@/lib/http/client';
 
 /** Undo for an unsubscribe link followed by mistake. */
 export function ResubscribeButton({ token }: { token: string }) {

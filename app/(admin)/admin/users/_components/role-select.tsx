@@ -5,20 +5,13 @@ import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { toast } from 'sonner';
 import { ROLES, type Role } from '@/lib/auth/roles';
+import { sendJson } from '@/lib/http/client';
 
 export function RoleSelect({ userId, name, role, disabled }: { userId: string; name: string; role: Role; disabled: boolean }) {
   const router = useRouter();
   const [value, setValue] = useState<Role>(role);
   const mutation = useMutation({
-    mutationFn: async (next: Role) => {
-      const res = await fetch(`/api/admin/users/${userId}/role`, {
-        method: 'PUT',
-        headers: { 'content-type': 'application/json' },
-        body: JSON.stringify({ role: next }),
-      });
-      const body = (await res.json().catch(() => ({}))) as { error?: { message?: string } };
-      if (!res.ok) throw new Error(body.error?.message ?? 'Could not change the role.');
-    },
+    mutationFn: (next: Role) => sendJson(`/api/admin/users/${userId}/role`, 'PUT', { role: next }),
     onSuccess: (_data, next) => {
       toast.success(`${name} is now ${next}.`);
       router.refresh();

@@ -4,6 +4,7 @@ import { useMutation } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { toast } from 'sonner';
+import { sendJson } from '@/lib/http/client';
 
 interface Saved {
   recipe: { slug: string };
@@ -15,16 +16,7 @@ export function ForkForm({ versionId, defaultTitle, number }: { versionId: strin
   const [visibility, setVisibility] = useState<'public' | 'unlisted' | 'private'>('public');
   const [error, setError] = useState<string>();
   const fork = useMutation({
-    mutationFn: async () => {
-      const res = await fetch(`/api/versions/${versionId}/fork`, {
-        method: 'POST',
-        headers: { 'content-type': 'application/json' },
-        body: JSON.stringify({ title, visibility }),
-      });
-      const body = (await res.json().catch(() => ({}))) as Saved & { error?: { message: string; fields?: { path: string; message: string }[] } };
-      if (!res.ok) throw new Error(body.error?.fields?.[0]?.message ?? body.error?.message ?? 'Forking did not work.');
-      return body;
-    },
+    mutationFn: () => sendJson<Saved>(`/api/versions/${versionId}/fork`, 'POST', { title, visibility }),
     onSuccess: (saved) => {
       toast.success('Forked. This recipe is yours to change.');
       router.push(`/recipes/${saved.recipe.slug}/edit`);

@@ -3,20 +3,13 @@
 import { useMutation } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
 import { toast } from 'sonner';
+import { sendJson } from '@/lib/http/client';
 
 export function RestoreButton({ recipeId, versionId, number, headVersionId }: { recipeId: string; versionId: string; number: number; headVersionId: string }) {
   const router = useRouter();
   const restore = useMutation({
-    mutationFn: async () => {
-      const res = await fetch(`/api/recipes/${recipeId}/restore`, {
-        method: 'POST',
-        headers: { 'content-type': 'application/json' },
-        body: JSON.stringify({ versionId, baseVersionId: headVersionId }),
-      });
-      const body = (await res.json().catch(() => ({}))) as { recipe: { slug: string }; version: { number: number }; error?: { message: string } };
-      if (!res.ok) throw new Error(body.error?.message ?? 'Restoring did not work.');
-      return body;
-    },
+    mutationFn: () =>
+      sendJson<{ recipe: { slug: string }; version: { number: number } }>(`/api/recipes/${recipeId}/restore`, 'POST', { versionId, baseVersionId: headVersionId }),
     onSuccess: (saved) => {
       toast.success(`Version ${number} restored as version ${saved.version.number}.`);
       router.push(`/recipes/${saved.recipe.slug}`);

@@ -4,6 +4,7 @@ import { useMutation } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { toast } from 'sonner';
+import { sendJson } from '@/lib/http/client';
 
 type Visibility = 'public' | 'unlisted' | 'private';
 
@@ -11,14 +12,7 @@ export function VisibilitySelect({ recipeId, visibility }: { recipeId: string; v
   const router = useRouter();
   const [value, setValue] = useState(visibility);
   const save = useMutation({
-    mutationFn: async (next: Visibility) => {
-      const res = await fetch(`/api/recipes/${recipeId}`, {
-        method: 'PATCH',
-        headers: { 'content-type': 'application/json' },
-        body: JSON.stringify({ visibility: next }),
-      });
-      if (!res.ok) throw new Error(((await res.json().catch(() => ({}))) as { error?: { message: string } }).error?.message ?? 'Could not change who sees it.');
-    },
+    mutationFn: (next: Visibility) => sendJson(`/api/recipes/${recipeId}`, 'PATCH', { visibility: next }),
     onSuccess: () => {
       toast.success('Saved who can see this recipe.');
       router.refresh();
