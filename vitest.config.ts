@@ -14,7 +14,7 @@ export default defineConfig({
   test: {
     include: ['lib/**/*.test.ts', 'components/**/*.test.ts', 'tests/**/*.test.ts'],
     environment: 'node',
-    testTimeout: 30_000,
+    testTimeout: 60_000,
     hookTimeout: 60_000,
     pool: 'forks',
     maxWorkers: 2,

@@ -5,7 +5,7 @@ import { createRecipeVia, paleAle } from '../helpers/recipes';
 import { signedInClient } from '../helpers/users';
 import { jpeg } from '../brew-days/fixtures';
 
-describe('a brew day in a real browser', () => {
+describe('a brew day in a real browser', { timeout: 120_000 }, () => {
   let s: BrowserSession;
   beforeAll(async () => {
     s = await openBrowser();

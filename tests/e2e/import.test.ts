@@ -5,7 +5,7 @@ import { TEST_PASSWORD, createUser } from '../helpers/users';
 
 const stoutFile = fileURLToPath(new URL('../../lib/interchange/examples/beerxml-spec-dry-stout.xml', import.meta.url));
 
-describe('importing a recipe file and printing its brew sheet in a real browser', () => {
+describe('importing a recipe file and printing its brew sheet in a real browser', { timeout: 120_000 }, () => {
   let s: BrowserSession;
   let savedUrl = '/';
   beforeAll(async () => {

@@ -28,7 +28,7 @@ async function waitForSearch(q: string, done: (ids: string[]) => boolean, timeou
   throw new Error(`search for ${q} did not settle: ${JSON.stringify(ids)}`);
 }
 
-describe('the moderator story in a real browser', () => {
+describe('the moderator story in a real browser', { timeout: 120_000 }, () => {
   const sessions: BrowserSession[] = [];
   let spammer: User;
   let reporter: User;

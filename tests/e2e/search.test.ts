@@ -15,7 +15,7 @@ function brews(word: string): Record<'pale' | 'strong' | 'lager', RecipeDocument
   return { pale: paleAle({ title: `Tidewater ${word} Pale` }), strong, lager };
 }
 
-describe('finding recipes in a real browser', () => {
+describe('finding recipes in a real browser', { timeout: 120_000 }, () => {
   let s: BrowserSession;
   const word = uniqueWord('tw');
   let strongSlug = '';

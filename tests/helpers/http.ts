@@ -2,6 +2,22 @@ import { BASE_URL } from './env';
 
 let clientCounter = 0;
 
+const STALE_SOCKET = new Set(['EPIPE', 'ECONNRESET', 'UND_ERR_SOCKET']);
+
+/**
+ * fetch, tried once more when a kept-alive connection turns out to have been closed by the server
+ * just as the request went out: nothing reached the app, so sending it again is safe.
+ */
+async function fetchOnce(url: URL, init: RequestInit): Promise<Response> {
+  try {
+    return await fetch(url, init);
+  } catch (err) {
+    const code = (err as { cause?: { code?: string } }).cause?.code;
+    if (!code || !STALE_SOCKET.has(code)) throw err;
+    return fetch(url, init);
+  }
+}
+
 export interface JsonResponse<T = unknown> {
   status: number;
   body: T;
@@ -46,7 +62,7 @@ export class TestClient {
     headers.set('x-forwarded-for', this.address);
     if (this.cookies.size) headers.set('cookie', this.cookieHeader());
     if (init.method && init.method !== 'GET' && !headers.has('origin')) headers.set('origin', BASE_URL);
-    const res = await fetch(new URL(path, BASE_URL), { ...init, headers, redirect: 'manual' });
+    const res = await fetchOnce(new URL(path, BASE_URL), { ...init, headers, redirect: 'manual' });
     this.remember(res);
     return res;
   }
