@@ -11,6 +11,7 @@ import { getVersionById } from '@/lib/recipes/versions';
 import { apparentAttenuationPct } from '@/lib/brewing';
 import { compareWithPrediction, fermenterVolume, gravityFromEntry, leadingYeastKind, originalBrix, type GravityEntry, type Outcome } from './measure';
 import { measuredEfficiencyPct } from '@/lib/brewing';
+import { photoVisibleTo } from './photo-visibility';
 import type { BrewDayFields, CreateBrewDayInput, ReadingInput, TastingInput } from './schemas';
 
 type MaybeViewer = Pick<Viewer, 'id' | 'role'> | null;
@@ -176,7 +177,7 @@ export async function getBrewDayById(viewer: MaybeViewer, id: string): Promise<B
     db
       .select({ id: photos.id, caption: photos.caption, width: photos.width, height: photos.height, uploaderId: photos.uploaderId, createdAt: photos.createdAt })
       .from(photos)
-      .where(eq(photos.brewDayId, day.id))
+      .where(and(eq(photos.brewDayId, day.id), photoVisibleTo(viewer)))
       .orderBy(asc(photos.createdAt)),
   ]);
   const document = version.document as RecipeDocument;
@@ -234,7 +235,11 @@ async function summaries(where: ReturnType<typeof eq>, viewer: MaybeViewer, limi
   const visible = rows.filter((r) => canView(r.recipe, viewer));
   const ids = visible.map((r) => r.day.id);
   const photoRows = ids.length
-    ? await db.select({ id: photos.id, brewDayId: photos.brewDayId }).from(photos).where(inArray(photos.brewDayId, ids)).orderBy(asc(photos.createdAt))
+    ? await db
+        .select({ id: photos.id, brewDayId: photos.brewDayId })
+        .from(photos)
+        .where(and(inArray(photos.brewDayId, ids), photoVisibleTo(viewer)))
+        .orderBy(asc(photos.createdAt))
     : [];
   const thumbs = new Map<string, string[]>();
   for (const p of photoRows) {

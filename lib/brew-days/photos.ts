@@ -8,6 +8,7 @@ import { AppError } from '@/lib/errors';
 import { deleteObjects, getObject, putObject } from '@/lib/storage';
 import { processPhoto } from '@/lib/storage/images';
 import { loadOwnBrewDay, loadVisibleBrewDay } from './brew-days';
+import { photoVisibleTo } from './photo-visibility';
 
 /**
  * Per-member photo quota (ASVS 12.1.3): at most this many photos and this many stored bytes
@@ -91,7 +92,7 @@ export async function uploadPhoto(viewer: Viewer, brewDayId: string, bytes: Uint
 /** The JPEG bytes of one size of a photo, if the viewer may see its brew day (404 otherwise). */
 export async function getPhotoBytes(viewer: Pick<Viewer, 'id' | 'role'> | null, photoId: string, size: 'display' | 'thumb'): Promise<Buffer> {
   if (!/^[0-9a-f-]{36}$/i.test(photoId)) throw new AppError('not_found', 'photo');
-  const [photo] = await db.select().from(photos).where(eq(photos.id, photoId));
+  const [photo] = await db.select().from(photos).where(and(eq(photos.id, photoId), photoVisibleTo(viewer)));
   if (!photo) throw new AppError('not_found', 'photo');
   await loadVisibleBrewDay(viewer, photo.brewDayId).catch(() => {
     throw new AppError('not_found', 'photo');
