@@ -1,11 +1,12 @@
 import { NextResponse, type NextRequest } from 'next/server';
+import { databaseReachable } from '@/lib/db-health';
 
 /**
  * A fresh nonce and Content-Security-Policy for every page request: Next.js puts the nonce on
  * its own scripts, so no inline script runs without it. Styles may be inline (React style
  * attributes and chart libraries set them); scripts may not.
  */
-export function proxy(request: NextRequest) {
+export async function proxy(request: NextRequest) {
   const nonce = Buffer.from(crypto.getRandomValues(new Uint8Array(16))).toString('base64');
   const dev = process.env.NODE_ENV === 'development';
   const policy = [
@@ -20,12 +21,22 @@ export function proxy(request: NextRequest) {
     "form-action 'self'",
     "frame-ancestors 'none'",
   ].join('; ');
+  if (!(await databaseReachable())) return unavailable(policy);
   const requestHeaders = new Headers(request.headers);
   requestHeaders.set('x-nonce', nonce);
   requestHeaders.set('Content-Security-Policy', policy);
   const response = NextResponse.next({ request: { headers: requestHeaders } });
   response.headers.set('Content-Security-Policy', policy);
   return response;
+}
+
+/** While the database is down, pages answer at once with a plain 503 and come back by themselves. */
+function unavailable(policy: string): NextResponse {
+  const html = `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><title>Kettlefork is briefly unavailable</title></head><body style="font-family: Georgia, serif; background: #fbf7f0; color: #211c16; max-width: 36rem; margin: 4rem auto; padding: 0 1rem"><h1>Kettlefork is briefly unavailable</h1><p>We cannot reach our database just now. Nothing you saved is lost; please try again in a moment.</p></body></html>`;
+  return new NextResponse(html, {
+    status: 503,
+    headers: { 'content-type': 'text/html; charset=utf-8', 'retry-after': '5', 'cache-control': 'no-store', 'content-security-policy': policy },
+  });
 }
 
 export const config = {

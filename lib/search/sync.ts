@@ -203,9 +203,11 @@ async function refillIfEmpty(documentCount: number, client: Meilisearch, databas
 }
 
 /** Creates the index with its settings; when it is empty but PostgreSQL has recipes, rebuilds it. */
-export async function ensureSearchReady(client: Meilisearch = getSearchClient(), database: Executor = db): Promise<void> {
+export async function ensureSearchReady(client: Meilisearch = getSearchClient(), database: Executor = db, opts: { cameBackBare?: boolean } = {}): Promise<void> {
   const { documentCount } = await ensureRecipeIndex(client);
-  await refillIfEmpty(documentCount, client, database);
+  // An index that a write re-created without our settings means the engine lost everything:
+  // whatever few documents it holds now, refill it whole.
+  await refillIfEmpty(opts.cameBackBare ? 0 : documentCount, client, database);
 }
 
 /** Whether the index exists with our settings (a restarted engine may have had it created bare by a write), and its size. */
@@ -243,7 +245,7 @@ export function startSearchSyncLoop(intervalMs = LOOP_INTERVAL_MS): void {
       reportedDown = false;
       const status = await readIndexStatus(client);
       if (needsSetup || !status.configured) {
-        await ensureSearchReady(client);
+        await ensureSearchReady(client, db, { cameBackBare: !status.configured && status.documentCount > 0 });
         needsSetup = false;
       } else {
         await refillIfEmpty(status.documentCount, client, db);
