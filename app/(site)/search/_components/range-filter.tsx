@@ -92,6 +92,16 @@ export function RangeFilter({ spec, value, stats, onCommit }: RangeFilterProps) 
   const errorId = `${id}-error`;
   const hintId = `${id}-hint`;
   const inputClass = 'kf-input kf-data px-2 py-1 text-sm';
+  const shared = {
+    id,
+    label: spec.label,
+    className: inputClass,
+    min: bounds.min,
+    max: bounds.max,
+    step: spec.step,
+    invalid: Boolean(error),
+    describedBy: error ? errorId : stats ? hintId : undefined,
+  };
   return (
     <form onSubmit={onSubmit} onBlur={onBlur} noValidate>
       <fieldset>
@@ -99,47 +109,11 @@ export function RangeFilter({ spec, value, stats, onCommit }: RangeFilterProps) 
           {spec.label} <span className="font-normal text-muted">({spec.unit})</span>
         </legend>
         <div className="flex items-end gap-2">
-          <div className="min-w-0 flex-1">
-            <label htmlFor={`${id}-min`} className="block font-sans text-xs text-muted">
-              <span className="sr-only">{spec.label} </span>from
-            </label>
-            <input
-              id={`${id}-min`}
-              type="number"
-              inputMode="decimal"
-              className={inputClass}
-              min={bounds.min}
-              max={bounds.max}
-              step={spec.step}
-              value={minText}
-              placeholder={stats ? stats.min.toFixed(spec.decimals) : String(bounds.min)}
-              aria-invalid={error ? true : undefined}
-              aria-describedby={error ? errorId : stats ? hintId : undefined}
-              onChange={(event) => setMinText(event.target.value)}
-            />
-          </div>
+          <RangeEnd end="min" word="from" text={minText} onText={setMinText} placeholder={stats ? stats.min.toFixed(spec.decimals) : String(bounds.min)} {...shared} />
           <span aria-hidden="true" className="pb-1.5 text-muted">
             –
           </span>
-          <div className="min-w-0 flex-1">
-            <label htmlFor={`${id}-max`} className="block font-sans text-xs text-muted">
-              <span className="sr-only">{spec.label} </span>to
-            </label>
-            <input
-              id={`${id}-max`}
-              type="number"
-              inputMode="decimal"
-              className={inputClass}
-              min={bounds.min}
-              max={bounds.max}
-              step={spec.step}
-              value={maxText}
-              placeholder={stats ? stats.max.toFixed(spec.decimals) : String(bounds.max)}
-              aria-invalid={error ? true : undefined}
-              aria-describedby={error ? errorId : stats ? hintId : undefined}
-              onChange={(event) => setMaxText(event.target.value)}
-            />
-          </div>
+          <RangeEnd end="max" word="to" text={maxText} onText={setMaxText} placeholder={stats ? stats.max.toFixed(spec.decimals) : String(bounds.max)} {...shared} />
         </div>
         {error ? (
           <p id={errorId} className="kf-field-error">
@@ -158,5 +132,46 @@ export function RangeFilter({ spec, value, stats, onCommit }: RangeFilterProps) 
         </button>
       </fieldset>
     </form>
+  );
+}
+
+/** One end of a range: its own label (read with the range's name) and number input. */
+function RangeEnd(props: {
+  end: 'min' | 'max';
+  word: string;
+  text: string;
+  onText: (text: string) => void;
+  placeholder: string;
+  id: string;
+  label: string;
+  className: string;
+  min: number;
+  max: number;
+  step: number;
+  invalid: boolean;
+  describedBy: string | undefined;
+}) {
+  const inputId = `${props.id}-${props.end}`;
+  return (
+    <div className="min-w-0 flex-1">
+      <label htmlFor={inputId} className="block font-sans text-xs text-muted">
+        <span className="sr-only">{props.label} </span>
+        {props.word}
+      </label>
+      <input
+        id={inputId}
+        type="number"
+        inputMode="decimal"
+        className={props.className}
+        min={props.min}
+        max={props.max}
+        step={props.step}
+        value={props.text}
+        placeholder={props.placeholder}
+        aria-invalid={props.invalid || undefined}
+        aria-describedby={props.describedBy}
+        onChange={(event) => props.onText(event.target.value)}
+      />
+    </div>
   );
 }
