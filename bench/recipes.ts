@@ -2,7 +2,7 @@
 // then the recipe page under 20 concurrent clients.
 import { execFileSync, spawn } from 'node:child_process';
 import autocannon from 'autocannon';
-import { sql } from 'drizzle-orm';
+import { bulkLoadRecipes, twentyIngredientDocument } from './generate';
 import type { BenchRow } from './types';
 import { quantile, round } from './stats';
 
@@ -15,26 +15,6 @@ function scratchDatabaseUrl(): string {
   execFileSync('bash', ['scripts/db.sh', 'drop', 'kettlefork_bench'], { stdio: 'ignore' });
   execFileSync('bash', ['scripts/db.sh', 'create', 'kettlefork_bench'], { stdio: 'ignore' });
   return execFileSync('bash', ['scripts/db.sh', 'url', 'kettlefork_bench']).toString().trim();
-}
-
-/** A 20-ingredient invented recipe, varied by n so rows differ. */
-function twentyIngredientDocument(n: number) {
-  const malts = ['Pale ale malt', 'Munich malt', 'Vienna malt', 'Wheat malt', 'Crystal malt 40 °L', 'Crystal malt 60 °L', 'Flaked oats', 'Rye malt'];
-  const hops = ['Cascade', 'Centennial', 'Chinook', 'Willamette', 'Saaz', 'Fuggle', 'Magnum', 'Nugget', 'Tettnang', 'Perle'];
-  return {
-    title: `Bench recipe ${n}`,
-    batch: { volumeL: 20, boilTimeMin: 60, efficiencyPct: 70 + (n % 10) },
-    fermentables: malts.map((name, i) => ({ name, amountKg: 0.2 + ((n + i) % 7) * 0.1 + (i === 0 ? 3 : 0), potentialPpg: 35, colorLovibond: 2 + i * 5, kind: 'grain' as const })),
-    hops: hops.map((name, i) => ({ name, amountG: 10 + ((n + i) % 5) * 5, alphaPct: 4 + (i % 8), use: i < 8 ? ('boil' as const) : ('dry_hop' as const), timeMin: i < 8 ? 60 - i * 7 : 4320, form: 'pellet' as const })),
-    yeasts: [
-      { name: 'Clean ale yeast', kind: 'ale' as const, attenuationPct: 74 + (n % 6) },
-      { name: 'Kveik, farmhouse', kind: 'kveik' as const, attenuationPct: 75 },
-    ],
-    mash: { steps: [{ tempC: 64 + (n % 5), timeMin: 60 }] },
-    fermentation: { steps: [{ tempC: 18, days: 14 }] },
-    style: { code: '18B', name: 'American Pale Ale' },
-    notes: `Notes for bench recipe ${n}: bright, bitter, ${n % 2 ? 'dry' : 'round'} finish.`,
-  };
 }
 
 export async function benchRecipes(): Promise<BenchRow[]> {
@@ -56,27 +36,7 @@ export async function benchRecipes(): Promise<BenchRow[]> {
 
   // Bulk-load the scratch data directly; triggers on versions forbid only updates and deletes.
   const seedStart = performance.now();
-  const heads: { recipeId: string; headId: string; slug: string }[] = [];
-  for (let start = 0; start < RECIPES; start += 500) {
-    const batch = Array.from({ length: Math.min(500, RECIPES - start) }, (_, i) => start + i);
-    const recipeRows = await db
-      .insert(schema.recipes)
-      .values(batch.map((n) => ({ slug: `bench-${n}`, ownerId: owner.id, title: `Bench recipe ${n}`, headNumber: VERSIONS_PER_RECIPE })))
-      .returning({ id: schema.recipes.id, slug: schema.recipes.slug });
-    const versionRows = recipeRows.flatMap((r, i) =>
-      Array.from({ length: VERSIONS_PER_RECIPE }, (_, v) => {
-        const doc = brewing.recipeDocumentSchema.parse(twentyIngredientDocument(batch[i] + v));
-        const stats = brewing.computeStats(doc);
-        return { recipeId: r.id, number: v + 1, authorId: owner.id, message: `v${v + 1}`, document: doc, stats, og: stats.og, fg: stats.fg, abv: stats.abv, ibu: stats.ibu, srm: stats.srm, styleCode: '18B', engineVersion: brewing.ENGINE_VERSION };
-      }),
-    );
-    const inserted = await db.insert(schema.recipeVersions).values(versionRows).returning({ id: schema.recipeVersions.id, recipeId: schema.recipeVersions.recipeId, number: schema.recipeVersions.number });
-    for (const r of recipeRows) {
-      const head = inserted.find((v) => v.recipeId === r.id && v.number === VERSIONS_PER_RECIPE)!;
-      heads.push({ recipeId: r.id, headId: head.id, slug: r.slug });
-    }
-  }
-  await db.execute(sql`update recipes r set head_version_id = v.id from recipe_versions v where v.recipe_id = r.id and v.number = r.head_number`);
+  const heads = await bulkLoadRecipes(db, { ownerId: owner.id, recipes: RECIPES, versionsPerRecipe: VERSIONS_PER_RECIPE });
   const seedMs = performance.now() - seedStart;
 
   // Saving: validate, compute, insert, move the head — the whole path a save takes.
