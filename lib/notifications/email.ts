@@ -193,7 +193,16 @@ export function digestMessage(member: { id: string; email: string; name: string 
 
 const globalForLoop = globalThis as unknown as { kfEmailLoop?: NodeJS.Timeout };
 
-/** Started once per server (instrumentation.ts): sends due digests every EMAIL_LOOP_INTERVAL_SEC. */
+/**
+ * The loop's period in milliseconds: EMAIL_LOOP_INTERVAL_SEC, or KF_EMAIL_INTERVAL_MS when set to a
+ * positive whole number (the fault run shortens it so an SMTP outage and its recovery fit in seconds).
+ */
+export function emailLoopIntervalMs(raw = process.env.KF_EMAIL_INTERVAL_MS): number {
+  const ms = Number(raw);
+  return raw && Number.isInteger(ms) && ms > 0 ? ms : EMAIL_LOOP_INTERVAL_SEC * 1000;
+}
+
+/** Started once per server (instrumentation.ts): sends due digests every emailLoopIntervalMs(). */
 export function startEmailNotificationLoop(): void {
   if (globalForLoop.kfEmailLoop) return;
   let running = false;
@@ -214,6 +223,6 @@ export function startEmailNotificationLoop(): void {
       .finally(() => {
         running = false;
       });
-  }, EMAIL_LOOP_INTERVAL_SEC * 1000);
+  }, emailLoopIntervalMs());
   globalForLoop.kfEmailLoop.unref();
 }
