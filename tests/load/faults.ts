@@ -1,7 +1,8 @@
-// npm run faults — the app under steady traffic while PostgreSQL, then the search service, stop and
-// come back. Loopback only, bounded in time; exits non-zero when a promise below is broken:
-// no request hangs past 10 s, outage answers are plain 503s, the app recovers without a restart,
-// every save that answered 2xx is in the database, and the search index catches up.
+// npm run faults — the app under steady traffic while PostgreSQL, then the search service, then the
+// SMTP server stop and come back. Loopback only, bounded in time; exits non-zero when a promise
+// below is broken: no request hangs past 10 s, outage answers are plain 503s, the app recovers
+// without a restart, every save that answered 2xx is in the database, the search index catches up,
+// and notification e-mails caused while SMTP is down wait in the database and go out when it returns.
 import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
 import { Client } from 'pg';
 
@@ -11,7 +12,9 @@ const SMTP_PORT = 2595;
 const OUTBOX_PORT = 2596;
 const S3_PORT = 4595;
 const BASE = `http://127.0.0.1:${APP_PORT}`;
-const RUN_SECONDS = 45;
+const RUN_SECONDS = 50;
+/** The e-mail sender loop's period for this run (30 s in service), so the SMTP outage fits in seconds. */
+const EMAIL_LOOP_MS = 2_000;
 
 const db = (...args: string[]) => execFileSync('bash', ['scripts/db.sh', ...args]).toString().trim();
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
@@ -35,7 +38,8 @@ const env = {
   MAIL_FAKE_HTTP_PORT: String(OUTBOX_PORT),
   S3_FAKE_PORT: String(S3_PORT),
   S3_FAKE_DIR: '.data/s3-faults',
-  KF_DIST_DIR: '.next-bench',
+  KF_DIST_DIR: '.next-load',
+  KF_EMAIL_INTERVAL_MS: String(EMAIL_LOOP_MS),
   TRUST_PROXY: '1',
   NEXT_TELEMETRY_DISABLED: '1',
 } as NodeJS.ProcessEnv;
@@ -56,6 +60,21 @@ function stop(child: ChildProcess): void {
     // already gone
   }
 }
+/** Stops a child's process group and waits until it has exited (SIGKILL after 5 s). */
+async function stopAndWait(child: ChildProcess): Promise<void> {
+  if (child.exitCode !== null || child.signalCode !== null) return;
+  const exited = new Promise<void>((resolve) => child.once('exit', () => resolve()));
+  stop(child);
+  const timer = setTimeout(() => {
+    try {
+      process.kill(-child.pid!, 'SIGKILL');
+    } catch {
+      // already gone
+    }
+  }, 5_000);
+  await exited;
+  clearTimeout(timer);
+}
 async function waitFor(url: string, seconds: number): Promise<void> {
   for (let i = 0; i < seconds * 4; i++) {
     if (await fetch(url).then((r) => r.status < 500, () => false)) return;
@@ -72,7 +91,7 @@ const check = (ok: boolean, message: string) => {
 
 try {
   let search = start(['--import', 'tsx', 'scripts/search-fake.ts']);
-  start(['--import', 'tsx', 'scripts/mail-fake.ts']);
+  let mail = start(['--import', 'tsx', 'scripts/mail-fake.ts']);
   start(['--import', 'tsx', 'scripts/s3-fake.ts']);
   await sleep(1500);
   execFileSync('node', ['--conditions=react-server', '--import', 'tsx', 'db/migrate.ts'], { env, stdio: 'inherit' });
@@ -88,6 +107,25 @@ try {
   const target = mine[0];
   let head = (await brewer.get<{ recipe: { headVersionId: string } }>(`/api/recipes/${target.id}`)).body.recipe.headVersionId;
   const document = (await brewer.get<{ version: { document: Record<string, unknown> } }>(`/api/versions/${head}`)).body.version.document;
+
+  // For the SMTP outage: a member who has never been e-mailed (so no digest interval holds their
+  // next message back) and owns a public recipe, and another member who comments on it. E-mails
+  // for every kind are on until a member turns them off, so nothing needs switching on.
+  const setup = new Client({ connectionString: databaseUrl });
+  await setup.connect();
+  const recipient = (
+    await setup.query<{ email: string; recipeId: string }>(`
+      select u.email, r.id as "recipeId" from users u join recipes r on r.owner_id = u.id
+      where u.role = 'member' and u.suspended_at is null and u.handle <> 'wren' and r.visibility = 'public' and r.hidden_at is null
+        and not exists (select 1 from notification_emails e where e.user_id = u.id)
+      order by u.handle, r.slug limit 1`)
+  ).rows[0];
+  await setup.end();
+  if (!recipient) throw new Error('no demo member without e-mails to notify');
+  const commenter = new TestClient('10.9.4.1');
+  const commenterEmail = recipient.email === 'kofi@kettlefork.test' ? 'juniper@kettlefork.test' : 'kofi@kettlefork.test';
+  if (!(await commenter.signIn(commenterEmail, 'mash-paddle-demo'))) throw new Error('commenter sign-in failed');
+  const mailOutage = { comments: 0, pending: 0, tried: false, received: 0, sentRows: 0 };
 
   const savedIds: string[] = [];
   const statuses = new Map<string, number>();
@@ -157,7 +195,59 @@ try {
     await sleep(6_000);
     search = start(['--import', 'tsx', 'scripts/search-fake.ts']);
     console.log('search is back (empty: the app rebuilds it)');
+    await sleep(4_000);
+    await smtpOutage();
   })();
+
+  /** Stops the mail fake, comments on the recipient's recipe, and follows the e-mails through. */
+  async function smtpOutage(): Promise<void> {
+    console.log('stopping the SMTP server for 8 s');
+    const outageStart = Date.now();
+    await stopAndWait(mail);
+    const tags: string[] = [];
+    for (let i = 1; i <= 3; i++) {
+      const tag = `mail-outage-${i}-${Date.now().toString(36)}`;
+      const res = await commenter.post(`/api/recipes/${recipient.recipeId}/comments`, { body: `How long did you cold crash this one? (${tag})` });
+      if (res.status === 201) tags.push(tag);
+      else console.log(`comment answered ${res.status}`);
+    }
+    mailOutage.comments = tags.length;
+    const queue = new Client({ connectionString: databaseUrl });
+    await queue.connect();
+    try {
+      const readQueue = async () =>
+        (
+          await queue.query<{ pending: number; tried: number; sent: number }>(
+            `select count(*) filter (where sent_at is null)::int as pending,
+                    count(*) filter (where sent_at is null and attempts > 0 and last_error is not null)::int as tried,
+                    count(*) filter (where outcome = 'sent')::int as sent
+             from notification_emails e join users u on u.id = e.user_id where u.email = $1`,
+            [recipient.email],
+          )
+        ).rows[0];
+      // The sender loop tries, fails, and leaves every row queued with its error.
+      for (let i = 0; i < 40; i++) {
+        const q = await readQueue();
+        mailOutage.pending = q.pending;
+        mailOutage.tried = q.pending > 0 && q.tried === q.pending;
+        if (mailOutage.tried && q.pending >= tags.length) break;
+        await sleep(250);
+      }
+      await sleep(Math.max(0, 8_000 - (Date.now() - outageStart)));
+      mail = start(['--import', 'tsx', 'scripts/mail-fake.ts']);
+      await waitFor(`http://127.0.0.1:${OUTBOX_PORT}/health`, 15);
+      console.log('SMTP is back');
+      for (let i = 0; i < 60 && mailOutage.received < tags.length; i++) {
+        await sleep(500);
+        const res = await fetch(`http://127.0.0.1:${OUTBOX_PORT}/messages?to=${encodeURIComponent(recipient.email)}`);
+        const { messages } = (await res.json()) as { messages: { text: string }[] };
+        mailOutage.received = tags.filter((tag) => messages.some((m) => m.text.includes(tag))).length;
+      }
+      mailOutage.sentRows = (await readQueue()).sent;
+    } finally {
+      await queue.end();
+    }
+  }
 
   await Promise.all([...Array.from({ length: 8 }, (_, n) => reader(n)), searcher(0), searcher(1), saver(), faults]);
 
@@ -195,6 +285,15 @@ try {
     await sleep(1_000);
   }
   check(hits.status === 200 && hits.body.total > 1, `search answers again with the whole index rebuilt (${hits.status}, ${hits.body.total} hits for "pale")`);
+
+  check(
+    mailOutage.comments === 3 && mailOutage.tried && mailOutage.pending === mailOutage.comments,
+    `notification e-mails wait while SMTP is down (${mailOutage.pending} pending, tried and kept with their error)`,
+  );
+  check(
+    mailOutage.comments > 0 && mailOutage.received === mailOutage.comments && mailOutage.sentRows >= mailOutage.comments,
+    `they are delivered when it returns (${mailOutage.received} received)`,
+  );
 } catch (err) {
   failures.push((err as Error).message);
   console.error(err);
