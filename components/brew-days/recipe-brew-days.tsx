@@ -1,11 +1,9 @@
 import Link from 'next/link';
-import type { Viewer } from '@/lib/auth/session';
-import { getBrewDaysByRecipeId } from '@/lib/brew-days/brew-days';
+import type { getBrewDaysByRecipeId } from '@/lib/brew-days/brew-days';
 import { BrewDayList } from './brew-day-list';
 
 /** The recipe page's section: how it came out for everyone who brewed it, across all versions. */
-export async function RecipeBrewDays({ recipeId, viewer, brewHref }: { recipeId: string; viewer: Viewer | null; brewHref: string | null }) {
-  const days = await getBrewDaysByRecipeId({ recipeId, viewer });
+export function RecipeBrewDays({ days, brewHref }: { days: Awaited<ReturnType<typeof getBrewDaysByRecipeId>>; brewHref: string | null }) {
   return (
     <section aria-labelledby="brew-days-title" className="mt-10">
       <div className="flex flex-wrap items-center justify-between gap-2">

@@ -2,7 +2,7 @@ import { format } from 'date-fns';
 import Link from 'next/link';
 import { Markdown } from '@/components/markdown';
 import type { Viewer } from '@/lib/auth/session';
-import { listComments, type CommentView } from '@/lib/community/comments';
+import type { CommentView } from '@/lib/community/comments';
 import { CommentActions } from './comment-actions';
 import { CommentForm } from './comment-form';
 
@@ -54,8 +54,7 @@ function CommentBlock({ comment, viewer, recipeId, threadId, open }: { comment: 
 }
 
 /** The comments under a recipe, with replies one level deep and the form to add one. */
-export async function RecipeComments({ viewer, recipe, versionNumber }: { viewer: Viewer | null; recipe: { id: string; slug: string; hiddenAt: Date | null }; versionNumber: number }) {
-  const comments = await listComments(viewer, recipe.id);
+export function RecipeComments({ viewer, recipe, versionNumber, comments }: { viewer: Viewer | null; recipe: { id: string; slug: string; hiddenAt: Date | null }; versionNumber: number; comments: CommentView[] }) {
   const open = !recipe.hiddenAt;
   return (
     <section aria-labelledby="comments-heading" className="mt-12 max-w-3xl">

@@ -7,7 +7,21 @@ import { ReportButton } from './report-button';
 import { StarButton } from './star-button';
 
 /** Star, follow and report for a recipe page; signed-out readers see the star count. */
-export async function RecipeCommunityBar({ viewer, recipe }: { viewer: Viewer | null; recipe: { id: string; slug: string; title: string; ownerId: string; starCount: number; hiddenAt: Date | null } }) {
+export async function loadCommunityState(viewer: Viewer | null, recipeId: string): Promise<{ starred: boolean; following: boolean }> {
+  if (!viewer) return { starred: false, following: false };
+  const [starred, following] = await Promise.all([hasStarred(viewer, recipeId), isFollowing(viewer, 'recipe', recipeId)]);
+  return { starred, following };
+}
+
+export function RecipeCommunityBar({
+  viewer,
+  recipe,
+  state: { starred, following },
+}: {
+  viewer: Viewer | null;
+  recipe: { id: string; slug: string; title: string; ownerId: string; starCount: number; hiddenAt: Date | null };
+  state: { starred: boolean; following: boolean };
+}) {
   if (!viewer) {
     return (
       <Link href={`/sign-in?callbackUrl=${encodeURIComponent(`/recipes/${recipe.slug}`)}`} className="kf-btn-quiet" aria-label={`${recipe.starCount} stars. Sign in to star this recipe.`}>
@@ -15,7 +29,6 @@ export async function RecipeCommunityBar({ viewer, recipe }: { viewer: Viewer | 
       </Link>
     );
   }
-  const [starred, following] = await Promise.all([hasStarred(viewer, recipe.id), isFollowing(viewer, 'recipe', recipe.id)]);
   const own = viewer.id === recipe.ownerId;
   return (
     <>

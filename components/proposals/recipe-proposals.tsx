@@ -10,12 +10,16 @@ import { ProposeForm } from './propose-form';
  * The recipe page's section: changes offered to this recipe by its forks, and (on a fork) the ones
  * it offered upstream, with "Propose to the original" for the fork's owner.
  */
-export async function RecipeProposals({ viewer, recipe, version }: { viewer: Viewer | null; recipe: Recipe & { ownerName: string }; version: { id: string; number: number } }) {
+export async function loadRecipeProposals(viewer: Viewer | null, recipe: Recipe) {
   const owner = isOwner(recipe, viewer);
   const [items, targets] = await Promise.all([
     getProposalsByRecipeId({ viewer, recipeId: recipe.id }),
     owner && recipe.forkedFromVersionId && !recipe.hiddenAt ? getProposalTargets(viewer, recipe.id) : Promise.resolve([]),
   ]);
+  return { items, targets };
+}
+
+export function RecipeProposals({ viewer, version, proposals: { items, targets } }: { viewer: Viewer | null; version: { id: string; number: number }; proposals: Awaited<ReturnType<typeof loadRecipeProposals>> }) {
   if (items.length === 0 && targets.length === 0) return null;
   const openCount = items.filter((p) => p.status === 'open' || p.status === 'changes_requested').length;
   const incoming = items.filter((p) => p.direction === 'incoming');

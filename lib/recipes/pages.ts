@@ -3,7 +3,7 @@ import { notFound } from 'next/navigation';
 import { getViewer } from '@/lib/auth/session';
 import { AppError } from '@/lib/errors';
 import { cache } from 'react';
-import { getVersionBySlug, type VersionView } from './versions';
+import { getVersionWithActivityBySlug } from './versions';
 
 /** For pages: a missing or hidden-from-you row becomes the plain 404 page. */
 export async function orNotFound<T>(load: () => Promise<T>): Promise<T> {
@@ -21,6 +21,6 @@ export async function orNotFound<T>(load: () => Promise<T>): Promise<T> {
  */
 export const loadRecipePage = cache(async (slug: string, number?: number) => {
   const viewer = await getViewer();
-  const view: VersionView = await orNotFound(() => getVersionBySlug(viewer, slug, number));
+  const view = await orNotFound(() => getVersionWithActivityBySlug(viewer, slug, number));
   return { viewer, ...view };
 });

@@ -196,6 +196,16 @@ export interface VersionView {
   version: RecipeVersion & { authorName: string; authorHandle: string; document: RecipeDocument; stats: RecipeStats };
 }
 
+/**
+ * Whether anything at all hangs off the recipe yet (before anyone's visibility rules are applied):
+ * the recipe page reads these with the version and skips the lists that would come back empty.
+ */
+export interface RecipeActivity {
+  brewDays: boolean;
+  proposals: boolean;
+  comments: boolean;
+}
+
 const owners = alias(users, 'owners');
 
 type VersionKey = { versionId: string } | { recipeId: string; number: number } | { slug: string; number?: number };
@@ -206,8 +216,18 @@ function versionWhere(key: VersionKey) {
   return and(eq(recipes.slug, key.slug), eq(recipeVersions.number, key.number ?? recipes.headNumber));
 }
 
+const activityColumns = {
+  brewDays: sql<boolean>`exists (select 1 from brew_days where brew_days.recipe_id = ${recipes.id})`,
+  proposals: sql<boolean>`exists (select 1 from proposals where proposals.source_recipe_id = ${recipes.id} or proposals.fork_recipe_id = ${recipes.id})`,
+  comments: sql<boolean>`exists (select 1 from comments where comments.recipe_id = ${recipes.id})`,
+};
+
 /** One version with its recipe, author and owner, in a single query; 404 unless the viewer may see it. */
 async function loadVersionView(viewer: Pick<Viewer, 'id' | 'role'> | null, key: VersionKey): Promise<VersionView> {
+  return (await loadVersionRow(viewer, key, false)).view;
+}
+
+async function loadVersionRow(viewer: Pick<Viewer, 'id' | 'role'> | null, key: VersionKey, withActivity: boolean): Promise<{ view: VersionView; activity: RecipeActivity | null }> {
   const [row] = await db
     .select({
       version: recipeVersions,
@@ -216,6 +236,7 @@ async function loadVersionView(viewer: Pick<Viewer, 'id' | 'role'> | null, key: 
       authorHandle: users.handle,
       ownerName: owners.name,
       ownerHandle: owners.handle,
+      ...(withActivity ? activityColumns : {}),
     })
     .from(recipeVersions)
     .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
@@ -224,7 +245,7 @@ async function loadVersionView(viewer: Pick<Viewer, 'id' | 'role'> | null, key: 
     .where(versionWhere(key))
     .limit(1);
   if (!row || !canView(row.recipe, viewer)) throw new AppError('not_found', 'version');
-  return {
+  const view: VersionView = {
     recipe: { ...row.recipe, ownerName: row.ownerName ?? row.ownerHandle, ownerHandle: row.ownerHandle },
     version: {
       ...row.version,
@@ -234,6 +255,8 @@ async function loadVersionView(viewer: Pick<Viewer, 'id' | 'role'> | null, key: 
       stats: row.version.stats as RecipeStats,
     },
   };
+  const flags = row as Partial<RecipeActivity>;
+  return { view, activity: withActivity ? { brewDays: Boolean(flags.brewDays), proposals: Boolean(flags.proposals), comments: Boolean(flags.comments) } : null };
 }
 
 /** One version and its recipe, if the viewer may see it (404 otherwise, never a hint that it exists). */
@@ -248,6 +271,12 @@ export function getVersionByNumber(viewer: Pick<Viewer, 'id' | 'role'> | null, r
 /** A recipe's version by the recipe's slug: the head when no number is given. */
 export function getVersionBySlug(viewer: Pick<Viewer, 'id' | 'role'> | null, slug: string, number?: number): Promise<VersionView> {
   return loadVersionView(viewer, { slug, number });
+}
+
+/** As getVersionBySlug, in the same single query, plus whether the recipe has any brew days, proposals or comments. */
+export async function getVersionWithActivityBySlug(viewer: Pick<Viewer, 'id' | 'role'> | null, slug: string, number?: number): Promise<VersionView & { activity: RecipeActivity }> {
+  const { view, activity } = await loadVersionRow(viewer, { slug, number }, true);
+  return { ...view, activity: activity! };
 }
 
 export interface ForkSource {

@@ -1,14 +1,15 @@
 import { format } from 'date-fns';
 import Link from 'next/link';
 import { RecipeBrewDays } from '@/components/brew-days/recipe-brew-days';
-import { RecipeCommunityBar } from '@/components/community/recipe-community-bar';
+import { RecipeCommunityBar, loadCommunityState } from '@/components/community/recipe-community-bar';
 import { RecipeComments } from '@/components/community/recipe-comments';
-import { RecipeProposals } from '@/components/proposals/recipe-proposals';
-import { RecipeDocumentView } from '@/components/recipe-document';
-import { StatsPanel } from '@/components/stats-panel';
+import { RecipeProposals, loadRecipeProposals } from '@/components/proposals/recipe-proposals';
+import { getBrewDaysByRecipeId } from '@/lib/brew-days/brew-days';
+import { listComments } from '@/lib/community/comments';
+import { VersionDocument, VersionStats } from '@/components/version-body';
 import type { Viewer } from '@/lib/auth/session';
 import { isOwner } from '@/lib/recipes/access';
-import type { VersionView } from '@/lib/recipes/versions';
+import type { RecipeActivity, VersionView } from '@/lib/recipes/versions';
 import { getForkSource } from '@/lib/recipes/versions';
 import { ForkForm } from './fork-form';
 import { RestoreButton } from './restore-button';
@@ -17,11 +18,19 @@ import { VisibilitySelect } from './visibility-select';
 const VISIBILITY_WORDS = { public: 'Public', unlisted: 'Unlisted: only people with the link', private: 'Private: only you' } as const;
 
 /** A recipe version, read-only, with what its owner and readers can do from here. */
-export async function VersionPage({ viewer, recipe, version }: { viewer: Viewer | null } & VersionView) {
+export async function VersionPage({ viewer, recipe, version, activity }: { viewer: Viewer | null; activity: RecipeActivity } & VersionView) {
   const units = viewer?.units ?? 'metric';
   const owner = isOwner(recipe, viewer);
   const isHead = version.id === recipe.headVersionId;
-  const source = recipe.forkedFromVersionId ? await getForkSource(viewer, recipe.forkedFromVersionId) : null;
+  // Everything else the page shows, read at once rather than one section after another; a list the
+  // version query already knows to be empty is not asked for.
+  const [source, community, days, proposals, comments] = await Promise.all([
+    recipe.forkedFromVersionId ? getForkSource(viewer, recipe.forkedFromVersionId) : null,
+    loadCommunityState(viewer, recipe.id),
+    activity.brewDays ? getBrewDaysByRecipeId({ recipeId: recipe.id, viewer }) : [],
+    activity.proposals || (recipe.forkedFromVersionId && viewer?.id === recipe.ownerId) ? loadRecipeProposals(viewer, recipe) : { items: [], targets: [] },
+    activity.comments ? listComments(viewer, recipe.id) : [],
+  ]);
   const base = `/recipes/${recipe.slug}`;
   return (
     <article>
@@ -100,14 +109,14 @@ export async function VersionPage({ viewer, recipe, version }: { viewer: Viewer 
               </a>
             ))}
           </span>
-          <RecipeCommunityBar viewer={viewer} recipe={recipe} />
+          <RecipeCommunityBar viewer={viewer} recipe={recipe} state={community} />
         </nav>
       </header>
 
       <div className="mt-8 grid gap-8 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
-        <RecipeDocumentView doc={version.document} units={units} />
+        <VersionDocument doc={version.document} units={units} />
         <aside className="space-y-6">
-          <StatsPanel stats={version.stats} units={units} />
+          <VersionStats stats={version.stats} units={units} />
           {viewer && !recipe.hiddenAt && (
             <ForkForm versionId={version.id} defaultTitle={`${version.document.title} (my take)`} number={version.number} />
           )}
@@ -120,9 +129,9 @@ export async function VersionPage({ viewer, recipe, version }: { viewer: Viewer 
           {owner && <VisibilitySelect recipeId={recipe.id} visibility={recipe.visibility} />}
         </aside>
       </div>
-      <RecipeBrewDays recipeId={recipe.id} viewer={viewer} brewHref={viewer && !recipe.hiddenAt ? `${base}/v/${version.number}/brew` : null} />
-      <RecipeProposals viewer={viewer} recipe={recipe} version={version} />
-      <RecipeComments viewer={viewer} recipe={recipe} versionNumber={version.number} />
+      <RecipeBrewDays days={days} brewHref={viewer && !recipe.hiddenAt ? `${base}/v/${version.number}/brew` : null} />
+      <RecipeProposals viewer={viewer} version={version} proposals={proposals} />
+      <RecipeComments viewer={viewer} recipe={recipe} versionNumber={version.number} comments={comments} />
     </article>
   );
 }
