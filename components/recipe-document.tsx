@@ -1,9 +1,9 @@
 import type { ReactNode } from 'react';
-import type { RecipeDocument, UnitSystem } from '@/lib/brewing';
+import type { RecipeDocument } from '@/lib/brewing/schema';
+import type { UnitSystem } from '@/lib/brewing/units';
 import { HOP_USE_LABEL, SALT_LABEL, formatAmount } from '@/lib/format';
-import { Markdown } from './markdown';
 import { SrmSwatch } from './srm-swatch';
-import { lovibondToSrm } from '@/lib/brewing';
+import { lovibondToSrm } from '@/lib/brewing/colour';
 
 function Table({ caption, head, children }: { caption: string; head: string[]; children: ReactNode }) {
   return (
@@ -27,8 +27,11 @@ function Table({ caption, head, children }: { caption: string; head: string[]; c
 
 const cell = 'py-1.5 pr-3 align-top';
 
-/** The ingredients and schedules of one recipe version, read-only, in the reader's units. */
-export function RecipeDocumentView({ doc, units }: { doc: RecipeDocument; units: UnitSystem }) {
+/**
+ * The ingredients and schedules of one recipe version, read-only, in the reader's units. The notes
+ * come rendered from the caller (members' Markdown), so this view stays light in the browser.
+ */
+export function RecipeDocumentView({ doc, units, notes }: { doc: RecipeDocument; units: UnitSystem; notes: ReactNode }) {
   const totalKg = doc.fermentables.reduce((n, f) => n + f.amountKg, 0);
   return (
     <div className="space-y-8">
@@ -124,7 +127,7 @@ export function RecipeDocumentView({ doc, units }: { doc: RecipeDocument; units:
           <h2 id="notes-heading" className="text-lg font-semibold">
             Notes
           </h2>
-          <Markdown source={doc.notes} className="mt-2 leading-relaxed" />
+          {notes}
         </section>
       )}
     </div>

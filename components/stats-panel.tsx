@@ -1,6 +1,7 @@
 import type { ReactNode } from 'react';
 import { SrmSwatch } from '@/components/srm-swatch';
-import { ION_NAMES, type HopUse, type IonName } from '@/lib/brewing/schema';
+import { ION_NAMES } from '@/lib/brewing/constants';
+import type { HopUse, IonName } from '@/lib/brewing/schema';
 import type { RecipeStats } from '@/lib/brewing/stats';
 import { fitStyle, type RangeFit, type StyleFit, type StyleVital } from '@/lib/brewing/styles';
 import { DISPLAY_UNITS, toDisplayUnits, type UnitSystem } from '@/lib/brewing/units';

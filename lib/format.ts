@@ -1,4 +1,4 @@
-import { DISPLAY_UNITS, toDisplayUnits, type Quantity, type UnitSystem } from '@/lib/brewing';
+import { DISPLAY_UNITS, toDisplayUnits, type Quantity, type UnitSystem } from '@/lib/brewing/units';
 
 const UNIT_LABEL: Record<string, string> = { kg: 'kg', g: 'g', l: 'L', lb: 'lb', oz: 'oz', gal: 'gal', C: '°C', F: '°F', kPa: 'kPa', psi: 'psi' };
 

@@ -31,3 +31,6 @@ export function pointsToGravity(points: number): number {
 export function clamp(value: number, min: number, max: number): number {
   return value < min ? min : value > max ? max : value;
 }
+
+/** The ions a water profile carries, in the order they are shown. */
+export const ION_NAMES = ['calcium', 'magnesium', 'sodium', 'chloride', 'sulfate', 'bicarbonate'] as const;

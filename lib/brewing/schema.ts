@@ -54,7 +54,9 @@ export const HOP_USES = ['mash', 'first_wort', 'boil', 'whirlpool', 'dry_hop'] a
 export const HOP_FORMS = ['pellet', 'leaf'] as const;
 export const YEAST_KINDS = ['ale', 'lager', 'kveik', 'wheat', 'wild', 'other'] as const;
 export const SALT_NAMES = ['gypsum', 'epsom', 'table_salt', 'calcium_chloride', 'baking_soda'] as const;
-export const ION_NAMES = ['calcium', 'magnesium', 'sodium', 'chloride', 'sulfate', 'bicarbonate'] as const;
+// Kept with the constants so display code can list the ions without loading the validators.
+import { ION_NAMES } from './constants';
+export { ION_NAMES };
 
 export type FermentableKind = (typeof FERMENTABLE_KINDS)[number];
 export type HopUse = (typeof HOP_USES)[number];

@@ -4,6 +4,7 @@ import { useMutation } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { toast } from 'sonner';
+import { Markdown } from '@/components/markdown';
 import { RecipeDocumentView } from '@/components/recipe-document';
 import { StatsPanel } from '@/components/stats-panel';
 import type { RecipeDocument, RecipeStats, UnitSystem } from '@/lib/brewing';
@@ -161,7 +162,7 @@ export function ImportForm({ units, maxBytes, ownRecipes }: { units: UnitSystem;
             </fieldset>
           )}
           <div className="grid gap-8 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
-            <RecipeDocumentView doc={current.document} units={units} />
+            <RecipeDocumentView doc={current.document} units={units} notes={<Markdown source={current.document.notes} className="mt-2 leading-relaxed" />} />
             <aside className="space-y-6">
               <div className="kf-card">
                 <h3 className="text-lg font-semibold">Kettlefork&apos;s numbers</h3>

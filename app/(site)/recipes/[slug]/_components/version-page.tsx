@@ -6,6 +6,7 @@ import { RecipeComments } from '@/components/community/recipe-comments';
 import { RecipeProposals, loadRecipeProposals } from '@/components/proposals/recipe-proposals';
 import { getBrewDaysByRecipeId } from '@/lib/brew-days/brew-days';
 import { listComments } from '@/lib/community/comments';
+import { Markdown } from '@/components/markdown';
 import { VersionDocument, VersionStats } from '@/components/version-body';
 import type { Viewer } from '@/lib/auth/session';
 import { isOwner } from '@/lib/recipes/access';
@@ -114,7 +115,7 @@ export async function VersionPage({ viewer, recipe, version, activity }: { viewe
       </header>
 
       <div className="mt-8 grid gap-8 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
-        <VersionDocument doc={version.document} units={units} />
+        <VersionDocument doc={version.document} units={units} notes={<Markdown source={version.document.notes} className="mt-2 leading-relaxed" />} />
         <aside className="space-y-6">
           <VersionStats stats={version.stats} units={units} />
           {viewer && !recipe.hiddenAt && (
