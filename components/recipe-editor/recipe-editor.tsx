@@ -104,6 +104,9 @@ export function RecipeEditor({
   const [alert, setAlert] = useState<FormAlert | null>(null);
   const alertBox = useRef<HTMLDivElement>(null);
   const leaving = useRef(false);
+  // Until the editor has hydrated, typing could be lost and Save would post the raw form: it stays off.
+  const [ready, setReady] = useState(false);
+  useEffect(() => setReady(true), []);
 
   useEffect(() => {
     if (!isDirty) return;
@@ -183,6 +186,7 @@ export function RecipeEditor({
     <FormProvider {...form}>
       <form
         noValidate
+        data-ready={ready || undefined}
         className="pb-24 lg:pb-0"
         onSubmit={(event) => {
           event.preventDefault();
@@ -258,7 +262,7 @@ export function RecipeEditor({
           >
             <LiveNumbers live={live} units={units} />
           </aside>
-          <SaveSection mode={mode} saving={mutation.isPending} />
+          <SaveSection mode={mode} saving={mutation.isPending} ready={ready} />
         </div>
       </form>
       <NumbersBar live={live} units={units} />
@@ -266,7 +270,7 @@ export function RecipeEditor({
   );
 }
 
-function SaveSection({ mode, saving }: { mode: 'create' | 'edit'; saving: boolean }) {
+function SaveSection({ mode, saving, ready }: { mode: 'create' | 'edit'; saving: boolean; ready: boolean }) {
   const { register } = useFormContext<EditorValues>();
   const { errors, submitCount } = useFormState<EditorValues>();
   const message = useWatch<EditorValues, 'message'>({ name: 'message' }) ?? '';
@@ -306,7 +310,7 @@ function SaveSection({ mode, saving }: { mode: 'create' | 'edit'; saving: boolea
           Some fields need a fix before saving; they are marked above.
         </p>
       )}
-      <button type="submit" className="kf-btn mt-4 w-full sm:w-auto" disabled={saving}>
+      <button type="submit" className="kf-btn mt-4 w-full sm:w-auto" disabled={saving || !ready}>
         {saving ? 'Saving…' : mode === 'create' ? 'Save recipe' : 'Save new version'}
       </button>
     </EditorSection>

@@ -1,6 +1,6 @@
 import type { Page } from 'playwright-core';
 import { afterEach, describe, expect, it } from 'vitest';
-import { openBrowser, type BrowserSession } from '../helpers/browser';
+import { editorReady, openBrowser, type BrowserSession } from '../helpers/browser';
 import { BASE_URL } from '../helpers/env';
 import { createRecipeVia, paleAle } from '../helpers/recipes';
 import { signedInClient } from '../helpers/users';
@@ -76,6 +76,7 @@ describe('the recipe editor from the keyboard alone', { timeout: 180_000 }, () =
     await s.context.addCookies(cookies);
     const { page } = s;
     await page.goto(`/recipes/${created.recipe.slug}/edit`, { waitUntil: 'networkidle' });
+    await editorReady(page);
     await page.locator('#kf-document-hops-3-name').waitFor();
 
     // From the top of the page to the hops list's Add button.

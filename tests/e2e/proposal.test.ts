@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it } from 'vitest';
-import { openBrowser, type BrowserSession } from '../helpers/browser';
+import { editorReady, openBrowser, type BrowserSession } from '../helpers/browser';
 import { createRecipeVia, paleAle } from '../helpers/recipes';
 import { TEST_PASSWORD, createUser } from '../helpers/users';
 import { TestClient } from '../helpers/http';
@@ -34,6 +34,7 @@ describe('suggesting a change upstream in a real browser', { timeout: 120_000 },
     await b.page.getByLabel('Title of your fork').fill(`${title}, kveik`);
     await b.page.getByRole('button', { name: 'Fork this version' }).click();
     await b.page.waitForURL('**/edit');
+    await editorReady(b.page);
     await b.page.locator('#kf-document-yeasts-0-name').fill('Kveik, farmhouse');
     await b.page.locator('#kf-document-yeasts-0-kind').selectOption('kveik');
     await b.page.locator('#kf-document-yeasts-0-attenuationPct').fill('80');

@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it } from 'vitest';
-import { openBrowser, type BrowserSession } from '../helpers/browser';
+import { editorReady, openBrowser, type BrowserSession } from '../helpers/browser';
 import { createRecipeVia, paleAle, saveVia } from '../helpers/recipes';
 import { TEST_PASSWORD, createUser, signedInClient } from '../helpers/users';
 
@@ -44,6 +44,7 @@ describe('recipe stories in a real browser', { timeout: 120_000 }, () => {
     await s.page.getByLabel('Title of your fork').fill(`${title} kveik`);
     await s.page.getByRole('button', { name: 'Fork this version' }).click();
     await s.page.waitForURL('**/edit');
+    await editorReady(s.page);
     await s.page.locator('#kf-document-yeasts-0-name').fill('Kveik, farmhouse');
     await s.page.locator('#kf-document-yeasts-0-kind').selectOption('kveik');
     await s.page.locator('#kf-document-yeasts-0-attenuationPct').fill('75');
@@ -103,6 +104,7 @@ describe('recipe stories in a real browser', { timeout: 120_000 }, () => {
     s = await openBrowser();
     await signInThroughPage(s, brewer.email);
     await s.page.goto('/recipes/new');
+    await editorReady(s.page);
     await s.page.locator('#kf-document-title').fill('Editor Story Bitter');
     await s.page.getByRole('button', { name: 'Add hop' }).click();
     await s.page.locator('#kf-document-hops-1-name').fill('Fuggle');

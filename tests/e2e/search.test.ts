@@ -41,8 +41,11 @@ describe('finding recipes in a real browser', { timeout: 120_000 }, () => {
     await expect.poll(() => heading().textContent()).toBe('3 recipes');
 
     const hops = page.locator('section', { has: page.getByRole('heading', { name: 'Hops', exact: true }) });
-    await hops.getByRole('checkbox', { name: /^Cascade\b/ }).check();
+    // The box follows the address, which changes a moment after the click: click, then wait for both.
+    const cascade = hops.getByRole('checkbox', { name: /^Cascade\b/ });
+    await cascade.click();
     await page.waitForURL((url) => url.searchParams.getAll('hop').includes('Cascade'));
+    await expect.poll(() => cascade.isChecked()).toBe(true);
     await expect.poll(() => heading().textContent()).toBe('2 recipes');
 
     await page.getByLabel('ABV from').fill('6.5');

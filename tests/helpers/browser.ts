@@ -67,3 +67,8 @@ export async function openBrowser(opts: { width?: number; height?: number; color
     },
   };
 }
+
+/** Waits until the recipe editor on the page has hydrated, so typing goes to React and Save is on. */
+export async function editorReady(page: Page): Promise<void> {
+  await page.locator('form[data-ready]').waitFor();
+}
