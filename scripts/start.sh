@@ -41,4 +41,4 @@ tsx_server db/migrate.ts
 tsx_server db/seed.ts
 npx next build
 echo "Kettlefork is starting on http://127.0.0.1:$PORT (Ctrl-C stops it and its services)"
-node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$PORT"
+node scripts/serve.mjs -H 127.0.0.1 -p "$PORT"

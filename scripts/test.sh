@@ -50,7 +50,7 @@ tsx_server db/migrate.ts
 # The app under test is a production build, as brewers get it.
 mkdir -p .data/logs
 NODE_ENV=production npx next build > ".data/logs/test-build$SUFFIX.log" 2>&1 || { tail -n 60 ".data/logs/test-build$SUFFIX.log"; exit 1; }
-NODE_ENV=production start_bg "test-app$SUFFIX" node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$APP_PORT"
+NODE_ENV=production start_bg "test-app$SUFFIX" node scripts/serve.mjs -H 127.0.0.1 -p "$APP_PORT"
 wait_port "$SMTP_PORT" "test-mail-fake$SUFFIX"
 wait_port "$SEARCH_PORT" "test-search-fake$SUFFIX"
 wait_port "$S3_PORT" "test-s3-fake$SUFFIX"
