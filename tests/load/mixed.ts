@@ -9,7 +9,8 @@
 //   KF_LOAD_CLIENTS=10 KF_LOAD_SECONDS=10 npm run load   # a quick smoke run
 //   KF_LOAD_BUILD=skip npm run load                      # reuse the build already in .next-load
 import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
-import { rmSync, writeFileSync } from 'node:fs';
+import http from 'node:http';
+import { readFileSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import { pathToFileURL } from 'node:url';
 import { drizzle } from 'drizzle-orm/node-postgres';
@@ -100,6 +101,8 @@ export interface LoadResult {
   dataset: { recipes: number; versions: number; generated: number };
   /** Saves that answered 2xx during warm-up and the run, and how many of them the database holds. */
   saves: { answered2xx: number; found: number };
+  /** CPU seconds each part used during the measured run, against the seconds times the cores there were. */
+  cpu: { seconds: number; cores: number; byProcess: Record<string, number> };
   /** Broken promises: 5xx answers, requests left unanswered, lost saves. Empty when all were kept. */
   problems: string[];
   markdown: string;
@@ -186,6 +189,56 @@ function build(env: NodeJS.ProcessEnv): void {
   }
 }
 
+/**
+ * CPU time used so far, in seconds, by each process group this run watches (read from /proc: a
+ * child started detached leads its own group) and by PostgreSQL's processes; the generator is
+ * this process. Taken before and after the measured run, it shows where the cores went.
+ */
+function cpuSeconds(groups: Record<string, number>): Record<string, number> {
+  const hz = 100;
+  const totals: Record<string, number> = Object.fromEntries([...Object.keys(groups), 'PostgreSQL'].map((k) => [k, 0]));
+  for (const entry of readdirSync('/proc')) {
+    if (!/^\d+$/.test(entry)) continue;
+    let stat: string;
+    try {
+      stat = readFileSync(`/proc/${entry}/stat`, 'utf8');
+    } catch {
+      continue;
+    }
+    const comm = stat.slice(stat.indexOf('(') + 1, stat.lastIndexOf(')'));
+    const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+    const pgid = Number(fields[2]);
+    const ticks = Number(fields[11]) + Number(fields[12]);
+    const group = Object.entries(groups).find(([, id]) => id === pgid)?.[0] ?? (comm === 'postgres' ? 'PostgreSQL' : null);
+    if (group) totals[group] += ticks / hz;
+  }
+  const own = process.cpuUsage();
+  totals['load generator'] = (own.user + own.system) / 1e6;
+  return totals;
+}
+
+/** A signed-out reader with one kept-alive connection and an address of its own (for per-address limits). */
+class RawReader {
+  private readonly agent = new http.Agent({ keepAlive: true, maxSockets: 1 });
+  constructor(private readonly address: string) {}
+
+  get(path: string): Promise<number> {
+    return new Promise((resolve, reject) => {
+      const req = http.get(
+        `${BASE}${path}`,
+        { agent: this.agent, headers: { 'accept-encoding': 'gzip', 'x-forwarded-for': this.address }, timeout: REQUEST_TIMEOUT_MS },
+        (res) => {
+          res.on('data', () => undefined);
+          res.on('end', () => resolve(res.statusCode ?? 0));
+          res.on('error', reject);
+        },
+      );
+      req.on('timeout', () => req.destroy(new Error('timed out')));
+      req.on('error', reject);
+    });
+  }
+}
+
 /** The whole run: scratch database, fakes, build, server, warm-up, measured traffic, checks, report. */
 export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> {
   const log = opts.log ?? ((line: string) => console.log(line));
@@ -229,8 +282,9 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
   const pool = new Pool({ connectionString: databaseUrl, max: 4 });
   const sql = new Client({ connectionString: databaseUrl });
   try {
-    startChild(['--import', 'tsx', 'scripts/search-fake.ts'], env);
-    startChild(['--import', 'tsx', 'scripts/mail-fake.ts'], env);
+    const groups: Record<string, number> = {};
+    groups['search fake'] = startChild(['--import', 'tsx', 'scripts/search-fake.ts'], env).pid!;
+    groups['mail and S3 fakes'] = startChild(['--import', 'tsx', 'scripts/mail-fake.ts'], env).pid!;
     startChild(['--import', 'tsx', 'scripts/s3-fake.ts'], env);
     await waitFor(`http://127.0.0.1:${SEARCH_PORT}/health`, 30);
     await waitFor(`http://127.0.0.1:${OUTBOX_PORT}/health`, 30);
@@ -276,7 +330,7 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
       log(`load: building into ${DIST_DIR}`);
       build(env);
     }
-    startChild(['scripts/serve.mjs', '-H', '127.0.0.1', '-p', String(APP_PORT)], env);
+    groups['app (all workers)'] = startChild(['scripts/serve.mjs', '-H', '127.0.0.1', '-p', String(APP_PORT)], env).pid!;
     await waitFor(`${BASE}/api/health`, 120);
 
     // The search index must hold the generated recipes before anything is measured.
@@ -341,13 +395,16 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
       }
     }
 
-    /** One reader request: send, read the whole body, record. */
-    async function read(client: InstanceType<typeof TestClient>, route: string, kind: RouteKind, path: string, record: Recorder): Promise<void> {
+    /**
+     * One reader request: send, read the whole body, record. Readers are signed out and go through
+     * node:http on a kept-alive socket of their own, asking for gzip as a browser does but leaving
+     * the bytes compressed: the generator shares the cores with the app, so it spends as little as it can.
+     */
+    async function read(client: RawReader, route: string, kind: RouteKind, path: string, record: Recorder): Promise<void> {
       const t = performance.now();
       try {
-        const res = await client.fetch(path, { signal: AbortSignal.timeout(REQUEST_TIMEOUT_MS) });
-        await res.arrayBuffer();
-        record(route, kind, performance.now() - t, res.status);
+        const status = await client.get(path);
+        record(route, kind, performance.now() - t, status);
       } catch {
         record(route, kind, null, 0);
       }
@@ -358,7 +415,7 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
     /** Page readers: recipe pages most, then version pages and searches, then the home page and members. */
     const pageSchedule = ['recipe', 'recipe', 'recipe', 'recipe', 'version', 'version', 'search', 'search', 'home', 'member'] as const;
     async function pageReader(n: number, until: number, record: Recorder): Promise<void> {
-      const client = new TestClient(`10.96.1.${n + 1}`);
+      const client = new RawReader(`10.96.1.${n + 1}`);
       const r = rng(1000 + n);
       for (let i = n; Date.now() < until; i++) {
         const step = pageSchedule[i % pageSchedule.length];
@@ -375,7 +432,7 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
     /** API readers: searches most, then a recipe, a version and a comparison. */
     const apiSchedule = ['search', 'search', 'search', 'search', 'recipe', 'recipe', 'version', 'version', 'compare', 'compare'] as const;
     async function apiReader(n: number, until: number, record: Recorder): Promise<void> {
-      const client = new TestClient(`10.96.2.${n + 1}`);
+      const client = new RawReader(`10.96.2.${n + 1}`);
       const r = rng(2000 + n);
       for (let i = n; Date.now() < until; i++) {
         const step = apiSchedule[i % apiSchedule.length];
@@ -416,6 +473,7 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
       entry.statuses.set(status, (entry.statuses.get(status) ?? 0) + 1);
     };
     log(`load: ${clientCount} clients (${pageReaders} page readers, ${apiReaders} API readers, ${savers} savers) for ${seconds} s`);
+    const cpuBefore = cpuSeconds(groups);
     const started = performance.now();
     const until = Date.now() + seconds * 1000;
     await Promise.all([
@@ -424,6 +482,8 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
       ...saverStates.map((_, n) => saver(n, until, record)),
     ]);
     const elapsed = (performance.now() - started) / 1000;
+    const cpuAfter = cpuSeconds(groups);
+    const cpu = Object.fromEntries(Object.keys(cpuAfter).map((k) => [k, round(cpuAfter[k] - (cpuBefore[k] ?? 0), 1)]));
 
     const targetFor = (kind: RouteKind) => (kind === 'page' ? PAGE_P95_TARGET_MS : kind === 'api read' ? API_READ_P95_TARGET_MS : null);
     const rowOf = (route: string, kind: LoadRow['kind'], ms: number[], statuses: Map<number, number>, target: number | null): LoadRow => {
@@ -478,6 +538,7 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
       seconds,
       dataset: { recipes: dataset.recipes, versions: dataset.versions, generated },
       saves: { answered2xx: saved.length, found },
+      cpu: { seconds: round(elapsed, 1), cores: os.cpus().length, byProcess: cpu },
       problems,
     };
     return { ...result, markdown: renderLoadReport(result) };
@@ -517,6 +578,14 @@ export function renderLoadReport(result: Omit<LoadResult, 'markdown'>): string {
     line(result.total),
     '',
     result.problems.length ? `Broken: ${result.problems.join('; ')}.` : 'No 5xx answers, every request answered, every 2xx save in the database.',
+    '',
+    `Where the cores went during the measured ${result.cpu.seconds} s (${result.cpu.cores} cores, so ${round(result.cpu.seconds * result.cpu.cores, 1)} CPU-seconds in all), from /proc:`,
+    '',
+    '| process | CPU seconds | share of the machine |',
+    '|---|---:|---:|',
+    ...Object.entries(result.cpu.byProcess)
+      .sort((a, b) => b[1] - a[1])
+      .map(([name, sec]) => `| ${name} | ${sec} | ${Math.round((100 * sec) / (result.cpu.seconds * result.cpu.cores))} % |`),
     '',
   ].join('\n');
 }
