@@ -38,6 +38,14 @@ export async function openBrowser(opts: { width?: number; height?: number; color
     colorScheme: opts.colorScheme ?? 'light',
   });
   const page = await context.newPage();
+  // Every page load waits for React to attach (see components/providers.tsx), as a person waits for a
+  // page to finish loading before typing; soft navigations keep the mark.
+  const goto = page.goto.bind(page);
+  page.goto = async (url, options) => {
+    const response = await goto(url, options);
+    await page.locator('html[data-hydrated]').waitFor({ state: 'attached', timeout: 15_000 }).catch(() => undefined);
+    return response;
+  };
   const problems: string[] = [];
   page.on('console', (msg) => {
     // Failed responses are recorded with their URL below; the browser's own line for them adds nothing.
