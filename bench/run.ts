@@ -10,6 +10,7 @@ const benches: Bench[] = [
   { name: 'search', load: async () => (await import('./search')).benchSearch },
   { name: 'uploads', load: async () => (await import('./uploads')).benchUploads },
   { name: 'recipes', load: async () => (await import('./recipes')).benchRecipes },
+  { name: 'load', load: async () => (await import('./load')).benchLoad },
 ];
 
 function verdict(row: BenchRow): string {
