@@ -74,7 +74,7 @@ export async function benchRecipes(): Promise<BenchRow[]> {
 
 /**
  * The recipe page served by `next start` on the scratch data (one worker per core through
- * scripts/serve.mjs, as `npm start` serves), under 20 concurrent clients for 20 s after a warm-up.
+ * scripts/serve.mjs, as `npm start` serves), under 20 concurrent clients for three rounds of 20 s after a warm-up.
  * Every response time is recorded, so the percentiles are exact rather than read off a histogram.
  */
 async function benchRecipePage(databaseUrl: string, paths: string[]): Promise<BenchRow[]> {
@@ -90,14 +90,22 @@ async function benchRecipePage(databaseUrl: string, paths: string[]): Promise<Be
     // Warm up as a running site would be: every page once, then 10 s of the same traffic unmeasured.
     for (const p of paths) await fetch(`http://127.0.0.1:${PAGE_PORT}${p}`).then((r) => r.text());
     await loadPages(paths, 10);
-    const { result, latencies } = await loadPages(paths, 20);
+    // Three measured rounds, reported by the round with the median p95: a shared virtual machine
+    // has slow spells, and one 20 s window can land in one.
+    const rounds: { result: autocannon.Result; latencies: number[]; p95: number }[] = [];
+    for (let i = 0; i < 3; i++) {
+      const round_ = await loadPages(paths, 20);
+      rounds.push({ ...round_, p95: quantile(round_.latencies, 0.95) });
+    }
+    const { result, latencies } = [...rounds].sort((a, b) => a.p95 - b.p95)[1];
+    const allP95 = rounds.map((r) => `${round(r.p95, 1)}`).join(', ');
     const cores = availableParallelism();
     return [
       { area: 'pages', metric: `recipe page, 20 concurrent clients, ${cores} workers: requests per second`, value: round(result.requests.average, 0), unit: 'req/s' },
       { area: 'pages', metric: 'recipe page p50', value: round(quantile(latencies, 0.5), 1), unit: 'ms' },
-      { area: 'pages', metric: 'recipe page p95', value: round(quantile(latencies, 0.95), 1), unit: 'ms', target: { op: '<', value: 150 }, note: `${latencies.length} requests over 20 s` },
+      { area: 'pages', metric: 'recipe page p95', value: round(quantile(latencies, 0.95), 1), unit: 'ms', target: { op: '<', value: 150 }, note: `median of three 20 s rounds, whose p95s were ${allP95} ms; ${latencies.length} requests in the median round` },
       { area: 'pages', metric: 'recipe page p99', value: round(quantile(latencies, 0.99), 1), unit: 'ms' },
-      { area: 'pages', metric: 'recipe page non-2xx answers', value: result.non2xx, unit: 'count', target: { op: '<', value: 1 } },
+      { area: 'pages', metric: 'recipe page non-2xx answers (all rounds)', value: rounds.reduce((n, r) => n + r.result.non2xx, 0), unit: 'count', target: { op: '<', value: 1 } },
     ];
   } finally {
     try {
