@@ -10,10 +10,11 @@ import { ProposeForm } from './propose-form';
  * The recipe page's section: changes offered to this recipe by its forks, and (on a fork) the ones
  * it offered upstream, with "Propose to the original" for the fork's owner.
  */
-export async function loadRecipeProposals(viewer: Viewer | null, recipe: Recipe) {
+/** The section's data; `any` says whether the recipe has proposals at all, so an empty list is not queried. */
+export async function loadRecipeProposals(viewer: Viewer | null, recipe: Recipe, any: boolean) {
   const owner = isOwner(recipe, viewer);
   const [items, targets] = await Promise.all([
-    getProposalsByRecipeId({ viewer, recipeId: recipe.id }),
+    any ? getProposalsByRecipeId({ viewer, recipeId: recipe.id }) : Promise.resolve([]),
     owner && recipe.forkedFromVersionId && !recipe.hiddenAt ? getProposalTargets(viewer, recipe.id) : Promise.resolve([]),
   ]);
   return { items, targets };

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { ION_NAMES } from './constants';
 
 /**
  * The recipe document: one versioned record, metric units named in each field.
@@ -55,7 +56,6 @@ export const HOP_FORMS = ['pellet', 'leaf'] as const;
 export const YEAST_KINDS = ['ale', 'lager', 'kveik', 'wheat', 'wild', 'other'] as const;
 export const SALT_NAMES = ['gypsum', 'epsom', 'table_salt', 'calcium_chloride', 'baking_soda'] as const;
 // Kept with the constants so display code can list the ions without loading the validators.
-import { ION_NAMES } from './constants';
 export { ION_NAMES };
 
 export type FermentableKind = (typeof FERMENTABLE_KINDS)[number];

@@ -227,7 +227,8 @@ async function loadVersionView(viewer: Pick<Viewer, 'id' | 'role'> | null, key: 
   return (await loadVersionRow(viewer, key, false)).view;
 }
 
-async function loadVersionRow(viewer: Pick<Viewer, 'id' | 'role'> | null, key: VersionKey, withActivity: boolean): Promise<{ view: VersionView; activity: RecipeActivity | null }> {
+/** loadVersionView's query, with the recipe's activity flags selected when asked for (all false otherwise). */
+async function loadVersionRow(viewer: Pick<Viewer, 'id' | 'role'> | null, key: VersionKey, withActivity: boolean): Promise<{ view: VersionView; activity: RecipeActivity }> {
   const [row] = await db
     .select({
       version: recipeVersions,
@@ -256,7 +257,7 @@ async function loadVersionRow(viewer: Pick<Viewer, 'id' | 'role'> | null, key: V
     },
   };
   const flags = row as Partial<RecipeActivity>;
-  return { view, activity: withActivity ? { brewDays: Boolean(flags.brewDays), proposals: Boolean(flags.proposals), comments: Boolean(flags.comments) } : null };
+  return { view, activity: { brewDays: Boolean(flags.brewDays), proposals: Boolean(flags.proposals), comments: Boolean(flags.comments) } };
 }
 
 /** One version and its recipe, if the viewer may see it (404 otherwise, never a hint that it exists). */
@@ -276,7 +277,7 @@ export function getVersionBySlug(viewer: Pick<Viewer, 'id' | 'role'> | null, slu
 /** As getVersionBySlug, in the same single query, plus whether the recipe has any brew days, proposals or comments. */
 export async function getVersionWithActivityBySlug(viewer: Pick<Viewer, 'id' | 'role'> | null, slug: string, number?: number): Promise<VersionView & { activity: RecipeActivity }> {
   const { view, activity } = await loadVersionRow(viewer, { slug, number }, true);
-  return { ...view, activity: activity! };
+  return { ...view, activity };
 }
 
 export interface ForkSource {

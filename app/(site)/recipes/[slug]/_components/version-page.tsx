@@ -3,12 +3,12 @@ import Link from 'next/link';
 import { RecipeBrewDays } from '@/components/brew-days/recipe-brew-days';
 import { RecipeCommunityBar, loadCommunityState } from '@/components/community/recipe-community-bar';
 import { RecipeComments } from '@/components/community/recipe-comments';
-import { RecipeProposals, loadRecipeProposals } from '@/components/proposals/recipe-proposals';
-import { getBrewDaysByRecipeId } from '@/lib/brew-days/brew-days';
-import { listComments } from '@/lib/community/comments';
 import { Markdown } from '@/components/markdown';
+import { RecipeProposals, loadRecipeProposals } from '@/components/proposals/recipe-proposals';
 import { VersionDocument, VersionStats } from '@/components/version-body';
 import type { Viewer } from '@/lib/auth/session';
+import { getBrewDaysByRecipeId } from '@/lib/brew-days/brew-days';
+import { listComments } from '@/lib/community/comments';
 import { isOwner } from '@/lib/recipes/access';
 import type { RecipeActivity, VersionView } from '@/lib/recipes/versions';
 import { getForkSource } from '@/lib/recipes/versions';
@@ -29,7 +29,7 @@ export async function VersionPage({ viewer, recipe, version, activity }: { viewe
     recipe.forkedFromVersionId ? getForkSource(viewer, recipe.forkedFromVersionId) : null,
     loadCommunityState(viewer, recipe.id),
     activity.brewDays ? getBrewDaysByRecipeId({ recipeId: recipe.id, viewer }) : [],
-    activity.proposals || (recipe.forkedFromVersionId && viewer?.id === recipe.ownerId) ? loadRecipeProposals(viewer, recipe) : { items: [], targets: [] },
+    loadRecipeProposals(viewer, recipe, activity.proposals),
     activity.comments ? listComments(viewer, recipe.id) : [],
   ]);
   const base = `/recipes/${recipe.slug}`;
