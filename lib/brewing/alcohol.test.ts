@@ -26,6 +26,7 @@ describe('alcohol', () => {
     expect(abvHall(1.065, 1.012)).toBeCloseTo(7.24, 2);
   });
 
+  // Common practice: alcohol comes only from fermented extract, so no gravity drop means no alcohol.
   it('gives no alcohol without a gravity drop', () => {
     expect(abvSimple(1.05, 1.05)).toBe(0);
     expect(abvHall(1.05, 1.05)).toBe(0);
@@ -33,6 +34,7 @@ describe('alcohol', () => {
 });
 
 describe('attenuation and extract', () => {
+  // Common practice: apparent attenuation = (OG − FG) / (OG − 1), in gravity points.
   it('computes apparent attenuation as the share of gravity points gone', () => {
     expect(apparentAttenuationPct(1.05, 1.01)).toBeCloseTo(80, 10);
     expect(apparentAttenuationPct(1, 1)).toBe(0);
@@ -56,6 +58,7 @@ describe('attenuation and extract', () => {
 });
 
 describe('final gravity from yeast and mash', () => {
+  // Common practice: a yeast's stated apparent attenuation leaves that share of the points unfermented.
   it('uses FG = 1 + (OG − 1)(1 − attenuation)', () => {
     expect(finalGravity(1.05, 75)).toBeCloseTo(1.0125, 10);
   });
@@ -77,6 +80,7 @@ describe('final gravity from yeast and mash', () => {
     expect(adjustedAttenuationPct(2, 72)).toBe(0);
   });
 
+  // Common practice: beta and alpha amylase work at about 60–72 °C; protein rests and mash-out do not set fermentability.
   it('weights the saccharification rests by time and ignores protein and mash-out rests', () => {
     const steps = [
       { tempC: 52, timeMin: 15 },

@@ -24,7 +24,7 @@ const hop = (overrides: Partial<Hop>): Hop => ({
 
 describe('Tinseth utilisation', () => {
   // Glenn Tinseth, hop utilisation table (c. 1995–97), as reproduced in
-  // John Palmer, How to Brew, ch. 5, Table 7 (printed to three decimals).
+  // John Palmer, How to Brew (3rd ed., 2006; edition and year from memory), ch. 5, Table 7 (printed to three decimals).
   it.each([
     [1.05, 30, 0.177],
     [1.06, 30, 0.162],
@@ -34,7 +34,7 @@ describe('Tinseth utilisation', () => {
     expect(tinsethUtilisation(gravity, minutes)).toBeCloseTo(printed, 3);
   });
 
-  // Tinseth's published formula: bigness 1.65 × 0.000125^(G − 1), time (1 − e^(−0.04 t)) / 4.15.
+  // Tinseth's published formula (c. 1995–97): bigness 1.65 × 0.000125^(G − 1), time (1 − e^(−0.04 t)) / 4.15.
   it('is the product of the bigness and boil-time factors', () => {
     expect(tinsethBignessFactor(1.05)).toBeCloseTo(1.65 * 0.000125 ** 0.05, 12);
     expect(tinsethTimeFactor(60)).toBeCloseTo((1 - Math.exp(-2.4)) / 4.15, 12);
@@ -54,7 +54,7 @@ describe('Tinseth utilisation', () => {
     expect(ibu).toBeCloseTo(tinsethUtilisation(1.05, 60) * 0.1 * 1 * 7489 / 5, 1);
   });
 
-  // John Palmer, How to Brew, ch. 5 worked example: 9.6 AAU at U 0.176 in 5 gal → 25 IBU;
+  // John Palmer, How to Brew (2006), ch. 5 worked example: 9.6 AAU at U 0.176 in 5 gal → 25 IBU;
   // 4.6 AAU at U 0.087 → 6 IBU (Palmer's IBU = AAU × U × 75 / gal).
   it("reproduces Palmer's worked example", () => {
     const gallons = 5 * L_PER_US_GALLON;
@@ -85,15 +85,18 @@ describe('bitterness by hop use', () => {
     expect(hopIbu(hop({ use: 'dry_hop', timeMin: 4320 }), 1.05, 20, 60)).toBe(0);
   });
 
+  // Common practice: first-wort hops are credited like a boil addition of the full boil time.
   it('counts first-wort hops as a boil addition for their time', () => {
     expect(hopIbu(hop({ use: 'first_wort', timeMin: 60 }), 1.05, 20, 60)).toBe(hopIbu(hop({}), 1.05, 20, 60));
   });
 
+  // Common practice: mash hops give a small fraction of a boil addition's bitterness (the fraction is our documented choice).
   it('credits mash hops the documented fraction of a full-boil addition', () => {
     const mash = hopIbu(hop({ use: 'mash', timeMin: 60 }), 1.05, 20, 90);
     expect(mash).toBeCloseTo(MASH_HOP_FRACTION * hopIbu(hop({ timeMin: 90 }), 1.05, 20, 90), 10);
   });
 
+  // Common practice: isomerisation slows steeply below boiling and is negligible below about 75 °C.
   it('scales a hop stand by a temperature factor of 1 at 100 °C falling towards 0 below 75 °C', () => {
     expect(hopStandTemperatureFactor(100)).toBeCloseTo(1, 12);
     expect(hopStandTemperatureFactor(90)).toBeLessThan(0.5);

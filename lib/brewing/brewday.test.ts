@@ -21,7 +21,7 @@ import { minimalInput } from './test-fixtures';
 const QUART_L = L_PER_US_GALLON / 4;
 
 describe('mash water temperatures', () => {
-  // John Palmer, How to Brew: Tw = (0.2 / r)(T2 − T1) + T2 (qt/lb, °F); printed 152 °F target,
+  // John Palmer, How to Brew (3rd ed., 2006; edition and year from memory): Tw = (0.2 / r)(T2 − T1) + T2 (qt/lb, °F); printed 152 °F target,
   // 68 °F grain, 1.25 qt/lb → 165.4 °F. Palmer's metric constant 0.41 differs slightly from 0.2 qt/lb.
   it("reproduces Palmer's strike water example", () => {
     const litresPerKg = (1.25 * QUART_L) / KG_PER_LB;
@@ -29,7 +29,7 @@ describe('mash water temperatures', () => {
     expect(Math.abs(celsiusToFahrenheit(tempC) - 165.4)).toBeLessThan(0.5);
   });
 
-  // Palmer, How to Brew, infusion equation Wa = (T2 − T1)(0.2 G + Wm) / (Tw − T2);
+  // Palmer, How to Brew (2006), infusion equation Wa = (T2 − T1)(0.2 G + Wm) / (Tw − T2);
   // recomputed: 10 lb, 12.5 qt, 104 → 140 °F with 210 °F water → 7.46 qt.
   it('computes an infusion to raise the mash', () => {
     const litres = infusionVolumeL({

@@ -3,7 +3,7 @@ import { SUGAR_G_PER_G_CO2, kegPressureKPa, kegPressurePsi, primingSugarGrams, r
 import { KPA_PER_PSI, fahrenheitToCelsius } from './constants';
 
 describe('keg pressure', () => {
-  // The regression behind the widely printed force-carbonation tables; printed values:
+  // Common practice: the regression behind the widely printed force-carbonation tables; printed values (from memory):
   // 32 °F/2.0 vol → 3.5 psi; 40/2.5 → 12.3; 50/2.6 → 18.8; 60/3.0 → 30.2 (psi → kPa × 6.894757).
   it.each([
     [32, 2.0, 3.5],

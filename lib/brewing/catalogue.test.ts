@@ -19,7 +19,7 @@ describe('ingredient catalogue', () => {
     }
   });
 
-  // John Palmer, How to Brew, Table 9 (maximum ppg) and ch. 12 (colours), as printed.
+  // John Palmer, How to Brew (3rd ed., 2006; edition and year from memory), Table 9 (maximum ppg) and ch. 12 (colours), as printed.
   it.each([
     ['pilsner-malt', 37, 2],
     ['pale-ale-malt', 38, 3],
@@ -35,7 +35,7 @@ describe('ingredient catalogue', () => {
     expect(findCatalogueFermentable(id)).toMatchObject({ potentialPpg: ppg, colorLovibond: lovibond });
   });
 
-  // Palmer, How to Brew, Table 9, as printed: chocolate 28, roast barley and black 25, flaked oats/barley 32,
+  // Palmer, How to Brew (2006), Table 9, as printed: chocolate 28, roast barley and black 25, flaked oats/barley 32,
   // flaked corn 39, flaked rice 38, sugar 46.
   it.each([
     ['chocolate-malt', 28],

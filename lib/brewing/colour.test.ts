@@ -18,7 +18,7 @@ describe('beer colour', () => {
     expect(maltColourUnits(grist, 5 * L_PER_US_GALLON)).toBeCloseTo((10 * 3 + 60) / 5, 10);
   });
 
-  // Dan Morey, "Approximating Beer Color", Brewing Techniques: SRM = 1.4922 × MCU^0.6859.
+  // Dan Morey, "Approximating Beer Color", Brewing Techniques (mid-1990s; year from memory): SRM = 1.4922 × MCU^0.6859.
   // Recomputed from the formula: MCU 20 → 11.65; MCU 56.4 → 23.72.
   it('follows Morey', () => {
     expect(moreySrm(20)).toBeCloseTo(11.65, 2);
@@ -58,6 +58,7 @@ describe('colour swatch (an approximation for display)', () => {
     }
   });
 
+  // Common practice: higher SRM is darker beer.
   it('darkens as SRM rises', () => {
     for (let srm = 1; srm < 40; srm += 0.5) {
       expect(luminance(srmToHex(srm + 0.5))).toBeLessThanOrEqual(luminance(srmToHex(srm)));

@@ -8,7 +8,7 @@ describe('extract from the grist', () => {
     expect(POINTS_L_PER_KG_PER_PPG).toBeCloseTo(8.3454, 4);
   });
 
-  // John Palmer, How to Brew, ch. 12 method (points = Σ lb × ppg × efficiency / gal);
+  // John Palmer, How to Brew (3rd ed., 2006; edition and year from memory), ch. 12 method (points = Σ lb × ppg × efficiency / gal);
   // recomputed: 10 lb at 37 plus 1 lb at 34 in 5.5 gal at 75% → 1.0551.
   it('reproduces a worked grist', () => {
     const grist = [

@@ -45,6 +45,7 @@ describe('hydrometer temperature correction', () => {
     expect(Math.abs((corrected - 1.05) * 1000 - points)).toBeLessThan(0.25);
   });
 
+  // Common practice: a hydrometer reads true at the temperature it was calibrated at.
   it('changes nothing at the calibration temperature', () => {
     expect(correctHydrometerReading(1.05, 20, 20)).toBeCloseTo(1.05, 12);
   });

@@ -67,6 +67,7 @@ describe('computeStats', () => {
     expect(at(62)).toBeLessThan(at(66));
   });
 
+  // Common practice: with a blend of yeasts the most attenuative one finishes the beer.
   it('lets the most attenuative yeast set FG', () => {
     const input = minimalInput();
     input.yeasts = [...input.yeasts, { name: 'Dry yeast', kind: 'wild', attenuationPct: 88 }];

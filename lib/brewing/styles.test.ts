@@ -47,6 +47,7 @@ describe('style guideline ranges', () => {
     expect(categories.flatMap((c) => c.styles).length).toBe(listStyles().length);
   });
 
+  // BJCP 2021 Style Guidelines, 18B American Pale Ale: OG 1.045–1.060, FG 1.010–1.015, 4.5–6.2 %, 30–50 IBU, 5–10 SRM.
   it('places a recipe built for American Pale Ale within each of its ranges', () => {
     const fit = computeStats(examplePaleAle()).styleFit;
     expect(fit?.code).toBe('18B');

@@ -49,6 +49,7 @@ describe('ions from salts', () => {
     }
   });
 
+  // Common practice: salt additions add to the source water's ions (baking soda: 726.3 mg/L bicarbonate per g/L, IUPAC weights as above).
   it('adds salts on top of the source water', () => {
     const source = { ...DISTILLED, calcium: 40, bicarbonate: 100 };
     const water = waterAfterSalts(source, [{ salt: 'baking_soda', grams: 2 }], 20);
@@ -58,7 +59,7 @@ describe('ions from salts', () => {
 });
 
 describe('water readings', () => {
-  // Kolbach's residual alkalinity as given by John Palmer, How to Brew: RA = alkalinity − (Ca/1.4 + Mg/1.7);
+  // Kolbach's (1953; year from memory) residual alkalinity as given by John Palmer, How to Brew (3rd ed., 2006; edition and year from memory): RA = alkalinity − (Ca/1.4 + Mg/1.7);
   // recomputed: alkalinity 120, Ca 50, Mg 10 → 78.4 mg/L as CaCO3.
   it('computes residual alkalinity', () => {
     const bicarbonateForAlkalinity120 = (120 * 61.02) / 50.04;
