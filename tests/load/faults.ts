@@ -3,8 +3,9 @@
 // below is broken: no request hangs past 10 s, outage answers are plain 503s, the app recovers
 // without a restart, every save that answered 2xx is in the database, the search index catches up,
 // and notification e-mails caused while SMTP is down wait in the database and go out when it returns.
-import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
+import { execFileSync } from 'node:child_process';
 import { Client } from 'pg';
+import { db, signalGroup, sleep, startChild, stopAndWait, stopChildren, waitFor } from './processes';
 
 const APP_PORT = 3950;
 const SEARCH_PORT = 7795;
@@ -16,8 +17,6 @@ const RUN_SECONDS = 50;
 /** The e-mail sender loop's period for this run (30 s in service), so the SMTP outage fits in seconds. */
 const EMAIL_LOOP_MS = 2_000;
 
-const db = (...args: string[]) => execFileSync('bash', ['scripts/db.sh', ...args]).toString().trim();
-const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 execFileSync('bash', ['scripts/db.sh', 'start'], { stdio: 'inherit' });
 db('drop', 'kettlefork_faults');
@@ -47,42 +46,6 @@ process.env.KF_BASE_URL = BASE;
 // Loaded after KF_BASE_URL is set, so the client talks to this run's app.
 const { TestClient } = await import('../helpers/http');
 
-const children: ChildProcess[] = [];
-function start(args: string[]): ChildProcess {
-  const child = spawn('node', args, { env, detached: true, stdio: 'ignore' });
-  children.push(child);
-  return child;
-}
-function stop(child: ChildProcess): void {
-  try {
-    process.kill(-child.pid!, 'SIGTERM');
-  } catch {
-    // already gone
-  }
-}
-/** Stops a child's process group and waits until it has exited (SIGKILL after 5 s). */
-async function stopAndWait(child: ChildProcess): Promise<void> {
-  if (child.exitCode !== null || child.signalCode !== null) return;
-  const exited = new Promise<void>((resolve) => child.once('exit', () => resolve()));
-  stop(child);
-  const timer = setTimeout(() => {
-    try {
-      process.kill(-child.pid!, 'SIGKILL');
-    } catch {
-      // already gone
-    }
-  }, 5_000);
-  await exited;
-  clearTimeout(timer);
-}
-async function waitFor(url: string, seconds: number): Promise<void> {
-  for (let i = 0; i < seconds * 4; i++) {
-    if (await fetch(url).then((r) => r.status < 500, () => false)) return;
-    await sleep(250);
-  }
-  throw new Error(`${url} did not come up`);
-}
-
 const failures: string[] = [];
 const check = (ok: boolean, message: string) => {
   if (!ok) failures.push(message);
@@ -90,14 +53,14 @@ const check = (ok: boolean, message: string) => {
 };
 
 try {
-  let search = start(['--import', 'tsx', 'scripts/search-fake.ts']);
-  let mail = start(['--import', 'tsx', 'scripts/mail-fake.ts']);
-  start(['--import', 'tsx', 'scripts/s3-fake.ts']);
+  let search = startChild(['--import', 'tsx', 'scripts/search-fake.ts'], env);
+  let mail = startChild(['--import', 'tsx', 'scripts/mail-fake.ts'], env);
+  startChild(['--import', 'tsx', 'scripts/s3-fake.ts'], env);
   await sleep(1500);
   execFileSync('node', ['--conditions=react-server', '--import', 'tsx', 'db/migrate.ts'], { env, stdio: 'inherit' });
   execFileSync('node', ['--conditions=react-server', '--import', 'tsx', 'db/seed.ts'], { env, stdio: 'inherit' });
   execFileSync('npx', ['next', 'build'], { env, stdio: 'ignore' });
-  start(['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(APP_PORT)]);
+  startChild(['scripts/serve.mjs', '-H', '127.0.0.1', '-p', String(APP_PORT)], env);
   await waitFor(`${BASE}/api/health`, 120);
 
   const brewer = new TestClient('10.9.0.1');
@@ -191,9 +154,9 @@ try {
     console.log('PostgreSQL is back');
     await sleep(8_000);
     console.log('stopping the search service for 6 s');
-    stop(search);
+    signalGroup(search, 'SIGTERM');
     await sleep(6_000);
-    search = start(['--import', 'tsx', 'scripts/search-fake.ts']);
+    search = startChild(['--import', 'tsx', 'scripts/search-fake.ts'], env);
     console.log('search is back (empty: the app rebuilds it)');
     await sleep(4_000);
     await smtpOutage();
@@ -234,7 +197,7 @@ try {
         await sleep(250);
       }
       await sleep(Math.max(0, 8_000 - (Date.now() - outageStart)));
-      mail = start(['--import', 'tsx', 'scripts/mail-fake.ts']);
+      mail = startChild(['--import', 'tsx', 'scripts/mail-fake.ts'], env);
       await waitFor(`http://127.0.0.1:${OUTBOX_PORT}/health`, 15);
       console.log('SMTP is back');
       for (let i = 0; i < 60 && mailOutage.received < tags.length; i++) {
@@ -298,7 +261,7 @@ try {
   failures.push((err as Error).message);
   console.error(err);
 } finally {
-  children.forEach(stop);
+  await stopChildren();
   execFileSync('bash', ['scripts/db.sh', 'start'], { stdio: 'ignore' });
 }
 

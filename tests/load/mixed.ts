@@ -8,7 +8,7 @@
 //
 //   KF_LOAD_CLIENTS=10 KF_LOAD_SECONDS=10 npm run load   # a quick smoke run
 //   KF_LOAD_BUILD=skip npm run load                      # reuse the build already in .next-load
-import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
+import { execFileSync } from 'node:child_process';
 import http from 'node:http';
 import { readFileSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
@@ -18,6 +18,7 @@ import { Client, Pool } from 'pg';
 import { bulkLoadRecipes } from '../../bench/generate';
 import { quantile, round } from '../../bench/stats';
 import * as schema from '../../db/schema';
+import { db, sleep, startChild, stopChildren, waitFor } from './processes';
 
 const APP_PORT = 3960;
 const SEARCH_PORT = 7796;
@@ -119,8 +120,6 @@ interface RecipeTarget {
 
 type Recorder = (route: string, kind: RouteKind, ms: number | null, status: number) => void;
 
-const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
-const db = (...args: string[]) => execFileSync('bash', ['scripts/db.sh', ...args]).toString().trim();
 
 /** A small seeded generator, so a run's request sequence is the same every time. */
 function rng(seed: number): () => number {
@@ -141,38 +140,6 @@ function envNumber(name: string, fallback: number): number {
   const n = Number(raw);
   if (!Number.isInteger(n) || n < 1) throw new Error(`${name} must be a positive whole number, got "${raw}"`);
   return n;
-}
-
-// Children run in their own process groups; the whole group is stopped, workers included.
-const children = new Set<ChildProcess>();
-function startChild(args: string[], env: NodeJS.ProcessEnv): ChildProcess {
-  const child = spawn('node', args, { env, detached: true, stdio: 'ignore' });
-  children.add(child);
-  child.once('exit', () => children.delete(child));
-  return child;
-}
-function signalGroup(child: ChildProcess, signal: NodeJS.Signals): void {
-  try {
-    process.kill(-child.pid!, signal);
-  } catch {
-    // already gone
-  }
-}
-/** Stops every child this run started: SIGTERM to each group, SIGKILL to what is left after 5 s. */
-export async function stopChildren(): Promise<void> {
-  const running = [...children];
-  running.forEach((c) => signalGroup(c, 'SIGTERM'));
-  for (let i = 0; i < 50 && running.some((c) => c.exitCode === null && c.signalCode === null); i++) await sleep(100);
-  running.forEach((c) => signalGroup(c, 'SIGKILL'));
-  children.clear();
-}
-
-async function waitFor(url: string, seconds: number): Promise<void> {
-  for (let i = 0; i < seconds * 4; i++) {
-    if (await fetch(url).then((r) => r.status < 500, () => false)) return;
-    await sleep(250);
-  }
-  throw new Error(`${url} did not come up within ${seconds} s`);
 }
 
 function runNode(args: string[], env: NodeJS.ProcessEnv): void {
