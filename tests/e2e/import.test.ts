@@ -1,7 +1,7 @@
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { openBrowser, type BrowserSession } from '../helpers/browser';
-import { TEST_PASSWORD, createUser } from '../helpers/users';
+import { openBrowser, signInThroughPage, type BrowserSession } from '../helpers/browser';
+import { createUser } from '../helpers/users';
 
 const stoutFile = fileURLToPath(new URL('../../lib/interchange/examples/beerxml-spec-dry-stout.xml', import.meta.url));
 
@@ -11,10 +11,7 @@ describe('importing a recipe file and printing its brew sheet in a real browser'
   beforeAll(async () => {
     s = await openBrowser();
     const user = await createUser({ name: 'Import Tester' });
-    await s.page.goto('/sign-in');
-    await s.page.locator('#signin-email').fill(user.email);
-    await s.page.getByLabel('Password', { exact: true }).fill(TEST_PASSWORD);
-    await s.page.getByRole('button', { name: 'Sign in' }).click();
+    await signInThroughPage(s, user.email);
     await s.page.waitForURL('/');
   });
   afterAll(async () => s?.close());

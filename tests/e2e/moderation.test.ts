@@ -1,17 +1,13 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { User } from '@/db/schema';
-import { openBrowser, type BrowserSession } from '../helpers/browser';
+import { openBrowser, signInThroughPage, type BrowserSession } from '../helpers/browser';
 import { TestClient } from '../helpers/http';
 import { createRecipeVia, paleAle } from '../helpers/recipes';
 import { TEST_PASSWORD, createUser } from '../helpers/users';
 
 async function signIn(s: BrowserSession, user: User): Promise<void> {
-  await s.page.goto('/sign-in');
-  await s.page.locator('#signin-email').fill(user.email);
-  await s.page.getByLabel('Password', { exact: true }).fill(TEST_PASSWORD);
-  await s.page.getByRole('button', { name: 'Sign in' }).click();
+  await signInThroughPage(s, user.email);
   await s.page.waitForURL('/');
-  await s.page.getByText('Signed in as').waitFor();
 }
 
 /** Polls the search API (the index follows PostgreSQL through the outbox) until `done` holds. */

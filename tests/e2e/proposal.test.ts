@@ -1,16 +1,8 @@
 import { afterEach, describe, expect, it } from 'vitest';
-import { editorReady, openBrowser, type BrowserSession } from '../helpers/browser';
+import { editorReady, openBrowser, signInThroughPage, type BrowserSession } from '../helpers/browser';
 import { createRecipeVia, paleAle } from '../helpers/recipes';
 import { TEST_PASSWORD, createUser } from '../helpers/users';
 import { TestClient } from '../helpers/http';
-
-async function signInThroughPage(s: BrowserSession, email: string): Promise<void> {
-  await s.page.goto('/sign-in');
-  await s.page.locator('#signin-email').fill(email);
-  await s.page.getByLabel('Password', { exact: true }).fill(TEST_PASSWORD);
-  await s.page.getByRole('button', { name: 'Sign in' }).click();
-  await s.page.getByText('Signed in as').waitFor();
-}
 
 describe('suggesting a change upstream in a real browser', { timeout: 120_000 }, () => {
   const sessions: BrowserSession[] = [];

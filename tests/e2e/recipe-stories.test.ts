@@ -1,15 +1,7 @@
 import { afterEach, describe, expect, it } from 'vitest';
-import { editorReady, openBrowser, type BrowserSession } from '../helpers/browser';
+import { editorReady, openBrowser, signInThroughPage, type BrowserSession } from '../helpers/browser';
 import { createRecipeVia, paleAle, saveVia } from '../helpers/recipes';
-import { TEST_PASSWORD, createUser, signedInClient } from '../helpers/users';
-
-async function signInThroughPage(s: BrowserSession, email: string): Promise<void> {
-  await s.page.goto('/sign-in');
-  await s.page.locator('#signin-email').fill(email);
-  await s.page.getByLabel('Password', { exact: true }).fill(TEST_PASSWORD);
-  await s.page.getByRole('button', { name: 'Sign in' }).click();
-  await s.page.getByText('Signed in as').waitFor();
-}
+import { createUser, signedInClient } from '../helpers/users';
 
 /** Reads a number shown in the numbers panel beside its label, e.g. "FG". */
 async function panelNumber(s: BrowserSession, label: string): Promise<number> {

@@ -2,6 +2,7 @@ import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { BASE_URL } from './env';
+import { TEST_PASSWORD } from './users';
 
 export const SCREENSHOT_DIR = path.resolve('tests/e2e/screenshots');
 
@@ -79,4 +80,13 @@ export async function openBrowser(opts: { width?: number; height?: number; color
 /** Waits until the recipe editor on the page has hydrated, so typing goes to React and Save is on. */
 export async function editorReady(page: Page): Promise<void> {
   await page.locator('form[data-ready]').waitFor();
+}
+
+/** Signs in through the sign-in page as a person does, and waits for the signed-in header. */
+export async function signInThroughPage(s: BrowserSession, email: string, password = TEST_PASSWORD): Promise<void> {
+  await s.page.goto('/sign-in');
+  await s.page.locator('#signin-email').fill(email);
+  await s.page.getByLabel('Password', { exact: true }).fill(password);
+  await s.page.getByRole('button', { name: 'Sign in' }).click();
+  await s.page.getByText('Signed in as').waitFor();
 }
