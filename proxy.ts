@@ -35,11 +35,21 @@ function unavailable(policy: string): NextResponse {
   const html = `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><title>Kettlefork is briefly unavailable</title></head><body style="font-family: Georgia, serif; background: #fbf7f0; color: #211c16; max-width: 36rem; margin: 4rem auto; padding: 0 1rem"><h1>Kettlefork is briefly unavailable</h1><p>We cannot reach our database just now. Nothing you saved is lost; please try again in a moment.</p></body></html>`;
   return new NextResponse(html, {
     status: 503,
-    headers: { 'content-type': 'text/html; charset=utf-8', 'retry-after': '5', 'cache-control': 'no-store', 'content-security-policy': policy },
+    headers: {
+      'content-type': 'text/html; charset=utf-8',
+      'retry-after': '5',
+      'cache-control': 'no-store',
+      'content-security-policy': policy,
+    },
   });
 }
 
 export const config = {
   // Pages only: API answers, built assets and icons carry the static headers from next.config.ts.
-  matcher: [{ source: '/((?!api/|_next/static|_next/image|icon.svg|favicon.ico).*)', missing: [{ type: 'header', key: 'next-router-prefetch' }] }],
+  matcher: [
+    {
+      source: '/((?!api/|_next/static|_next/image|icon.svg|favicon.ico).*)',
+      missing: [{ type: 'header', key: 'next-router-prefetch' }],
+    },
+  ],
 };

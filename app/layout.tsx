@@ -10,7 +10,8 @@ import { Providers } from '@/components/providers';
 
 export const metadata: Metadata = {
   title: { default: 'Kettlefork — homebrew recipes with a history', template: '%s · Kettlefork' },
-  description: 'Publish homebrew recipes as versioned records, fork each other’s, log brew days and find recipes by style and ingredient.',
+  description:
+    'Publish homebrew recipes as versioned records, fork each other’s, log brew days and find recipes by style and ingredient.',
 };
 
 export const viewport: Viewport = { width: 'device-width', initialScale: 1 };

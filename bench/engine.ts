@@ -26,7 +26,12 @@ function benchRecipe(): RecipeDocument {
       { name: 'Cascade', amountG: 60, alphaPct: 6, use: 'dry_hop', timeMin: 5760, form: 'pellet' },
     ],
     yeasts: [{ name: 'Clean ale yeast', kind: 'ale', attenuationPct: 76 }],
-    mash: { steps: [{ tempC: 67, timeMin: 60 }, { tempC: 76, timeMin: 10 }] },
+    mash: {
+      steps: [
+        { tempC: 67, timeMin: 60 },
+        { tempC: 76, timeMin: 10 },
+      ],
+    },
     fermentation: { steps: [{ tempC: 19, days: 12 }] },
     water: {
       volumeL: 35,

@@ -9,9 +9,26 @@ export async function benchLoad(): Promise<BenchRow[]> {
   writeFileSync(new URL('./LOAD.md', import.meta.url), result.markdown);
   const label = `${result.clients.total} clients for ${result.seconds} s, ${result.dataset.recipes.toLocaleString('en-GB')} recipes; see LOAD.md`;
   const rows: BenchRow[] = [
-    { area: 'load', metric: `mixed traffic, all routes: requests per second (${label})`, value: result.total.perSecond, unit: 'req/s' },
-    { area: 'load', metric: 'mixed traffic, 5xx answers', value: result.total.serverErrors, unit: 'count', target: { op: '<', value: 1 } },
-    { area: 'load', metric: 'mixed traffic, saves that answered 2xx and are missing from the database', value: result.saves.answered2xx - result.saves.found, unit: 'count', target: { op: '<', value: 1 } },
+    {
+      area: 'load',
+      metric: `mixed traffic, all routes: requests per second (${label})`,
+      value: result.total.perSecond,
+      unit: 'req/s',
+    },
+    {
+      area: 'load',
+      metric: 'mixed traffic, 5xx answers',
+      value: result.total.serverErrors,
+      unit: 'count',
+      target: { op: '<', value: 1 },
+    },
+    {
+      area: 'load',
+      metric: 'mixed traffic, saves that answered 2xx and are missing from the database',
+      value: result.saves.answered2xx - result.saves.found,
+      unit: 'count',
+      target: { op: '<', value: 1 },
+    },
   ];
   for (const row of result.rows) {
     rows.push({

@@ -33,11 +33,22 @@ export async function benchRecipes(): Promise<BenchRow[]> {
     .insert(schema.users)
     .values({ email: 'bench@kettlefork.test', handle: 'bench', name: 'Bench Brewer' })
     .returning();
-  const viewer = { id: owner.id, name: 'Bench Brewer', email: owner.email, handle: 'bench', role: 'member' as const, units: 'metric' as const };
+  const viewer = {
+    id: owner.id,
+    name: 'Bench Brewer',
+    email: owner.email,
+    handle: 'bench',
+    role: 'member' as const,
+    units: 'metric' as const,
+  };
 
   // Bulk-load the scratch data directly; triggers on versions forbid only updates and deletes.
   const seedStart = performance.now();
-  const heads = await bulkLoadRecipes(db, { ownerId: owner.id, recipes: RECIPES, versionsPerRecipe: VERSIONS_PER_RECIPE });
+  const heads = await bulkLoadRecipes(db, {
+    ownerId: owner.id,
+    recipes: RECIPES,
+    versionsPerRecipe: VERSIONS_PER_RECIPE,
+  });
   const seedMs = performance.now() - seedStart;
 
   // Saving: validate, compute, insert, move the head — the whole path a save takes.
@@ -47,7 +58,11 @@ export async function benchRecipes(): Promise<BenchRow[]> {
     const input = twentyIngredientDocument(i + 100_000);
     const t = performance.now();
     const document = brewing.recipeDocumentSchema.parse(input);
-    const saved = await saveVersion(viewer, target.recipeId, { document, baseVersionId: target.headId, message: 'bench save' });
+    const saved = await saveVersion(viewer, target.recipeId, {
+      document,
+      baseVersionId: target.headId,
+      message: 'bench save',
+    });
     saveMs.push(performance.now() - t);
     target.headId = saved.version.id;
   }
@@ -61,13 +76,38 @@ export async function benchRecipes(): Promise<BenchRow[]> {
     compareMs.push(performance.now() - t);
   }
 
-  const pageRows = await benchRecipePage(process.env.DATABASE_URL, heads.slice(0, 200).map((h) => `/recipes/${h.slug}`));
+  const pageRows = await benchRecipePage(
+    process.env.DATABASE_URL,
+    heads.slice(0, 200).map((h) => `/recipes/${h.slug}`),
+  );
   await getPool().end();
   return [
-    { area: 'recipes', metric: `bulk load ${RECIPES} recipes / ${RECIPES * VERSIONS_PER_RECIPE} versions`, value: round(seedMs / 1000), unit: 's' },
-    { area: 'recipes', metric: 'save a version (validate, compute, insert, move head) p50', value: round(quantile(saveMs, 0.5), 2), unit: 'ms' },
-    { area: 'recipes', metric: 'save a version p95', value: round(quantile(saveMs, 0.95), 2), unit: 'ms', target: { op: '<', value: 30 } },
-    { area: 'recipes', metric: 'compare two 20-ingredient versions (load both, diff) p95', value: round(quantile(compareMs, 0.95), 2), unit: 'ms', target: { op: '<', value: 10 } },
+    {
+      area: 'recipes',
+      metric: `bulk load ${RECIPES} recipes / ${RECIPES * VERSIONS_PER_RECIPE} versions`,
+      value: round(seedMs / 1000),
+      unit: 's',
+    },
+    {
+      area: 'recipes',
+      metric: 'save a version (validate, compute, insert, move head) p50',
+      value: round(quantile(saveMs, 0.5), 2),
+      unit: 'ms',
+    },
+    {
+      area: 'recipes',
+      metric: 'save a version p95',
+      value: round(quantile(saveMs, 0.95), 2),
+      unit: 'ms',
+      target: { op: '<', value: 30 },
+    },
+    {
+      area: 'recipes',
+      metric: 'compare two 20-ingredient versions (load both, diff) p95',
+      value: round(quantile(compareMs, 0.95), 2),
+      unit: 'ms',
+      target: { op: '<', value: 10 },
+    },
     ...pageRows,
   ];
 }
@@ -78,12 +118,29 @@ export async function benchRecipes(): Promise<BenchRow[]> {
  * Every response time is recorded, so the percentiles are exact rather than read off a histogram.
  */
 async function benchRecipePage(databaseUrl: string, paths: string[]): Promise<BenchRow[]> {
-  const env = { ...process.env, DATABASE_URL: databaseUrl, NODE_ENV: 'production', NEXTAUTH_SECRET: 'bench-secret-0123456789abcdef0123456789', NEXTAUTH_URL: `http://127.0.0.1:${PAGE_PORT}`, KF_SEARCH_SYNC: 'off', KF_EMAIL_SENDER: 'off', KF_DIST_DIR: '.next-bench', NEXT_TELEMETRY_DISABLED: '1' } as NodeJS.ProcessEnv;
+  const env = {
+    ...process.env,
+    DATABASE_URL: databaseUrl,
+    NODE_ENV: 'production',
+    NEXTAUTH_SECRET: 'bench-secret-0123456789abcdef0123456789',
+    NEXTAUTH_URL: `http://127.0.0.1:${PAGE_PORT}`,
+    KF_SEARCH_SYNC: 'off',
+    KF_EMAIL_SENDER: 'off',
+    KF_DIST_DIR: '.next-bench',
+    NEXT_TELEMETRY_DISABLED: '1',
+  } as NodeJS.ProcessEnv;
   execFileSync('npx', ['next', 'build'], { env, stdio: 'ignore' });
-  const server = spawn('node', ['scripts/serve.mjs', '-H', '127.0.0.1', '-p', String(PAGE_PORT)], { env, detached: true, stdio: 'ignore' });
+  const server = spawn('node', ['scripts/serve.mjs', '-H', '127.0.0.1', '-p', String(PAGE_PORT)], {
+    env,
+    detached: true,
+    stdio: 'ignore',
+  });
   try {
     for (let i = 0; i < 120; i++) {
-      const ok = await fetch(`http://127.0.0.1:${PAGE_PORT}/api/health`).then((r) => r.ok, () => false);
+      const ok = await fetch(`http://127.0.0.1:${PAGE_PORT}/api/health`).then(
+        (r) => r.ok,
+        () => false,
+      );
       if (ok) break;
       await new Promise((r) => setTimeout(r, 500));
     }
@@ -101,11 +158,29 @@ async function benchRecipePage(databaseUrl: string, paths: string[]): Promise<Be
     const allP95 = rounds.map((r) => `${round(r.p95, 1)}`).join(', ');
     const cores = availableParallelism();
     return [
-      { area: 'pages', metric: `recipe page, 20 concurrent clients, ${cores} workers: requests per second`, value: round(result.requests.average, 0), unit: 'req/s' },
+      {
+        area: 'pages',
+        metric: `recipe page, 20 concurrent clients, ${cores} workers: requests per second`,
+        value: round(result.requests.average, 0),
+        unit: 'req/s',
+      },
       { area: 'pages', metric: 'recipe page p50', value: round(quantile(latencies, 0.5), 1), unit: 'ms' },
-      { area: 'pages', metric: 'recipe page p95', value: round(quantile(latencies, 0.95), 1), unit: 'ms', target: { op: '<', value: 150 }, note: `median of three 20 s rounds, whose p95s were ${allP95} ms; ${latencies.length} requests in the median round` },
+      {
+        area: 'pages',
+        metric: 'recipe page p95',
+        value: round(quantile(latencies, 0.95), 1),
+        unit: 'ms',
+        target: { op: '<', value: 150 },
+        note: `median of three 20 s rounds, whose p95s were ${allP95} ms; ${latencies.length} requests in the median round`,
+      },
       { area: 'pages', metric: 'recipe page p99', value: round(quantile(latencies, 0.99), 1), unit: 'ms' },
-      { area: 'pages', metric: 'recipe page non-2xx answers (all rounds)', value: rounds.reduce((n, r) => n + r.result.non2xx, 0), unit: 'count', target: { op: '<', value: 1 } },
+      {
+        area: 'pages',
+        metric: 'recipe page non-2xx answers (all rounds)',
+        value: rounds.reduce((n, r) => n + r.result.non2xx, 0),
+        unit: 'count',
+        target: { op: '<', value: 1 },
+      },
     ];
   } finally {
     try {
@@ -117,7 +192,10 @@ async function benchRecipePage(databaseUrl: string, paths: string[]): Promise<Be
 }
 
 /** 20 clients reading the given pages in turn for `seconds`; every response time is kept. */
-async function loadPages(paths: string[], seconds: number): Promise<{ result: autocannon.Result; latencies: number[] }> {
+async function loadPages(
+  paths: string[],
+  seconds: number,
+): Promise<{ result: autocannon.Result; latencies: number[] }> {
   let next = 0;
   const latencies: number[] = [];
   const result = await new Promise<autocannon.Result>((resolve, reject) => {

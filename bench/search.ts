@@ -7,7 +7,12 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { Meilisearch, type EnqueuedTask } from 'meilisearch';
-import { FACET_ATTRIBUTES, RECIPE_INDEX_SETTINGS, RECIPES_INDEX, type RecipeSearchDocument } from '../lib/search/document';
+import {
+  FACET_ATTRIBUTES,
+  RECIPE_INDEX_SETTINGS,
+  RECIPES_INDEX,
+  type RecipeSearchDocument,
+} from '../lib/search/document';
 import { buildRecipeFilter } from '../lib/search/filters';
 import { recipeSearchQuerySchema, SEARCH_PAGE_SIZE, type RecipeSearchQueryInput } from '../lib/search/schemas';
 import type { BenchRow } from './types';
@@ -37,12 +42,46 @@ const pickSome = <T>(random: Random, items: readonly T[], min: number, max: numb
   const count = min + Math.floor(random() * (max - min + 1));
   return [...new Set(Array.from({ length: count }, () => pick(random, items)))];
 };
-const between = (random: Random, low: number, high: number, digits: number) => Number((low + random() * (high - low)).toFixed(digits));
+const between = (random: Random, low: number, high: number, digits: number) =>
+  Number((low + random() * (high - low)).toFixed(digits));
 
 const TITLE_WORDS = [
-  'Harbour', 'Lantern', 'Orchard', 'Copper', 'Meadow', 'Ridge', 'Cellar', 'Hollow', 'Ember', 'Juniper', 'Drift', 'Quarry',
-  'Thistle', 'Fallow', 'Signal', 'Marsh', 'Kestrel', 'Bramble', 'Tinker', 'Foundry', 'Saltmarsh', 'Rook', 'Gable', 'Wicket',
-  'Sunrise', 'Night', 'Porch', 'Village', 'Forest', 'River', 'Summit', 'Granary', 'Hearth', 'Lighthouse', 'Barley', 'Haze',
+  'Harbour',
+  'Lantern',
+  'Orchard',
+  'Copper',
+  'Meadow',
+  'Ridge',
+  'Cellar',
+  'Hollow',
+  'Ember',
+  'Juniper',
+  'Drift',
+  'Quarry',
+  'Thistle',
+  'Fallow',
+  'Signal',
+  'Marsh',
+  'Kestrel',
+  'Bramble',
+  'Tinker',
+  'Foundry',
+  'Saltmarsh',
+  'Rook',
+  'Gable',
+  'Wicket',
+  'Sunrise',
+  'Night',
+  'Porch',
+  'Village',
+  'Forest',
+  'River',
+  'Summit',
+  'Granary',
+  'Hearth',
+  'Lighthouse',
+  'Barley',
+  'Haze',
 ];
 const STYLES = [
   { code: '1A', name: 'Light Lager', category: 'Pale Lager' },
@@ -62,12 +101,40 @@ const STYLES = [
   { code: '27A', name: 'Historical Gruit', category: 'Historical Beer' },
 ];
 const MALTS = [
-  'Pale ale malt', 'Pilsner malt', 'Munich', 'Vienna', 'Wheat malt', 'Crystal 40', 'Crystal 120', 'Chocolate malt',
-  'Roasted barley', 'Flaked oats', 'Biscuit malt', 'Aromatic malt', 'Rye malt', 'Smoked malt', 'Table sugar', 'Maris-style pale malt',
+  'Pale ale malt',
+  'Pilsner malt',
+  'Munich',
+  'Vienna',
+  'Wheat malt',
+  'Crystal 40',
+  'Crystal 120',
+  'Chocolate malt',
+  'Roasted barley',
+  'Flaked oats',
+  'Biscuit malt',
+  'Aromatic malt',
+  'Rye malt',
+  'Smoked malt',
+  'Table sugar',
+  'Maris-style pale malt',
 ];
 const HOPS = [
-  'Cascade', 'Centennial', 'Saaz', 'Fuggle', 'East Kent Golding', 'Hallertau Mittelfrüh', 'Chinook', 'Willamette',
-  'Northern Brewer', 'Tettnang', 'Spalt', 'Cluster', 'Galena', 'Perle', 'Styrian Golding', 'Brewer’s Gold',
+  'Cascade',
+  'Centennial',
+  'Saaz',
+  'Fuggle',
+  'East Kent Golding',
+  'Hallertau Mittelfrüh',
+  'Chinook',
+  'Willamette',
+  'Northern Brewer',
+  'Tettnang',
+  'Spalt',
+  'Cluster',
+  'Galena',
+  'Perle',
+  'Styrian Golding',
+  'Brewer’s Gold',
 ];
 const YEASTS = [
   { name: 'Clean American ale yeast', kind: 'clean ale' },
@@ -79,9 +146,44 @@ const YEASTS = [
   { name: 'Saison yeast', kind: 'saison' },
 ];
 const NOTE_WORDS = [
-  'citrus', 'pine', 'biscuit', 'toffee', 'roast', 'crisp', 'dry', 'hazy', 'bright', 'resin', 'floral', 'spicy', 'earthy',
-  'malty', 'bready', 'caramel', 'coffee', 'stone', 'fruit', 'clean', 'finish', 'body', 'bitterness', 'aroma', 'mash', 'boil',
-  'whirlpool', 'dry-hop', 'ferment', 'cold', 'crash', 'lager', 'weeks', 'water', 'soft', 'chloride', 'sulfate', 'balance',
+  'citrus',
+  'pine',
+  'biscuit',
+  'toffee',
+  'roast',
+  'crisp',
+  'dry',
+  'hazy',
+  'bright',
+  'resin',
+  'floral',
+  'spicy',
+  'earthy',
+  'malty',
+  'bready',
+  'caramel',
+  'coffee',
+  'stone',
+  'fruit',
+  'clean',
+  'finish',
+  'body',
+  'bitterness',
+  'aroma',
+  'mash',
+  'boil',
+  'whirlpool',
+  'dry-hop',
+  'ferment',
+  'cold',
+  'crash',
+  'lager',
+  'weeks',
+  'water',
+  'soft',
+  'chloride',
+  'sulfate',
+  'balance',
 ];
 const AUTHORS = ['Ada', 'Bram', 'Cleo', 'Dov', 'Esme', 'Finn', 'Greta', 'Hal', 'Ines', 'Jory', 'Kit', 'Lior'];
 
@@ -124,7 +226,11 @@ function benchDocument(random: Random, n: number): RecipeSearchDocument {
 
 /** One or two words a reader might type, and two filters from the search form. */
 function benchQuery(random: Random): RecipeSearchQueryInput {
-  const vocabulary = [...TITLE_WORDS, ...HOPS.map((hop) => hop.split(' ')[0]), ...STYLES.map((style) => style.name.split(' ')[0])];
+  const vocabulary = [
+    ...TITLE_WORDS,
+    ...HOPS.map((hop) => hop.split(' ')[0]),
+    ...STYLES.map((style) => style.name.split(' ')[0]),
+  ];
   const words = Array.from({ length: random() < 0.5 ? 1 : 2 }, () => pick(random, vocabulary).toLowerCase());
   const abvMin = between(random, 3, 6, 1);
   const filters: Array<() => RecipeSearchQueryInput> = [
@@ -189,14 +295,19 @@ async function loadDocuments(client: Meilisearch, docs: RecipeSearchDocument[]):
   await client.createIndex(RECIPES_INDEX, { primaryKey: 'id' }).waitTask();
   await index.updateSettings(RECIPE_INDEX_SETTINGS).waitTask();
   const enqueued: EnqueuedTask[] = [];
-  for (let start = 0; start < docs.length; start += LOAD_BATCH) enqueued.push(await index.addDocuments(docs.slice(start, start + LOAD_BATCH)));
+  for (let start = 0; start < docs.length; start += LOAD_BATCH)
+    enqueued.push(await index.addDocuments(docs.slice(start, start + LOAD_BATCH)));
   const tasks = await client.tasks.waitForTasks(enqueued, { timeout: 120_000, interval: 20 });
   const failed = tasks.find((task) => task.status !== 'succeeded');
   if (failed) throw new Error(`loading failed: ${failed.error?.message}`);
   return performance.now() - started;
 }
 
-async function timeQueries(client: Meilisearch, count: number, random: Random): Promise<{ latencies: number[]; hits: number }> {
+async function timeQueries(
+  client: Meilisearch,
+  count: number,
+  random: Random,
+): Promise<{ latencies: number[]; hits: number }> {
   const index = client.index(RECIPES_INDEX);
   const latencies: number[] = [];
   let hits = 0;
@@ -221,7 +332,10 @@ const BENCH_USERS = 2_000;
 
 /** A fresh scratch database with the app's tables (scripts/db.sh starts the project's PostgreSQL if needed). */
 function scratchDatabaseUrl(): string {
-  const db = (...args: string[]) => execFileSync('bash', ['scripts/db.sh', ...args], { cwd: ROOT }).toString().trim();
+  const db = (...args: string[]) =>
+    execFileSync('bash', ['scripts/db.sh', ...args], { cwd: ROOT })
+      .toString()
+      .trim();
   db('start');
   db('drop', SCRATCH_DATABASE);
   db('create', SCRATCH_DATABASE);
@@ -234,8 +348,21 @@ function recipeDocumentFor(doc: RecipeSearchDocument) {
     title: doc.title,
     batch: { volumeL: 20, boilTimeMin: 60, efficiencyPct: 72 },
     style: { code: doc.styleCode, name: doc.styleName },
-    fermentables: doc.fermentables.map((name, i) => ({ name, amountKg: i === 0 ? 4 : 0.3, potentialPpg: 36, colorLovibond: 3 + i * 10, kind: 'grain' })),
-    hops: doc.hops.map((name, i) => ({ name, amountG: 25, alphaPct: 6, use: 'boil', timeMin: 60 - i * 15, form: 'pellet' })),
+    fermentables: doc.fermentables.map((name, i) => ({
+      name,
+      amountKg: i === 0 ? 4 : 0.3,
+      potentialPpg: 36,
+      colorLovibond: 3 + i * 10,
+      kind: 'grain',
+    })),
+    hops: doc.hops.map((name, i) => ({
+      name,
+      amountG: 25,
+      alphaPct: 6,
+      use: 'boil',
+      timeMin: 60 - i * 15,
+      form: 'pellet',
+    })),
     yeasts: doc.yeasts.map((name, i) => ({ name, kind: i === 0 ? 'ale' : 'lager', attenuationPct: 76 })),
     mash: { steps: [{ tempC: 66, timeMin: 60 }] },
     fermentation: { steps: [{ tempC: 18, days: 14 }] },
@@ -316,11 +443,22 @@ async function benchRebuild(docs: RecipeSearchDocument[]): Promise<{ count: numb
   const docsFile = `${dir}/docs.json`;
   writeFileSync(docsFile, JSON.stringify(docs));
   try {
-    const child = spawn(process.execPath, ['--conditions=react-server', '--import', 'tsx', fileURLToPath(import.meta.url), 'rebuild'], {
-      cwd: ROOT,
-      env: { ...process.env, DATABASE_URL: databaseUrl, MEILI_HOST: url, MEILI_KEY: '', KF_BENCH_DOCS_FILE: docsFile, NODE_ENV: 'production' },
-      stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
-    });
+    const child = spawn(
+      process.execPath,
+      ['--conditions=react-server', '--import', 'tsx', fileURLToPath(import.meta.url), 'rebuild'],
+      {
+        cwd: ROOT,
+        env: {
+          ...process.env,
+          DATABASE_URL: databaseUrl,
+          MEILI_HOST: url,
+          MEILI_KEY: '',
+          KF_BENCH_DOCS_FILE: docsFile,
+          NODE_ENV: 'production',
+        },
+        stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
+      },
+    );
     return await new Promise((resolve, reject) => {
       child.once('message', (message) => resolve(message as { count: number; ms: number; seedMs: number }));
       child.once('exit', (code) => reject(new Error(`rebuild child exited with code ${code} before reporting`)));
@@ -345,11 +483,30 @@ export async function benchSearch(): Promise<BenchRow[]> {
     const note = `${MEASURED_QUERIES} queries of 1–2 words + 2 filters + ${FACET_ATTRIBUTES.length} facets, viewer rule applied, mean ${round(hits / MEASURED_QUERIES, 0)} hits`;
     const rebuild = await benchRebuild(docs);
     return [
-      { area: 'search', metric: `index ${DOCUMENTS.toLocaleString('en')} recipes`, value: round(loadMs, 0), unit: 'ms', note: `batches of ${LOAD_BATCH} through the client` },
-      { area: 'search', metric: 'fake RSS after load', value: megabytes(memory.rss), unit: 'MB', target: { op: '<', value: 400 } },
+      {
+        area: 'search',
+        metric: `index ${DOCUMENTS.toLocaleString('en')} recipes`,
+        value: round(loadMs, 0),
+        unit: 'ms',
+        note: `batches of ${LOAD_BATCH} through the client`,
+      },
+      {
+        area: 'search',
+        metric: 'fake RSS after load',
+        value: megabytes(memory.rss),
+        unit: 'MB',
+        target: { op: '<', value: 400 },
+      },
       { area: 'search', metric: 'fake heap used after load', value: megabytes(memory.heapUsed), unit: 'MB' },
       { area: 'search', metric: 'query p50', value: round(percentile(sorted, 50), 2), unit: 'ms', note },
-      { area: 'search', metric: 'query p95', value: round(percentile(sorted, 95), 2), unit: 'ms', target: { op: '<', value: 25 }, note },
+      {
+        area: 'search',
+        metric: 'query p95',
+        value: round(percentile(sorted, 95), 2),
+        unit: 'ms',
+        target: { op: '<', value: 25 },
+        note,
+      },
       {
         area: 'search',
         metric: `rebuild index from PostgreSQL, ${rebuild.count.toLocaleString('en')} recipes`,
@@ -375,7 +532,16 @@ if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
     );
   } else {
     benchSearch().then(
-      (rows) => console.table(rows.map(({ area, metric, value, unit, target }) => ({ area, metric, value, unit, target: target ? `${target.op} ${target.value}` : '' }))),
+      (rows) =>
+        console.table(
+          rows.map(({ area, metric, value, unit, target }) => ({
+            area,
+            metric,
+            value,
+            unit,
+            target: target ? `${target.op} ${target.value}` : '',
+          })),
+        ),
       (error: unknown) => {
         console.error(error);
         process.exit(1);

@@ -52,7 +52,12 @@ export async function benchUploads(): Promise<BenchRow[]> {
       target: { op: '<', value: 1500 },
       note: `${WIDTH}×${HEIGHT}, ${sizeMb} MB; decode, 1600 px and 400 px resizes, two JPEG encodes; ${RUNS} runs`,
     },
-    { area: 'uploads', metric: 'processing time of a 12 MP JPEG, slowest', value: Math.round(Math.max(...times)), unit: 'ms' },
+    {
+      area: 'uploads',
+      metric: 'processing time of a 12 MP JPEG, slowest',
+      value: Math.round(Math.max(...times)),
+      unit: 'ms',
+    },
     {
       area: 'uploads',
       metric: 'peak memory while processing (RSS over the idle process)',

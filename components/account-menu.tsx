@@ -31,7 +31,9 @@ export function AccountMenu() {
       <MemberLinks role={viewer.role} />
       <span className="text-muted">
         Signed in as <strong className="text-ink">{viewer.name}</strong>
-        {viewer.role !== 'member' && <span className="ml-1 rounded bg-bine/15 px-1.5 py-0.5 text-xs text-bine">{viewer.role}</span>}
+        {viewer.role !== 'member' && (
+          <span className="ml-1 rounded bg-bine/15 px-1.5 py-0.5 text-xs text-bine">{viewer.role}</span>
+        )}
       </span>
       <SignOutButton />
     </div>

@@ -1,5 +1,11 @@
 import Link from 'next/link';
-import type { ChangeStatus, DocumentComparison, ItemComparison, SectionComparison, StatDelta } from '@/lib/recipes/compare';
+import type {
+  ChangeStatus,
+  DocumentComparison,
+  ItemComparison,
+  SectionComparison,
+  StatDelta,
+} from '@/lib/recipes/compare';
 
 const SECTION_TITLE: Record<SectionComparison['section'], string> = {
   settings: 'Batch and style',
@@ -20,7 +26,12 @@ const STATUS_STYLE: Record<ChangeStatus, string> = {
   same: 'border-l-4 border-transparent',
 };
 
-const STATUS_WORD: Record<ChangeStatus, string> = { added: 'added', removed: 'removed', changed: 'changed', same: 'same' };
+const STATUS_WORD: Record<ChangeStatus, string> = {
+  added: 'added',
+  removed: 'removed',
+  changed: 'changed',
+  same: 'same',
+};
 
 const STAT_LABEL: Record<string, { label: string; digits: number }> = {
   og: { label: 'OG', digits: 3 },
@@ -49,19 +60,25 @@ function Item({ item }: { item: ItemComparison }) {
   return (
     <li className={`rounded-sm px-3 py-2 ${STATUS_STYLE[item.status]}`}>
       <p className="font-semibold">
-        {item.label} <span className="ml-1 font-sans text-xs font-normal uppercase tracking-wide text-muted">{STATUS_WORD[item.status]}</span>
+        {item.label}{' '}
+        <span className="ml-1 font-sans text-xs font-normal uppercase tracking-wide text-muted">
+          {STATUS_WORD[item.status]}
+        </span>
       </p>
       {item.status === 'changed' && (
         <ul className="kf-data mt-1 text-sm">
           {item.changes.map((c) => (
             <li key={c.field}>
-              {c.field}: <del className="text-danger">{String(c.before ?? '—')}</del> → <ins className="text-bine no-underline">{String(c.after ?? '—')}</ins>
+              {c.field}: <del className="text-danger">{String(c.before ?? '—')}</del> →{' '}
+              <ins className="text-bine no-underline">{String(c.after ?? '—')}</ins>
             </li>
           ))}
         </ul>
       )}
       {(item.status === 'added' || item.status === 'removed') && (
-        <p className="kf-data mt-1 text-sm text-muted">{describe(item.status === 'added' ? item.after : item.before)}</p>
+        <p className="kf-data mt-1 text-sm text-muted">
+          {describe(item.status === 'added' ? item.after : item.before)}
+        </p>
       )}
     </li>
   );
@@ -93,7 +110,17 @@ export interface CompareSide {
 }
 
 /** Two versions side by side: what changed in the ingredients, every number with its delta, and the notes. */
-export function CompareView({ a, b, comparison, showUnchanged }: { a: CompareSide; b: CompareSide; comparison: DocumentComparison; showUnchanged: boolean }) {
+export function CompareView({
+  a,
+  b,
+  comparison,
+  showUnchanged,
+}: {
+  a: CompareSide;
+  b: CompareSide;
+  comparison: DocumentComparison;
+  showUnchanged: boolean;
+}) {
   const sides = [a, b];
   return (
     <div className="space-y-10">
@@ -118,10 +145,18 @@ export function CompareView({ a, b, comparison, showUnchanged }: { a: CompareSid
           <table className="kf-data w-full max-w-2xl border-collapse text-sm">
             <thead>
               <tr className="border-b border-line text-left text-muted">
-                <th scope="col" className="py-1.5 pr-3">Number</th>
-                <th scope="col" className="py-1.5 pr-3">Version {a.number}</th>
-                <th scope="col" className="py-1.5 pr-3">Version {b.number}</th>
-                <th scope="col" className="py-1.5">Change</th>
+                <th scope="col" className="py-1.5 pr-3">
+                  Number
+                </th>
+                <th scope="col" className="py-1.5 pr-3">
+                  Version {a.number}
+                </th>
+                <th scope="col" className="py-1.5 pr-3">
+                  Version {b.number}
+                </th>
+                <th scope="col" className="py-1.5">
+                  Change
+                </th>
               </tr>
             </thead>
             <tbody>
@@ -140,7 +175,9 @@ export function CompareView({ a, b, comparison, showUnchanged }: { a: CompareSid
           </span>
         </h2>
         <p className="mt-1 font-sans text-sm">
-          <span className="text-muted">{showUnchanged ? 'Showing every ingredient.' : 'Showing differences only.'}</span>
+          <span className="text-muted">
+            {showUnchanged ? 'Showing every ingredient.' : 'Showing differences only.'}
+          </span>
         </p>
         <div className="mt-4 grid gap-6 md:grid-cols-2">
           {comparison.sections.map((section) => {
@@ -157,7 +194,9 @@ export function CompareView({ a, b, comparison, showUnchanged }: { a: CompareSid
               </div>
             );
           })}
-          {comparison.changeCount === 0 && <p className="font-sans text-sm text-muted">The ingredients and schedules are the same.</p>}
+          {comparison.changeCount === 0 && (
+            <p className="font-sans text-sm text-muted">The ingredients and schedules are the same.</p>
+          )}
         </div>
       </section>
       <section aria-labelledby="notes-diff-heading">
@@ -165,7 +204,8 @@ export function CompareView({ a, b, comparison, showUnchanged }: { a: CompareSid
           Notes
         </h2>
         <p className="mt-1 font-sans text-xs text-muted">
-          <ins className="bg-bine/15 no-underline">Added words</ins> and <del className="bg-danger/10">removed words</del> are marked.
+          <ins className="bg-bine/15 no-underline">Added words</ins> and{' '}
+          <del className="bg-danger/10">removed words</del> are marked.
         </p>
         <p className="kf-card mt-3 whitespace-pre-wrap leading-relaxed">
           {comparison.notes.map((part, i) =>

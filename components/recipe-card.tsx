@@ -15,15 +15,21 @@ export function RecipeCard({ card }: { card: Card }) {
         <h3 className="text-lg font-semibold leading-snug">
           <Link href={`/recipes/${card.slug}`}>{card.title}</Link>
           {badge && <span className="ml-2 rounded bg-line px-1.5 py-0.5 font-sans text-xs font-normal">{badge}</span>}
-          {card.hidden && <span className="ml-2 rounded bg-danger/10 px-1.5 py-0.5 font-sans text-xs font-normal text-danger">hidden by moderators</span>}
+          {card.hidden && (
+            <span className="ml-2 rounded bg-danger/10 px-1.5 py-0.5 font-sans text-xs font-normal text-danger">
+              hidden by moderators
+            </span>
+          )}
         </h3>
         <p className="font-sans text-sm text-muted">
           by <Link href={`/members/${card.ownerHandle}`}>{card.ownerName}</Link>
-          {card.styleName && <> · {card.styleName}</>} · updated {formatDistanceToNow(card.updatedAt, { addSuffix: true })}
+          {card.styleName && <> · {card.styleName}</>} · updated{' '}
+          {formatDistanceToNow(card.updatedAt, { addSuffix: true })}
         </p>
         <p className="kf-data mt-1 text-sm">{statsLine(card)}</p>
         <p className="mt-1 font-sans text-xs text-muted">
-          {card.headNumber} version{card.headNumber === 1 ? '' : 's'} · {card.forkCount} fork{card.forkCount === 1 ? '' : 's'} · {card.starCount} star
+          {card.headNumber} version{card.headNumber === 1 ? '' : 's'} · {card.forkCount} fork
+          {card.forkCount === 1 ? '' : 's'} · {card.starCount} star
           {card.starCount === 1 ? '' : 's'}
         </p>
       </div>

@@ -31,7 +31,15 @@ const cell = 'py-1.5 pr-3 align-top';
  * The ingredients and schedules of one recipe version, read-only, in the reader's units. The notes
  * come rendered from the caller (members' Markdown), so this view stays light in the browser.
  */
-export function RecipeDocumentView({ doc, units, notes }: { doc: RecipeDocument; units: UnitSystem; notes: ReactNode }) {
+export function RecipeDocumentView({
+  doc,
+  units,
+  notes,
+}: {
+  doc: RecipeDocument;
+  units: UnitSystem;
+  notes: ReactNode;
+}) {
   const totalKg = doc.fermentables.reduce((n, f) => n + f.amountKg, 0);
   return (
     <div className="space-y-8">
@@ -65,7 +73,9 @@ export function RecipeDocumentView({ doc, units, notes }: { doc: RecipeDocument;
                 {HOP_USE_LABEL[h.use]}
                 {h.use === 'whirlpool' && h.tempC !== undefined && ` at ${formatAmount(h.tempC, 'temperature', units)}`}
               </td>
-              <td className={cell}>{h.use === 'dry_hop' ? `${+(h.timeMin / 1440).toFixed(1)} days` : `${h.timeMin} min`}</td>
+              <td className={cell}>
+                {h.use === 'dry_hop' ? `${+(h.timeMin / 1440).toFixed(1)} days` : `${h.timeMin} min`}
+              </td>
               <td className={cell}>{h.form}</td>
             </tr>
           ))}

@@ -6,7 +6,10 @@ import { SiteHeader } from './site-header';
 export function SiteChrome({ children }: { children: ReactNode }) {
   return (
     <>
-      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:bg-card focus:p-2">
+      <a
+        href="#main"
+        className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:bg-card focus:p-2"
+      >
         Skip to content
       </a>
       <SiteHeader />

@@ -136,9 +136,7 @@ function WaterBlock({ water, units }: { water: NonNullable<RecipeStats['water']>
   const unit = DISPLAY_UNITS[units].concentration;
   return (
     <section className="mt-6">
-      <h3 className="text-base font-semibold">
-        Water after salts
-      </h3>
+      <h3 className="text-base font-semibold">Water after salts</h3>
       <dl className="kf-data mt-2 grid grid-cols-2 gap-x-4 gap-y-1 text-sm @md:grid-cols-3">
         {ION_NAMES.map((ion) => (
           <div key={ion} className="flex justify-between gap-2 border-b border-line/60 py-0.5">
@@ -152,7 +150,9 @@ function WaterBlock({ water, units }: { water: NonNullable<RecipeStats['water']>
       <dl className="kf-data mt-3 space-y-1 text-sm">
         <div className="flex flex-wrap justify-between gap-2">
           <dt>Sulfate to chloride ratio</dt>
-          <dd className="font-semibold">{Number.isFinite(water.sulfateToChloride) ? fixed(water.sulfateToChloride, 2) : 'no chloride'}</dd>
+          <dd className="font-semibold">
+            {Number.isFinite(water.sulfateToChloride) ? fixed(water.sulfateToChloride, 2) : 'no chloride'}
+          </dd>
         </div>
         <div className="flex flex-wrap justify-between gap-2">
           <dt>Residual alkalinity</dt>
@@ -164,18 +164,22 @@ function WaterBlock({ water, units }: { water: NonNullable<RecipeStats['water']>
   );
 }
 
-function CarbonationBlock({ carbonation, units }: { carbonation: NonNullable<RecipeStats['carbonation']>; units: UnitSystem }) {
+function CarbonationBlock({
+  carbonation,
+  units,
+}: {
+  carbonation: NonNullable<RecipeStats['carbonation']>;
+  units: UnitSystem;
+}) {
   const pressure =
     units === 'us' ? `${fixed(carbonation.kegPressurePsi, 1)} psi` : `${fixed(carbonation.kegPressureKPa, 0)} kPa`;
   const high = carbonation.kegPressureKPa > HIGH_KEG_PRESSURE_KPA;
   return (
     <section className="mt-6">
-      <h3 className="text-base font-semibold">
-        Carbonation
-      </h3>
+      <h3 className="text-base font-semibold">Carbonation</h3>
       <p className="kf-data mt-2 text-sm">
-        {fixed(carbonation.volumesCO2, 1)} volumes CO₂ served at {formatTemperature(carbonation.servingTempC, units)}: set the
-        keg to about <strong className="font-semibold">{pressure}</strong>.
+        {fixed(carbonation.volumesCO2, 1)} volumes CO₂ served at {formatTemperature(carbonation.servingTempC, units)}:
+        set the keg to about <strong className="font-semibold">{pressure}</strong>.
       </p>
       {high && (
         <p className="mt-1 font-sans text-sm font-semibold text-caution">
@@ -220,7 +224,10 @@ function RangeBar({ vital, fit }: { vital: StyleVital; fit: RangeFit | null }) {
       </div>
       <div className="relative mt-1 h-3" aria-hidden="true">
         <div className="absolute inset-x-0 top-1 h-1 rounded bg-line" />
-        <div className="absolute top-0 h-3 rounded bg-bine/40" style={{ left: `${bandLeft}%`, width: `${bandWidth}%` }} />
+        <div
+          className="absolute top-0 h-3 rounded bg-bine/40"
+          style={{ left: `${bandLeft}%`, width: `${bandWidth}%` }}
+        />
         <div
           className={`absolute -top-0.5 h-4 w-1 -translate-x-1/2 rounded ${inside ? 'bg-ink' : 'bg-caution'}`}
           style={{ left: `${marker}%` }}
@@ -296,16 +303,10 @@ export function StatsPanel({ stats, units, styleCode, compact = false }: StatsPa
           extra={`${fixed(stats.ebc, 0)} EBC`}
           link={<HowComputed anchor="colour" about="colour" />}
         />
-        <Figure
-          term="Calories"
-          value={fixed(stats.caloriesPer355mL, 0)}
-          extra="kcal per 355 mL (12 US fl oz)"
-        />
+        <Figure term="Calories" value={fixed(stats.caloriesPer355mL, 0)} extra="kcal per 355 mL (12 US fl oz)" />
       </dl>
       <section className="mt-6">
-        <h3 className="text-base font-semibold">
-          Bitterness by hop
-        </h3>
+        <h3 className="text-base font-semibold">Bitterness by hop</h3>
         <HopBitterness hops={stats.hops} />
       </section>
       {stats.water && <WaterBlock water={stats.water} units={units} />}

@@ -210,7 +210,10 @@ export const moderationActions = pgTable(
     details: jsonb('details').notNull().default({}),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index('moderation_actions_created_idx').on(t.createdAt), index('moderation_actions_target_idx').on(t.targetType, t.targetId)],
+  (t) => [
+    index('moderation_actions_created_idx').on(t.createdAt),
+    index('moderation_actions_target_idx').on(t.targetType, t.targetId),
+  ],
 );
 export type ModerationAction = typeof moderationActions.$inferSelect;
 

@@ -22,17 +22,32 @@ async function seedPeople(): Promise<Map<string, Viewer>> {
       .onConflictDoNothing({ target: users.handle });
   }
   const rows = await db.select().from(users);
-  return new Map(rows.map((u) => [u.handle, { id: u.id, name: u.name ?? u.handle, email: u.email, handle: u.handle, role: u.role, units: u.units }]));
+  return new Map(
+    rows.map((u) => [
+      u.handle,
+      { id: u.id, name: u.name ?? u.handle, email: u.email, handle: u.handle, role: u.role, units: u.units },
+    ]),
+  );
 }
 
-async function saveChain(viewer: Viewer, recipeId: string, first: { id: string }, start: RecipeDocumentInput, steps: { message: string; change: (d: RecipeDocumentInput) => void }[]) {
+async function saveChain(
+  viewer: Viewer,
+  recipeId: string,
+  first: { id: string },
+  start: RecipeDocumentInput,
+  steps: { message: string; change: (d: RecipeDocumentInput) => void }[],
+) {
   let doc = structuredClone(start);
   let base = first.id;
   const numbers = new Map<number, string>([[1, first.id]]);
   for (const step of steps) {
     doc = structuredClone(doc);
     step.change(doc);
-    const saved = await saveVersion(viewer, recipeId, { document: recipeDocumentSchema.parse(doc), baseVersionId: base, message: step.message });
+    const saved = await saveVersion(viewer, recipeId, {
+      document: recipeDocumentSchema.parse(doc),
+      baseVersionId: base,
+      message: step.message,
+    });
     base = saved.version.id;
     numbers.set(saved.version.number, saved.version.id);
   }
@@ -45,13 +60,21 @@ async function seedRecipes(people: Map<string, Viewer>): Promise<Map<string, str
     if (!v) throw new Error(`no demo member ${handle}`);
     return v;
   };
-  const [{ n }] = (await db.execute(sql`select count(*)::int as n from recipes r join users u on u.id = r.owner_id where u.email like '%@kettlefork.test' and u.handle = 'wren'`)).rows as { n: number }[];
+  const [{ n }] = (
+    await db.execute(
+      sql`select count(*)::int as n from recipes r join users u on u.id = r.owner_id where u.email like '%@kettlefork.test' and u.handle = 'wren'`,
+    )
+  ).rows as { n: number }[];
   if (n > 0) return null;
   const ids = new Map<string, string>();
   for (const r of demoRecipes) {
     const viewer = owner(r.owner);
     const doc = recipeDocumentSchema.parse(r.document);
-    const created = await createRecipe(viewer, { document: doc, visibility: r.visibility ?? 'public', message: 'First brew' });
+    const created = await createRecipe(viewer, {
+      document: doc,
+      visibility: r.visibility ?? 'public',
+      message: 'First brew',
+    });
     await saveChain(viewer, created.recipe.id, created.version, r.document, r.versions ?? []);
     ids.set(r.key, created.recipe.id);
   }

@@ -30,14 +30,23 @@ export class RecipeSearchError extends Error {
 export async function fetchRecipeSearch(queryString: string, signal?: AbortSignal): Promise<RecipeSearchData> {
   let res: Response;
   try {
-    res = await fetch(`/api/search${queryString ? `?${queryString}` : ''}`, { signal, headers: { accept: 'application/json' } });
+    res = await fetch(`/api/search${queryString ? `?${queryString}` : ''}`, {
+      signal,
+      headers: { accept: 'application/json' },
+    });
   } catch (err) {
     if (signal?.aborted) throw err;
     throw new RecipeSearchError(0, 'network', 'Kettlefork could not be reached. Check your connection and try again.');
   }
-  const body = (await res.json().catch(() => null)) as (RecipeSearchData & { error?: { code: string; message: string; fields?: RecipeSearchError['fields'] } }) | null;
+  const body = (await res.json().catch(() => null)) as
+    (RecipeSearchData & { error?: { code: string; message: string; fields?: RecipeSearchError['fields'] } }) | null;
   if (!res.ok || !body) {
-    throw new RecipeSearchError(res.status, body?.error?.code ?? 'internal', body?.error?.message ?? 'The search did not work this time.', body?.error?.fields);
+    throw new RecipeSearchError(
+      res.status,
+      body?.error?.code ?? 'internal',
+      body?.error?.message ?? 'The search did not work this time.',
+      body?.error?.fields,
+    );
   }
   return body;
 }

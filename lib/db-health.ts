@@ -2,7 +2,10 @@ import { Pool } from 'pg';
 
 const CHECK_EVERY_MS = 250;
 
-const globalForHealth = globalThis as unknown as { kfHealthPool?: Pool; kfHealth?: { at: number; ok: boolean; pending?: Promise<boolean> } };
+const globalForHealth = globalThis as unknown as {
+  kfHealthPool?: Pool;
+  kfHealth?: { at: number; ok: boolean; pending?: Promise<boolean> };
+};
 
 function healthPool(): Pool {
   globalForHealth.kfHealthPool ??= new Pool({

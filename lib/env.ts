@@ -41,8 +41,11 @@ export function env(): Env {
 export function authSecret(): string {
   const { NEXTAUTH_SECRET, NODE_ENV } = env();
   if (NEXTAUTH_SECRET) return NEXTAUTH_SECRET;
-  if (NODE_ENV === 'production') throw new Error('Invalid environment variables:\n  NEXTAUTH_SECRET: required in production');
+  if (NODE_ENV === 'production')
+    throw new Error('Invalid environment variables:\n  NEXTAUTH_SECRET: required in production');
   const g = globalThis as { __kfLocalSecret?: string };
-  g.__kfLocalSecret ??= Array.from(crypto.getRandomValues(new Uint8Array(32)), (b) => b.toString(16).padStart(2, '0')).join('');
+  g.__kfLocalSecret ??= Array.from(crypto.getRandomValues(new Uint8Array(32)), (b) =>
+    b.toString(16).padStart(2, '0'),
+  ).join('');
   return g.__kfLocalSecret;
 }

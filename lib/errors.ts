@@ -64,5 +64,10 @@ export function invalidInput(error: z.ZodError, subject = 'request'): AppError {
     .slice(0, 3)
     .map((f) => `${f.path}: ${f.message}`)
     .join('; ');
-  return new AppError('bad_request', subject, `Please check these fields: ${summary}${fields.length > 3 ? ' …' : ''}`, fields);
+  return new AppError(
+    'bad_request',
+    subject,
+    `Please check these fields: ${summary}${fields.length > 3 ? ' …' : ''}`,
+    fields,
+  );
 }

@@ -1,6 +1,17 @@
 import { DISPLAY_UNITS, toDisplayUnits, type Quantity, type UnitSystem } from '@/lib/brewing/units';
 
-const UNIT_LABEL: Record<string, string> = { kg: 'kg', g: 'g', l: 'L', lb: 'lb', oz: 'oz', gal: 'gal', C: '°C', F: '°F', kPa: 'kPa', psi: 'psi' };
+const UNIT_LABEL: Record<string, string> = {
+  kg: 'kg',
+  g: 'g',
+  l: 'L',
+  lb: 'lb',
+  oz: 'oz',
+  gal: 'gal',
+  C: '°C',
+  F: '°F',
+  kPa: 'kPa',
+  psi: 'psi',
+};
 
 /** A stored metric amount in the reader's units, with its unit label. */
 export function formatAmount(value: number, quantity: Quantity, units: UnitSystem, decimals = 2): string {
@@ -21,5 +32,17 @@ export function statsLine(s: { og: number; fg: number; abv: number; ibu: number 
   return `OG ${formatGravity(s.og)} · FG ${formatGravity(s.fg)} · ${s.abv.toFixed(1)}% ABV · ${Math.round(s.ibu)} IBU`;
 }
 
-export const HOP_USE_LABEL = { mash: 'mash', first_wort: 'first wort', boil: 'boil', whirlpool: 'whirlpool', dry_hop: 'dry hop' } as const;
-export const SALT_LABEL = { gypsum: 'Gypsum', epsom: 'Epsom salt', table_salt: 'Table salt', calcium_chloride: 'Calcium chloride', baking_soda: 'Baking soda' } as const;
+export const HOP_USE_LABEL = {
+  mash: 'mash',
+  first_wort: 'first wort',
+  boil: 'boil',
+  whirlpool: 'whirlpool',
+  dry_hop: 'dry hop',
+} as const;
+export const SALT_LABEL = {
+  gypsum: 'Gypsum',
+  epsom: 'Epsom salt',
+  table_salt: 'Table salt',
+  calcium_chloride: 'Calcium chloride',
+  baking_soda: 'Baking soda',
+} as const;

@@ -15,7 +15,13 @@ const directory = process.env.S3_FAKE_DIR ?? '.data/s3';
 const bucket = process.env.S3_BUCKET ?? 'kettlefork-photos';
 mkdirSync(directory, { recursive: true });
 
-const server = new S3rver({ port, address: '127.0.0.1', directory, silent: true, configureBuckets: [{ name: bucket, configs: [] }] });
+const server = new S3rver({
+  port,
+  address: '127.0.0.1',
+  directory,
+  silent: true,
+  configureBuckets: [{ name: bucket, configs: [] }],
+});
 await server.run();
 console.log(`S3 fake listening on http://127.0.0.1:${port}, bucket ${bucket}, objects in ${directory}`);
 

@@ -16,7 +16,11 @@ function portFromEnv(): number {
 }
 
 async function main(): Promise<void> {
-  const server = await createFakeSearchServer({ port: portFromEnv(), host: '127.0.0.1', apiKey: process.env.MEILI_FAKE_KEY || undefined });
+  const server = await createFakeSearchServer({
+    port: portFromEnv(),
+    host: '127.0.0.1',
+    apiKey: process.env.MEILI_FAKE_KEY || undefined,
+  });
   console.log(`search fake listening on ${server.url}`);
 
   const stop = () => {

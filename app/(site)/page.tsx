@@ -24,10 +24,12 @@ export default function HomePage() {
     <div>
       <section className="grid gap-8 md:grid-cols-[3fr_2fr] md:items-center">
         <div>
-          <h1 className="text-4xl font-semibold leading-tight md:text-5xl">Homebrew recipes that remember every change.</h1>
+          <h1 className="text-4xl font-semibold leading-tight md:text-5xl">
+            Homebrew recipes that remember every change.
+          </h1>
           <p className="mt-4 text-lg text-muted">
-            Kettlefork is where homebrewers publish recipes as versioned records, fork each other’s, log their brew days and
-            find recipes by style, hop, malt or yeast.
+            Kettlefork is where homebrewers publish recipes as versioned records, fork each other’s, log their brew days
+            and find recipes by style, hop, malt or yeast.
           </p>
           <div className="mt-6 flex flex-wrap gap-3">
             <Link href="/sign-up" className="kf-btn">

@@ -115,7 +115,13 @@ function GravityField({
             control={control}
             name={`${name}.method` as Path<FormInput>}
             render={({ field }) => (
-              <select id={`${id}-method`} className="kf-input" value={String(field.value ?? 'hydrometer')} onChange={field.onChange} onBlur={field.onBlur}>
+              <select
+                id={`${id}-method`}
+                className="kf-input"
+                value={String(field.value ?? 'hydrometer')}
+                onChange={field.onChange}
+                onBlur={field.onBlur}
+              >
                 <option value="hydrometer">Hydrometer (SG)</option>
                 <option value="refractometer">Refractometer (°Brix)</option>
               </select>
@@ -212,7 +218,14 @@ export function BrewDayForm({ units, mode, defaults }: BrewDayFormProps) {
           <label htmlFor={id('brewedOn')} className="kf-label">
             Brew date
           </label>
-          <input id={id('brewedOn')} type="date" className="kf-input" {...register('brewedOn')} aria-invalid={Boolean(errors.brewedOn) || undefined} aria-describedby={describedBy(id('brewedOn'), errors.brewedOn?.message)} />
+          <input
+            id={id('brewedOn')}
+            type="date"
+            className="kf-input"
+            {...register('brewedOn')}
+            aria-invalid={Boolean(errors.brewedOn) || undefined}
+            aria-describedby={describedBy(id('brewedOn'), errors.brewedOn?.message)}
+          />
           {errors.brewedOn && (
             <p id={`${id('brewedOn')}-error`} role="alert" className="kf-field-error">
               {errors.brewedOn.message}
@@ -235,7 +248,13 @@ export function BrewDayForm({ units, mode, defaults }: BrewDayFormProps) {
         <h2 className="text-lg font-semibold">Boil</h2>
         <div className="grid gap-3 sm:grid-cols-2">
           <NumberField control={control} name="preBoilVolumeL" label="Pre-boil volume" unit={volume} errors={errors} />
-          <NumberField control={control} name="postBoilVolumeL" label="Post-boil volume" unit={volume} errors={errors} />
+          <NumberField
+            control={control}
+            name="postBoilVolumeL"
+            label="Post-boil volume"
+            unit={volume}
+            errors={errors}
+          />
         </div>
         <GravityField control={control} name="preBoilGravity" label="Pre-boil gravity" units={units} errors={errors} />
         <Caution>{CAUTIONS.boil}</Caution>
@@ -244,7 +263,14 @@ export function BrewDayForm({ units, mode, defaults }: BrewDayFormProps) {
       <section className="kf-card space-y-3">
         <h2 className="text-lg font-semibold">Into the fermenter</h2>
         <div className="grid gap-3 sm:grid-cols-2">
-          <NumberField control={control} name="fermenterVolumeL" label="Volume into the fermenter" unit={volume} errors={errors} hint="Used for the efficiency figure." />
+          <NumberField
+            control={control}
+            name="fermenterVolumeL"
+            label="Volume into the fermenter"
+            unit={volume}
+            errors={errors}
+            hint="Used for the efficiency figure."
+          />
           <NumberField control={control} name="pitchTempC" label="Pitching temperature" unit={temp} errors={errors} />
         </div>
         <GravityField control={control} name="og" label="Original gravity (OG)" units={units} errors={errors} />
@@ -259,7 +285,14 @@ export function BrewDayForm({ units, mode, defaults }: BrewDayFormProps) {
             <label htmlFor={id('packagedOn')} className="kf-label">
               Packaging date
             </label>
-            <input id={id('packagedOn')} type="date" className="kf-input" {...register('packagedOn')} aria-invalid={Boolean(errors.packagedOn) || undefined} aria-describedby={describedBy(id('packagedOn'), errors.packagedOn?.message)} />
+            <input
+              id={id('packagedOn')}
+              type="date"
+              className="kf-input"
+              {...register('packagedOn')}
+              aria-invalid={Boolean(errors.packagedOn) || undefined}
+              aria-describedby={describedBy(id('packagedOn'), errors.packagedOn?.message)}
+            />
             {errors.packagedOn && (
               <p id={`${id('packagedOn')}-error`} role="alert" className="kf-field-error">
                 {errors.packagedOn.message}
@@ -286,11 +319,20 @@ export function BrewDayForm({ units, mode, defaults }: BrewDayFormProps) {
               hint={`A typical keg is rated about ${TYPICAL_KEG_RATING_KPA} kPa (30 psi); check your keg's own rating.`}
             />
           )}
-          {packaging === 'bottles' && <NumberField control={control} name="primingSugarG" label="Priming sugar" unit={fieldUnit('hopMass', units)} errors={errors} />}
+          {packaging === 'bottles' && (
+            <NumberField
+              control={control}
+              name="primingSugarG"
+              label="Priming sugar"
+              unit={fieldUnit('hopMass', units)}
+              errors={errors}
+            />
+          )}
         </div>
         {packaging === 'keg' && typeof kegPressure === 'number' && kegPressure > TYPICAL_KEG_RATING_KPA && (
           <p role="alert" className="rounded-md border border-danger/40 bg-danger/5 p-2 font-sans text-sm text-danger">
-            That is above a typical keg rating of {TYPICAL_KEG_RATING_KPA} kPa (30 psi), by common practice. Stay within your keg maker&apos;s stated limits and local codes.
+            That is above a typical keg rating of {TYPICAL_KEG_RATING_KPA} kPa (30 psi), by common practice. Stay within
+            your keg maker&apos;s stated limits and local codes.
           </p>
         )}
         <Caution>{packaging === 'bottles' ? CAUTIONS.bottles : CAUTIONS.pressure}</Caution>
@@ -301,7 +343,13 @@ export function BrewDayForm({ units, mode, defaults }: BrewDayFormProps) {
         <label htmlFor={id('notes')} className="kf-label mt-2">
           What happened (Markdown)
         </label>
-        <textarea id={id('notes')} rows={6} className="kf-input" {...register('notes')} aria-invalid={Boolean(errors.notes) || undefined} />
+        <textarea
+          id={id('notes')}
+          rows={6}
+          className="kf-input"
+          {...register('notes')}
+          aria-invalid={Boolean(errors.notes) || undefined}
+        />
         {errors.notes && (
           <p role="alert" className="kf-field-error">
             {errors.notes.message}

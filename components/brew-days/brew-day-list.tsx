@@ -11,7 +11,8 @@ export function BrewDayList({ days, show }: { days: BrewDaySummary[]; show: 'rec
         <li key={d.id} className="kf-card flex flex-wrap items-start justify-between gap-3">
           <div className="min-w-0">
             <Link href={`/brew-days/${d.id}`} className="font-semibold">
-              {show === 'recipe' ? `${d.brewerName}’s brew` : d.recipeTitle} on {format(parseISO(d.brewedOn), 'd MMM yyyy')}
+              {show === 'recipe' ? `${d.brewerName}’s brew` : d.recipeTitle} on{' '}
+              {format(parseISO(d.brewedOn), 'd MMM yyyy')}
             </Link>
             <p className="font-sans text-sm text-muted">
               Version {d.versionNumber} brewed
@@ -20,7 +21,8 @@ export function BrewDayList({ days, show }: { days: BrewDaySummary[]; show: 'rec
               {d.averageRating !== null && (
                 <>
                   {' '}
-                  · rated {d.averageRating.toFixed(1)} of 5 ({d.tastingCount} {d.tastingCount === 1 ? 'tasting' : 'tastings'})
+                  · rated {d.averageRating.toFixed(1)} of 5 ({d.tastingCount}{' '}
+                  {d.tastingCount === 1 ? 'tasting' : 'tastings'})
                 </>
               )}
             </p>
@@ -29,7 +31,13 @@ export function BrewDayList({ days, show }: { days: BrewDaySummary[]; show: 'rec
             <div className="flex gap-2">
               {d.photoIds.map((id, i) => (
                 // eslint-disable-next-line @next/next/no-img-element -- served by our own access-checked route
-                <img key={id} src={`/api/photos/${id}/thumb`} alt={`Photo ${i + 1} of this brew day`} className="h-14 w-14 rounded object-cover" loading="lazy" />
+                <img
+                  key={id}
+                  src={`/api/photos/${id}/thumb`}
+                  alt={`Photo ${i + 1} of this brew day`}
+                  className="h-14 w-14 rounded object-cover"
+                  loading="lazy"
+                />
               ))}
             </div>
           )}

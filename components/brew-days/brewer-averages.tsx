@@ -1,6 +1,13 @@
 import type { BrewerAverages } from '@/lib/brew-days/brew-days';
 
-const YEAST_WORDS: Record<string, string> = { ale: 'Ale yeast', lager: 'Lager yeast', kveik: 'Kveik', wheat: 'Wheat-beer yeast', wild: 'Wild yeast', other: 'Other yeast' };
+const YEAST_WORDS: Record<string, string> = {
+  ale: 'Ale yeast',
+  lager: 'Lager yeast',
+  kveik: 'Kveik',
+  wheat: 'Wheat-beer yeast',
+  wild: 'Wild yeast',
+  other: 'Other yeast',
+};
 
 /** A brewer's measured system: mean brewhouse efficiency and apparent attenuation per yeast kind. */
 export function BrewerAveragesPanel({ averages }: { averages: BrewerAverages }) {
@@ -10,14 +17,17 @@ export function BrewerAveragesPanel({ averages }: { averages: BrewerAverages }) 
         Your system, measured
       </h2>
       {!averages.efficiency && averages.attenuationByYeastKind.length === 0 ? (
-        <p className="mt-1 font-sans text-sm text-muted">Record an OG (and later an FG) on your brew days to see your own efficiency and attenuation here.</p>
+        <p className="mt-1 font-sans text-sm text-muted">
+          Record an OG (and later an FG) on your brew days to see your own efficiency and attenuation here.
+        </p>
       ) : (
         <dl className="mt-2 grid gap-x-6 gap-y-1 font-sans text-sm sm:grid-cols-2">
           {averages.efficiency && (
             <>
               <dt className="text-muted">Brewhouse efficiency</dt>
               <dd className="kf-data">
-                {averages.efficiency.meanPct.toFixed(1)}% <span className="text-muted">over {averages.efficiency.count} brews</span>
+                {averages.efficiency.meanPct.toFixed(1)}%{' '}
+                <span className="text-muted">over {averages.efficiency.count} brews</span>
               </dd>
             </>
           )}

@@ -12,11 +12,15 @@ export function Caution({ children }: { children: ReactNode }) {
 }
 
 export const CAUTIONS = {
-  hotLiquor: 'Strike water and boiling wort scald. Lift and pour hot liquid with two hands and a clear path; keep children and pets away.',
+  hotLiquor:
+    'Strike water and boiling wort scald. Lift and pour hot liquid with two hands and a clear path; keep children and pets away.',
   boil: 'A boil-over or a tipped kettle causes bad burns, and gas burners need fresh air: watch the kettle and brew outdoors or with ventilation.',
-  glass: 'Glass carboys break when knocked or wet and slippery; carry them in a crate or with a carrier, never by the neck.',
-  chemicals: 'Cleaning and sanitising chemicals burn skin and eyes: wear gloves and eye protection, and never mix chlorine cleaners with acids.',
+  glass:
+    'Glass carboys break when knocked or wet and slippery; carry them in a crate or with a carrier, never by the neck.',
+  chemicals:
+    'Cleaning and sanitising chemicals burn skin and eyes: wear gloves and eye protection, and never mix chlorine cleaners with acids.',
   pressure:
     'Kegs, pressure fermenters and CO2 cylinders hold stored energy: use a regulator with a pressure relief valve, check seals, and release pressure before opening. CO2 displaces air, so vent enclosed spaces.',
-  bottles: 'Over-primed or under-fermented bottles can burst: measure the sugar, bottle only at a stable final gravity, and store bottles covered.',
+  bottles:
+    'Over-primed or under-fermented bottles can burst: measure the sugar, bottle only at a stable final gravity, and store bottles covered.',
 } as const;

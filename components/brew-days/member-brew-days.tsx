@@ -16,7 +16,11 @@ export async function MemberBrewDays({ memberId, viewer }: { memberId: string; v
           <Link href="/brew-days">Your brew days and your measured efficiency and attenuation</Link>
         </p>
       )}
-      {days.length === 0 ? <p className="mt-2 text-muted">No brew days logged yet.</p> : <BrewDayList days={days} show="brewer" />}
+      {days.length === 0 ? (
+        <p className="mt-2 text-muted">No brew days logged yet.</p>
+      ) : (
+        <BrewDayList days={days} show="brewer" />
+      )}
     </section>
   );
 }

@@ -46,9 +46,19 @@ export function PhotoGallery({ photos, canDelete }: { photos: GalleryPhoto[]; ca
       <ul className="grid grid-cols-2 gap-3 sm:grid-cols-3 md:grid-cols-4" aria-label="Photos">
         {photos.map((photo, i) => (
           <li key={photo.id}>
-            <button type="button" className="block w-full overflow-hidden rounded-md border border-line" onClick={() => show(photo)} aria-label={`Open photo ${i + 1}${photo.caption ? `: ${photo.caption}` : ''}`}>
+            <button
+              type="button"
+              className="block w-full overflow-hidden rounded-md border border-line"
+              onClick={() => show(photo)}
+              aria-label={`Open photo ${i + 1}${photo.caption ? `: ${photo.caption}` : ''}`}
+            >
               {/* eslint-disable-next-line @next/next/no-img-element -- served by our own access-checked route */}
-              <img src={`/api/photos/${photo.id}/thumb`} alt={photo.caption || `Brew day photo ${i + 1}`} className="aspect-square w-full object-cover" loading="lazy" />
+              <img
+                src={`/api/photos/${photo.id}/thumb`}
+                alt={photo.caption || `Brew day photo ${i + 1}`}
+                className="aspect-square w-full object-cover"
+                loading="lazy"
+              />
             </button>
             {photo.caption && <p className="mt-1 truncate font-sans text-xs text-muted">{photo.caption}</p>}
           </li>
@@ -71,7 +81,12 @@ export function PhotoGallery({ photos, canDelete }: { photos: GalleryPhoto[]; ca
               </h2>
               <div className="flex gap-2">
                 {canDelete && (
-                  <button type="button" className="kf-btn-quiet text-danger" onClick={() => remove(open)} disabled={deleting}>
+                  <button
+                    type="button"
+                    className="kf-btn-quiet text-danger"
+                    onClick={() => remove(open)}
+                    disabled={deleting}
+                  >
                     {deleting ? 'Deleting…' : 'Delete photo'}
                   </button>
                 )}
@@ -81,7 +96,13 @@ export function PhotoGallery({ photos, canDelete }: { photos: GalleryPhoto[]; ca
               </div>
             </div>
             {/* eslint-disable-next-line @next/next/no-img-element -- served by our own access-checked route */}
-            <img src={`/api/photos/${open.id}/display`} alt={open.caption || 'Brew day photo, larger'} width={open.width} height={open.height} className="max-h-[80vh] w-auto max-w-full" />
+            <img
+              src={`/api/photos/${open.id}/display`}
+              alt={open.caption || 'Brew day photo, larger'}
+              width={open.width}
+              height={open.height}
+              className="max-h-[80vh] w-auto max-w-full"
+            />
           </figure>
         )}
       </dialog>

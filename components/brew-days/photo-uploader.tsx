@@ -4,7 +4,11 @@ import { useRouter } from 'next/navigation';
 import { useRef, useState } from 'react';
 import { toast } from 'sonner';
 
-type State = { kind: 'idle' } | { kind: 'uploading'; percent: number } | { kind: 'processing' } | { kind: 'error'; message: string };
+type State =
+  | { kind: 'idle' }
+  | { kind: 'uploading'; percent: number }
+  | { kind: 'processing' }
+  | { kind: 'error'; message: string };
 
 /**
  * The brewer uploads a photo. XMLHttpRequest rather than fetch, because only it reports upload
@@ -70,15 +74,31 @@ export function PhotoUploader({ brewDayId, maxMb }: { brewDayId: string; maxMb: 
       <h3 id="photo-upload-title" className="font-semibold">
         Add a photo
       </h3>
-      <p className="font-sans text-xs text-muted">JPEG, PNG or WebP up to {maxMb} MB. We store a resized copy without the camera&apos;s metadata or location.</p>
+      <p className="font-sans text-xs text-muted">
+        JPEG, PNG or WebP up to {maxMb} MB. We store a resized copy without the camera&apos;s metadata or location.
+      </p>
       <label htmlFor="photo-file" className="kf-label mt-2">
         Photo
       </label>
-      <input id="photo-file" ref={fileRef} type="file" accept="image/jpeg,image/png,image/webp" className="kf-input" disabled={busy} />
+      <input
+        id="photo-file"
+        ref={fileRef}
+        type="file"
+        accept="image/jpeg,image/png,image/webp"
+        className="kf-input"
+        disabled={busy}
+      />
       <label htmlFor="photo-caption" className="kf-label mt-2">
         Caption (optional)
       </label>
-      <input id="photo-caption" className="kf-input" maxLength={200} value={caption} onChange={(e) => setCaption(e.target.value)} disabled={busy} />
+      <input
+        id="photo-caption"
+        className="kf-input"
+        maxLength={200}
+        value={caption}
+        onChange={(e) => setCaption(e.target.value)}
+        disabled={busy}
+      />
       {state.kind === 'uploading' && (
         <div className="mt-2 font-sans text-sm">
           <label htmlFor="photo-progress">Uploading {state.percent}%</label>

@@ -17,7 +17,15 @@ type Input = z.input<typeof readingSchema>;
 type Output = z.output<typeof readingSchema>;
 
 /** The brewer adds a fermentation reading: gravity (hydrometer or refractometer), temperature, or both. */
-export function ReadingForm({ brewDayId, units, brewedOn }: { brewDayId: string; units: UnitSystem; brewedOn: string }) {
+export function ReadingForm({
+  brewDayId,
+  units,
+  brewedOn,
+}: {
+  brewDayId: string;
+  units: UnitSystem;
+  brewedOn: string;
+}) {
   const router = useRouter();
   const [formError, setFormError] = useState<string>();
   const { control, register, handleSubmit, setError, reset, formState } = useForm<Input, unknown, Output>({
@@ -54,7 +62,16 @@ export function ReadingForm({ brewDayId, units, brewedOn }: { brewDayId: string;
           control={control}
           name={name}
           render={({ field }) => (
-            <UnitNumberInput id={id} name={name} value={typeof field.value === 'number' ? field.value : undefined} onChange={field.onChange} onBlur={field.onBlur} unit={unit} invalid={Boolean(error)} describedBy={describedBy(id, error)} />
+            <UnitNumberInput
+              id={id}
+              name={name}
+              value={typeof field.value === 'number' ? field.value : undefined}
+              onChange={field.onChange}
+              onBlur={field.onBlur}
+              unit={unit}
+              invalid={Boolean(error)}
+              describedBy={describedBy(id, error)}
+            />
           )}
         />
         {error && (
@@ -76,7 +93,15 @@ export function ReadingForm({ brewDayId, units, brewedOn }: { brewDayId: string;
           <label htmlFor="reading-takenOn" className="kf-label">
             Date
           </label>
-          <input id="reading-takenOn" type="date" min={brewedOn} className="kf-input" {...register('takenOn')} aria-invalid={Boolean(errors.takenOn) || undefined} aria-describedby={describedBy('reading-takenOn', errors.takenOn?.message)} />
+          <input
+            id="reading-takenOn"
+            type="date"
+            min={brewedOn}
+            className="kf-input"
+            {...register('takenOn')}
+            aria-invalid={Boolean(errors.takenOn) || undefined}
+            aria-describedby={describedBy('reading-takenOn', errors.takenOn?.message)}
+          />
           {errors.takenOn && (
             <p id="reading-takenOn-error" role="alert" className="kf-field-error">
               {errors.takenOn.message}
@@ -92,7 +117,11 @@ export function ReadingForm({ brewDayId, units, brewedOn }: { brewDayId: string;
             <option value="refractometer">Refractometer (°Brix)</option>
           </select>
         </div>
-        {numberInput('value', 'Gravity reading', method === 'refractometer' ? plainUnit('°Brix', 1) : plainUnit('SG', 3))}
+        {numberInput(
+          'value',
+          'Gravity reading',
+          method === 'refractometer' ? plainUnit('°Brix', 1) : plainUnit('SG', 3),
+        )}
         {method !== 'refractometer' && numberInput('sampleTempC', 'Sample temperature')}
         {numberInput('beerTempC', 'Beer temperature')}
         <div>

@@ -3,7 +3,13 @@ import type { getBrewDaysByRecipeId } from '@/lib/brew-days/brew-days';
 import { BrewDayList } from './brew-day-list';
 
 /** The recipe page's section: how it came out for everyone who brewed it, across all versions. */
-export function RecipeBrewDays({ days, brewHref }: { days: Awaited<ReturnType<typeof getBrewDaysByRecipeId>>; brewHref: string | null }) {
+export function RecipeBrewDays({
+  days,
+  brewHref,
+}: {
+  days: Awaited<ReturnType<typeof getBrewDaysByRecipeId>>;
+  brewHref: string | null;
+}) {
   return (
     <section aria-labelledby="brew-days-title" className="mt-10">
       <div className="flex flex-wrap items-center justify-between gap-2">
@@ -16,7 +22,11 @@ export function RecipeBrewDays({ days, brewHref }: { days: Awaited<ReturnType<ty
           </Link>
         )}
       </div>
-      {days.length === 0 ? <p className="mt-2 font-sans text-sm text-muted">Nobody has logged a brew of this recipe yet.</p> : <BrewDayList days={days} show="recipe" />}
+      {days.length === 0 ? (
+        <p className="mt-2 font-sans text-sm text-muted">Nobody has logged a brew of this recipe yet.</p>
+      ) : (
+        <BrewDayList days={days} show="recipe" />
+      )}
     </section>
   );
 }

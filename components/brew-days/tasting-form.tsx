@@ -51,7 +51,13 @@ export function TastingForm({ brewDayId }: { brewDayId: string }) {
           <label htmlFor="tasting-tastedOn" className="kf-label">
             Date
           </label>
-          <input id="tasting-tastedOn" type="date" className="kf-input" {...register('tastedOn')} aria-invalid={Boolean(errors.tastedOn) || undefined} />
+          <input
+            id="tasting-tastedOn"
+            type="date"
+            className="kf-input"
+            {...register('tastedOn')}
+            aria-invalid={Boolean(errors.tastedOn) || undefined}
+          />
           {errors.tastedOn && (
             <p role="alert" className="kf-field-error">
               {errors.tastedOn.message}
@@ -80,7 +86,14 @@ export function TastingForm({ brewDayId }: { brewDayId: string }) {
             <label htmlFor={`tasting-${name}`} className="kf-label">
               {label}
             </label>
-            <textarea id={`tasting-${name}`} rows={2} className="kf-input" maxLength={2000} {...register(name)} aria-invalid={Boolean(errors[name]) || undefined} />
+            <textarea
+              id={`tasting-${name}`}
+              rows={2}
+              className="kf-input"
+              maxLength={2000}
+              {...register(name)}
+              aria-invalid={Boolean(errors[name]) || undefined}
+            />
             {errors[name] && (
               <p role="alert" className="kf-field-error">
                 {errors[name]?.message}

@@ -20,7 +20,16 @@ interface Props {
   canReport: boolean;
 }
 
-export function CommentActions({ recipeId, commentId, threadId, body, canReply, canEdit, canDelete, canReport }: Props) {
+export function CommentActions({
+  recipeId,
+  commentId,
+  threadId,
+  body,
+  canReply,
+  canEdit,
+  canDelete,
+  canReport,
+}: Props) {
   const router = useRouter();
   const [mode, setMode] = useState<'idle' | 'reply' | 'edit' | 'confirm-delete'>('idle');
   const remove = useMutation({
@@ -35,19 +44,32 @@ export function CommentActions({ recipeId, commentId, threadId, body, canReply, 
     <div className="mt-1">
       <div className="flex flex-wrap items-center gap-3 font-sans text-sm">
         {canReply && (
-          <button type="button" className="text-muted underline" onClick={() => setMode(mode === 'reply' ? 'idle' : 'reply')}>
+          <button
+            type="button"
+            className="text-muted underline"
+            onClick={() => setMode(mode === 'reply' ? 'idle' : 'reply')}
+          >
             Reply
           </button>
         )}
         {canEdit && (
-          <button type="button" className="text-muted underline" onClick={() => setMode(mode === 'edit' ? 'idle' : 'edit')}>
+          <button
+            type="button"
+            className="text-muted underline"
+            onClick={() => setMode(mode === 'edit' ? 'idle' : 'edit')}
+          >
             Edit
           </button>
         )}
         {canDelete &&
           (mode === 'confirm-delete' ? (
             <>
-              <button type="button" className="text-danger underline" disabled={remove.isPending} onClick={() => remove.mutate()}>
+              <button
+                type="button"
+                className="text-danger underline"
+                disabled={remove.isPending}
+                onClick={() => remove.mutate()}
+              >
                 Yes, delete it
               </button>
               <button type="button" className="text-muted underline" onClick={() => setMode('idle')}>

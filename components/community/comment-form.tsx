@@ -29,7 +29,13 @@ export function CommentForm({ recipeId, versionNumber, parentId, edit, onDone, l
         : sendJson<{ held: boolean }>(`/api/recipes/${recipeId}/comments`, 'POST', { body, parentId, versionNumber }),
     onSuccess: (res) => {
       setBody('');
-      toast.success(res.held ? 'Thanks! Your comment waits for a moderator, because it contains a link and your account is new.' : edit ? 'Comment updated.' : 'Comment posted.');
+      toast.success(
+        res.held
+          ? 'Thanks! Your comment waits for a moderator, because it contains a link and your account is new.'
+          : edit
+            ? 'Comment updated.'
+            : 'Comment posted.',
+      );
       onDone?.();
       router.refresh();
     },

@@ -5,7 +5,17 @@ import { useState } from 'react';
 import { toast } from 'sonner';
 import { sendJson } from '@/lib/http/client';
 
-export function FollowButton({ type, id, following, label }: { type: 'member' | 'recipe'; id: string; following: boolean; label: string }) {
+export function FollowButton({
+  type,
+  id,
+  following,
+  label,
+}: {
+  type: 'member' | 'recipe';
+  id: string;
+  following: boolean;
+  label: string;
+}) {
   const [on, setOn] = useState(following);
   const toggle = useMutation({
     mutationFn: () => sendJson<{ following: boolean }>('/api/follows', on ? 'DELETE' : 'POST', { type, id }),
@@ -16,7 +26,13 @@ export function FollowButton({ type, id, following, label }: { type: 'member' | 
     onError: (err) => toast.error(err.message),
   });
   return (
-    <button type="button" className="kf-btn-quiet" aria-pressed={on} disabled={toggle.isPending} onClick={() => toggle.mutate()}>
+    <button
+      type="button"
+      className="kf-btn-quiet"
+      aria-pressed={on}
+      disabled={toggle.isPending}
+      onClick={() => toggle.mutate()}
+    >
       {on ? 'Following' : 'Follow'}
       <span className="sr-only"> {label}</span>
     </button>

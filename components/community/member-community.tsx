@@ -6,16 +6,26 @@ import { FollowButton } from './follow-button';
 import { ReportButton } from './report-button';
 
 /** A member page's community part: stars received, followers, follow and report, and their forks. */
-export async function MemberCommunity({ member, viewer }: { member: { id: string; name: string | null; handle: string }; viewer: Viewer | null }) {
-  const [info, following] = await Promise.all([getMemberCommunity(member.id, viewer), isFollowing(viewer, 'member', member.id)]);
+export async function MemberCommunity({
+  member,
+  viewer,
+}: {
+  member: { id: string; name: string | null; handle: string };
+  viewer: Viewer | null;
+}) {
+  const [info, following] = await Promise.all([
+    getMemberCommunity(member.id, viewer),
+    isFollowing(viewer, 'member', member.id),
+  ]);
   const name = member.name ?? member.handle;
   const own = viewer?.id === member.id;
   return (
     <>
       <div className="mt-4 flex flex-wrap items-center gap-4 font-sans text-sm">
         <p className="text-muted">
-          <span className="kf-data text-ink">{info.starsReceived}</span> {info.starsReceived === 1 ? 'star' : 'stars'} received ·{' '}
-          <span className="kf-data text-ink">{info.followers}</span> {info.followers === 1 ? 'follower' : 'followers'} · following{' '}
+          <span className="kf-data text-ink">{info.starsReceived}</span> {info.starsReceived === 1 ? 'star' : 'stars'}{' '}
+          received · <span className="kf-data text-ink">{info.followers}</span>{' '}
+          {info.followers === 1 ? 'follower' : 'followers'} · following{' '}
           <span className="kf-data text-ink">{info.following}</span>
         </p>
         {viewer && !own && <FollowButton type="member" id={member.id} following={following} label={name} />}
@@ -38,7 +48,8 @@ export async function MemberCommunity({ member, viewer }: { member: { id: string
                 {f.hidden && <span className="ml-2 font-sans text-xs text-danger">hidden by moderators</span>}
                 <span className="font-sans text-sm text-muted">
                   {' '}
-                  — forked from {f.sourceSlug ? <Link href={`/recipes/${f.sourceSlug}`}>{f.sourceTitle}</Link> : f.sourceTitle}
+                  — forked from{' '}
+                  {f.sourceSlug ? <Link href={`/recipes/${f.sourceSlug}`}>{f.sourceTitle}</Link> : f.sourceTitle}
                 </span>
               </li>
             ))}

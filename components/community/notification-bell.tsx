@@ -18,13 +18,31 @@ export function NotificationBell() {
   });
   const label = unread ? `Notifications, ${unread} unread` : 'Notifications';
   return (
-    <Link href="/notifications" aria-label={label} title={label} className="relative inline-flex items-center text-ink no-underline hover:no-underline">
-      <svg aria-hidden="true" viewBox="0 0 24 24" width="22" height="22" fill="none" stroke="currentColor" strokeWidth="1.8" strokeLinecap="round" strokeLinejoin="round">
+    <Link
+      href="/notifications"
+      aria-label={label}
+      title={label}
+      className="relative inline-flex items-center text-ink no-underline hover:no-underline"
+    >
+      <svg
+        aria-hidden="true"
+        viewBox="0 0 24 24"
+        width="22"
+        height="22"
+        fill="none"
+        stroke="currentColor"
+        strokeWidth="1.8"
+        strokeLinecap="round"
+        strokeLinejoin="round"
+      >
         <path d="M6 16V11a6 6 0 1 1 12 0v5l1.5 2h-15z" />
         <path d="M10 20a2 2 0 0 0 4 0" />
       </svg>
       {unread > 0 && (
-        <span data-testid="unread-count" className="absolute -right-2 -top-1.5 min-w-[1.1rem] rounded-full bg-copper px-1 text-center text-[0.7rem] font-semibold leading-[1.1rem] text-white">
+        <span
+          data-testid="unread-count"
+          className="absolute -right-2 -top-1.5 min-w-[1.1rem] rounded-full bg-copper px-1 text-center text-[0.7rem] font-semibold leading-[1.1rem] text-white"
+        >
           {unread > 99 ? '99+' : unread}
         </span>
       )}

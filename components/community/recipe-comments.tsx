@@ -10,10 +10,24 @@ function countShown(list: CommentView[]): number {
   return list.reduce((n, c) => n + (c.body ? 1 : 0) + countShown(c.replies), 0);
 }
 
-function CommentBlock({ comment, viewer, recipeId, threadId, open }: { comment: CommentView; viewer: Viewer | null; recipeId: string; threadId: string; open: boolean }) {
+function CommentBlock({
+  comment,
+  viewer,
+  recipeId,
+  threadId,
+  open,
+}: {
+  comment: CommentView;
+  viewer: Viewer | null;
+  recipeId: string;
+  threadId: string;
+  open: boolean;
+}) {
   if (!comment.authorHandle) {
     return (
-      <p className="font-sans text-sm italic text-muted">{comment.state === 'deleted' ? 'This comment was deleted.' : 'Moderators hid this comment.'}</p>
+      <p className="font-sans text-sm italic text-muted">
+        {comment.state === 'deleted' ? 'This comment was deleted.' : 'Moderators hid this comment.'}
+      </p>
     );
   }
   return (
@@ -27,13 +41,20 @@ function CommentBlock({ comment, viewer, recipeId, threadId, open }: { comment: 
         {comment.editedAt && <> · edited</>}
       </p>
       {comment.state === 'held' && (
-        <p role="status" className="mt-1 rounded border border-caution/40 bg-caution/5 px-2 py-1 font-sans text-xs text-caution">
+        <p
+          role="status"
+          className="mt-1 rounded border border-caution/40 bg-caution/5 px-2 py-1 font-sans text-xs text-caution"
+        >
           Waiting for a moderator: only you and the moderators can see it for now.
         </p>
       )}
       {comment.state === 'hidden' && (
-        <p role="status" className="mt-1 rounded border border-danger/40 bg-danger/5 px-2 py-1 font-sans text-xs text-danger">
-          Moderators hid this comment{comment.hiddenReason ? `: ${comment.hiddenReason}` : '.'} Only you and the moderators can see it.
+        <p
+          role="status"
+          className="mt-1 rounded border border-danger/40 bg-danger/5 px-2 py-1 font-sans text-xs text-danger"
+        >
+          Moderators hid this comment{comment.hiddenReason ? `: ${comment.hiddenReason}` : '.'} Only you and the
+          moderators can see it.
         </p>
       )}
       <Markdown source={comment.body} className="mt-1" />
@@ -54,14 +75,26 @@ function CommentBlock({ comment, viewer, recipeId, threadId, open }: { comment: 
 }
 
 /** The comments under a recipe, with replies one level deep and the form to add one. */
-export function RecipeComments({ viewer, recipe, versionNumber, comments }: { viewer: Viewer | null; recipe: { id: string; slug: string; hiddenAt: Date | null }; versionNumber: number; comments: CommentView[] }) {
+export function RecipeComments({
+  viewer,
+  recipe,
+  versionNumber,
+  comments,
+}: {
+  viewer: Viewer | null;
+  recipe: { id: string; slug: string; hiddenAt: Date | null };
+  versionNumber: number;
+  comments: CommentView[];
+}) {
   const open = !recipe.hiddenAt;
   return (
     <section aria-labelledby="comments-heading" className="mt-12 max-w-3xl">
       <h2 id="comments-heading" className="text-2xl font-semibold">
         Comments ({countShown(comments)})
       </h2>
-      {comments.length === 0 && <p className="mt-2 text-muted">No comments yet. Brewed it, or have a question? Say so here.</p>}
+      {comments.length === 0 && (
+        <p className="mt-2 text-muted">No comments yet. Brewed it, or have a question? Say so here.</p>
+      )}
       <ol className="mt-4 space-y-6">
         {comments.map((c) => (
           <li key={c.id} id={`comment-${c.id}`} className="border-l-2 border-line pl-4">
@@ -83,10 +116,15 @@ export function RecipeComments({ viewer, recipe, versionNumber, comments }: { vi
           <CommentForm recipeId={recipe.id} versionNumber={versionNumber} />
         </div>
       )}
-      {viewer && !open && <p className="mt-6 font-sans text-sm text-muted">Comments are closed while moderators have this recipe hidden.</p>}
+      {viewer && !open && (
+        <p className="mt-6 font-sans text-sm text-muted">
+          Comments are closed while moderators have this recipe hidden.
+        </p>
+      )}
       {!viewer && (
         <p className="kf-card mt-6 font-sans text-sm">
-          <Link href={`/sign-in?callbackUrl=${encodeURIComponent(`/recipes/${recipe.slug}`)}`}>Sign in</Link> to join the conversation.
+          <Link href={`/sign-in?callbackUrl=${encodeURIComponent(`/recipes/${recipe.slug}`)}`}>Sign in</Link> to join
+          the conversation.
         </p>
       )}
     </section>

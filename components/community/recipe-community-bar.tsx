@@ -7,9 +7,15 @@ import { ReportButton } from './report-button';
 import { StarButton } from './star-button';
 
 /** Star, follow and report for a recipe page; signed-out readers see the star count. */
-export async function loadCommunityState(viewer: Viewer | null, recipeId: string): Promise<{ starred: boolean; following: boolean }> {
+export async function loadCommunityState(
+  viewer: Viewer | null,
+  recipeId: string,
+): Promise<{ starred: boolean; following: boolean }> {
   if (!viewer) return { starred: false, following: false };
-  const [starred, following] = await Promise.all([hasStarred(viewer, recipeId), isFollowing(viewer, 'recipe', recipeId)]);
+  const [starred, following] = await Promise.all([
+    hasStarred(viewer, recipeId),
+    isFollowing(viewer, 'recipe', recipeId),
+  ]);
   return { starred, following };
 }
 
@@ -24,7 +30,11 @@ export function RecipeCommunityBar({
 }) {
   if (!viewer) {
     return (
-      <Link href={`/sign-in?callbackUrl=${encodeURIComponent(`/recipes/${recipe.slug}`)}`} className="kf-btn-quiet" aria-label={`${recipe.starCount} stars. Sign in to star this recipe.`}>
+      <Link
+        href={`/sign-in?callbackUrl=${encodeURIComponent(`/recipes/${recipe.slug}`)}`}
+        className="kf-btn-quiet"
+        aria-label={`${recipe.starCount} stars. Sign in to star this recipe.`}
+      >
         <span aria-hidden="true">☆</span> Star <span className="kf-data">({recipe.starCount})</span>
       </Link>
     );
@@ -39,7 +49,9 @@ export function RecipeCommunityBar({
       ) : (
         <StarButton recipeId={recipe.id} starred={starred} starCount={recipe.starCount} />
       )}
-      {!own && !recipe.hiddenAt && <FollowButton type="recipe" id={recipe.id} following={following} label={recipe.title} />}
+      {!own && !recipe.hiddenAt && (
+        <FollowButton type="recipe" id={recipe.id} following={following} label={recipe.title} />
+      )}
       {!own && <ReportButton targetType="recipe" targetId={recipe.id} />}
     </>
   );

@@ -3,11 +3,25 @@
 import { useMutation } from '@tanstack/react-query';
 import { useId, useState } from 'react';
 import { toast } from 'sonner';
-import { REASON_LABELS, REPORT_REASONS, TARGET_LABELS, type ReportReason, type ReportTarget } from '@/lib/moderation/words';
+import {
+  REASON_LABELS,
+  REPORT_REASONS,
+  TARGET_LABELS,
+  type ReportReason,
+  type ReportTarget,
+} from '@/lib/moderation/words';
 import { sendJson } from '@/lib/http/client';
 
 /** A small disclosure with a form that reports something to the moderators. */
-export function ReportButton({ targetType, targetId, compact = false }: { targetType: ReportTarget; targetId: string; compact?: boolean }) {
+export function ReportButton({
+  targetType,
+  targetId,
+  compact = false,
+}: {
+  targetType: ReportTarget;
+  targetId: string;
+  compact?: boolean;
+}) {
   const id = useId();
   const [open, setOpen] = useState(false);
   const [reason, setReason] = useState<ReportReason>('spam');
@@ -27,7 +41,13 @@ export function ReportButton({ targetType, targetId, compact = false }: { target
   if (done) return <span className="font-sans text-sm text-muted">Reported</span>;
   return (
     <div className="font-sans text-sm">
-      <button type="button" className={compact ? 'text-muted underline' : 'kf-btn-quiet'} aria-expanded={open} aria-controls={`${id}-form`} onClick={() => setOpen(!open)}>
+      <button
+        type="button"
+        className={compact ? 'text-muted underline' : 'kf-btn-quiet'}
+        aria-expanded={open}
+        aria-controls={`${id}-form`}
+        onClick={() => setOpen(!open)}
+      >
         Report{compact ? '' : ` this ${what}`}
       </button>
       {open && (
@@ -43,7 +63,12 @@ export function ReportButton({ targetType, targetId, compact = false }: { target
           <label htmlFor={`${id}-reason`} className="kf-label">
             Why are you reporting this {what}?
           </label>
-          <select id={`${id}-reason`} className="kf-input" value={reason} onChange={(e) => setReason(e.target.value as ReportReason)}>
+          <select
+            id={`${id}-reason`}
+            className="kf-input"
+            value={reason}
+            onChange={(e) => setReason(e.target.value as ReportReason)}
+          >
             {REPORT_REASONS.map((r) => (
               <option key={r} value={r}>
                 {REASON_LABELS[r]}
@@ -53,7 +78,14 @@ export function ReportButton({ targetType, targetId, compact = false }: { target
           <label htmlFor={`${id}-note`} className="kf-label mt-3">
             Anything the moderators should know (optional)
           </label>
-          <textarea id={`${id}-note`} className="kf-input" rows={3} maxLength={1000} value={note} onChange={(e) => setNote(e.target.value)} />
+          <textarea
+            id={`${id}-note`}
+            className="kf-input"
+            rows={3}
+            maxLength={1000}
+            value={note}
+            onChange={(e) => setNote(e.target.value)}
+          />
           {error && (
             <p role="alert" className="kf-field-error">
               {error}

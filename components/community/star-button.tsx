@@ -6,11 +6,23 @@ import { useState } from 'react';
 import { toast } from 'sonner';
 import { sendJson } from '@/lib/http/client';
 
-export function StarButton({ recipeId, starred, starCount }: { recipeId: string; starred: boolean; starCount: number }) {
+export function StarButton({
+  recipeId,
+  starred,
+  starCount,
+}: {
+  recipeId: string;
+  starred: boolean;
+  starCount: number;
+}) {
   const router = useRouter();
   const [state, setState] = useState({ starred, starCount });
   const toggle = useMutation({
-    mutationFn: () => sendJson<{ starred: boolean; starCount: number }>(`/api/recipes/${recipeId}/star`, state.starred ? 'DELETE' : 'PUT'),
+    mutationFn: () =>
+      sendJson<{ starred: boolean; starCount: number }>(
+        `/api/recipes/${recipeId}/star`,
+        state.starred ? 'DELETE' : 'PUT',
+      ),
     onSuccess: (next) => {
       setState(next);
       router.refresh();
@@ -18,8 +30,15 @@ export function StarButton({ recipeId, starred, starCount }: { recipeId: string;
     onError: (err) => toast.error(err.message),
   });
   return (
-    <button type="button" className="kf-btn-quiet" aria-pressed={state.starred} disabled={toggle.isPending} onClick={() => toggle.mutate()}>
-      <span aria-hidden="true">{state.starred ? '★' : '☆'}</span> {state.starred ? 'Starred' : 'Star'} <span className="kf-data">({state.starCount})</span>
+    <button
+      type="button"
+      className="kf-btn-quiet"
+      aria-pressed={state.starred}
+      disabled={toggle.isPending}
+      onClick={() => toggle.mutate()}
+    >
+      <span aria-hidden="true">{state.starred ? '★' : '☆'}</span> {state.starred ? 'Starred' : 'Star'}{' '}
+      <span className="kf-data">({state.starCount})</span>
     </button>
   );
 }

@@ -37,7 +37,10 @@ export async function loadGuide(slug: string): Promise<{ meta: GuideMeta; conten
     components: guideComponents,
     options: { parseFrontmatter: true, blockJS: true, blockDangerousJS: true },
   });
-  return { meta: { slug, title: frontmatter.title, summary: frontmatter.summary, order: frontmatter.order ?? 99 }, content };
+  return {
+    meta: { slug, title: frontmatter.title, summary: frontmatter.summary, order: frontmatter.order ?? 99 },
+    content,
+  };
 }
 
 export async function listGuides(): Promise<GuideMeta[]> {

@@ -9,7 +9,13 @@ export const guideComponents = {
   ul: (props: ComponentProps<'ul'>) => <ul {...props} className="my-3 list-disc space-y-1 pl-6" />,
   ol: (props: ComponentProps<'ol'>) => <ol {...props} className="my-3 list-decimal space-y-1 pl-6" />,
   // Focusable, so a formula wider than a phone can be scrolled from the keyboard.
-  pre: (props: ComponentProps<'pre'>) => <pre {...props} tabIndex={0} className="my-4 overflow-x-auto rounded-md border border-line bg-card p-4 font-mono text-sm leading-relaxed" />,
+  pre: (props: ComponentProps<'pre'>) => (
+    <pre
+      {...props}
+      tabIndex={0}
+      className="my-4 overflow-x-auto rounded-md border border-line bg-card p-4 font-mono text-sm leading-relaxed"
+    />
+  ),
   code: (props: ComponentProps<'code'>) => <code {...props} className="font-mono text-[0.92em]" />,
   a: ({ href = '', children }: ComponentProps<'a'>) =>
     href.startsWith('/') || href.startsWith('#') ? (

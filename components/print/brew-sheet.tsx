@@ -18,7 +18,10 @@ const GRAIN_TEMP_C = 20;
 const USE_ORDER: Record<Hop['use'], number> = { mash: 0, first_wort: 1, boil: 2, whirlpool: 3, dry_hop: 4 };
 
 export function hopChecklist(hops: readonly Hop[]): Hop[] {
-  return [...hops].sort((a, b) => USE_ORDER[a.use] - USE_ORDER[b.use] || (a.use === 'dry_hop' ? a.timeMin - b.timeMin : b.timeMin - a.timeMin));
+  return [...hops].sort(
+    (a, b) =>
+      USE_ORDER[a.use] - USE_ORDER[b.use] || (a.use === 'dry_hop' ? a.timeMin - b.timeMin : b.timeMin - a.timeMin),
+  );
 }
 
 function hopWhen(hop: Hop, units: UnitSystem): string {
@@ -50,7 +53,19 @@ function Tick({ label }: { label: string }) {
 }
 
 /** A one- or two-page sheet to brew from: what to weigh, when to add it, and room to write what happened. */
-export function BrewSheet({ doc, stats, units, owner, number }: { doc: RecipeDocument; stats: RecipeStats; units: UnitSystem; owner: string; number: number }) {
+export function BrewSheet({
+  doc,
+  stats,
+  units,
+  owner,
+  number,
+}: {
+  doc: RecipeDocument;
+  stats: RecipeStats;
+  units: UnitSystem;
+  owner: string;
+  number: number;
+}) {
   const volumes = mashAndSpargeVolumes(doc);
   const firstRest = doc.mash.steps[0];
   const strikeC = firstRest ? strikeWaterTempC(firstRest.tempC, GRAIN_TEMP_C, doc.batch.mashWaterLPerKg) : null;
@@ -74,8 +89,8 @@ export function BrewSheet({ doc, stats, units, owner, number }: { doc: RecipeDoc
           <h1 className="text-2xl font-semibold">{doc.title}</h1>
           <p className="mt-1 font-sans text-sm text-muted">
             Version {number} by {owner}
-            {doc.style && ` · ${doc.style.code} ${doc.style.name}`} · {volume(doc.batch.volumeL)} into the fermenter · {doc.batch.boilTimeMin} min
-            boil · {doc.batch.efficiencyPct}% efficiency
+            {doc.style && ` · ${doc.style.code} ${doc.style.name}`} · {volume(doc.batch.volumeL)} into the fermenter ·{' '}
+            {doc.batch.boilTimeMin} min boil · {doc.batch.efficiencyPct}% efficiency
           </p>
         </div>
         <p className="font-sans text-sm">
@@ -100,8 +115,8 @@ export function BrewSheet({ doc, stats, units, owner, number }: { doc: RecipeDoc
           ))}
         </dl>
         <p className="mt-2 text-muted">
-          Water: {volume(volumes.mashWaterL)} in the mash, {volume(volumes.spargeWaterL)} to sparge, {volume(volumes.preBoilVolumeL)} in the kettle
-          before the boil.
+          Water: {volume(volumes.mashWaterL)} in the mash, {volume(volumes.spargeWaterL)} to sparge,{' '}
+          {volume(volumes.preBoilVolumeL)} in the kettle before the boil.
         </p>
       </Section>
 
@@ -199,8 +214,8 @@ export function BrewSheet({ doc, stats, units, owner, number }: { doc: RecipeDoc
               <li key={i} className="flex items-start gap-2">
                 <Tick label={`Added ${h.name}, ${HOP_USE_LABEL[h.use]}`} />
                 <span>
-                  <strong>{formatAmount(h.amountG, 'hopMass', units, units === 'us' ? 2 : 0)}</strong> {h.name} ({h.alphaPct}% alpha, {h.form}) —{' '}
-                  {hopWhen(h, units)}
+                  <strong>{formatAmount(h.amountG, 'hopMass', units, units === 'us' ? 2 : 0)}</strong> {h.name} (
+                  {h.alphaPct}% alpha, {h.form}) — {hopWhen(h, units)}
                 </span>
               </li>
             ))}
@@ -246,8 +261,11 @@ export function BrewSheet({ doc, stats, units, owner, number }: { doc: RecipeDoc
         {stats.carbonation && (
           <p className="mt-2">
             Carbonate to {stats.carbonation.volumesCO2} volumes: about{' '}
-            {units === 'us' ? `${stats.carbonation.kegPressurePsi.toFixed(1)} psi` : `${stats.carbonation.kegPressureKPa.toFixed(0)} kPa`} on a keg at{' '}
-            {temp(stats.carbonation.servingTempC)}. Stay within your keg&apos;s and regulator&apos;s rated pressure.
+            {units === 'us'
+              ? `${stats.carbonation.kegPressurePsi.toFixed(1)} psi`
+              : `${stats.carbonation.kegPressureKPa.toFixed(0)} kPa`}{' '}
+            on a keg at {temp(stats.carbonation.servingTempC)}. Stay within your keg&apos;s and regulator&apos;s rated
+            pressure.
           </p>
         )}
       </Section>

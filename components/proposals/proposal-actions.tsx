@@ -27,14 +27,29 @@ function ErrorLine({ error }: { error?: string }) {
 }
 
 /** The owner accepts: one choice per conflicting field, then a new version of their recipe. */
-export function AcceptForm({ proposalId, headVersionId, headNumber, conflicts }: { proposalId: string; headVersionId: string; headNumber: number; conflicts: MergeConflict[] }) {
+export function AcceptForm({
+  proposalId,
+  headVersionId,
+  headNumber,
+  conflicts,
+}: {
+  proposalId: string;
+  headVersionId: string;
+  headNumber: number;
+  conflicts: MergeConflict[];
+}) {
   const id = useId();
   const router = useRouter();
   const [picks, setPicks] = useState<Record<string, 'ours' | 'theirs'>>({});
   const [message, setMessage] = useState('');
   const [error, setError] = useState<string>();
   const send = useMutation({
-    mutationFn: () => sendJson<{ version: { number: number } }>(`/api/proposals/${proposalId}/accept`, 'POST', { sourceHeadVersionId: headVersionId, picks, message }),
+    mutationFn: () =>
+      sendJson<{ version: { number: number } }>(`/api/proposals/${proposalId}/accept`, 'POST', {
+        sourceHeadVersionId: headVersionId,
+        picks,
+        message,
+      }),
     onSuccess: (res) => {
       toast.success(`Accepted. Version ${res.version.number} of your recipe credits the proposer.`);
       router.refresh();
@@ -57,19 +72,33 @@ export function AcceptForm({ proposalId, headVersionId, headNumber, conflicts }:
       </p>
       {conflicts.length > 0 && (
         <div className="mt-3 space-y-3">
-          <p className="font-sans text-sm">Both sides changed these fields since the fork. Choose which value to keep for each:</p>
+          <p className="font-sans text-sm">
+            Both sides changed these fields since the fork. Choose which value to keep for each:
+          </p>
           {conflicts.map((c, i) => (
             <fieldset key={c.path} className="rounded-md border border-line p-3 font-sans text-sm">
               <legend className="px-1 font-semibold">{describeMergePath(c.path)}</legend>
               <p className="text-xs text-muted">When forked: {showValue(c.base)}</p>
               <label className="mt-2 flex items-start gap-2">
-                <input type="radio" name={`${id}-pick-${i}`} value="ours" checked={picks[c.path] === 'ours'} onChange={() => setPicks({ ...picks, [c.path]: 'ours' })} />
+                <input
+                  type="radio"
+                  name={`${id}-pick-${i}`}
+                  value="ours"
+                  checked={picks[c.path] === 'ours'}
+                  onChange={() => setPicks({ ...picks, [c.path]: 'ours' })}
+                />
                 <span>
                   Keep yours: <span className="kf-data whitespace-pre-wrap">{showValue(c.ours)}</span>
                 </span>
               </label>
               <label className="mt-1 flex items-start gap-2">
-                <input type="radio" name={`${id}-pick-${i}`} value="theirs" checked={picks[c.path] === 'theirs'} onChange={() => setPicks({ ...picks, [c.path]: 'theirs' })} />
+                <input
+                  type="radio"
+                  name={`${id}-pick-${i}`}
+                  value="theirs"
+                  checked={picks[c.path] === 'theirs'}
+                  onChange={() => setPicks({ ...picks, [c.path]: 'theirs' })}
+                />
                 <span>
                   Take the proposal’s: <span className="kf-data whitespace-pre-wrap">{showValue(c.theirs)}</span>
                 </span>
@@ -81,10 +110,20 @@ export function AcceptForm({ proposalId, headVersionId, headNumber, conflicts }:
       <label htmlFor={`${id}-message`} className="kf-label mt-3">
         Version message (optional)
       </label>
-      <input id={`${id}-message`} className="kf-input" value={message} maxLength={500} onChange={(e) => setMessage(e.target.value)} />
+      <input
+        id={`${id}-message`}
+        className="kf-input"
+        value={message}
+        maxLength={500}
+        onChange={(e) => setMessage(e.target.value)}
+      />
       <ErrorLine error={error} />
       <button type="submit" className="kf-btn mt-3" disabled={send.isPending || unpicked > 0}>
-        {send.isPending ? 'Accepting…' : unpicked > 0 ? `Choose ${unpicked} more ${unpicked === 1 ? 'field' : 'fields'}` : 'Accept and save a new version'}
+        {send.isPending
+          ? 'Accepting…'
+          : unpicked > 0
+            ? `Choose ${unpicked} more ${unpicked === 1 ? 'field' : 'fields'}`
+            : 'Accept and save a new version'}
       </button>
     </form>
   );
@@ -97,9 +136,14 @@ export function DecisionForm({ proposalId }: { proposalId: string }) {
   const [comment, setComment] = useState('');
   const [error, setError] = useState<string>();
   const send = useMutation({
-    mutationFn: (decision: 'declined' | 'changes_requested') => sendJson(`/api/proposals/${proposalId}/decision`, 'POST', { decision, comment }),
+    mutationFn: (decision: 'declined' | 'changes_requested') =>
+      sendJson(`/api/proposals/${proposalId}/decision`, 'POST', { decision, comment }),
     onSuccess: (_res, decision) => {
-      toast.success(decision === 'declined' ? 'Declined. The proposer has been told why.' : 'Asked for changes. The proposer has been told.');
+      toast.success(
+        decision === 'declined'
+          ? 'Declined. The proposer has been told why.'
+          : 'Asked for changes. The proposer has been told.',
+      );
       setComment('');
       router.refresh();
     },
@@ -111,13 +155,30 @@ export function DecisionForm({ proposalId }: { proposalId: string }) {
       <label htmlFor={`${id}-comment`} className="kf-label mt-2">
         Your comment to the proposer
       </label>
-      <textarea id={`${id}-comment`} className="kf-input" rows={3} maxLength={5000} value={comment} onChange={(e) => setComment(e.target.value)} />
+      <textarea
+        id={`${id}-comment`}
+        className="kf-input"
+        rows={3}
+        maxLength={5000}
+        value={comment}
+        onChange={(e) => setComment(e.target.value)}
+      />
       <ErrorLine error={error} />
       <div className="mt-3 flex flex-wrap gap-2 font-sans text-sm">
-        <button type="button" className="kf-btn-quiet" disabled={send.isPending} onClick={() => (setError(undefined), send.mutate('changes_requested'))}>
+        <button
+          type="button"
+          className="kf-btn-quiet"
+          disabled={send.isPending}
+          onClick={() => (setError(undefined), send.mutate('changes_requested'))}
+        >
           Ask for changes
         </button>
-        <button type="button" className="kf-btn-quiet text-danger" disabled={send.isPending} onClick={() => (setError(undefined), send.mutate('declined'))}>
+        <button
+          type="button"
+          className="kf-btn-quiet text-danger"
+          disabled={send.isPending}
+          onClick={() => (setError(undefined), send.mutate('declined'))}
+        >
           Decline
         </button>
       </div>
@@ -126,7 +187,13 @@ export function DecisionForm({ proposalId }: { proposalId: string }) {
 }
 
 /** The proposer moves the proposal to a newer version of their fork, or withdraws it. */
-export function ProposerActions({ proposalId, newerVersions }: { proposalId: string; newerVersions: { id: string; number: number; message: string }[] }) {
+export function ProposerActions({
+  proposalId,
+  newerVersions,
+}: {
+  proposalId: string;
+  newerVersions: { id: string; number: number; message: string }[];
+}) {
   const id = useId();
   const router = useRouter();
   const [versionId, setVersionId] = useState(newerVersions[0]?.id ?? '');
@@ -162,7 +229,12 @@ export function ProposerActions({ proposalId, newerVersions }: { proposalId: str
           <label htmlFor={`${id}-version`} className="kf-label">
             Offer a newer version of your fork
           </label>
-          <select id={`${id}-version`} className="kf-input" value={versionId} onChange={(e) => setVersionId(e.target.value)}>
+          <select
+            id={`${id}-version`}
+            className="kf-input"
+            value={versionId}
+            onChange={(e) => setVersionId(e.target.value)}
+          >
             {newerVersions.map((v) => (
               <option key={v.id} value={v.id}>
                 Version {v.number}
@@ -178,7 +250,12 @@ export function ProposerActions({ proposalId, newerVersions }: { proposalId: str
         <p className="mt-1 text-muted">Save a new version of your fork to offer it here instead.</p>
       )}
       <ErrorLine error={error} />
-      <button type="button" className="kf-btn-quiet mt-3" disabled={withdraw.isPending} onClick={() => (setError(undefined), withdraw.mutate())}>
+      <button
+        type="button"
+        className="kf-btn-quiet mt-3"
+        disabled={withdraw.isPending}
+        onClick={() => (setError(undefined), withdraw.mutate())}
+      >
         Withdraw the proposal
       </button>
     </div>
@@ -212,7 +289,14 @@ export function ProposalCommentForm({ proposalId }: { proposalId: string }) {
       <label htmlFor={`${id}-body`} className="kf-label">
         Add to the discussion
       </label>
-      <textarea id={`${id}-body`} className="kf-input" rows={3} maxLength={5000} value={body} onChange={(e) => setBody(e.target.value)} />
+      <textarea
+        id={`${id}-body`}
+        className="kf-input"
+        rows={3}
+        maxLength={5000}
+        value={body}
+        onChange={(e) => setBody(e.target.value)}
+      />
       <p className="mt-1 font-sans text-xs text-muted">Markdown works: **bold**, _italic_, lists and links.</p>
       <ErrorLine error={error} />
       <button type="submit" className="kf-btn mt-2 font-sans text-sm" disabled={send.isPending || body.trim() === ''}>

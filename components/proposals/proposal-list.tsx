@@ -18,8 +18,9 @@ export function ProposalList({ items, empty }: { items: ProposalSummary[]; empty
             {p.hidden && <span className="font-sans text-xs text-danger">Hidden by moderators</span>}
           </div>
           <p className="mt-1 font-sans text-sm text-muted">
-            {p.proposerName} offers <Link href={`/recipes/${p.fork.slug}`}>{p.fork.title}</Link> to <Link href={`/recipes/${p.source.slug}`}>{p.source.title}</Link> ·{' '}
-            updated {formatDistanceToNow(p.updatedAt, { addSuffix: true })}
+            {p.proposerName} offers <Link href={`/recipes/${p.fork.slug}`}>{p.fork.title}</Link> to{' '}
+            <Link href={`/recipes/${p.source.slug}`}>{p.source.title}</Link> · updated{' '}
+            {formatDistanceToNow(p.updatedAt, { addSuffix: true })}
           </p>
         </li>
       ))}

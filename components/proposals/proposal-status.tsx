@@ -18,5 +18,9 @@ const STYLE: Record<ProposalStatus, string> = {
 
 /** A proposal's state as a small labelled badge. */
 export function ProposalStatusBadge({ status }: { status: ProposalStatus }) {
-  return <span className={`inline-block rounded-full border px-2 py-0.5 font-sans text-xs font-semibold ${STYLE[status]}`}>{WORDS[status]}</span>;
+  return (
+    <span className={`inline-block rounded-full border px-2 py-0.5 font-sans text-xs font-semibold ${STYLE[status]}`}>
+      {WORDS[status]}
+    </span>
+  );
 }

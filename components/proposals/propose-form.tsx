@@ -13,7 +13,15 @@ export interface ProposeTarget {
 }
 
 /** The fork's owner offers this version back to a recipe it descends from. */
-export function ProposeForm({ versionId, number, targets }: { versionId: string; number: number; targets: ProposeTarget[] }) {
+export function ProposeForm({
+  versionId,
+  number,
+  targets,
+}: {
+  versionId: string;
+  number: number;
+  targets: ProposeTarget[];
+}) {
   const id = useId();
   const router = useRouter();
   const [open, setOpen] = useState(false);
@@ -22,7 +30,8 @@ export function ProposeForm({ versionId, number, targets }: { versionId: string;
   const [description, setDescription] = useState('');
   const [error, setError] = useState<string>();
   const send = useMutation({
-    mutationFn: () => sendJson<{ id: string }>('/api/proposals', 'POST', { versionId, sourceRecipeId, title, description }),
+    mutationFn: () =>
+      sendJson<{ id: string }>('/api/proposals', 'POST', { versionId, sourceRecipeId, title, description }),
     onSuccess: (res) => {
       toast.success('Proposed. The owner has been told.');
       router.push(`/proposals/${res.id}`);
@@ -31,7 +40,13 @@ export function ProposeForm({ versionId, number, targets }: { versionId: string;
   });
   return (
     <div className="font-sans text-sm">
-      <button type="button" className="kf-btn" aria-expanded={open} aria-controls={`${id}-form`} onClick={() => setOpen(!open)}>
+      <button
+        type="button"
+        className="kf-btn"
+        aria-expanded={open}
+        aria-controls={`${id}-form`}
+        onClick={() => setOpen(!open)}
+      >
         Propose to the original
       </button>
       {open && (
@@ -44,13 +59,20 @@ export function ProposeForm({ versionId, number, targets }: { versionId: string;
             send.mutate();
           }}
         >
-          <p className="text-muted">Offer version {number} back. The owner sees exactly what changed and can take it in, with you credited.</p>
+          <p className="text-muted">
+            Offer version {number} back. The owner sees exactly what changed and can take it in, with you credited.
+          </p>
           {targets.length > 1 ? (
             <>
               <label htmlFor={`${id}-target`} className="kf-label mt-3">
                 Propose to
               </label>
-              <select id={`${id}-target`} className="kf-input" value={sourceRecipeId} onChange={(e) => setSourceRecipeId(e.target.value)}>
+              <select
+                id={`${id}-target`}
+                className="kf-input"
+                value={sourceRecipeId}
+                onChange={(e) => setSourceRecipeId(e.target.value)}
+              >
                 {targets.map((t) => (
                   <option key={t.recipeId} value={t.recipeId}>
                     {t.title} by {t.ownerName}
@@ -66,11 +88,26 @@ export function ProposeForm({ versionId, number, targets }: { versionId: string;
           <label htmlFor={`${id}-title`} className="kf-label mt-3">
             Title
           </label>
-          <input id={`${id}-title`} className="kf-input" value={title} onChange={(e) => setTitle(e.target.value)} maxLength={120} required placeholder="A hotter mash for more body" />
+          <input
+            id={`${id}-title`}
+            className="kf-input"
+            value={title}
+            onChange={(e) => setTitle(e.target.value)}
+            maxLength={120}
+            required
+            placeholder="A hotter mash for more body"
+          />
           <label htmlFor={`${id}-description`} className="kf-label mt-3">
             What changed and why
           </label>
-          <textarea id={`${id}-description`} className="kf-input" rows={4} maxLength={5000} value={description} onChange={(e) => setDescription(e.target.value)} />
+          <textarea
+            id={`${id}-description`}
+            className="kf-input"
+            rows={4}
+            maxLength={5000}
+            value={description}
+            onChange={(e) => setDescription(e.target.value)}
+          />
           <p className="mt-1 text-xs text-muted">Markdown works: **bold**, _italic_, lists and links.</p>
           {error && (
             <p role="alert" className="kf-field-error">

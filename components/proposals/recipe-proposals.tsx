@@ -15,12 +15,22 @@ export async function loadRecipeProposals(viewer: Viewer | null, recipe: Recipe,
   const owner = isOwner(recipe, viewer);
   const [items, targets] = await Promise.all([
     any ? getProposalsByRecipeId({ viewer, recipeId: recipe.id }) : Promise.resolve([]),
-    owner && recipe.forkedFromVersionId && !recipe.hiddenAt ? getProposalTargets(viewer, recipe.id) : Promise.resolve([]),
+    owner && recipe.forkedFromVersionId && !recipe.hiddenAt
+      ? getProposalTargets(viewer, recipe.id)
+      : Promise.resolve([]),
   ]);
   return { items, targets };
 }
 
-export function RecipeProposals({ viewer, version, proposals: { items, targets } }: { viewer: Viewer | null; version: { id: string; number: number }; proposals: Awaited<ReturnType<typeof loadRecipeProposals>> }) {
+export function RecipeProposals({
+  viewer,
+  version,
+  proposals: { items, targets },
+}: {
+  viewer: Viewer | null;
+  version: { id: string; number: number };
+  proposals: Awaited<ReturnType<typeof loadRecipeProposals>>;
+}) {
   if (items.length === 0 && targets.length === 0) return null;
   const openCount = items.filter((p) => p.status === 'open' || p.status === 'changes_requested').length;
   const incoming = items.filter((p) => p.direction === 'incoming');

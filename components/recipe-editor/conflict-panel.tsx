@@ -89,7 +89,10 @@ export function ConflictPanel({
   const heading = useRef<HTMLHeadingElement>(null);
   useEffect(() => heading.current?.focus(), [head.id]);
   const changes = compareVersions(baseDocument, head.document, units);
-  const from = baseVersionNumber === undefined ? 'the version you started from' : `version ${baseVersionNumber}, the one you started from`;
+  const from =
+    baseVersionNumber === undefined
+      ? 'the version you started from'
+      : `version ${baseVersionNumber}, the one you started from`;
   const notes: string[] = [];
   if (changes.waterChanged) notes.push('Water changed.');
   if (changes.carbonationChanged) notes.push('Carbonation changed.');
@@ -131,7 +134,12 @@ export function ConflictPanel({
           {saving ? 'Saving…' : `Keep my changes and save on top of version ${head.number}`}
         </button>
         {slug && (
-          <a href={`/recipes/${slug}/v/${head.number}`} target="_blank" rel="noopener noreferrer" className="kf-btn-quiet">
+          <a
+            href={`/recipes/${slug}/v/${head.number}`}
+            target="_blank"
+            rel="noopener noreferrer"
+            className="kf-btn-quiet"
+          >
             Open version {head.number}
             <span className="sr-only"> (opens in a new tab)</span>
           </a>

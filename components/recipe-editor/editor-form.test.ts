@@ -30,7 +30,10 @@ describe('editorFormSchema', () => {
   });
 
   it('says an empty amount is required', () => {
-    const values = { document: { ...paleAle, hops: [{ ...newHop(), name: 'Cascade', alphaPct: 6, timeMin: 10 }] }, message: 'x' };
+    const values = {
+      document: { ...paleAle, hops: [{ ...newHop(), name: 'Cascade', alphaPct: 6, timeMin: 10 }] },
+      message: 'x',
+    };
     const result = editorFormSchema('edit').safeParse(withoutEmpty(values));
     expect(result.error?.issues.map((issue) => [issue.path.join('.'), issue.message])).toEqual([
       ['document.hops.0.amountG', 'Hop amount is required'],
@@ -40,6 +43,10 @@ describe('editorFormSchema', () => {
 
 describe('withoutEmpty', () => {
   it('leaves out empty inputs at any depth and keeps everything else', () => {
-    expect(withoutEmpty({ a: null, b: 0, c: [{ d: null, e: '' }], f: { g: null } })).toEqual({ b: 0, c: [{ e: '' }], f: {} });
+    expect(withoutEmpty({ a: null, b: 0, c: [{ d: null, e: '' }], f: { g: null } })).toEqual({
+      b: 0,
+      c: [{ e: '' }],
+      f: {},
+    });
   });
 });

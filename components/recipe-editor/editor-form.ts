@@ -45,11 +45,24 @@ export function withoutEmpty<T>(value: T): T {
 }
 
 export function newFermentable(): RecipeDocumentInput['fermentables'][number] {
-  return { name: '', amountKg: emptyNumber(), potentialPpg: emptyNumber(), colorLovibond: emptyNumber(), kind: 'grain' };
+  return {
+    name: '',
+    amountKg: emptyNumber(),
+    potentialPpg: emptyNumber(),
+    colorLovibond: emptyNumber(),
+    kind: 'grain',
+  };
 }
 
 export function newHop(): RecipeDocumentInput['hops'][number] {
-  return { name: '', amountG: emptyNumber(), alphaPct: emptyNumber(), use: 'boil', timeMin: emptyNumber(), form: 'pellet' };
+  return {
+    name: '',
+    amountG: emptyNumber(),
+    alphaPct: emptyNumber(),
+    use: 'boil',
+    timeMin: emptyNumber(),
+    form: 'pellet',
+  };
 }
 
 export function newYeast(): RecipeDocumentInput['yeasts'][number] {

@@ -49,10 +49,26 @@ function usePartSwitch(path: OptionalPart, makeNew: () => PartValue) {
   return { on, toggle };
 }
 
-function PartCheckbox({ id, label, checked, onChange }: { id: string; label: string; checked: boolean; onChange: (on: boolean) => void }) {
+function PartCheckbox({
+  id,
+  label,
+  checked,
+  onChange,
+}: {
+  id: string;
+  label: string;
+  checked: boolean;
+  onChange: (on: boolean) => void;
+}) {
   return (
     <div className="flex items-center gap-2">
-      <input id={id} type="checkbox" className="h-5 w-5 accent-copper" checked={checked} onChange={(event) => onChange(event.target.checked)} />
+      <input
+        id={id}
+        type="checkbox"
+        className="h-5 w-5 accent-copper"
+        checked={checked}
+        onChange={(event) => onChange(event.target.checked)}
+      />
       <label htmlFor={id} className="font-sans text-sm font-semibold">
         {label}
       </label>
@@ -85,7 +101,9 @@ function WaterFields({ units }: { units: UnitSystem }) {
       />
       <fieldset>
         <legend className="kf-label">Source water</legend>
-        <p className="font-sans text-xs text-muted">From your water report; all zero for distilled or reverse-osmosis water.</p>
+        <p className="font-sans text-xs text-muted">
+          From your water report; all zero for distilled or reverse-osmosis water.
+        </p>
         <div className="mt-2 grid grid-cols-2 gap-3 sm:grid-cols-3">
           {ION_NAMES.map((ion) => (
             <NumberField key={ion} path={`document.water.source.${ion}`} label={ION_WORDS[ion]} unit={concentration} />
@@ -118,12 +136,20 @@ function WaterFields({ units }: { units: UnitSystem }) {
 export function CarbonationSection({ units }: { units: UnitSystem }) {
   const { on, toggle } = usePartSwitch('document.carbonation', newCarbonation);
   return (
-    <EditorSection id="carbonation" title="Carbonation" description="Optional. The numbers panel gives a keg pressure for it.">
+    <EditorSection
+      id="carbonation"
+      title="Carbonation"
+      description="Optional. The numbers panel gives a keg pressure for it."
+    >
       <PartCheckbox id="kf-carbonation-on" label="Include carbonation" checked={on} onChange={toggle} />
       {on && (
         <div className="mt-4 grid grid-cols-2 gap-3">
           <NumberField path="document.carbonation.volumesCO2" label="Carbonation" unit={plainUnit('volumes CO₂', 2)} />
-          <NumberField path="document.carbonation.servingTempC" label="Serving temperature" unit={fieldUnit('temperature', units)} />
+          <NumberField
+            path="document.carbonation.servingTempC"
+            label="Serving temperature"
+            unit={fieldUnit('temperature', units)}
+          />
         </div>
       )}
     </EditorSection>

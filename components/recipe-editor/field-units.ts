@@ -51,11 +51,21 @@ export function fieldUnit(quantity: ConvertedQuantity, units: UnitSystem): Field
     case 'litresPerKg':
       return metric
         ? plainUnit('L per kg', 2)
-        : { label: 'qt per lb', toDisplay: litresPerKgToQuartsPerLb, fromDisplay: quartsPerLbToLitresPerKg, decimals: 2 };
+        : {
+            label: 'qt per lb',
+            toDisplay: litresPerKgToQuartsPerLb,
+            fromDisplay: quartsPerLbToLitresPerKg,
+            decimals: 2,
+          };
   }
 }
 
-function converted(label: string, quantity: 'mass' | 'hopMass' | 'volume' | 'temperature', units: UnitSystem, decimals: number): FieldUnit {
+function converted(
+  label: string,
+  quantity: 'mass' | 'hopMass' | 'volume' | 'temperature',
+  units: UnitSystem,
+  decimals: number,
+): FieldUnit {
   return {
     label,
     toDisplay: (stored) => toDisplayUnits(stored, quantity, units),

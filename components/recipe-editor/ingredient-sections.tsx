@@ -67,7 +67,11 @@ export function FermentablesSection({ units }: { units: UnitSystem }) {
   const { fields, append, remove, move } = useFieldArray({ control, name: 'document.fermentables' });
   const potential = plainUnit('ppg', 1);
   return (
-    <EditorSection id="fermentables" title="Fermentables" description={`Malts, extracts, sugars and adjuncts. ${PICK_HINT}`}>
+    <EditorSection
+      id="fermentables"
+      title="Fermentables"
+      description={`Malts, extracts, sugars and adjuncts. ${PICK_HINT}`}
+    >
       <SuggestionList id="kf-fermentable-names" names={FERMENTABLE_SUGGESTIONS} />
       <RowList
         path="document.fermentables"
@@ -109,7 +113,11 @@ export function HopsSection({ units }: { units: UnitSystem }) {
   const { control } = useFormContext<EditorValues>();
   const { fields, append, remove, move } = useFieldArray({ control, name: 'document.hops' });
   return (
-    <EditorSection id="hops" title="Hops" description={`Every addition is its own row, even when the variety repeats. ${PICK_HINT}`}>
+    <EditorSection
+      id="hops"
+      title="Hops"
+      description={`Every addition is its own row, even when the variety repeats. ${PICK_HINT}`}
+    >
       <SuggestionList id="kf-hop-names" names={HOP_SUGGESTIONS} />
       <RowList
         path="document.hops"
@@ -178,7 +186,11 @@ export function YeastsSection({ units }: { units: UnitSystem }) {
   const { fields, append, remove, move } = useFieldArray({ control, name: 'document.yeasts' });
   const temperature = fieldUnit('temperature', units);
   return (
-    <EditorSection id="yeasts" title="Yeast" description={`With more than one yeast, the most attenuative sets the final gravity. ${PICK_HINT}`}>
+    <EditorSection
+      id="yeasts"
+      title="Yeast"
+      description={`With more than one yeast, the most attenuative sets the final gravity. ${PICK_HINT}`}
+    >
       <SuggestionList id="kf-yeast-names" names={YEAST_SUGGESTIONS} />
       <RowList
         path="document.yeasts"
@@ -208,8 +220,18 @@ export function YeastsSection({ units }: { units: UnitSystem }) {
             />
             <SelectField path={`document.yeasts.${i}.kind`} label="Kind" options={YEAST_KIND_OPTIONS} />
             <NumberField path={`document.yeasts.${i}.attenuationPct`} label="Attenuation" unit={plainUnit('%', 1)} />
-            <NumberField path={`document.yeasts.${i}.tempMinC`} label="Lowest temperature" unit={temperature} hint="Optional" />
-            <NumberField path={`document.yeasts.${i}.tempMaxC`} label="Highest temperature" unit={temperature} hint="Optional" />
+            <NumberField
+              path={`document.yeasts.${i}.tempMinC`}
+              label="Lowest temperature"
+              unit={temperature}
+              hint="Optional"
+            />
+            <NumberField
+              path={`document.yeasts.${i}.tempMaxC`}
+              label="Highest temperature"
+              unit={temperature}
+              hint="Optional"
+            />
           </div>
         )}
       />

@@ -35,7 +35,10 @@ export function useLiveStats(form: UseFormReturn<EditorValues, unknown, unknown>
     let timer: ReturnType<typeof setTimeout> | undefined;
     const subscription = watch(() => {
       clearTimeout(timer);
-      timer = setTimeout(() => setLive((previous) => evaluate(getValues('document'), previous.stats)), RECOMPUTE_DELAY_MS);
+      timer = setTimeout(
+        () => setLive((previous) => evaluate(getValues('document'), previous.stats)),
+        RECOMPUTE_DELAY_MS,
+      );
     });
     return () => {
       clearTimeout(timer);
@@ -57,7 +60,11 @@ function StaleNote({ issues }: { issues: FieldIssue[] }) {
       <ul className="mt-1 space-y-1">
         {issues.slice(0, ISSUES_SHOWN).map((issue) => (
           <li key={`${issue.path}:${issue.message}`}>
-            <button type="button" className="text-left text-copper-strong underline underline-offset-2" onClick={() => focusField(issue.path)}>
+            <button
+              type="button"
+              className="text-left text-copper-strong underline underline-offset-2"
+              onClick={() => focusField(issue.path)}
+            >
               {issue.message}
             </button>
           </li>
@@ -74,7 +81,9 @@ export function LiveNumbers({ live, units }: { live: LiveStats; units: UnitSyste
       <h2 id="numbers-title" className="text-xl font-semibold">
         Numbers
       </h2>
-      <p className="mb-3 font-sans text-xs text-muted">Worked out as you type, with the same formulas used when you save.</p>
+      <p className="mb-3 font-sans text-xs text-muted">
+        Worked out as you type, with the same formulas used when you save.
+      </p>
       {!live.current && <StaleNote issues={live.issues} />}
       {live.stats ? (
         <div className={live.current ? '' : 'opacity-60'}>

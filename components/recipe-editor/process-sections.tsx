@@ -24,7 +24,8 @@ export function StyleField() {
       render={({ field, fieldState }) => {
         const code = field.value?.code ?? '';
         const unknownCode = code !== '' && !findStyle(code);
-        const error = fieldState.error?.message ?? (fieldState.error as { code?: { message?: string } } | undefined)?.code?.message;
+        const error =
+          fieldState.error?.message ?? (fieldState.error as { code?: { message?: string } } | undefined)?.code?.message;
         return (
           <div>
             <label htmlFor={id} className="kf-label">
@@ -93,9 +94,15 @@ export function BatchSection({ units }: { units: UnitSystem }) {
         open={open || detailsHaveError}
         onToggle={(event) => setOpen(event.currentTarget.open)}
       >
-        <summary className="cursor-pointer font-sans text-sm font-semibold">Brewhouse details: losses and mash thickness</summary>
+        <summary className="cursor-pointer font-sans text-sm font-semibold">
+          Brewhouse details: losses and mash thickness
+        </summary>
         <div className="mt-3 grid grid-cols-2 gap-3 sm:grid-cols-4">
-          <NumberField path="document.batch.boilOffLPerHour" label="Boil-off rate" unit={fieldUnit('volumePerHour', units)} />
+          <NumberField
+            path="document.batch.boilOffLPerHour"
+            label="Boil-off rate"
+            unit={fieldUnit('volumePerHour', units)}
+          />
           <NumberField path="document.batch.trubLossL" label="Kettle trub loss" unit={volume} />
           <NumberField path="document.batch.grainAbsorptionLPerKg" label="Grain absorption" unit={thickness} />
           <NumberField path="document.batch.mashWaterLPerKg" label="Mash thickness" unit={thickness} />
@@ -109,7 +116,11 @@ export function MashSection({ units }: { units: UnitSystem }) {
   const { control } = useFormContext<EditorValues>();
   const { fields, append, remove, move } = useFieldArray({ control, name: 'document.mash.steps' });
   return (
-    <EditorSection id="mash" title="Mash" description="Rests between 60 and 72 °C (140–162 °F) set how fermentable the wort is.">
+    <EditorSection
+      id="mash"
+      title="Mash"
+      description="Rests between 60 and 72 °C (140–162 °F) set how fermentable the wort is."
+    >
       <RowList
         path="document.mash.steps"
         noun="mash step"
@@ -122,8 +133,18 @@ export function MashSection({ units }: { units: UnitSystem }) {
         emptyText="No mash steps: fine for an extract brew."
         renderRow={(i) => (
           <div className="grid grid-cols-2 gap-3 sm:grid-cols-3">
-            <TextField path={`document.mash.steps.${i}.name`} label="Step name" hint="Optional" optional className="col-span-2 sm:col-span-1" />
-            <NumberField path={`document.mash.steps.${i}.tempC`} label="Temperature" unit={fieldUnit('temperature', units)} />
+            <TextField
+              path={`document.mash.steps.${i}.name`}
+              label="Step name"
+              hint="Optional"
+              optional
+              className="col-span-2 sm:col-span-1"
+            />
+            <NumberField
+              path={`document.mash.steps.${i}.tempC`}
+              label="Temperature"
+              unit={fieldUnit('temperature', units)}
+            />
             <NumberField path={`document.mash.steps.${i}.timeMin`} label="Time" unit={plainUnit('min', 0)} />
           </div>
         )}
@@ -136,7 +157,11 @@ export function FermentationSection({ units }: { units: UnitSystem }) {
   const { control } = useFormContext<EditorValues>();
   const { fields, append, remove, move } = useFieldArray({ control, name: 'document.fermentation.steps' });
   return (
-    <EditorSection id="fermentation" title="Fermentation" description="Each step holds the beer at one temperature for some days.">
+    <EditorSection
+      id="fermentation"
+      title="Fermentation"
+      description="Each step holds the beer at one temperature for some days."
+    >
       <RowList
         path="document.fermentation.steps"
         noun="fermentation step"
@@ -148,7 +173,11 @@ export function FermentationSection({ units }: { units: UnitSystem }) {
         emptyText="No fermentation steps yet."
         renderRow={(i) => (
           <div className="grid grid-cols-2 gap-3">
-            <NumberField path={`document.fermentation.steps.${i}.tempC`} label="Temperature" unit={fieldUnit('temperature', units)} />
+            <NumberField
+              path={`document.fermentation.steps.${i}.tempC`}
+              label="Temperature"
+              unit={fieldUnit('temperature', units)}
+            />
             <NumberField path={`document.fermentation.steps.${i}.days`} label="Days" unit={plainUnit('', 1)} />
           </div>
         )}

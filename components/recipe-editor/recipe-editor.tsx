@@ -72,7 +72,9 @@ function alertFor(error: SaveError): FormAlert | null {
     case 404:
       return { message: serverMessage ?? 'This recipe no longer exists, or is no longer visible to you.' };
     default:
-      return error.status >= 400 && error.status < 500 ? { message: serverMessage ?? 'The recipe could not be saved.' } : null;
+      return error.status >= 400 && error.status < 500
+        ? { message: serverMessage ?? 'The recipe could not be saved.' }
+        : null;
   }
 }
 
@@ -98,7 +100,11 @@ export function RecipeEditor({
   const { isDirty } = form.formState;
   const live = useLiveStats(form);
 
-  const [base, setBase] = useState<BaseVersion>({ id: baseVersionId, number: baseVersionNumber, document: initialDocument });
+  const [base, setBase] = useState<BaseVersion>({
+    id: baseVersionId,
+    number: baseVersionNumber,
+    document: initialDocument,
+  });
   const attemptedBase = useRef<BaseVersion>(base);
   const [conflict, setConflict] = useState<HeadVersion | null>(null);
   const [alert, setAlert] = useState<FormAlert | null>(null);
@@ -129,7 +135,9 @@ export function RecipeEditor({
     setAlert({
       message: message ?? 'Some fields need a fix before the recipe can be saved.',
       details: [
-        ...(placed.length > 0 ? [`${placed.length === 1 ? 'One field is' : `${placed.length} fields are`} marked below.`] : []),
+        ...(placed.length > 0
+          ? [`${placed.length === 1 ? 'One field is' : `${placed.length} fields are`} marked below.`]
+          : []),
         ...unplaced.map((issue) => issue.message),
       ],
     });
@@ -146,7 +154,9 @@ export function RecipeEditor({
     },
     onError: (error) => {
       if (!(error instanceof SaveError) || error.status === 0 || error.status >= 500) {
-        toast.error('Saving did not work: the server did not answer. Your changes are still here; try again in a moment.');
+        toast.error(
+          'Saving did not work: the server did not answer. Your changes are still here; try again in a moment.',
+        );
         return;
       }
       const body = error.body?.error;
@@ -177,7 +187,11 @@ export function RecipeEditor({
           setAlert({ message: 'This editor does not know which version it edits. Reload the page and try again.' });
           return;
         }
-        request = { mode, recipeId, body: { document: values.document, baseVersionId: saveBase.id, message: values.message } };
+        request = {
+          mode,
+          recipeId,
+          body: { document: values.document, baseVersionId: saveBase.id, message: values.message },
+        };
       }
       mutation.mutate(request);
     })();
@@ -202,12 +216,17 @@ export function RecipeEditor({
               </a>
             ) : (
               `version ${base.number}`
-            )}. Saving
-            adds a new version; the earlier ones stay as they are.
+            )}
+            . Saving adds a new version; the earlier ones stay as they are.
           </p>
         )}
         {alert && (
-          <div ref={alertBox} role="alert" tabIndex={-1} className="mb-4 rounded-md border-2 border-danger bg-card p-4 font-sans text-sm">
+          <div
+            ref={alertBox}
+            role="alert"
+            tabIndex={-1}
+            className="mb-4 rounded-md border-2 border-danger bg-card p-4 font-sans text-sm"
+          >
             <p className="font-semibold text-danger">{alert.message}</p>
             {alert.details && alert.details.length > 0 && (
               <ul className="mt-1 ml-5 list-disc">

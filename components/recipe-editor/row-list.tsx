@@ -34,7 +34,18 @@ function focusById(...ids: string[]): void {
 }
 
 /** Rows of one list with add, remove and move controls that keep keyboard focus where the member is working. */
-export function RowList({ path, noun, keys, maxRows, namePath, onAdd, onMove, onRemove, renderRow, emptyText }: RowListProps) {
+export function RowList({
+  path,
+  noun,
+  keys,
+  maxRows,
+  namePath,
+  onAdd,
+  onMove,
+  onRemove,
+  renderRow,
+  emptyText,
+}: RowListProps) {
   const [announcement, setAnnouncement] = useState('');
   const addButton = useRef<HTMLButtonElement>(null);
   const list = useRef<HTMLOListElement>(null);
@@ -50,7 +61,9 @@ export function RowList({ path, noun, keys, maxRows, namePath, onAdd, onMove, on
   const add = () => {
     onAdd();
     // Focus moves into the new row, so the member types its name straight away.
-    requestAnimationFrame(() => list.current?.lastElementChild?.querySelector<HTMLElement>('input, select, textarea')?.focus());
+    requestAnimationFrame(() =>
+      list.current?.lastElementChild?.querySelector<HTMLElement>('input, select, textarea')?.focus(),
+    );
   };
 
   const remove = (index: number, rowName: string) => {

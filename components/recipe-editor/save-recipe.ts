@@ -32,7 +32,9 @@ export class SaveError extends Error {
     readonly status: number,
     readonly body: ApiErrorBody | null,
   ) {
-    super(body?.error?.message ?? (status === 0 ? 'The network did not answer' : `Saving failed with status ${status}`));
+    super(
+      body?.error?.message ?? (status === 0 ? 'The network did not answer' : `Saving failed with status ${status}`),
+    );
     this.name = 'SaveError';
   }
 }
@@ -42,7 +44,8 @@ export type SaveRequest =
   | { mode: 'edit'; recipeId: string; body: { document: RecipeDocument; baseVersionId: string; message: string } };
 
 export async function saveRecipe(request: SaveRequest): Promise<SavedVersion> {
-  const url = request.mode === 'create' ? '/api/recipes' : `/api/recipes/${encodeURIComponent(request.recipeId)}/versions`;
+  const url =
+    request.mode === 'create' ? '/api/recipes' : `/api/recipes/${encodeURIComponent(request.recipeId)}/versions`;
   let response: Response;
   try {
     response = await fetch(url, {
@@ -53,6 +56,7 @@ export async function saveRecipe(request: SaveRequest): Promise<SavedVersion> {
   } catch {
     throw new SaveError(0, null);
   }
-  if (!response.ok) throw new SaveError(response.status, (await response.json().catch(() => null)) as ApiErrorBody | null);
+  if (!response.ok)
+    throw new SaveError(response.status, (await response.json().catch(() => null)) as ApiErrorBody | null);
   return (await response.json()) as SavedVersion;
 }

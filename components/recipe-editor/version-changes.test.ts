@@ -25,7 +25,13 @@ describe('compareVersions', () => {
     const head = edited((doc) => {
       doc.fermentables[0].amountKg = 4.5;
       doc.fermentables.splice(2, 1);
-      doc.fermentables.push({ name: 'Flaked oats', amountKg: 0.3, potentialPpg: 32, colorLovibond: 1, kind: 'adjunct' });
+      doc.fermentables.push({
+        name: 'Flaked oats',
+        amountKg: 0.3,
+        potentialPpg: 32,
+        colorLovibond: 1,
+        kind: 'adjunct',
+      });
     });
     const { fermentables } = compareVersions(base, head, 'metric');
     expect(fermentables).toEqual([
@@ -42,7 +48,11 @@ describe('compareVersions', () => {
     });
     const { hops } = compareVersions(base, head, 'metric');
     expect(hops).toEqual([
-      { change: 'changed', name: 'Centennial (whirlpool)', fields: [{ label: 'temperature', from: '80 °C', to: '75 °C' }] },
+      {
+        change: 'changed',
+        name: 'Centennial (whirlpool)',
+        fields: [{ label: 'temperature', from: '80 °C', to: '75 °C' }],
+      },
       { change: 'changed', name: 'Cascade (dry hop)', fields: [{ label: 'amount', from: '50 g', to: '75 g' }] },
     ]);
   });

@@ -151,7 +151,11 @@ export function compareVersions(baseInput: Doc, headInput: Doc, units: UnitSyste
 
   return {
     title: textChange('Title', base.title, head.title),
-    style: textChange('Style', base.style && `${base.style.code} ${base.style.name}`, head.style && `${head.style.code} ${head.style.name}`),
+    style: textChange(
+      'Style',
+      base.style && `${base.style.code} ${base.style.name}`,
+      head.style && `${head.style.code} ${head.style.name}`,
+    ),
     fermentables: listChanges<Fermentable>(
       base.fermentables,
       head.fermentables,

@@ -27,40 +27,98 @@ interface DemoBrew {
 
 const demoBrews: DemoBrew[] = [
   {
-    recipe: 'millrace-pale', brewer: 'wren', brewedOn: '2025-03-08', ogOffset: -3, fgOffset: 1, fermentC: 19, packaging: 'keg',
+    recipe: 'millrace-pale',
+    brewer: 'wren',
+    brewedOn: '2025-03-08',
+    ogOffset: -3,
+    fgOffset: 1,
+    fermentC: 19,
+    packaging: 'keg',
     notes: 'First brew on the new false bottom. Sparge ran slow; **stirred once** and it cleared up.',
-    tasters: [{ handle: 'kofi', rating: 4, overall: 'Clean and bright; could take more late hops.', aroma: 'Orange peel, bread crust' }], photos: 2,
-  },
-  {
-    recipe: 'millrace-pale', brewer: 'dov', brewedOn: '2025-04-19', ogOffset: 2, fgOffset: 0, fermentC: 18, packaging: 'bottles',
-    notes: 'Brewed with softened tap water and a little gypsum. Hit the numbers.',
-    tasters: [{ handle: 'wren', rating: 5, overall: 'Better than mine.', aroma: 'Grapefruit, light caramel' }], photos: 1,
-  },
-  {
-    recipe: 'orchard-ipa', brewer: 'kofi', brewedOn: '2025-02-15', ogOffset: -5, fgOffset: 2, fermentC: 20, packaging: 'keg',
-    notes: 'Whirlpool at 80 °C for 20 minutes. Dry hop on day 4.',
-    tasters: [{ handle: 'bastian', rating: 4, overall: 'Juicy, a touch sweet.', aroma: 'Pine and peach' }], photos: 2,
-  },
-  {
-    recipe: 'orchard-ipa', brewer: 'ilse', brewedOn: '2025-05-03', ogOffset: 1, fgOffset: -1, fermentC: 19, packaging: 'bottles',
-    notes: 'Lost about a litre to hop trub.',
-    tasters: [], photos: 1,
-  },
-  {
-    recipe: 'lantern-stout', brewer: 'tamsin', brewedOn: '2025-01-11', ogOffset: -2, fgOffset: 2, fermentC: 18, packaging: 'keg',
-    notes: 'Oats stuck together in the mash; stir them in slowly next time.',
-    tasters: [{ handle: 'juniper', rating: 5, overall: 'Silky, roasty, dangerous.', aroma: 'Coffee, dark chocolate' }, { handle: 'hollis', rating: 4, overall: 'Lovely on nitro.', aroma: 'Roast' }],
+    tasters: [
+      {
+        handle: 'kofi',
+        rating: 4,
+        overall: 'Clean and bright; could take more late hops.',
+        aroma: 'Orange peel, bread crust',
+      },
+    ],
     photos: 2,
   },
   {
-    recipe: 'garage-kveik', brewer: 'bastian', brewedOn: '2025-06-21', ogOffset: 0, fgOffset: -1, fermentC: 34, packaging: 'keg',
-    notes: 'Pitched at 35 °C in the garage. Done in three days.',
-    tasters: [{ handle: 'dov', rating: 4, overall: 'Fast and clean.', aroma: 'Orange, tropical' }], photos: 1,
+    recipe: 'millrace-pale',
+    brewer: 'dov',
+    brewedOn: '2025-04-19',
+    ogOffset: 2,
+    fgOffset: 0,
+    fermentC: 18,
+    packaging: 'bottles',
+    notes: 'Brewed with softened tap water and a little gypsum. Hit the numbers.',
+    tasters: [{ handle: 'wren', rating: 5, overall: 'Better than mine.', aroma: 'Grapefruit, light caramel' }],
+    photos: 1,
   },
   {
-    recipe: 'weir-pils', brewer: 'agnieszka', brewedOn: '2025-02-01', ogOffset: -1, fgOffset: 1, fermentC: 10, packaging: 'keg',
+    recipe: 'orchard-ipa',
+    brewer: 'kofi',
+    brewedOn: '2025-02-15',
+    ogOffset: -5,
+    fgOffset: 2,
+    fermentC: 20,
+    packaging: 'keg',
+    notes: 'Whirlpool at 80 °C for 20 minutes. Dry hop on day 4.',
+    tasters: [{ handle: 'bastian', rating: 4, overall: 'Juicy, a touch sweet.', aroma: 'Pine and peach' }],
+    photos: 2,
+  },
+  {
+    recipe: 'orchard-ipa',
+    brewer: 'ilse',
+    brewedOn: '2025-05-03',
+    ogOffset: 1,
+    fgOffset: -1,
+    fermentC: 19,
+    packaging: 'bottles',
+    notes: 'Lost about a litre to hop trub.',
+    tasters: [],
+    photos: 1,
+  },
+  {
+    recipe: 'lantern-stout',
+    brewer: 'tamsin',
+    brewedOn: '2025-01-11',
+    ogOffset: -2,
+    fgOffset: 2,
+    fermentC: 18,
+    packaging: 'keg',
+    notes: 'Oats stuck together in the mash; stir them in slowly next time.',
+    tasters: [
+      { handle: 'juniper', rating: 5, overall: 'Silky, roasty, dangerous.', aroma: 'Coffee, dark chocolate' },
+      { handle: 'hollis', rating: 4, overall: 'Lovely on nitro.', aroma: 'Roast' },
+    ],
+    photos: 2,
+  },
+  {
+    recipe: 'garage-kveik',
+    brewer: 'bastian',
+    brewedOn: '2025-06-21',
+    ogOffset: 0,
+    fgOffset: -1,
+    fermentC: 34,
+    packaging: 'keg',
+    notes: 'Pitched at 35 °C in the garage. Done in three days.',
+    tasters: [{ handle: 'dov', rating: 4, overall: 'Fast and clean.', aroma: 'Orange, tropical' }],
+    photos: 1,
+  },
+  {
+    recipe: 'weir-pils',
+    brewer: 'agnieszka',
+    brewedOn: '2025-02-01',
+    ogOffset: -1,
+    fgOffset: 1,
+    fermentC: 10,
+    packaging: 'keg',
     notes: 'Lagered six weeks in the cold cellar.',
-    tasters: [{ handle: 'ottoline', rating: 5, overall: 'Crisp. Proper.', aroma: 'Floral, spicy hops' }], photos: 1,
+    tasters: [{ handle: 'ottoline', rating: 5, overall: 'Crisp. Proper.', aroma: 'Floral, spicy hops' }],
+    photos: 1,
   },
 ];
 
@@ -168,11 +226,24 @@ export async function seedBrewDays(ctx: SeedContext): Promise<void> {
       await addTasting(
         member(t.handle),
         id,
-        tastingSchema.parse({ tastedOn: addDays(packagedOn, 10), appearance: 'Clear, good head', aroma: t.aroma, flavour: '', mouthfeel: 'Medium body', overall: t.overall, rating: t.rating }),
+        tastingSchema.parse({
+          tastedOn: addDays(packagedOn, 10),
+          appearance: 'Clear, good head',
+          aroma: t.aroma,
+          flavour: '',
+          mouthfeel: 'Medium body',
+          overall: t.overall,
+          rating: t.rating,
+        }),
       );
     }
     for (let p = 0; p < brew.photos; p += 1) {
-      await uploadPhoto(brewer, id, await drawGlass(srmToHex(version.stats.srm), index * 10 + p), p === 0 ? 'Poured on tasting day' : 'A second glass, later');
+      await uploadPhoto(
+        brewer,
+        id,
+        await drawGlass(srmToHex(version.stats.srm), index * 10 + p),
+        p === 0 ? 'Poured on tasting day' : 'A second glass, later',
+      );
     }
     count += 1;
   }

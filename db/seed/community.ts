@@ -50,17 +50,42 @@ export async function seedCommunity(ctx: SeedContext): Promise<void> {
     parentId: question.comment.id,
     body: 'Straight to the sparge: at this volume the mash-out step made no difference I could taste.',
   });
-  await addComment(member('bastian'), pale, { body: 'Brewed it with kveik at 35 °C. Done in four days and still clean.' });
-  await addComment(member('dov'), recipe('lantern-stout'), { body: 'What water profile do you aim for? I ended up with a mash pH of 5.1.' });
-  await addComment(member('tamsin'), recipe('lantern-stout'), { body: 'A little chalk in the mash brings it up; aim for 5.4.' });
+  await addComment(member('bastian'), pale, {
+    body: 'Brewed it with kveik at 35 °C. Done in four days and still clean.',
+  });
+  await addComment(member('dov'), recipe('lantern-stout'), {
+    body: 'What water profile do you aim for? I ended up with a mash pH of 5.1.',
+  });
+  await addComment(member('tamsin'), recipe('lantern-stout'), {
+    body: 'A little chalk in the mash brings it up; aim for 5.4.',
+  });
 
   // Spam for the moderators: a reported recipe, a reported comment and a comment held for review.
   const spamly = member('spamly');
   const spam = recipe('spam');
-  await createReport(member('wren'), { targetType: 'recipe', targetId: spam, reason: 'spam', note: 'Advertising watches, not a recipe.' });
+  await createReport(member('wren'), {
+    targetType: 'recipe',
+    targetId: spam,
+    reason: 'spam',
+    note: 'Advertising watches, not a recipe.',
+  });
   await createReport(member('bastian'), { targetType: 'recipe', targetId: spam, reason: 'spam', note: '' });
-  const pitch = await addComment(spamly, pale, { body: 'Great recipe!!! Brewers save big on luxury watches, message me' });
-  await createReport(member('ilse'), { targetType: 'comment', targetId: pitch.comment.id, reason: 'spam', note: 'Same account as the watch recipe.' });
-  await addComment(spamly, recipe('lantern-stout'), { body: 'Best prices here: [cheap watches](https://deals.example/watches)' });
-  await createReport(member('hollis'), { targetType: 'member', targetId: spamly.id, reason: 'spam', note: 'Every post is an advert.' });
+  const pitch = await addComment(spamly, pale, {
+    body: 'Great recipe!!! Brewers save big on luxury watches, message me',
+  });
+  await createReport(member('ilse'), {
+    targetType: 'comment',
+    targetId: pitch.comment.id,
+    reason: 'spam',
+    note: 'Same account as the watch recipe.',
+  });
+  await addComment(spamly, recipe('lantern-stout'), {
+    body: 'Best prices here: [cheap watches](https://deals.example/watches)',
+  });
+  await createReport(member('hollis'), {
+    targetType: 'member',
+    targetId: spamly.id,
+    reason: 'spam',
+    note: 'Every post is an advert.',
+  });
 }

@@ -26,7 +26,11 @@ export async function seedProposals(ctx: SeedContext): Promise<void> {
     description:
       'Fermented warm with kveik the pale finished thin, so I mashed at 68 °C. A hotter mash gave it the body it lacked, and it was ready in a week.\n\n- Kveik at 32 °C for 5 days\n- Mash at 68 °C',
   });
-  await addProposalComment(member('wren'), kveik.id, 'I like it. I mashed a degree cooler meanwhile, so the mash temperature needs a choice. Let me brew it first.');
+  await addProposalComment(
+    member('wren'),
+    kveik.id,
+    'I like it. I mashed a degree cooler meanwhile, so the mash temperature needs a choice. Let me brew it first.',
+  );
   await addProposalComment(member('bastian'), kveik.id, 'Fair. Pitch it warm, it really does want 30 °C or more.');
 
   const honey = await openProposal(member('rufus'), {

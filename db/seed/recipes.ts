@@ -18,7 +18,14 @@ export function malt(id: string, amountKg: number) {
 export function hop(id: string, amountG: number, use: HopUse, timeMin: number) {
   const h = findCatalogueHop(id);
   if (!h) throw new Error(`unknown hop ${id}`);
-  return { name: h.name, amountG, alphaPct: Math.round(((h.alphaPctMin + h.alphaPctMax) / 2) * 10) / 10, use, timeMin, form: 'pellet' as const };
+  return {
+    name: h.name,
+    amountG,
+    alphaPct: Math.round(((h.alphaPctMin + h.alphaPctMax) / 2) * 10) / 10,
+    use,
+    timeMin,
+    form: 'pellet' as const,
+  };
 }
 
 export function yeast(id: string) {
@@ -51,7 +58,10 @@ export interface DemoRecipe {
 const batch = (volumeL = 20, efficiencyPct = 72) => ({ volumeL, boilTimeMin: 60, efficiencyPct });
 const singleInfusion = (tempC = 66) => ({ steps: [{ name: 'Saccharification', tempC, timeMin: 60 }] });
 const ferment = (tempC: number, days = 14) => ({ steps: [{ tempC, days }] });
-const softWater = (volumeL: number, salts: { salt: 'gypsum' | 'epsom' | 'table_salt' | 'calcium_chloride' | 'baking_soda'; grams: number }[]) => ({
+const softWater = (
+  volumeL: number,
+  salts: { salt: 'gypsum' | 'epsom' | 'table_salt' | 'calcium_chloride' | 'baking_soda'; grams: number }[],
+) => ({
   volumeL,
   source: { calcium: 18, magnesium: 4, sodium: 9, chloride: 14, sulfate: 16, bicarbonate: 45 },
   salts,
@@ -65,14 +75,23 @@ export const demoRecipes: DemoRecipe[] = [
       title: 'Millrace Pale Ale',
       batch: batch(),
       fermentables: [malt('pale-ale-malt', 4.3), malt('munich-malt', 0.4), malt('crystal-40', 0.25)],
-      hops: [hop('magnum', 14, 'boil', 60), hop('cascade', 25, 'boil', 10), hop('centennial', 30, 'whirlpool', 20), hop('cascade', 50, 'dry_hop', 4320)],
+      hops: [
+        hop('magnum', 14, 'boil', 60),
+        hop('cascade', 25, 'boil', 10),
+        hop('centennial', 30, 'whirlpool', 20),
+        hop('cascade', 50, 'dry_hop', 4320),
+      ],
       yeasts: [yeast('clean-ale')],
       mash: singleInfusion(66),
       fermentation: ferment(18),
-      water: softWater(30, [{ salt: 'gypsum', grams: 5 }, { salt: 'calcium_chloride', grams: 2 }]),
+      water: softWater(30, [
+        { salt: 'gypsum', grams: 5 },
+        { salt: 'calcium_chloride', grams: 2 },
+      ]),
       carbonation: { volumesCO2: 2.4, servingTempC: 4 },
       style: style('18B'),
-      notes: 'Our shed pale ale. Grapefruit from the dry hop, a firm but clean bitterness.\n\n- Chill to 18 °C before pitching.\n- Dry hop on day 4.',
+      notes:
+        'Our shed pale ale. Grapefruit from the dry hop, a firm but clean bitterness.\n\n- Chill to 18 °C before pitching.\n- Dry hop on day 4.',
     },
     versions: [
       { message: 'More whirlpool Centennial for a fuller aroma', change: (d) => void (d.hops[2].amountG = 45) },
@@ -86,16 +105,30 @@ export const demoRecipes: DemoRecipe[] = [
       title: 'Orchard Gate IPA',
       batch: batch(21),
       fermentables: [malt('pale-ale-malt', 5.6), malt('wheat-malt', 0.4), malt('crystal-10', 0.3)],
-      hops: [hop('columbus', 18, 'boil', 60), hop('centennial', 30, 'boil', 15), hop('chinook', 40, 'whirlpool', 20), hop('cascade', 60, 'dry_hop', 5760), hop('centennial', 40, 'dry_hop', 5760)],
+      hops: [
+        hop('columbus', 18, 'boil', 60),
+        hop('centennial', 30, 'boil', 15),
+        hop('chinook', 40, 'whirlpool', 20),
+        hop('cascade', 60, 'dry_hop', 5760),
+        hop('centennial', 40, 'dry_hop', 5760),
+      ],
       yeasts: [yeast('clean-ale')],
       mash: singleInfusion(65),
       fermentation: ferment(19),
-      water: softWater(32, [{ salt: 'gypsum', grams: 8 }, { salt: 'epsom', grams: 2 }]),
+      water: softWater(32, [
+        { salt: 'gypsum', grams: 8 },
+        { salt: 'epsom', grams: 2 },
+      ]),
       carbonation: { volumesCO2: 2.5, servingTempC: 4 },
       style: style('21A'),
       notes: 'Piney and resinous. Keep the crystal low; let the hops talk.',
     },
-    versions: [{ message: 'Added a first-wort charge of Chinook', change: (d) => void d.hops.unshift(hop('chinook', 15, 'first_wort', 60)) }],
+    versions: [
+      {
+        message: 'Added a first-wort charge of Chinook',
+        change: (d) => void d.hops.unshift(hop('chinook', 15, 'first_wort', 60)),
+      },
+    ],
   },
   {
     key: 'lantern-stout',
@@ -103,7 +136,13 @@ export const demoRecipes: DemoRecipe[] = [
     document: {
       title: 'Lantern Oatmeal Stout',
       batch: batch(),
-      fermentables: [malt('pale-ale-malt', 3.8), malt('flaked-oats', 0.6), malt('chocolate-malt', 0.35), malt('roast-barley', 0.3), malt('crystal-60', 0.3)],
+      fermentables: [
+        malt('pale-ale-malt', 3.8),
+        malt('flaked-oats', 0.6),
+        malt('chocolate-malt', 0.35),
+        malt('roast-barley', 0.3),
+        malt('crystal-60', 0.3),
+      ],
       hops: [hop('east-kent-golding', 40, 'boil', 60), hop('fuggle', 20, 'boil', 15)],
       yeasts: [yeast('english-ale')],
       mash: singleInfusion(68),
@@ -124,11 +163,31 @@ export const demoRecipes: DemoRecipe[] = [
       title: 'Weir House Pils',
       batch: batch(23, 75),
       fermentables: [malt('pilsner-malt', 4.6)],
-      hops: [hop('hallertau-mittelfrueh', 30, 'boil', 60), hop('saaz', 30, 'boil', 20), hop('saaz', 30, 'whirlpool', 10)],
+      hops: [
+        hop('hallertau-mittelfrueh', 30, 'boil', 60),
+        hop('saaz', 30, 'boil', 20),
+        hop('saaz', 30, 'whirlpool', 10),
+      ],
       yeasts: [yeast('lager')],
-      mash: { steps: [{ name: 'Protein rest', tempC: 52, timeMin: 10 }, { name: 'Saccharification', tempC: 64, timeMin: 60 }, { name: 'Mash-out', tempC: 76, timeMin: 10 }] },
-      fermentation: { steps: [{ tempC: 10, days: 14 }, { tempC: 16, days: 3 }, { tempC: 1, days: 28 }] },
-      water: { volumeL: 34, source: { calcium: 8, magnesium: 2, sodium: 4, chloride: 6, sulfate: 5, bicarbonate: 15 }, salts: [{ salt: 'calcium_chloride', grams: 2 }] },
+      mash: {
+        steps: [
+          { name: 'Protein rest', tempC: 52, timeMin: 10 },
+          { name: 'Saccharification', tempC: 64, timeMin: 60 },
+          { name: 'Mash-out', tempC: 76, timeMin: 10 },
+        ],
+      },
+      fermentation: {
+        steps: [
+          { tempC: 10, days: 14 },
+          { tempC: 16, days: 3 },
+          { tempC: 1, days: 28 },
+        ],
+      },
+      water: {
+        volumeL: 34,
+        source: { calcium: 8, magnesium: 2, sodium: 4, chloride: 6, sulfate: 5, bicarbonate: 15 },
+        salts: [{ salt: 'calcium_chloride', grams: 2 }],
+      },
       carbonation: { volumesCO2: 2.6, servingTempC: 4 },
       style: style('5D'),
       notes: 'Crisp, floral, patient. The long cold rest is the recipe.',
@@ -176,7 +235,12 @@ export const demoRecipes: DemoRecipe[] = [
       hops: [hop('saaz', 30, 'boil', 60), hop('saaz', 25, 'boil', 5)],
       yeasts: [yeast('saison')],
       mash: singleInfusion(64),
-      fermentation: { steps: [{ tempC: 22, days: 3 }, { tempC: 27, days: 11 }] },
+      fermentation: {
+        steps: [
+          { tempC: 22, days: 3 },
+          { tempC: 27, days: 11 },
+        ],
+      },
       carbonation: { volumesCO2: 3.0, servingTempC: 8 },
       style: style('25B'),
       notes: 'Let it free-rise. Peppery, dry, thirst-quenching.',
@@ -188,11 +252,21 @@ export const demoRecipes: DemoRecipe[] = [
     document: {
       title: 'Stovetop Dubbel',
       batch: batch(19),
-      fermentables: [malt('pilsner-malt', 4.4), malt('munich-malt', 0.6), malt('crystal-120', 0.2), malt('table-sugar', 0.5)],
+      fermentables: [
+        malt('pilsner-malt', 4.4),
+        malt('munich-malt', 0.6),
+        malt('crystal-120', 0.2),
+        malt('table-sugar', 0.5),
+      ],
       hops: [hop('tettnang', 30, 'boil', 60)],
       yeasts: [yeast('belgian-ale')],
       mash: singleInfusion(66),
-      fermentation: { steps: [{ tempC: 19, days: 4 }, { tempC: 23, days: 10 }] },
+      fermentation: {
+        steps: [
+          { tempC: 19, days: 4 },
+          { tempC: 23, days: 10 },
+        ],
+      },
       carbonation: { volumesCO2: 2.8, servingTempC: 10 },
       style: style('26B'),
       notes: 'Dark fruit and caramel. Sugar goes in at flame-out.',
@@ -204,12 +278,21 @@ export const demoRecipes: DemoRecipe[] = [
     document: {
       title: 'Signal Box Porter',
       batch: batch(),
-      fermentables: [malt('pale-ale-malt', 4.0), malt('munich-malt', 0.5), malt('chocolate-malt', 0.35), malt('crystal-60', 0.35), malt('black-malt', 0.1)],
+      fermentables: [
+        malt('pale-ale-malt', 4.0),
+        malt('munich-malt', 0.5),
+        malt('chocolate-malt', 0.35),
+        malt('crystal-60', 0.35),
+        malt('black-malt', 0.1),
+      ],
       hops: [hop('northern-brewer', 25, 'boil', 60), hop('willamette', 25, 'boil', 15)],
       yeasts: [yeast('clean-ale')],
       mash: singleInfusion(67),
       fermentation: ferment(18),
-      water: softWater(30, [{ salt: 'calcium_chloride', grams: 4 }, { salt: 'baking_soda', grams: 2 }]),
+      water: softWater(30, [
+        { salt: 'calcium_chloride', grams: 4 },
+        { salt: 'baking_soda', grams: 2 },
+      ]),
       carbonation: { volumesCO2: 2.2, servingTempC: 8 },
       style: style('20A'),
       notes: 'A little baking soda keeps the dark malts from tasting sharp in our soft water.',
@@ -256,7 +339,12 @@ export const demoRecipes: DemoRecipe[] = [
       hops: [hop('hallertau-mittelfrueh', 25, 'boil', 60), hop('tettnang', 15, 'boil', 15)],
       yeasts: [yeast('lager')],
       mash: singleInfusion(65),
-      fermentation: { steps: [{ tempC: 10, days: 14 }, { tempC: 1, days: 30 }] },
+      fermentation: {
+        steps: [
+          { tempC: 10, days: 14 },
+          { tempC: 1, days: 30 },
+        ],
+      },
       carbonation: { volumesCO2: 2.5, servingTempC: 4 },
       style: style('4A'),
       notes: 'Bready, soft, a whisper of hops.',
@@ -275,7 +363,8 @@ export const demoRecipes: DemoRecipe[] = [
       fermentation: ferment(18, 10),
       carbonation: { volumesCO2: 2.5, servingTempC: 5 },
       style: style('18A'),
-      notes: 'A porch beer for people who say they do not like beer. Bright, soft, a little honeyed from the Vienna malt.',
+      notes:
+        'A porch beer for people who say they do not like beer. Bright, soft, a little honeyed from the Vienna malt.',
     },
     versions: [
       { message: 'Dropped the crystal; it was too sweet', change: (d) => void d.fermentables.splice(2, 1) },
@@ -289,18 +378,31 @@ export const demoRecipes: DemoRecipe[] = [
       title: 'Ridgeline Double IPA',
       batch: batch(20, 70),
       fermentables: [malt('pale-ale-malt', 6.3), malt('table-sugar', 0.5), malt('crystal-10', 0.2)],
-      hops: [hop('columbus', 40, 'boil', 60), hop('centennial', 40, 'boil', 10), hop('chinook', 60, 'whirlpool', 20), hop('cascade', 80, 'dry_hop', 4320), hop('centennial', 60, 'dry_hop', 4320)],
+      hops: [
+        hop('columbus', 40, 'boil', 60),
+        hop('centennial', 40, 'boil', 10),
+        hop('chinook', 60, 'whirlpool', 20),
+        hop('cascade', 80, 'dry_hop', 4320),
+        hop('centennial', 60, 'dry_hop', 4320),
+      ],
       yeasts: [yeast('clean-ale')],
       mash: singleInfusion(63),
       fermentation: ferment(19),
-      water: softWater(34, [{ salt: 'gypsum', grams: 10 }, { salt: 'calcium_chloride', grams: 2 }]),
+      water: softWater(34, [
+        { salt: 'gypsum', grams: 10 },
+        { salt: 'calcium_chloride', grams: 2 },
+      ]),
       carbonation: { volumesCO2: 2.5, servingTempC: 4 },
       style: style('22A'),
-      notes: 'Big, resinous and dangerously drinkable. Sugar keeps it dry; dry hop on day 5 while the yeast is still awake to limit hop creep.',
+      notes:
+        'Big, resinous and dangerously drinkable. Sugar keeps it dry; dry hop on day 5 while the yeast is still awake to limit hop creep.',
     },
     versions: [
       { message: 'Whirlpool at a cooler 77 °C for softer bitterness', change: (d) => void (d.hops[2].tempC = 77) },
-      { message: 'Shortened the dry hop to two days: grassy at three', change: (d) => void d.hops.filter((h) => h.use === 'dry_hop').forEach((h) => (h.timeMin = 2880)) },
+      {
+        message: 'Shortened the dry hop to two days: grassy at three',
+        change: (d) => void d.hops.filter((h) => h.use === 'dry_hop').forEach((h) => (h.timeMin = 2880)),
+      },
     ],
   },
   {
@@ -310,7 +412,12 @@ export const demoRecipes: DemoRecipe[] = [
       title: 'Towpath English IPA',
       batch: batch(19),
       fermentables: [malt('pale-ale-malt', 4.5), malt('crystal-60', 0.3), malt('table-sugar', 0.2)],
-      hops: [hop('northern-brewer', 30, 'boil', 60), hop('east-kent-golding', 40, 'boil', 15), hop('fuggle', 30, 'boil', 5), hop('east-kent-golding', 30, 'dry_hop', 4320)],
+      hops: [
+        hop('northern-brewer', 30, 'boil', 60),
+        hop('east-kent-golding', 40, 'boil', 15),
+        hop('fuggle', 30, 'boil', 5),
+        hop('east-kent-golding', 30, 'dry_hop', 4320),
+      ],
       yeasts: [{ ...yeast('english-ale'), name: 'Dry English ale yeast', attenuationPct: 74 }],
       mash: singleInfusion(64),
       fermentation: ferment(19),
@@ -319,7 +426,12 @@ export const demoRecipes: DemoRecipe[] = [
       style: style('12C'),
       notes: 'Earthy, marmalade and a firm, mineral bitterness from the gypsum.',
     },
-    versions: [{ message: 'Swapped the flame-out Fuggle for more Golding', change: (d) => void (d.hops[2] = hop('east-kent-golding', 30, 'boil', 5)) }],
+    versions: [
+      {
+        message: 'Swapped the flame-out Fuggle for more Golding',
+        change: (d) => void (d.hops[2] = hop('east-kent-golding', 30, 'boil', 5)),
+      },
+    ],
   },
   {
     key: 'chapel-irish-stout',
@@ -332,13 +444,19 @@ export const demoRecipes: DemoRecipe[] = [
       yeasts: [yeast('clean-ale')],
       mash: singleInfusion(65),
       fermentation: ferment(19, 10),
-      water: softWater(28, [{ salt: 'calcium_chloride', grams: 2 }, { salt: 'baking_soda', grams: 1 }]),
+      water: softWater(28, [
+        { salt: 'calcium_chloride', grams: 2 },
+        { salt: 'baking_soda', grams: 1 },
+      ]),
       carbonation: { volumesCO2: 1.9, servingTempC: 8 },
       style: style('15B'),
       notes: 'Roasty, dry, light in body. A pint you can drink all evening.',
     },
     versions: [
-      { message: 'A little more roast barley for a darker head', change: (d) => void (d.fermentables[2].amountKg = 0.55) },
+      {
+        message: 'A little more roast barley for a darker head',
+        change: (d) => void (d.fermentables[2].amountKg = 0.55),
+      },
       { message: 'Mashed cooler for a drier finish', change: (d) => void (d.mash.steps[0].tempC = 64) },
     ],
   },
@@ -348,15 +466,26 @@ export const demoRecipes: DemoRecipe[] = [
     document: {
       title: 'Foundry Yard American Stout',
       batch: batch(20),
-      fermentables: [malt('pale-ale-malt', 4.5), malt('munich-malt', 0.4), malt('chocolate-malt', 0.4), malt('roast-barley', 0.35), malt('crystal-60', 0.3)],
+      fermentables: [
+        malt('pale-ale-malt', 4.5),
+        malt('munich-malt', 0.4),
+        malt('chocolate-malt', 0.4),
+        malt('roast-barley', 0.35),
+        malt('crystal-60', 0.3),
+      ],
       hops: [hop('chinook', 25, 'boil', 60), hop('cascade', 30, 'boil', 10), hop('cascade', 30, 'whirlpool', 15)],
       yeasts: [yeast('clean-ale')],
       mash: singleInfusion(67),
       fermentation: ferment(18),
-      water: softWater(32, [{ salt: 'calcium_chloride', grams: 3 }, { salt: 'gypsum', grams: 2 }, { salt: 'baking_soda', grams: 2 }]),
+      water: softWater(32, [
+        { salt: 'calcium_chloride', grams: 3 },
+        { salt: 'gypsum', grams: 2 },
+        { salt: 'baking_soda', grams: 2 },
+      ]),
       carbonation: { volumesCO2: 2.3, servingTempC: 7 },
       style: style('20B'),
-      notes: 'Coffee-dark with a citrus edge from the American hops. Baking soda keeps the roast smooth in our soft water.',
+      notes:
+        'Coffee-dark with a citrus edge from the American hops. Baking soda keeps the roast smooth in our soft water.',
     },
     versions: [{ message: 'More whirlpool Cascade', change: (d) => void (d.hops[2].amountG = 45) }],
   },
@@ -370,8 +499,20 @@ export const demoRecipes: DemoRecipe[] = [
       hops: [hop('hallertau-mittelfrueh', 36, 'boil', 60), hop('tettnang', 15, 'boil', 10)],
       yeasts: [{ ...yeast('clean-ale'), name: 'Clean ale yeast, cool-fermented' }],
       mash: singleInfusion(65),
-      fermentation: { steps: [{ tempC: 15, days: 10 }, { tempC: 2, days: 21 }] },
-      water: { volumeL: 32, source: { calcium: 8, magnesium: 2, sodium: 4, chloride: 6, sulfate: 5, bicarbonate: 15 }, salts: [{ salt: 'calcium_chloride', grams: 2 }, { salt: 'gypsum', grams: 1 }] },
+      fermentation: {
+        steps: [
+          { tempC: 15, days: 10 },
+          { tempC: 2, days: 21 },
+        ],
+      },
+      water: {
+        volumeL: 32,
+        source: { calcium: 8, magnesium: 2, sodium: 4, chloride: 6, sulfate: 5, bicarbonate: 15 },
+        salts: [
+          { salt: 'calcium_chloride', grams: 2 },
+          { salt: 'gypsum', grams: 1 },
+        ],
+      },
       carbonation: { volumesCO2: 2.6, servingTempC: 5 },
       style: style('5B'),
       notes: 'An ale brewed like a lager: cool and then a long cold rest. Crisp, faintly fruity.',
@@ -383,11 +524,28 @@ export const demoRecipes: DemoRecipe[] = [
     document: {
       title: 'Harvest Supper Märzen',
       batch: batch(22, 74),
-      fermentables: [malt('munich-malt', 2.8), malt('vienna-malt', 2.0), malt('pilsner-malt', 1.0), malt('crystal-40', 0.2)],
+      fermentables: [
+        malt('munich-malt', 2.8),
+        malt('vienna-malt', 2.0),
+        malt('pilsner-malt', 1.0),
+        malt('crystal-40', 0.2),
+      ],
       hops: [hop('hallertau-mittelfrueh', 35, 'boil', 60), hop('tettnang', 15, 'boil', 20)],
       yeasts: [yeast('lager')],
-      mash: { steps: [{ name: 'Beta rest', tempC: 63, timeMin: 40 }, { name: 'Alpha rest', tempC: 70, timeMin: 30 }, { name: 'Mash-out', tempC: 76, timeMin: 10 }] },
-      fermentation: { steps: [{ tempC: 10, days: 14 }, { tempC: 15, days: 3 }, { tempC: 1, days: 42 }] },
+      mash: {
+        steps: [
+          { name: 'Beta rest', tempC: 63, timeMin: 40 },
+          { name: 'Alpha rest', tempC: 70, timeMin: 30 },
+          { name: 'Mash-out', tempC: 76, timeMin: 10 },
+        ],
+      },
+      fermentation: {
+        steps: [
+          { tempC: 10, days: 14 },
+          { tempC: 15, days: 3 },
+          { tempC: 1, days: 42 },
+        ],
+      },
       carbonation: { volumesCO2: 2.5, servingTempC: 6 },
       style: style('6A'),
       notes: 'Toasty and clean. Brewed in spring, tapped when the leaves turn.',
@@ -400,11 +558,21 @@ export const demoRecipes: DemoRecipe[] = [
     document: {
       title: 'Cellar Steps Dunkel',
       batch: batch(22, 74),
-      fermentables: [malt('munich-malt', 4.4), malt('pilsner-malt', 0.5), malt('chocolate-malt', 0.12), malt('crystal-60', 0.2)],
+      fermentables: [
+        malt('munich-malt', 4.4),
+        malt('pilsner-malt', 0.5),
+        malt('chocolate-malt', 0.12),
+        malt('crystal-60', 0.2),
+      ],
       hops: [hop('hallertau-mittelfrueh', 42, 'boil', 60)],
       yeasts: [yeast('lager')],
       mash: singleInfusion(67),
-      fermentation: { steps: [{ tempC: 10, days: 14 }, { tempC: 2, days: 35 }] },
+      fermentation: {
+        steps: [
+          { tempC: 10, days: 14 },
+          { tempC: 2, days: 35 },
+        ],
+      },
       carbonation: { volumesCO2: 2.4, servingTempC: 7 },
       style: style('8A'),
       notes: 'Bread crust and a whisper of cocoa. Munich malt does nearly all the work.',
@@ -416,16 +584,32 @@ export const demoRecipes: DemoRecipe[] = [
     document: {
       title: 'Lamplighter Doppelbock',
       batch: batch(19, 68),
-      fermentables: [malt('munich-malt', 5.2), malt('pilsner-malt', 2.2), malt('crystal-60', 0.3), malt('chocolate-malt', 0.05)],
+      fermentables: [
+        malt('munich-malt', 5.2),
+        malt('pilsner-malt', 2.2),
+        malt('crystal-60', 0.3),
+        malt('chocolate-malt', 0.05),
+      ],
       hops: [hop('hallertau-mittelfrueh', 45, 'boil', 60)],
       yeasts: [yeast('lager')],
       mash: singleInfusion(67),
-      fermentation: { steps: [{ tempC: 10, days: 21 }, { tempC: 14, days: 3 }, { tempC: 0, days: 60 }] },
+      fermentation: {
+        steps: [
+          { tempC: 10, days: 21 },
+          { tempC: 14, days: 3 },
+          { tempC: 0, days: 60 },
+        ],
+      },
       carbonation: { volumesCO2: 2.3, servingTempC: 8 },
       style: style('9A'),
       notes: 'Rich, malty, warming. Pitch plenty of healthy lager yeast and give it months.',
     },
-    versions: [{ message: 'Less crystal, more Munich', change: (d) => void ((d.fermentables[2].amountKg = 0.15), (d.fermentables[0].amountKg = 5.4)) }],
+    versions: [
+      {
+        message: 'Less crystal, more Munich',
+        change: (d) => void ((d.fermentables[2].amountKg = 0.15), (d.fermentables[0].amountKg = 5.4)),
+      },
+    ],
   },
   {
     key: 'dusk-dunkelweizen',
@@ -433,7 +617,12 @@ export const demoRecipes: DemoRecipe[] = [
     document: {
       title: 'Dusk Dunkelweizen',
       batch: batch(20),
-      fermentables: [malt('wheat-malt', 2.6), malt('munich-malt', 1.6), malt('crystal-60', 0.2), malt('chocolate-malt', 0.08)],
+      fermentables: [
+        malt('wheat-malt', 2.6),
+        malt('munich-malt', 1.6),
+        malt('crystal-60', 0.2),
+        malt('chocolate-malt', 0.08),
+      ],
       hops: [hop('hallertau-mittelfrueh', 20, 'boil', 60)],
       yeasts: [yeast('wheat-beer')],
       mash: singleInfusion(66),
@@ -456,7 +645,8 @@ export const demoRecipes: DemoRecipe[] = [
       fermentation: ferment(20, 10),
       carbonation: { volumesCO2: 2.7, servingTempC: 5 },
       style: style('24A'),
-      notes: 'Add 12 g crushed coriander seed and 15 g sweet orange peel for the last 5 minutes of the boil (spices are not part of the numbers).',
+      notes:
+        'Add 12 g crushed coriander seed and 15 g sweet orange peel for the last 5 minutes of the boil (spices are not part of the numbers).',
     },
     versions: [{ message: 'More oats for a silkier haze', change: (d) => void (d.fermentables[1].amountKg = 0.7) }],
   },
@@ -470,12 +660,19 @@ export const demoRecipes: DemoRecipe[] = [
       hops: [hop('saaz', 60, 'boil', 60), hop('saaz', 30, 'boil', 15)],
       yeasts: [yeast('belgian-ale')],
       mash: singleInfusion(62),
-      fermentation: { steps: [{ tempC: 19, days: 3 }, { tempC: 24, days: 11 }] },
+      fermentation: {
+        steps: [
+          { tempC: 19, days: 3 },
+          { tempC: 24, days: 11 },
+        ],
+      },
       carbonation: { volumesCO2: 3.0, servingTempC: 8 },
       style: style('26C'),
       notes: 'Pale, dry and deceptively strong. Start cool, let it climb.',
     },
-    versions: [{ message: 'Pitched cooler; fusel notes last time', change: (d) => void (d.fermentation.steps[0].tempC = 18) }],
+    versions: [
+      { message: 'Pitched cooler; fusel notes last time', change: (d) => void (d.fermentation.steps[0].tempC = 18) },
+    ],
   },
   {
     key: 'nightjar-dark-strong',
@@ -483,11 +680,22 @@ export const demoRecipes: DemoRecipe[] = [
     document: {
       title: 'Nightjar Dark Strong',
       batch: batch(19, 70),
-      fermentables: [malt('pilsner-malt', 5.0), malt('munich-malt', 1.2), malt('crystal-120', 0.3), malt('chocolate-malt', 0.1), malt('table-sugar', 1.1)],
+      fermentables: [
+        malt('pilsner-malt', 5.0),
+        malt('munich-malt', 1.2),
+        malt('crystal-120', 0.3),
+        malt('chocolate-malt', 0.1),
+        malt('table-sugar', 1.1),
+      ],
       hops: [hop('tettnang', 60, 'boil', 60)],
       yeasts: [yeast('belgian-ale')],
       mash: singleInfusion(66),
-      fermentation: { steps: [{ tempC: 19, days: 4 }, { tempC: 24, days: 14 }] },
+      fermentation: {
+        steps: [
+          { tempC: 19, days: 4 },
+          { tempC: 24, days: 14 },
+        ],
+      },
       carbonation: { volumesCO2: 2.8, servingTempC: 12 },
       style: style('26D'),
       notes: 'Plum, fig and caramel. Better after six months.',
@@ -503,12 +711,23 @@ export const demoRecipes: DemoRecipe[] = [
       hops: [hop('hallertau-mittelfrueh', 15, 'boil', 15)],
       yeasts: [yeast('clean-ale'), yeast('wild-brett')],
       mash: singleInfusion(65),
-      fermentation: { steps: [{ tempC: 20, days: 14 }, { tempC: 20, days: 60 }] },
+      fermentation: {
+        steps: [
+          { tempC: 20, days: 14 },
+          { tempC: 20, days: 60 },
+        ],
+      },
       carbonation: { volumesCO2: 3.0, servingTempC: 5 },
       style: style('23A'),
-      notes: 'Kettle-soured with lactic bacteria to about pH 3.4 before a short boil; the souring is not part of the numbers. Keep separate plastic for wild beers.',
+      notes:
+        'Kettle-soured with lactic bacteria to about pH 3.4 before a short boil; the souring is not part of the numbers. Keep separate plastic for wild beers.',
     },
-    versions: [{ message: 'Shorter boil after souring', change: (d) => void ((d.batch.boilTimeMin = 30), (d.hops[0].timeMin = 15)) }],
+    versions: [
+      {
+        message: 'Shorter boil after souring',
+        change: (d) => void ((d.batch.boilTimeMin = 30), (d.hops[0].timeMin = 15)),
+      },
+    ],
   },
   {
     key: 'winter-hearth',
@@ -516,15 +735,26 @@ export const demoRecipes: DemoRecipe[] = [
     document: {
       title: 'Winter Hearth Spiced Ale',
       batch: batch(19),
-      fermentables: [malt('pale-ale-malt', 4.6), malt('crystal-60', 0.4), malt('munich-malt', 0.5), malt('chocolate-malt', 0.08)],
+      fermentables: [
+        malt('pale-ale-malt', 4.6),
+        malt('crystal-60', 0.4),
+        malt('munich-malt', 0.5),
+        malt('chocolate-malt', 0.08),
+      ],
       hops: [hop('east-kent-golding', 35, 'boil', 60)],
       yeasts: [yeast('english-ale')],
       mash: singleInfusion(68),
       fermentation: ferment(19),
       carbonation: { volumesCO2: 2.2, servingTempC: 12 },
-      notes: 'A specialty winter ale: one cinnamon stick, 3 g grated nutmeg and the zest of an orange for the last 5 minutes of the boil. No style; it is its own thing.',
+      notes:
+        'A specialty winter ale: one cinnamon stick, 3 g grated nutmeg and the zest of an orange for the last 5 minutes of the boil. No style; it is its own thing.',
     },
-    versions: [{ message: 'Halved the nutmeg in the notes; it dominated', change: (d) => void (d.notes = (d.notes ?? '').replace('3 g', '1.5 g')) }],
+    versions: [
+      {
+        message: 'Halved the nutmeg in the notes; it dominated',
+        change: (d) => void (d.notes = (d.notes ?? '').replace('3 g', '1.5 g')),
+      },
+    ],
   },
   {
     key: 'porch-brown',
@@ -532,7 +762,12 @@ export const demoRecipes: DemoRecipe[] = [
     document: {
       title: 'Back Porch Brown',
       batch: batch(19),
-      fermentables: [malt('pale-ale-malt', 3.4), malt('crystal-60', 0.3), malt('chocolate-malt', 0.15), malt('munich-malt', 0.3)],
+      fermentables: [
+        malt('pale-ale-malt', 3.4),
+        malt('crystal-60', 0.3),
+        malt('chocolate-malt', 0.15),
+        malt('munich-malt', 0.3),
+      ],
       hops: [hop('fuggle', 35, 'boil', 60), hop('east-kent-golding', 15, 'boil', 10)],
       yeasts: [{ ...yeast('english-ale'), attenuationPct: 72 }],
       mash: singleInfusion(64),
@@ -592,7 +827,9 @@ export const demoForks: DemoFork[] = [
     fromVersion: 2,
     owner: 'dov',
     title: 'Millrace Kveik Rye',
-    versions: [{ message: 'Half a kilo of rye for spice', change: (d) => void d.fermentables.push(malt('rye-malt', 0.5)) }],
+    versions: [
+      { message: 'Half a kilo of rye for spice', change: (d) => void d.fermentables.push(malt('rye-malt', 0.5)) },
+    ],
   },
   {
     key: 'lantern-milk-free',
@@ -659,7 +896,12 @@ export const demoForks: DemoFork[] = [
     fromVersion: 2,
     owner: 'dov',
     title: 'Lantern Stout with cold-brew coffee',
-    versions: [{ message: 'Noted the coffee addition at packaging', change: (d) => void (d.notes = `${d.notes ?? ''}\n\nAdd 300 mL of cold-brew coffee at packaging.`) }],
+    versions: [
+      {
+        message: 'Noted the coffee addition at packaging',
+        change: (d) => void (d.notes = `${d.notes ?? ''}\n\nAdd 300 mL of cold-brew coffee at packaging.`),
+      },
+    ],
   },
   {
     key: 'tripel-honey',
@@ -672,7 +914,13 @@ export const demoForks: DemoFork[] = [
         message: 'Half the sugar swapped for honey',
         change: (d) => {
           d.fermentables[1].amountKg = 0.5;
-          d.fermentables.push({ name: 'Wildflower honey', amountKg: 0.6, potentialPpg: 35, colorLovibond: 1, kind: 'sugar' });
+          d.fermentables.push({
+            name: 'Wildflower honey',
+            amountKg: 0.6,
+            potentialPpg: 35,
+            colorLovibond: 1,
+            kind: 'sugar',
+          });
         },
       },
     ],

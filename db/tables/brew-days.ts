@@ -1,4 +1,17 @@
-import { date, index, integer, jsonb, pgEnum, pgTable, real, smallint, text, timestamp, uuid, varchar } from 'drizzle-orm/pg-core';
+import {
+  date,
+  index,
+  integer,
+  jsonb,
+  pgEnum,
+  pgTable,
+  real,
+  smallint,
+  text,
+  timestamp,
+  uuid,
+  varchar,
+} from 'drizzle-orm/pg-core';
 import { recipeVersions, recipes, users } from '../schema';
 
 export const gravityMethod = pgEnum('gravity_method', ['hydrometer', 'refractometer']);
@@ -39,7 +52,10 @@ export const brewDays = pgTable(
     og: real('og'),
     pitchTempC: real('pitch_temp_c'),
     fg: real('fg'),
-    gravityEntries: jsonb('gravity_entries').$type<{ preBoil?: GravityEntry; og?: GravityEntry; fg?: GravityEntry }>().notNull().default({}),
+    gravityEntries: jsonb('gravity_entries')
+      .$type<{ preBoil?: GravityEntry; og?: GravityEntry; fg?: GravityEntry }>()
+      .notNull()
+      .default({}),
     packagedOn: date('packaged_on'),
     packaging: packagingMethod('packaging'),
     kegPressureKPa: real('keg_pressure_kpa'),

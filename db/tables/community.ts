@@ -56,7 +56,9 @@ export const comments = pgTable(
     index('comments_recipe_idx').on(t.recipeId, t.createdAt),
     index('comments_author_idx').on(t.authorId, t.createdAt),
     index('comments_parent_idx').on(t.parentId),
-    index('comments_held_idx').on(t.createdAt).where(sql`${t.status} = 'held' and ${t.deletedAt} is null`),
+    index('comments_held_idx')
+      .on(t.createdAt)
+      .where(sql`${t.status} = 'held' and ${t.deletedAt} is null`),
   ],
 );
 export type Comment = typeof comments.$inferSelect;
@@ -129,7 +131,9 @@ export const notifications = pgTable(
   },
   (t) => [
     index('notifications_user_idx').on(t.userId, t.createdAt),
-    index('notifications_unread_idx').on(t.userId).where(sql`${t.readAt} is null`),
+    index('notifications_unread_idx')
+      .on(t.userId)
+      .where(sql`${t.readAt} is null`),
   ],
 );
 export type Notification = typeof notifications.$inferSelect;
@@ -158,7 +162,9 @@ export const notificationEmails = pgTable(
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
-    index('notification_emails_pending_idx').on(t.userId, t.createdAt).where(sql`${t.sentAt} is null`),
+    index('notification_emails_pending_idx')
+      .on(t.userId, t.createdAt)
+      .where(sql`${t.sentAt} is null`),
     index('notification_emails_sent_idx').on(t.userId, t.sentAt),
   ],
 );
@@ -201,9 +207,13 @@ export const reports = pgTable(
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
-    index('reports_open_idx').on(t.createdAt).where(sql`${t.status} = 'open'`),
+    index('reports_open_idx')
+      .on(t.createdAt)
+      .where(sql`${t.status} = 'open'`),
     index('reports_target_idx').on(t.targetType, t.targetId),
-    uniqueIndex('reports_one_open_per_reporter_key').on(t.reporterId, t.targetType, t.targetId).where(sql`${t.status} = 'open'`),
+    uniqueIndex('reports_one_open_per_reporter_key')
+      .on(t.reporterId, t.targetType, t.targetId)
+      .where(sql`${t.status} = 'open'`),
   ],
 );
 export type Report = typeof reports.$inferSelect;

@@ -17,7 +17,12 @@ async function freeHandle(name: string, email: string): Promise<string> {
       .toLowerCase()
       .replace(/[^a-z0-9]+/g, '-')
       .replace(/^-+|-+$/g, '')
-      .slice(0, 30) || email.split('@')[0].replace(/[^a-z0-9]+/g, '-').slice(0, 30) || 'brewer';
+      .slice(0, 30) ||
+    email
+      .split('@')[0]
+      .replace(/[^a-z0-9]+/g, '-')
+      .slice(0, 30) ||
+    'brewer';
   const taken = await db
     .select({ handle: users.handle })
     .from(users)
@@ -51,9 +56,12 @@ export async function createAccount(input: SignUpInput): Promise<PublicUser> {
 }
 
 function emailTaken(): AppError {
-  return new AppError('conflict', 'account', 'An account with this e-mail already exists. Sign in instead, or use another address.', [
-    { path: 'email', message: 'An account with this e-mail already exists.' },
-  ]);
+  return new AppError(
+    'conflict',
+    'account',
+    'An account with this e-mail already exists. Sign in instead, or use another address.',
+    [{ path: 'email', message: 'An account with this e-mail already exists.' }],
+  );
 }
 
 async function loadTarget(userId: string): Promise<User> {
@@ -103,7 +111,9 @@ export async function setSuspended(actor: Viewer, userId: string, suspended: boo
   await db.transaction(async (tx) => {
     await tx
       .update(users)
-      .set(suspended ? { suspendedAt: new Date(), suspendedReason: reason } : { suspendedAt: null, suspendedReason: null })
+      .set(
+        suspended ? { suspendedAt: new Date(), suspendedReason: reason } : { suspendedAt: null, suspendedReason: null },
+      )
       .where(eq(users.id, userId));
     if (suspended) await tx.delete(sessions).where(eq(sessions.userId, userId));
     await tx.insert(moderationActions).values({

@@ -10,7 +10,11 @@ import { sendMail } from '@/lib/mail';
  * instead, so the page that asked shows the same thing either way.
  */
 export async function sendMagicLink(email: string, url: string): Promise<void> {
-  const [user] = await db.select({ name: users.name, suspendedAt: users.suspendedAt }).from(users).where(eq(users.email, email)).limit(1);
+  const [user] = await db
+    .select({ name: users.name, suspendedAt: users.suspendedAt })
+    .from(users)
+    .where(eq(users.email, email))
+    .limit(1);
   if (!user) {
     await sendMail({
       to: email,

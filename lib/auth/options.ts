@@ -88,14 +88,20 @@ export function authOptions(): NextAuthOptions {
       async signIn({ user, email }) {
         // Asking for a link always looks the same, whether or not the address has an account.
         if (email?.verificationRequest) return true;
-        const [row] = await db.select({ suspendedAt: users.suspendedAt }).from(users).where(eq(users.id, user.id)).limit(1);
+        const [row] = await db
+          .select({ suspendedAt: users.suspendedAt })
+          .from(users)
+          .where(eq(users.id, user.id))
+          .limit(1);
         return Boolean(row) && !row.suspendedAt;
       },
       async jwt({ token, user }) {
         if (user) {
           // A fresh server-side session at every sign-in; the cookie only names it.
           const sid = crypto.randomUUID();
-          await db.insert(sessions).values({ sessionToken: sid, userId: user.id, expires: new Date(Date.now() + SESSION_MAX_AGE_SEC * 1000) });
+          await db
+            .insert(sessions)
+            .values({ sessionToken: sid, userId: user.id, expires: new Date(Date.now() + SESSION_MAX_AGE_SEC * 1000) });
           token.sid = sid;
           token.sub = user.id;
         }

@@ -29,7 +29,14 @@ export const getViewer = cache(async (): Promise<Viewer | null> => {
   const session = (await getServerSession(authOptions())) as { sid?: string } | null;
   if (!session?.sid) return null;
   const [row] = await db
-    .select({ id: users.id, name: users.name, email: users.email, handle: users.handle, role: users.role, units: users.units })
+    .select({
+      id: users.id,
+      name: users.name,
+      email: users.email,
+      handle: users.handle,
+      role: users.role,
+      units: users.units,
+    })
     .from(sessions)
     .innerJoin(users, eq(users.id, sessions.userId))
     .where(and(eq(sessions.sessionToken, session.sid), gt(sessions.expires, new Date()), isNull(users.suspendedAt)))

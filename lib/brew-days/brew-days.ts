@@ -1,7 +1,17 @@
 import 'server-only';
 import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
 import { db } from '@/db';
-import { brewDays, brewReadings, photos, recipeVersions, recipes, tastings, users, type BrewDay, type Recipe } from '@/db/schema';
+import {
+  brewDays,
+  brewReadings,
+  photos,
+  recipeVersions,
+  recipes,
+  tastings,
+  users,
+  type BrewDay,
+  type Recipe,
+} from '@/db/schema';
 import type { Viewer } from '@/lib/auth/session';
 import { hasRole } from '@/lib/auth/roles';
 import type { RecipeDocument, RecipeStats } from '@/lib/brewing';
@@ -9,7 +19,15 @@ import { AppError, type FieldIssue } from '@/lib/errors';
 import { canView } from '@/lib/recipes/access';
 import { getVersionById } from '@/lib/recipes/versions';
 import { apparentAttenuationPct } from '@/lib/brewing';
-import { compareWithPrediction, fermenterVolume, gravityFromEntry, leadingYeastKind, originalBrix, type GravityEntry, type Outcome } from './measure';
+import {
+  compareWithPrediction,
+  fermenterVolume,
+  gravityFromEntry,
+  leadingYeastKind,
+  originalBrix,
+  type GravityEntry,
+  type Outcome,
+} from './measure';
 import { measuredEfficiencyPct } from '@/lib/brewing';
 import { photoVisibleTo } from './photo-visibility';
 import type { BrewDayFields, CreateBrewDayInput, ReadingInput, TastingInput } from './schemas';
@@ -25,7 +43,12 @@ function fieldError(path: string, message: string): AppError {
 /** Pre-boil gravity, OG and FG as corrected SG, or field messages for the ones that cannot be. */
 function resolveGravities(fields: BrewDayFields) {
   const issues: FieldIssue[] = [];
-  const resolve = (key: 'preBoilGravity' | 'og' | 'fg', entry: GravityEntry | null, afterOg: boolean, ogBrix: number | null) => {
+  const resolve = (
+    key: 'preBoilGravity' | 'og' | 'fg',
+    entry: GravityEntry | null,
+    afterOg: boolean,
+    ogBrix: number | null,
+  ) => {
     if (!entry) return null;
     const result = gravityFromEntry(entry, { afterOg, ogBrix });
     if ('error' in result) {
@@ -39,7 +62,12 @@ function resolveGravities(fields: BrewDayFields) {
   const fg = resolve('fg', fields.fg, true, originalBrix(fields.og, og));
   if (og !== null && fg !== null && fg > og) issues.push({ path: 'fg.value', message: 'FG cannot be above the OG' });
   if (issues.length) {
-    throw new AppError('bad_request', 'brew day', `Please check these fields: ${issues.map((i) => `${i.path}: ${i.message}`).join('; ')}`, issues);
+    throw new AppError(
+      'bad_request',
+      'brew day',
+      `Please check these fields: ${issues.map((i) => `${i.path}: ${i.message}`).join('; ')}`,
+      issues,
+    );
   }
   return { preBoilGravity: preBoil, og, fg };
 }
@@ -72,7 +100,8 @@ function measuredColumns(fields: BrewDayFields) {
 /** Logs a brew of one exact version the viewer can see. */
 export async function createBrewDay(viewer: Viewer, input: CreateBrewDayInput): Promise<{ id: string }> {
   const { recipe, version } = await getVersionById(viewer, input.versionId);
-  if (recipe.hiddenAt && recipe.ownerId !== viewer.id) throw new AppError('forbidden', 'recipe', 'Moderators hid this recipe; it cannot be brewed from here.');
+  if (recipe.hiddenAt && recipe.ownerId !== viewer.id)
+    throw new AppError('forbidden', 'recipe', 'Moderators hid this recipe; it cannot be brewed from here.');
   const [row] = await db
     .insert(brewDays)
     .values({ recipeId: recipe.id, versionId: version.id, brewerId: viewer.id, ...measuredColumns(input) })
@@ -83,15 +112,24 @@ export async function createBrewDay(viewer: Viewer, input: CreateBrewDayInput): 
 /** The brew day and its recipe, if the viewer may see the recipe (404 otherwise). */
 async function loadVisible(viewer: MaybeViewer, id: string): Promise<{ day: BrewDay; recipe: Recipe }> {
   if (!UUID.test(id)) throw new AppError('not_found', 'brew day');
-  const [row] = await db.select({ day: brewDays, recipe: recipes }).from(brewDays).innerJoin(recipes, eq(recipes.id, brewDays.recipeId)).where(eq(brewDays.id, id));
+  const [row] = await db
+    .select({ day: brewDays, recipe: recipes })
+    .from(brewDays)
+    .innerJoin(recipes, eq(recipes.id, brewDays.recipeId))
+    .where(eq(brewDays.id, id));
   if (!row || !canView(row.recipe, viewer)) throw new AppError('not_found', 'brew day');
   return row;
 }
 
 /** For writes only the brewer may make; anyone else who can see it gets a 403, anyone who cannot a 404. */
-export async function loadOwnBrewDay(viewer: Viewer, id: string, what: string): Promise<{ day: BrewDay; recipe: Recipe }> {
+export async function loadOwnBrewDay(
+  viewer: Viewer,
+  id: string,
+  what: string,
+): Promise<{ day: BrewDay; recipe: Recipe }> {
   const loaded = await loadVisible(viewer, id);
-  if (loaded.day.brewerId !== viewer.id) throw new AppError('forbidden', 'brew day', `Only the brewer can ${what} this brew day.`);
+  if (loaded.day.brewerId !== viewer.id)
+    throw new AppError('forbidden', 'brew day', `Only the brewer can ${what} this brew day.`);
   return loaded;
 }
 
@@ -107,18 +145,25 @@ export async function updateBrewDay(viewer: Viewer, id: string, fields: BrewDayF
     .where(and(eq(brewReadings.brewDayId, day.id), sql`${brewReadings.takenOn} < ${columns.brewedOn}`))
     .limit(1);
   if (early) throw fieldError('brewedOn', `Brew date cannot be after a reading already recorded (${early.takenOn})`);
-  await db.update(brewDays).set({ ...columns, updatedAt: new Date() }).where(eq(brewDays.id, day.id));
+  await db
+    .update(brewDays)
+    .set({ ...columns, updatedAt: new Date() })
+    .where(eq(brewDays.id, day.id));
 }
 
 /** A fermentation reading on a brew day of the viewer's own. */
 export async function addReading(viewer: Viewer, brewDayId: string, input: ReadingInput): Promise<{ id: string }> {
   const { day } = await loadOwnBrewDay(viewer, brewDayId, 'add readings to');
-  if (input.takenOn < day.brewedOn) throw fieldError('takenOn', `Reading date cannot be before the brew date (${day.brewedOn})`);
+  if (input.takenOn < day.brewedOn)
+    throw fieldError('takenOn', `Reading date cannot be before the brew date (${day.brewedOn})`);
   let gravity: number | null = null;
   if (input.value !== null && input.method) {
     const ogEntry = (day.gravityEntries as { og?: GravityEntry }).og ?? null;
     // Every fermentation reading comes after the OG, so alcohol may be present.
-    const result = gravityFromEntry({ method: input.method, value: input.value, sampleTempC: input.sampleTempC }, { afterOg: true, ogBrix: originalBrix(ogEntry, day.og) });
+    const result = gravityFromEntry(
+      { method: input.method, value: input.value, sampleTempC: input.sampleTempC },
+      { afterOg: true, ogBrix: originalBrix(ogEntry, day.og) },
+    );
     if ('error' in result) throw fieldError('value', result.error);
     gravity = result.gravity;
   }
@@ -141,7 +186,8 @@ export async function addReading(viewer: Viewer, brewDayId: string, input: Readi
 /** A tasting note by anyone signed in who can see the brew day. */
 export async function addTasting(viewer: Viewer, brewDayId: string, input: TastingInput): Promise<{ id: string }> {
   const { day } = await loadVisible(viewer, brewDayId);
-  if (input.tastedOn < day.brewedOn) throw fieldError('tastedOn', `Tasting date cannot be before the brew date (${day.brewedOn})`);
+  if (input.tastedOn < day.brewedOn)
+    throw fieldError('tastedOn', `Tasting date cannot be before the brew date (${day.brewedOn})`);
   const [row] = await db
     .insert(tastings)
     .values({ brewDayId: day.id, tasterId: viewer.id, ...input })
@@ -155,7 +201,7 @@ export interface BrewDayView {
   version: { id: string; number: number; document: RecipeDocument; stats: RecipeStats };
   brewer: { id: string; name: string; handle: string };
   readings: (typeof brewReadings.$inferSelect)[];
-  tastings: ((typeof tastings.$inferSelect) & { tasterName: string; tasterHandle: string })[];
+  tastings: (typeof tastings.$inferSelect & { tasterName: string; tasterHandle: string })[];
   photos: { id: string; caption: string; width: number; height: number; uploaderId: string; createdAt: Date }[];
   outcome: Outcome;
   canEdit: boolean;
@@ -167,7 +213,11 @@ export async function getBrewDayById(viewer: MaybeViewer, id: string): Promise<B
   const [[version], [brewer], readings, tastingRows, photoRows] = await Promise.all([
     db.select().from(recipeVersions).where(eq(recipeVersions.id, day.versionId)),
     db.select({ id: users.id, name: users.name, handle: users.handle }).from(users).where(eq(users.id, day.brewerId)),
-    db.select().from(brewReadings).where(eq(brewReadings.brewDayId, day.id)).orderBy(asc(brewReadings.takenOn), asc(brewReadings.createdAt)),
+    db
+      .select()
+      .from(brewReadings)
+      .where(eq(brewReadings.brewDayId, day.id))
+      .orderBy(asc(brewReadings.takenOn), asc(brewReadings.createdAt)),
     db
       .select({ tasting: tastings, tasterName: users.name, tasterHandle: users.handle })
       .from(tastings)
@@ -175,7 +225,14 @@ export async function getBrewDayById(viewer: MaybeViewer, id: string): Promise<B
       .where(eq(tastings.brewDayId, day.id))
       .orderBy(asc(tastings.tastedOn), asc(tastings.createdAt)),
     db
-      .select({ id: photos.id, caption: photos.caption, width: photos.width, height: photos.height, uploaderId: photos.uploaderId, createdAt: photos.createdAt })
+      .select({
+        id: photos.id,
+        caption: photos.caption,
+        width: photos.width,
+        height: photos.height,
+        uploaderId: photos.uploaderId,
+        createdAt: photos.createdAt,
+      })
       .from(photos)
       .where(and(eq(photos.brewDayId, day.id), photoVisibleTo(viewer)))
       .orderBy(asc(photos.createdAt)),
@@ -189,7 +246,11 @@ export async function getBrewDayById(viewer: MaybeViewer, id: string): Promise<B
     version: { id: version.id, number: version.number, document, stats },
     brewer: { id: brewer.id, name: brewer.name ?? brewer.handle, handle: brewer.handle },
     readings,
-    tastings: tastingRows.map((t) => ({ ...t.tasting, tasterName: t.tasterName ?? t.tasterHandle, tasterHandle: t.tasterHandle })),
+    tastings: tastingRows.map((t) => ({
+      ...t.tasting,
+      tasterName: t.tasterName ?? t.tasterHandle,
+      tasterHandle: t.tasterHandle,
+    })),
     photos: photoRows,
     outcome: compareWithPrediction(day, document, stats),
     canEdit: isBrewer,
@@ -222,7 +283,9 @@ async function summaries(where: ReturnType<typeof eq>, viewer: MaybeViewer, limi
       versionNumber: recipeVersions.number,
       brewerName: users.name,
       brewerHandle: users.handle,
-      averageRating: sql<number | null>`(select avg(${tastings.rating})::float from ${tastings} where ${tastings.brewDayId} = ${brewDays.id})`,
+      averageRating: sql<
+        number | null
+      >`(select avg(${tastings.rating})::float from ${tastings} where ${tastings.brewDayId} = ${brewDays.id})`,
       tastingCount: sql<number>`(select count(*)::int from ${tastings} where ${tastings.brewDayId} = ${brewDays.id})`,
     })
     .from(brewDays)
@@ -264,12 +327,24 @@ async function summaries(where: ReturnType<typeof eq>, viewer: MaybeViewer, limi
 }
 
 /** Brew days of a recipe across all its versions, newest first. */
-export async function getBrewDaysByRecipeId({ recipeId, viewer }: { recipeId: string; viewer: MaybeViewer }): Promise<BrewDaySummary[]> {
+export async function getBrewDaysByRecipeId({
+  recipeId,
+  viewer,
+}: {
+  recipeId: string;
+  viewer: MaybeViewer;
+}): Promise<BrewDaySummary[]> {
   return summaries(eq(brewDays.recipeId, recipeId), viewer);
 }
 
 /** A brewer's brew days of recipes the viewer can see, newest first. */
-export async function getBrewDaysByBrewerId({ brewerId, viewer }: { brewerId: string; viewer: MaybeViewer }): Promise<BrewDaySummary[]> {
+export async function getBrewDaysByBrewerId({
+  brewerId,
+  viewer,
+}: {
+  brewerId: string;
+  viewer: MaybeViewer;
+}): Promise<BrewDaySummary[]> {
   return summaries(eq(brewDays.brewerId, brewerId), viewer);
 }
 
@@ -309,6 +384,8 @@ export async function getBrewerAverages({ brewer }: { brewer: Pick<Viewer, 'id' 
   return {
     brewDayCount: visible.length,
     efficiency: efficiencies.length ? { meanPct: mean(efficiencies), count: efficiencies.length } : null,
-    attenuationByYeastKind: [...attenuation].map(([yeastKind, values]) => ({ yeastKind, meanPct: mean(values), count: values.length })).sort((a, b) => b.count - a.count),
+    attenuationByYeastKind: [...attenuation]
+      .map(([yeastKind, values]) => ({ yeastKind, meanPct: mean(values), count: values.length }))
+      .sort((a, b) => b.count - a.count),
   };
 }

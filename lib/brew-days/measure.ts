@@ -38,18 +38,24 @@ export type GravityResult = { gravity: number } | { error: string };
  * reading converted from °Brix, with the after-fermentation correction when alcohol is present
  * (any reading after the OG).
  */
-export function gravityFromEntry(entry: GravityEntry, opts: { afterOg: boolean; ogBrix: number | null }): GravityResult {
+export function gravityFromEntry(
+  entry: GravityEntry,
+  opts: { afterOg: boolean; ogBrix: number | null },
+): GravityResult {
   let gravity: number;
   if (entry.method === 'hydrometer') {
     gravity = entry.sampleTempC == null ? entry.value : correctHydrometerReading(entry.value, entry.sampleTempC);
   } else if (opts.afterOg) {
-    if (opts.ogBrix === null) return { error: 'A refractometer reading of fermenting beer needs the original gravity: record the OG first' };
+    if (opts.ogBrix === null)
+      return { error: 'A refractometer reading of fermenting beer needs the original gravity: record the OG first' };
     gravity = fermentingGravityFromBrix(opts.ogBrix, entry.value);
   } else {
     gravity = brixToGravity(entry.value);
   }
   if (!Number.isFinite(gravity) || gravity < GRAVITY_MIN || gravity > GRAVITY_MAX) {
-    return { error: `The corrected reading (${Number.isFinite(gravity) ? gravity.toFixed(3) : 'not a number'}) ${GRAVITY_RANGE_MESSAGE}` };
+    return {
+      error: `The corrected reading (${Number.isFinite(gravity) ? gravity.toFixed(3) : 'not a number'}) ${GRAVITY_RANGE_MESSAGE}`,
+    };
   }
   return { gravity };
 }
@@ -85,8 +91,21 @@ export interface Outcome {
   kegPressureAboveTypicalRating: boolean;
 }
 
-function row(key: string, label: string, quantity: Comparison['quantity'], measured: number | null, predicted: number | null): Comparison {
-  return { key, label, quantity, measured, predicted, difference: measured !== null && predicted !== null ? measured - predicted : null };
+function row(
+  key: string,
+  label: string,
+  quantity: Comparison['quantity'],
+  measured: number | null,
+  predicted: number | null,
+): Comparison {
+  return {
+    key,
+    label,
+    quantity,
+    measured,
+    predicted,
+    difference: measured !== null && predicted !== null ? measured - predicted : null,
+  };
 }
 
 /** Volume into the fermenter for the efficiency figure: as measured, else the recipe's batch volume. */
@@ -97,7 +116,8 @@ export function fermenterVolume(day: Pick<BrewDayMeasures, 'fermenterVolumeL'>, 
 /** Each measured number beside the version's prediction, and what the measurements say about the beer. */
 export function compareWithPrediction(day: BrewDayMeasures, doc: RecipeDocument, stats: RecipeStats): Outcome {
   const firstFermentTempC = doc.fermentation?.steps?.[0]?.tempC ?? null;
-  const efficiencyPct = day.og !== null ? measuredEfficiencyPct(doc.fermentables, day.og, fermenterVolume(day, doc)) : null;
+  const efficiencyPct =
+    day.og !== null ? measuredEfficiencyPct(doc.fermentables, day.og, fermenterVolume(day, doc)) : null;
   const beer = day.og !== null && day.fg !== null ? measuredBeer(day.og, day.fg) : null;
   const predictedKeg = stats.carbonation?.kegPressureKPa ?? null;
   return {
@@ -112,7 +132,13 @@ export function compareWithPrediction(day: BrewDayMeasures, doc: RecipeDocument,
       row('pitchTempC', 'Pitching temperature', 'temperature', day.pitchTempC, firstFermentTempC),
       row('fg', 'Final gravity', 'gravity', day.fg, stats.fg),
       row('efficiencyPct', 'Brewhouse efficiency', 'percent', efficiencyPct, doc.batch.efficiencyPct),
-      row('attenuationPct', 'Apparent attenuation', 'percent', beer ? beer.apparentAttenuationPct : null, stats.attenuationPct),
+      row(
+        'attenuationPct',
+        'Apparent attenuation',
+        'percent',
+        beer ? beer.apparentAttenuationPct : null,
+        stats.attenuationPct,
+      ),
       row('abv', 'ABV', 'percent', beer ? beer.abv : null, stats.abv),
       row('kegPressureKPa', 'Keg pressure', 'pressure', day.kegPressureKPa, predictedKeg),
     ],

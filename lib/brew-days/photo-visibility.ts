@@ -10,6 +10,11 @@ import { hasRole } from '@/lib/auth/roles';
  */
 export function photoVisibleTo(viewer: Pick<Viewer, 'id' | 'role'> | null): SQL | undefined {
   if (viewer && hasRole(viewer, 'moderator')) return undefined;
-  const notHidden = notExists(db.select({ one: sql`1` }).from(hiddenPhotos).where(eq(hiddenPhotos.photoId, photos.id)));
+  const notHidden = notExists(
+    db
+      .select({ one: sql`1` })
+      .from(hiddenPhotos)
+      .where(eq(hiddenPhotos.photoId, photos.id)),
+  );
   return viewer ? or(eq(photos.uploaderId, viewer.id), notHidden) : notHidden;
 }

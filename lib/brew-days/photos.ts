@@ -34,7 +34,11 @@ async function usage(tx: Executor, uploaderId: string, brewDayId: string) {
 
 function checkQuota(used: { count: number; bytes: number; onDay: number }, addingBytes: number): void {
   if (used.onDay >= PHOTOS_PER_BREW_DAY) {
-    throw new AppError('forbidden', 'photo', `A brew day holds at most ${PHOTOS_PER_BREW_DAY} photos; delete one to add another.`);
+    throw new AppError(
+      'forbidden',
+      'photo',
+      `A brew day holds at most ${PHOTOS_PER_BREW_DAY} photos; delete one to add another.`,
+    );
   }
   if (used.count >= PHOTO_QUOTA_COUNT || used.bytes + addingBytes > PHOTO_QUOTA_BYTES) {
     throw new AppError(
@@ -49,7 +53,12 @@ function checkQuota(used: { count: number; bytes: number; onDay: number }, addin
  * Checks and re-encodes an uploaded photo, stores both sizes under server-chosen keys and records
  * them. If storing fails nothing is recorded; if recording fails the stored objects are deleted.
  */
-export async function uploadPhoto(viewer: Viewer, brewDayId: string, bytes: Uint8Array, caption: string): Promise<{ id: string }> {
+export async function uploadPhoto(
+  viewer: Viewer,
+  brewDayId: string,
+  bytes: Uint8Array,
+  caption: string,
+): Promise<{ id: string }> {
   const { day } = await loadOwnBrewDay(viewer, brewDayId, 'add photos to');
   checkQuota(await usage(db, viewer.id, day.id), 0);
   const processed = await processPhoto(bytes);
@@ -57,11 +66,18 @@ export async function uploadPhoto(viewer: Viewer, brewDayId: string, bytes: Uint
   const keys = { display: `${stem}-display.jpg`, thumb: `${stem}-thumb.jpg` };
   const storedBytes = processed.display.length + processed.thumb.length;
   try {
-    await Promise.all([putObject(keys.display, processed.display, 'image/jpeg'), putObject(keys.thumb, processed.thumb, 'image/jpeg')]);
+    await Promise.all([
+      putObject(keys.display, processed.display, 'image/jpeg'),
+      putObject(keys.thumb, processed.thumb, 'image/jpeg'),
+    ]);
   } catch (err) {
     await deleteObjects([keys.display, keys.thumb]).catch(() => {});
     console.error('[photos] store failed:', (err as Error).message);
-    throw new AppError('unavailable', 'photo', 'The photo store is briefly unavailable; nothing was saved. Please try again.');
+    throw new AppError(
+      'unavailable',
+      'photo',
+      'The photo store is briefly unavailable; nothing was saved. Please try again.',
+    );
   }
   try {
     return await db.transaction(async (tx) => {
@@ -84,15 +100,24 @@ export async function uploadPhoto(viewer: Viewer, brewDayId: string, bytes: Uint
       return row;
     });
   } catch (err) {
-    await deleteObjects([keys.display, keys.thumb]).catch((e: Error) => console.error('[photos] could not remove objects after a failed insert:', e.message));
+    await deleteObjects([keys.display, keys.thumb]).catch((e: Error) =>
+      console.error('[photos] could not remove objects after a failed insert:', e.message),
+    );
     throw err;
   }
 }
 
 /** The JPEG bytes of one size of a photo, if the viewer may see its brew day (404 otherwise). */
-export async function getPhotoBytes(viewer: Pick<Viewer, 'id' | 'role'> | null, photoId: string, size: 'display' | 'thumb'): Promise<Buffer> {
+export async function getPhotoBytes(
+  viewer: Pick<Viewer, 'id' | 'role'> | null,
+  photoId: string,
+  size: 'display' | 'thumb',
+): Promise<Buffer> {
   if (!/^[0-9a-f-]{36}$/i.test(photoId)) throw new AppError('not_found', 'photo');
-  const [photo] = await db.select().from(photos).where(and(eq(photos.id, photoId), photoVisibleTo(viewer)));
+  const [photo] = await db
+    .select()
+    .from(photos)
+    .where(and(eq(photos.id, photoId), photoVisibleTo(viewer)));
   if (!photo) throw new AppError('not_found', 'photo');
   await loadVisibleBrewDay(viewer, photo.brewDayId).catch(() => {
     throw new AppError('not_found', 'photo');
@@ -111,7 +136,8 @@ export async function deletePhoto(viewer: Viewer, photoId: string, reason = ''):
     throw new AppError('not_found', 'photo');
   });
   const isBrewer = day.brewerId === viewer.id;
-  if (!isBrewer && !hasRole(viewer, 'moderator')) throw new AppError('forbidden', 'photo', 'Only the brewer or a moderator can delete this photo.');
+  if (!isBrewer && !hasRole(viewer, 'moderator'))
+    throw new AppError('forbidden', 'photo', 'Only the brewer or a moderator can delete this photo.');
   await db.transaction(async (tx) => {
     await tx.delete(photos).where(and(eq(photos.id, photo.id), eq(photos.brewDayId, day.id)));
     if (!isBrewer) {

@@ -47,7 +47,10 @@ const isoDate = (label: string) =>
   z
     .string({ error: `${label} is required` })
     .regex(/^\d{4}-\d{2}-\d{2}$/, `${label} must be a date such as 2025-05-17`)
-    .refine((s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s), `${label} is not a real date`);
+    .refine(
+      (s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s),
+      `${label} is not a real date`,
+    );
 
 export const gravityMethods = ['hydrometer', 'refractometer'] as const;
 
@@ -64,7 +67,11 @@ export const gravityEntrySchema = z
       ctx.addIssue({ code: 'custom', path: ['value'], message: `A hydrometer reading ${GRAVITY_RANGE_MESSAGE}` });
     }
     if (entry.method === 'refractometer' && (entry.value < 0 || entry.value > BRIX_MAX)) {
-      ctx.addIssue({ code: 'custom', path: ['value'], message: `A refractometer reading must be between 0 and ${BRIX_MAX} °Brix` });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['value'],
+        message: `A refractometer reading must be between 0 and ${BRIX_MAX} °Brix`,
+      });
     }
   });
 export type GravityEntryInput = z.input<typeof gravityEntrySchema>;
@@ -83,13 +90,25 @@ const measuredFields = {
   fg: optional(gravityEntrySchema),
   packagedOn: optional(isoDate('Packaging date')),
   packaging: optional(z.enum(['keg', 'bottles'], { error: 'Packaging must be keg or bottles' })),
-  kegPressureKPa: optional(num('Keg pressure').min(0, 'Keg pressure cannot be negative').max(1000, 'Keg pressure must be at most 1000 kPa (145 psi)')),
-  primingSugarG: optional(num('Priming sugar').min(0, 'Priming sugar cannot be negative').max(5000, 'Priming sugar must be at most 5000 g')),
+  kegPressureKPa: optional(
+    num('Keg pressure')
+      .min(0, 'Keg pressure cannot be negative')
+      .max(1000, 'Keg pressure must be at most 1000 kPa (145 psi)'),
+  ),
+  primingSugarG: optional(
+    num('Priming sugar').min(0, 'Priming sugar cannot be negative').max(5000, 'Priming sugar must be at most 5000 g'),
+  ),
   notes: z.string().max(20_000, 'Notes must be at most 20,000 characters').default(''),
 };
 
 function checkDatesAndPackaging(
-  day: { brewedOn: string; packagedOn: string | null; packaging: string | null; kegPressureKPa: number | null; primingSugarG: number | null },
+  day: {
+    brewedOn: string;
+    packagedOn: string | null;
+    packaging: string | null;
+    kegPressureKPa: number | null;
+    primingSugarG: number | null;
+  },
   ctx: z.RefinementCtx,
 ) {
   if (day.packagedOn && day.packagedOn < day.brewedOn) {
@@ -109,7 +128,9 @@ export type BrewDayFields = z.output<typeof brewDayFieldsSchema>;
 export type BrewDayFieldsInput = z.input<typeof brewDayFieldsSchema>;
 
 /** A new brew day names the exact recipe version brewed. */
-export const createBrewDaySchema = z.object({ versionId: z.uuid('Version must be a version id'), ...measuredFields }).superRefine(checkDatesAndPackaging);
+export const createBrewDaySchema = z
+  .object({ versionId: z.uuid('Version must be a version id'), ...measuredFields })
+  .superRefine(checkDatesAndPackaging);
 export type CreateBrewDayInput = z.output<typeof createBrewDaySchema>;
 
 export const readingSchema = z
@@ -130,14 +151,17 @@ export const readingSchema = z
       if (!r.method) ctx.addIssue({ code: 'custom', path: ['method'], message: 'Choose hydrometer or refractometer' });
       else {
         const parsed = gravityEntrySchema.safeParse({ method: r.method, value: r.value, sampleTempC: r.sampleTempC });
-        if (!parsed.success) for (const issue of parsed.error.issues) ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
+        if (!parsed.success)
+          for (const issue of parsed.error.issues)
+            ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
       }
     }
   });
 export type ReadingInput = z.output<typeof readingSchema>;
 export type ReadingFormInput = z.input<typeof readingSchema>;
 
-const tastingText = (label: string) => z.string().trim().max(2000, `${label} must be at most 2000 characters`).default('');
+const tastingText = (label: string) =>
+  z.string().trim().max(2000, `${label} must be at most 2000 characters`).default('');
 
 export const tastingSchema = z
   .object({

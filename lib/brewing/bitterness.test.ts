@@ -51,7 +51,7 @@ describe('Tinseth utilisation', () => {
   it('agrees with the US form for 1 oz in 5 gallons', () => {
     const ibu = ibuFromUtilisation(tinsethUtilisation(1.05, 60), G_PER_OZ, 10, 5 * L_PER_US_GALLON);
     expect(ibu).toBeCloseTo(34.5, 1);
-    expect(ibu).toBeCloseTo(tinsethUtilisation(1.05, 60) * 0.1 * 1 * 7489 / 5, 1);
+    expect(ibu).toBeCloseTo((tinsethUtilisation(1.05, 60) * 0.1 * 1 * 7489) / 5, 1);
   });
 
   // John Palmer, How to Brew (2006), ch. 5 worked example: 9.6 AAU at U 0.176 in 5 gal → 25 IBU;

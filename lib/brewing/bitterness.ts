@@ -68,7 +68,9 @@ export function hopUtilisation(hop: Hop, gravity: number, boilTimeMin: number): 
     case 'mash':
       return MASH_HOP_FRACTION * tinsethUtilisation(gravity, boilTimeMin);
     case 'whirlpool':
-      return tinsethUtilisation(gravity, hop.timeMin) * hopStandTemperatureFactor(hop.tempC ?? DEFAULT_HOP_STAND_TEMP_C);
+      return (
+        tinsethUtilisation(gravity, hop.timeMin) * hopStandTemperatureFactor(hop.tempC ?? DEFAULT_HOP_STAND_TEMP_C)
+      );
     case 'dry_hop':
       return 0;
   }

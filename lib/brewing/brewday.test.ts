@@ -110,7 +110,15 @@ describe('primary fermentation against the yeast range', () => {
   it('flags a kveik kept at ale temperature and accepts it hot', () => {
     const kveik = { name: 'Kveik', kind: 'kveik' as const, attenuationPct: 80, tempMinC: 29, tempMaxC: 35 };
     const at = (tempC: number) =>
-      primaryFermentationFit({ yeasts: [kveik], fermentation: { steps: [{ tempC, days: 5 }, { tempC: 2, days: 3 }] } });
+      primaryFermentationFit({
+        yeasts: [kveik],
+        fermentation: {
+          steps: [
+            { tempC, days: 5 },
+            { tempC: 2, days: 3 },
+          ],
+        },
+      });
     expect(at(18)).toEqual([{ yeastIndex: 0, tempC: 18, position: 'below' }]);
     expect(at(32)[0].position).toBe('within');
     expect(at(38)[0].position).toBe('above');

@@ -36,8 +36,12 @@ export function infusionVolumeL(input: {
 }): number {
   const { currentTempC, targetTempC, infusionTempC, grainKg, mashWaterL } = input;
   if (targetTempC <= currentTempC) return 0;
-  if (infusionTempC <= targetTempC) throw new RangeError('Infusion water must be hotter than the target mash temperature');
-  return ((targetTempC - currentTempC) * (GRAIN_HEAT_CAPACITY_L_PER_KG * grainKg + mashWaterL)) / (infusionTempC - targetTempC);
+  if (infusionTempC <= targetTempC)
+    throw new RangeError('Infusion water must be hotter than the target mash temperature');
+  return (
+    ((targetTempC - currentTempC) * (GRAIN_HEAT_CAPACITY_L_PER_KG * grainKg + mashWaterL)) /
+    (infusionTempC - targetTempC)
+  );
 }
 
 function mashedGrainKg(fermentables: readonly Fermentable[]): number {
@@ -80,7 +84,13 @@ export function mashAndSpargeVolumes(doc: Pick<RecipeDocument, 'batch' | 'fermen
   const preBoilL = preBoilVolumeL(doc.batch);
   const mashWaterL = grainKg * doc.batch.mashWaterLPerKg;
   const totalWaterL = Math.max(preBoilL + grainAbsorptionL, mashWaterL);
-  return { mashWaterL, spargeWaterL: totalWaterL - mashWaterL, totalWaterL, preBoilVolumeL: preBoilL, grainAbsorptionL };
+  return {
+    mashWaterL,
+    spargeWaterL: totalWaterL - mashWaterL,
+    totalWaterL,
+    preBoilVolumeL: preBoilL,
+    grainAbsorptionL,
+  };
 }
 
 export interface MeasuredBeer {

@@ -1,5 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { SUGAR_G_PER_G_CO2, kegPressureKPa, kegPressurePsi, primingSugarGrams, residualCO2Volumes } from './carbonation';
+import {
+  SUGAR_G_PER_G_CO2,
+  kegPressureKPa,
+  kegPressurePsi,
+  primingSugarGrams,
+  residualCO2Volumes,
+} from './carbonation';
 import { KPA_PER_PSI, fahrenheitToCelsius } from './constants';
 
 describe('keg pressure', () => {

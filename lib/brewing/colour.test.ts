@@ -14,7 +14,10 @@ import { KG_PER_LB, L_PER_US_GALLON } from './constants';
 describe('beer colour', () => {
   // MCU = Σ(lb × °L) / gal (the definition behind Morey's and Daniels's formulas).
   it('computes malt colour units in metric as in US units', () => {
-    const grist = [{ amountKg: 10 * KG_PER_LB, colorLovibond: 3 }, { amountKg: 1 * KG_PER_LB, colorLovibond: 60 }];
+    const grist = [
+      { amountKg: 10 * KG_PER_LB, colorLovibond: 3 },
+      { amountKg: 1 * KG_PER_LB, colorLovibond: 60 },
+    ];
     expect(maltColourUnits(grist, 5 * L_PER_US_GALLON)).toBeCloseTo((10 * 3 + 60) / 5, 10);
   });
 

@@ -4,7 +4,10 @@ import { POINTS_L_PER_KG_PER_PPG, clamp } from './constants';
  * Beer colour from the grist. MCU (malt colour units) = Σ(lb × °L) / US gal;
  * in metric, 8.3454 × Σ(kg × °L) / L (the same lb/gal ratio as ppg).
  */
-export function maltColourUnits(grist: readonly { amountKg: number; colorLovibond: number }[], volumeL: number): number {
+export function maltColourUnits(
+  grist: readonly { amountKg: number; colorLovibond: number }[],
+  volumeL: number,
+): number {
   let kgLovibond = 0;
   for (const fermentable of grist) kgLovibond += fermentable.amountKg * fermentable.colorLovibond;
   return (POINTS_L_PER_KG_PER_PPG * kgLovibond) / volumeL;
@@ -60,7 +63,9 @@ const SWATCH_ANCHORS: readonly (readonly [srm: number, red: number, green: numbe
 ];
 
 function hexByte(value: number): string {
-  return Math.round(clamp(value, 0, 255)).toString(16).padStart(2, '0');
+  return Math.round(clamp(value, 0, 255))
+    .toString(16)
+    .padStart(2, '0');
 }
 
 /** Approximate sRGB swatch (`#rrggbb`) for a colour in SRM, interpolated between SWATCH_ANCHORS. */

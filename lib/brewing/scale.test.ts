@@ -28,7 +28,13 @@ describe('scaleRecipe', () => {
   });
 
   it('scales extracts and sugars by volume only', () => {
-    const withSugar = { ...doc, fermentables: [...doc.fermentables, { ...doc.fermentables[0], name: 'Sugar', kind: 'sugar' as const, amountKg: 0.5 }] };
+    const withSugar = {
+      ...doc,
+      fermentables: [
+        ...doc.fermentables,
+        { ...doc.fermentables[0], name: 'Sugar', kind: 'sugar' as const, amountKg: 0.5 },
+      ],
+    };
     const scaled = scaleRecipe(withSugar, { volumeL: 40, efficiencyPct: 60 });
     expect(scaled.fermentables[3].amountKg).toBeCloseTo(1, 10);
     expect(computeStats(scaled).og).toBeCloseTo(computeStats(withSugar).og, 4);

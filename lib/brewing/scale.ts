@@ -60,6 +60,9 @@ function scaleWater(water: RecipeDocument['water'], volumeRatio: number): Recipe
   return {
     ...water,
     volumeL: water.volumeL * volumeRatio,
-    salts: water.salts.map((addition) => ({ ...addition, grams: roundTo(addition.grams * volumeRatio, GRAM_DECIMALS) })),
+    salts: water.salts.map((addition) => ({
+      ...addition,
+      grams: roundTo(addition.grams * volumeRatio, GRAM_DECIMALS),
+    })),
   };
 }

@@ -105,9 +105,7 @@ const fermentableSchema = z.object(
     potentialPpg: numberField('Potential')
       .min(0, 'Potential cannot be negative')
       .max(50, 'Potential must be at most 50 points per pound per gallon'),
-    colorLovibond: numberField('Colour')
-      .min(0, 'Colour cannot be negative')
-      .max(800, 'Colour must be at most 800 °L'),
+    colorLovibond: numberField('Colour').min(0, 'Colour cannot be negative').max(800, 'Colour must be at most 800 °L'),
     kind: choiceField('Fermentable kind', FERMENTABLE_KINDS),
   },
   objectError('Fermentable'),
@@ -203,7 +201,9 @@ export const waterProfileSchema = z.object(
 const saltAdditionSchema = z.object(
   {
     salt: choiceField('Salt', SALT_NAMES),
-    grams: numberField('Salt amount').min(0, 'Salt amount cannot be negative').max(10000, 'Salt amount must be at most 10 kg'),
+    grams: numberField('Salt amount')
+      .min(0, 'Salt amount cannot be negative')
+      .max(10000, 'Salt amount must be at most 10 kg'),
   },
   objectError('Salt addition'),
 );

@@ -35,7 +35,10 @@ describe('computeStats', () => {
     expect(stats.hops.map((h) => h.name)).toEqual(doc.hops.map((h) => h.name));
     doc.hops.forEach((hop, i) => expect(stats.hops[i].ibu).toBeCloseTo(hopIbu(hop, stats.og, 20, 60), 12));
     expect(stats.hops[3].ibu).toBe(0);
-    expect(stats.ibu).toBeCloseTo(stats.hops.reduce((sum, h) => sum + h.ibu, 0), 12);
+    expect(stats.ibu).toBeCloseTo(
+      stats.hops.reduce((sum, h) => sum + h.ibu, 0),
+      12,
+    );
   });
 
   it('reports the water after salts, its ratio and residual alkalinity', () => {
@@ -54,7 +57,9 @@ describe('computeStats', () => {
     expect(bare.water).toBeNull();
     expect(bare.carbonation).toBeNull();
     expect(bare.styleFit).toBeNull();
-    const unknown = computeStats(recipeDocumentSchema.parse({ ...minimalInput(), style: { code: '99Z', name: 'Mystery' } }));
+    const unknown = computeStats(
+      recipeDocumentSchema.parse({ ...minimalInput(), style: { code: '99Z', name: 'Mystery' } }),
+    );
     expect(unknown.styleFit).toBeNull();
   });
 

@@ -77,7 +77,11 @@ function hopStats(doc: RecipeDocument, og: number): HopStats[] {
 function waterStats(water: RecipeDocument['water']): WaterStats | null {
   if (!water) return null;
   const profile = waterAfterSalts(water.source, water.salts, water.volumeL);
-  return { ...profile, sulfateToChloride: sulfateToChlorideRatio(profile), residualAlkalinity: residualAlkalinity(profile) };
+  return {
+    ...profile,
+    sulfateToChloride: sulfateToChlorideRatio(profile),
+    residualAlkalinity: residualAlkalinity(profile),
+  };
 }
 
 function carbonationStats(carbonation: RecipeDocument['carbonation']): CarbonationStats | null {

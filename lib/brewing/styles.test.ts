@@ -1,6 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import { computeStats } from './stats';
-import { STYLE_GUIDELINES_EDITION, STYLE_GUIDELINES_SOURCE, findStyle, fitStyle, listStyles, styleCategories } from './styles';
+import {
+  STYLE_GUIDELINES_EDITION,
+  STYLE_GUIDELINES_SOURCE,
+  findStyle,
+  fitStyle,
+  listStyles,
+  styleCategories,
+} from './styles';
 import { examplePaleAle } from './test-fixtures';
 
 // BJCP 2021 Beer Style Guidelines, vital statistics as printed (data/style-vitals-2021.json).

@@ -112,7 +112,10 @@ describe('salt planning', () => {
     // No single-salt nudge of ±0.05 g improves the plan (a local, hence global, optimum of a convex problem).
     const error = (salts: { salt: (typeof plan.salts)[number]['salt']; grams: number }[]) => {
       const water = waterAfterSalts(source, salts, volumeL);
-      return (Object.keys(target) as (keyof WaterProfile)[]).reduce((sum, ion) => sum + (water[ion] - target[ion]) ** 2, 0);
+      return (Object.keys(target) as (keyof WaterProfile)[]).reduce(
+        (sum, ion) => sum + (water[ion] - target[ion]) ** 2,
+        0,
+      );
     };
     const base = error(plan.salts);
     for (const salt of ['gypsum', 'epsom', 'table_salt', 'calcium_chloride', 'baking_soda'] as const) {

@@ -99,7 +99,10 @@ export function planWaterSalts(source: WaterProfile, target: WaterProfile, volum
   let bestError = sumOfSquares(shortfall);
   for (let mask = 1; mask < 1 << SALT_NAMES.length; mask++) {
     const chosen = SALT_NAMES.map((_, j) => j).filter((j) => (mask >> j) & 1);
-    const solution = leastSquares(chosen.map((j) => columns[j]), shortfall);
+    const solution = leastSquares(
+      chosen.map((j) => columns[j]),
+      shortfall,
+    );
     if (!solution || solution.some((grams) => grams < 0)) continue;
     const grams = SALT_NAMES.map(() => 0);
     chosen.forEach((j, k) => (grams[j] = solution[k]));

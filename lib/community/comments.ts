@@ -45,7 +45,10 @@ function isModerator(viewer: MaybeViewer): boolean {
 }
 
 /** Whether someone may read a comment (its recipe being visible to them is checked separately). */
-export function canViewComment(comment: Pick<Comment, 'authorId' | 'status' | 'hiddenAt' | 'deletedAt'>, viewer: MaybeViewer): boolean {
+export function canViewComment(
+  comment: Pick<Comment, 'authorId' | 'status' | 'hiddenAt' | 'deletedAt'>,
+  viewer: MaybeViewer,
+): boolean {
   if (comment.deletedAt) return false;
   if (viewer && (viewer.id === comment.authorId || isModerator(viewer))) return true;
   return comment.status === 'published' && !comment.hiddenAt;
@@ -92,7 +95,9 @@ export async function listComments(viewer: MaybeViewer, recipeId: string): Promi
     else if (!c.parentId && c.status === 'published') placeholders.set(c.id, view);
   }
   const top: CommentView[] = [];
-  for (const view of [...views.values(), ...placeholders.values()].sort((a, b) => a.createdAt.getTime() - b.createdAt.getTime())) {
+  for (const view of [...views.values(), ...placeholders.values()].sort(
+    (a, b) => a.createdAt.getTime() - b.createdAt.getTime(),
+  )) {
     if (!view.parentId) {
       top.push(view);
       continue;
@@ -104,16 +109,29 @@ export async function listComments(viewer: MaybeViewer, recipeId: string): Promi
   return top.filter((c) => views.has(c.id) || c.replies.length > 0);
 }
 
-async function loadComment(tx: Transaction | typeof db, viewer: MaybeViewer, commentId: string, opts: { lock?: boolean } = {}) {
+async function loadComment(
+  tx: Transaction | typeof db,
+  viewer: MaybeViewer,
+  commentId: string,
+  opts: { lock?: boolean } = {},
+) {
   if (!/^[0-9a-f-]{36}$/i.test(commentId)) throw new AppError('not_found', 'comment');
-  const query = tx.select({ comment: comments, recipe: recipes }).from(comments).innerJoin(recipes, eq(recipes.id, comments.recipeId)).where(eq(comments.id, commentId));
+  const query = tx
+    .select({ comment: comments, recipe: recipes })
+    .from(comments)
+    .innerJoin(recipes, eq(recipes.id, comments.recipeId))
+    .where(eq(comments.id, commentId));
   const [row] = opts.lock ? await query.for('update', { of: comments }) : await query;
-  if (!row || !canView(row.recipe, viewer) || !canViewComment(row.comment, viewer)) throw new AppError('not_found', 'comment');
+  if (!row || !canView(row.recipe, viewer) || !canViewComment(row.comment, viewer))
+    throw new AppError('not_found', 'comment');
   return row;
 }
 
 /** A comment and its recipe, if the viewer may see both (404 otherwise). */
-export async function getVisibleComment(viewer: MaybeViewer, commentId: string): Promise<{ comment: Comment; recipe: Recipe }> {
+export async function getVisibleComment(
+  viewer: MaybeViewer,
+  commentId: string,
+): Promise<{ comment: Comment; recipe: Recipe }> {
   return loadComment(db, viewer, commentId);
 }
 
@@ -129,7 +147,12 @@ async function holdFor(tx: Transaction, viewer: Viewer, body: string): Promise<b
   const hasLink = containsLink(body);
   if (!hasLink) return false;
   const [author] = await tx.select({ createdAt: users.createdAt }).from(users).where(eq(users.id, viewer.id));
-  return shouldHoldComment({ role: viewer.role, accountCreatedAt: author.createdAt, hasLink, approvedLinkComments: await approvedLinkComments(tx, viewer.id) });
+  return shouldHoldComment({
+    role: viewer.role,
+    accountCreatedAt: author.createdAt,
+    hasLink,
+    approvedLinkComments: await approvedLinkComments(tx, viewer.id),
+  });
 }
 
 export function commentUrl(recipe: Pick<Recipe, 'slug'>, commentId: string): string {
@@ -137,7 +160,12 @@ export function commentUrl(recipe: Pick<Recipe, 'slug'>, commentId: string): str
 }
 
 /** Tells the recipe's owner and, for a reply, the author of the comment replied to. */
-export async function announceComment(tx: Transaction, comment: Pick<Comment, 'id' | 'authorId' | 'body' | 'parentId'>, recipe: Pick<Recipe, 'id' | 'slug' | 'ownerId'>, replyToAuthorId: string | null): Promise<void> {
+export async function announceComment(
+  tx: Transaction,
+  comment: Pick<Comment, 'id' | 'authorId' | 'body' | 'parentId'>,
+  recipe: Pick<Recipe, 'id' | 'slug' | 'ownerId'>,
+  replyToAuthorId: string | null,
+): Promise<void> {
   const url = commentUrl(recipe, comment.id);
   const base = { actorId: comment.authorId, recipeId: recipe.id, commentId: comment.id, url, excerpt: comment.body };
   if (replyToAuthorId) await notify(tx, { ...base, userId: replyToAuthorId, kind: 'reply' });
@@ -148,15 +176,23 @@ export async function announceComment(tx: Transaction, comment: Pick<Comment, 'i
  * Posts a comment or a reply. A reply to a reply joins the same thread (replies go one level
  * deep) and tells the author it answered. A new member's link comment may be held for review.
  */
-export async function addComment(viewer: Viewer, recipeId: string, input: NewCommentInput): Promise<{ comment: CommentView; held: boolean }> {
+export async function addComment(
+  viewer: Viewer,
+  recipeId: string,
+  input: NewCommentInput,
+): Promise<{ comment: CommentView; held: boolean }> {
   const recipe = await getRecipe(viewer, { id: recipeId });
-  if (recipe.hiddenAt) throw new AppError('forbidden', 'recipe', 'Comments are closed while moderators have this recipe hidden.');
+  if (recipe.hiddenAt)
+    throw new AppError('forbidden', 'recipe', 'Comments are closed while moderators have this recipe hidden.');
   await consumeOrThrow(COMMENT_PER_MEMBER, viewer.id);
   const inserted = await db.transaction(async (tx) => {
     let rootId: string | null = null;
     let replyToAuthorId: string | null = null;
     if (input.parentId) {
-      const [parent] = await tx.select().from(comments).where(and(eq(comments.id, input.parentId), eq(comments.recipeId, recipeId)));
+      const [parent] = await tx
+        .select()
+        .from(comments)
+        .where(and(eq(comments.id, input.parentId), eq(comments.recipeId, recipeId)));
       if (!parent || !canViewComment(parent, viewer)) {
         throw new AppError('bad_request', 'comment', 'The comment you reply to is not on this recipe any more.', [
           { path: 'parentId', message: 'The comment you reply to is not on this recipe any more.' },
@@ -205,13 +241,23 @@ function toOwnView(c: Comment, viewer: Viewer): CommentView {
 }
 
 /** Its author changes a comment within COMMENT_EDIT_WINDOW_MIN minutes of posting it. */
-export async function editComment(viewer: Viewer, commentId: string, body: string): Promise<{ comment: CommentView; held: boolean }> {
+export async function editComment(
+  viewer: Viewer,
+  commentId: string,
+  body: string,
+): Promise<{ comment: CommentView; held: boolean }> {
   const updated = await db.transaction(async (tx) => {
     const { comment } = await loadComment(tx, viewer, commentId, { lock: true });
-    if (comment.authorId !== viewer.id) throw new AppError('forbidden', 'comment', 'Only its author can edit a comment.');
-    if (comment.hiddenAt) throw new AppError('forbidden', 'comment', 'Moderators hid this comment, so it cannot be edited.');
+    if (comment.authorId !== viewer.id)
+      throw new AppError('forbidden', 'comment', 'Only its author can edit a comment.');
+    if (comment.hiddenAt)
+      throw new AppError('forbidden', 'comment', 'Moderators hid this comment, so it cannot be edited.');
     if (Date.now() >= editableUntil(comment).getTime()) {
-      throw new AppError('forbidden', 'comment', `A comment can be edited for ${COMMENT_EDIT_WINDOW_MIN} minutes after posting; this one can no longer be changed.`);
+      throw new AppError(
+        'forbidden',
+        'comment',
+        `A comment can be edited for ${COMMENT_EDIT_WINDOW_MIN} minutes after posting; this one can no longer be changed.`,
+      );
     }
     // Adding a link afterwards goes through the same review as posting one.
     const held = comment.status === 'held' || (await holdFor(tx, viewer, body));
@@ -230,7 +276,8 @@ export async function deleteComment(viewer: Viewer, commentId: string): Promise<
   await db.transaction(async (tx) => {
     const { comment } = await loadComment(tx, viewer, commentId, { lock: true });
     const own = comment.authorId === viewer.id;
-    if (!own && !hasRole(viewer, 'moderator')) throw new AppError('forbidden', 'comment', 'Only its author or a moderator can delete a comment.');
+    if (!own && !hasRole(viewer, 'moderator'))
+      throw new AppError('forbidden', 'comment', 'Only its author or a moderator can delete a comment.');
     await tx.update(comments).set({ deletedAt: new Date(), body: '' }).where(eq(comments.id, commentId));
     if (!own) {
       await tx.insert(moderationActions).values({

@@ -36,7 +36,10 @@ const FEED_SIZE = 50;
  * and recipes the viewer follows, newest first. Only public, unhidden recipes appear, and never
  * the viewer's own doings. `before` pages back in time.
  */
-export async function getFeed(viewer: Pick<Viewer, 'id'>, opts: { before?: Date } = {}): Promise<{ items: FeedItem[]; next: Date | null }> {
+export async function getFeed(
+  viewer: Pick<Viewer, 'id'>,
+  opts: { before?: Date } = {},
+): Promise<{ items: FeedItem[]; next: Date | null }> {
   const before = (opts.before ?? new Date(Date.now() + 60_000)).toISOString();
   const result = await db.execute<Row>(sql`
     with followed_members as (select followee_id as id from member_follows where follower_id = ${viewer.id}),
@@ -67,7 +70,8 @@ export async function getFeed(viewer: Pick<Viewer, 'id'>, opts: { before?: Date 
   const rows = result.rows.slice(0, FEED_SIZE);
   const items = rows.map((r): FeedItem => {
     const at = new Date(r.at);
-    const kind = r.kind === 'brew_day' ? 'brew_day' : r.is_fork ? 'fork' : Number(r.number) === 1 ? 'recipe' : 'version';
+    const kind =
+      r.kind === 'brew_day' ? 'brew_day' : r.is_fork ? 'fork' : Number(r.number) === 1 ? 'recipe' : 'version';
     return {
       kind,
       id: r.id,

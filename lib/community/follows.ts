@@ -18,26 +18,44 @@ async function activeMember(id: string) {
 }
 
 /** Follows or unfollows a member or a recipe; doing it twice changes nothing. */
-export async function setFollow(viewer: Viewer, input: FollowInput, following: boolean): Promise<{ following: boolean }> {
+export async function setFollow(
+  viewer: Viewer,
+  input: FollowInput,
+  following: boolean,
+): Promise<{ following: boolean }> {
   if (input.type === 'member') {
     if (input.id === viewer.id) {
-      throw new AppError('bad_request', 'follow', 'You cannot follow yourself.', [{ path: 'id', message: 'You cannot follow yourself.' }]);
+      throw new AppError('bad_request', 'follow', 'You cannot follow yourself.', [
+        { path: 'id', message: 'You cannot follow yourself.' },
+      ]);
     }
     if (following) await activeMember(input.id);
     await consumeOrThrow(REACTION_PER_MEMBER, viewer.id);
-    if (following) await db.insert(memberFollows).values({ followerId: viewer.id, followeeId: input.id }).onConflictDoNothing();
-    else await db.delete(memberFollows).where(and(eq(memberFollows.followerId, viewer.id), eq(memberFollows.followeeId, input.id)));
+    if (following)
+      await db.insert(memberFollows).values({ followerId: viewer.id, followeeId: input.id }).onConflictDoNothing();
+    else
+      await db
+        .delete(memberFollows)
+        .where(and(eq(memberFollows.followerId, viewer.id), eq(memberFollows.followeeId, input.id)));
     return { following };
   }
   if (!/^[0-9a-f-]{36}$/i.test(input.id)) throw new AppError('not_found', 'recipe');
   if (following) await getRecipe(viewer, { id: input.id });
   await consumeOrThrow(REACTION_PER_MEMBER, viewer.id);
-  if (following) await db.insert(recipeFollows).values({ followerId: viewer.id, recipeId: input.id }).onConflictDoNothing();
-  else await db.delete(recipeFollows).where(and(eq(recipeFollows.followerId, viewer.id), eq(recipeFollows.recipeId, input.id)));
+  if (following)
+    await db.insert(recipeFollows).values({ followerId: viewer.id, recipeId: input.id }).onConflictDoNothing();
+  else
+    await db
+      .delete(recipeFollows)
+      .where(and(eq(recipeFollows.followerId, viewer.id), eq(recipeFollows.recipeId, input.id)));
   return { following };
 }
 
-export async function isFollowing(viewer: Pick<Viewer, 'id'> | null, type: FollowInput['type'], id: string): Promise<boolean> {
+export async function isFollowing(
+  viewer: Pick<Viewer, 'id'> | null,
+  type: FollowInput['type'],
+  id: string,
+): Promise<boolean> {
   if (!viewer) return false;
   const [row] =
     type === 'member'

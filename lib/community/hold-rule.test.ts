@@ -13,8 +13,9 @@ describe('containsLink', () => {
     'visit cheapwatches.com today',
   ])('finds a link in %j', (text) => expect(containsLink(text)).toBe(true));
 
-  it.each(['Mash at 66 °C for 60 min.', 'Use 1.5 kg of pale malt, e.g. two-row.', 'OG 1.052, FG 1.010'])('finds none in %j', (text) =>
-    expect(containsLink(text)).toBe(false),
+  it.each(['Mash at 66 °C for 60 min.', 'Use 1.5 kg of pale malt, e.g. two-row.', 'OG 1.052, FG 1.010'])(
+    'finds none in %j',
+    (text) => expect(containsLink(text)).toBe(false),
   );
 });
 
@@ -22,7 +23,8 @@ describe('shouldHoldComment', () => {
   const base = { role: 'member' as const, accountCreatedAt: daysAgo(1), hasLink: true, approvedLinkComments: 0, now };
   it('holds a new member’s link comment', () => expect(shouldHoldComment(base)).toBe(true));
   it('publishes a comment without a link', () => expect(shouldHoldComment({ ...base, hasLink: false })).toBe(false));
-  it('publishes once the account is a week old', () => expect(shouldHoldComment({ ...base, accountCreatedAt: daysAgo(7) })).toBe(false));
+  it('publishes once the account is a week old', () =>
+    expect(shouldHoldComment({ ...base, accountCreatedAt: daysAgo(7) })).toBe(false));
   it('publishes after three approvals', () => {
     expect(shouldHoldComment({ ...base, approvedLinkComments: 2 })).toBe(true);
     expect(shouldHoldComment({ ...base, approvedLinkComments: 3 })).toBe(false);

@@ -11,7 +11,13 @@ export const APPROVALS_BEFORE_TRUSTED = 3;
  * moderators — unless moderators have already approved APPROVALS_BEFORE_TRUSTED of that member's
  * link comments.
  */
-export function shouldHoldComment(input: { role: 'member' | 'moderator' | 'admin'; accountCreatedAt: Date; hasLink: boolean; approvedLinkComments: number; now?: Date }): boolean {
+export function shouldHoldComment(input: {
+  role: 'member' | 'moderator' | 'admin';
+  accountCreatedAt: Date;
+  hasLink: boolean;
+  approvedLinkComments: number;
+  now?: Date;
+}): boolean {
   if (!input.hasLink || input.role !== 'member') return false;
   const ageMs = (input.now ?? new Date()).getTime() - input.accountCreatedAt.getTime();
   if (ageMs >= NEW_ACCOUNT_DAYS * 24 * 60 * 60 * 1000) return false;

@@ -19,7 +19,10 @@ const sources = alias(recipes, 'source');
  * What a member page shows beside the recipes: stars their listed recipes received, followers,
  * and the forks they made. Others see only public, unhidden recipes; the member sees all of theirs.
  */
-export async function getMemberCommunity(memberId: string, viewer: Pick<Viewer, 'id'> | null): Promise<MemberCommunity> {
+export async function getMemberCommunity(
+  memberId: string,
+  viewer: Pick<Viewer, 'id'> | null,
+): Promise<MemberCommunity> {
   const own = viewer?.id === memberId;
   const listed = own ? undefined : and(eq(recipes.visibility, 'public'), isNull(recipes.hiddenAt));
   const [[stars], follow, forks] = await Promise.all([
@@ -71,4 +74,3 @@ export async function getMemberIdByHandle(handle: string): Promise<string | null
     .where(and(eq(users.handle, handle.slice(0, 40)), isNull(users.suspendedAt)));
   return row?.id ?? null;
 }
-

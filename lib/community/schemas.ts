@@ -21,17 +21,27 @@ export const editCommentSchema = z.object({ body: commentBody });
 export const FOLLOW_TYPES = ['member', 'recipe'] as const;
 export const followSchema = z.object({
   type: z.enum(FOLLOW_TYPES, { error: 'Follow a member or a recipe.' }),
-  id: z.string({ error: 'Name who or what to follow.' }).min(1, 'Name who or what to follow.').max(64, 'That is not an id.'),
+  id: z
+    .string({ error: 'Name who or what to follow.' })
+    .min(1, 'Name who or what to follow.')
+    .max(64, 'That is not an id.'),
 });
 export type FollowInput = z.infer<typeof followSchema>;
 
 export const emailChoicesSchema = z.object(
-  Object.fromEntries(NOTIFICATION_KINDS.map((k) => [k, z.boolean({ error: 'Choose on or off.' })])) as Record<(typeof NOTIFICATION_KINDS)[number], z.ZodBoolean>,
+  Object.fromEntries(NOTIFICATION_KINDS.map((k) => [k, z.boolean({ error: 'Choose on or off.' })])) as Record<
+    (typeof NOTIFICATION_KINDS)[number],
+    z.ZodBoolean
+  >,
 );
 
 /** The settings page and PUT /api/me/settings; volumes are litres (the page converts gallons). */
 export const settingsSchema = z.object({
-  name: z.string({ error: 'Give a display name.' }).trim().min(1, 'Give a display name.').max(80, 'Keep the display name under 80 characters.'),
+  name: z
+    .string({ error: 'Give a display name.' })
+    .trim()
+    .min(1, 'Give a display name.')
+    .max(80, 'Keep the display name under 80 characters.'),
   bio: z.string({ error: 'The bio must be text.' }).trim().max(2_000, 'Keep the bio under 2,000 characters.'),
   units: z.enum(['metric', 'us'], { error: 'Choose metric or US units.' }),
   defaultBatchVolumeL: z

@@ -20,11 +20,16 @@ export interface StarState {
  */
 export async function setStar(viewer: Viewer, recipeId: string, starred: boolean): Promise<StarState> {
   const recipe = await getRecipe(viewer, { id: recipeId });
-  if (starred && recipe.hiddenAt) throw new AppError('forbidden', 'recipe', 'Moderators hid this recipe, so it cannot be starred.');
+  if (starred && recipe.hiddenAt)
+    throw new AppError('forbidden', 'recipe', 'Moderators hid this recipe, so it cannot be starred.');
   await consumeOrThrow(REACTION_PER_MEMBER, viewer.id);
   const state = await db.transaction(async (tx) => {
     const changed = starred
-      ? await tx.insert(stars).values({ userId: viewer.id, recipeId }).onConflictDoNothing().returning({ recipeId: stars.recipeId })
+      ? await tx
+          .insert(stars)
+          .values({ userId: viewer.id, recipeId })
+          .onConflictDoNothing()
+          .returning({ recipeId: stars.recipeId })
       : await tx
           .delete(stars)
           .where(and(eq(stars.userId, viewer.id), eq(stars.recipeId, recipeId)))
@@ -39,7 +44,14 @@ export async function setStar(viewer: Viewer, recipeId: string, starred: boolean
       .where(eq(recipes.id, recipeId))
       .returning({ starCount: recipes.starCount });
     await recordRecipeChange(tx, recipeId);
-    if (starred) await notify(tx, { userId: recipe.ownerId, kind: 'star', actorId: viewer.id, recipeId, url: `/recipes/${recipe.slug}` });
+    if (starred)
+      await notify(tx, {
+        userId: recipe.ownerId,
+        kind: 'star',
+        actorId: viewer.id,
+        recipeId,
+        url: `/recipes/${recipe.slug}`,
+      });
     return { starred, starCount: row.starCount, changed: true };
   });
   if (state.changed) afterRecipeCommit();
@@ -48,6 +60,9 @@ export async function setStar(viewer: Viewer, recipeId: string, starred: boolean
 
 export async function hasStarred(viewer: Pick<Viewer, 'id'> | null, recipeId: string): Promise<boolean> {
   if (!viewer) return false;
-  const [row] = await db.select({ recipeId: stars.recipeId }).from(stars).where(and(eq(stars.userId, viewer.id), eq(stars.recipeId, recipeId)));
+  const [row] = await db
+    .select({ recipeId: stars.recipeId })
+    .from(stars)
+    .where(and(eq(stars.userId, viewer.id), eq(stars.recipeId, recipeId)));
   return Boolean(row);
 }

@@ -57,7 +57,9 @@ export function route<
           throw new AppError('forbidden', 'resource', 'Your role does not allow this.');
         }
       }
-      const body = options.body ? await parseJsonBody(req, options.body, options.maxBodyBytes ?? 512 * 1024) : undefined;
+      const body = options.body
+        ? await parseJsonBody(req, options.body, options.maxBodyBytes ?? 512 * 1024)
+        : undefined;
       const query = options.query ? parseQuery(req, options.query) : undefined;
       const params = context?.params ? await context.params : ({} as P);
       const result = await handler({ req, body, query, params, viewer } as never);
@@ -79,7 +81,13 @@ export function errorResponse(err: unknown, requestId: string = crypto.randomUUI
   if (isDatabaseUnavailable(err)) {
     console.error(`[${requestId}] database unavailable:`, (err as Error).message);
     return NextResponse.json(
-      { error: { code: 'unavailable', message: 'Kettlefork is briefly unavailable; please try again in a moment.', requestId } },
+      {
+        error: {
+          code: 'unavailable',
+          message: 'Kettlefork is briefly unavailable; please try again in a moment.',
+          requestId,
+        },
+      },
       { status: 503, headers: { 'Retry-After': '5' } },
     );
   }
@@ -92,7 +100,8 @@ export function errorResponse(err: unknown, requestId: string = crypto.randomUUI
 
 async function parseJsonBody<S extends z.ZodType>(req: NextRequest, schema: S, maxBytes: number): Promise<z.infer<S>> {
   const declared = Number(req.headers.get('content-length') ?? '0');
-  if (declared > maxBytes) throw new AppError('too_large', 'request body', `The request body is larger than ${maxBytes} bytes.`);
+  if (declared > maxBytes)
+    throw new AppError('too_large', 'request body', `The request body is larger than ${maxBytes} bytes.`);
   const text = await req.text();
   if (Buffer.byteLength(text) > maxBytes) {
     throw new AppError('too_large', 'request body', `The request body is larger than ${maxBytes} bytes.`);

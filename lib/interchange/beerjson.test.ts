@@ -19,7 +19,8 @@ function refusal(run: () => unknown): InterchangeError {
 
 describe('BeerJSON round trip', () => {
   it('writes files that satisfy the published BeerJSON 1.0 schema', () => {
-    for (const demo of demoRecipes) expect(checkBeerJsonSchema(toBeerJson(recipeDocumentSchema.parse(demo.document))), demo.key).toBeNull();
+    for (const demo of demoRecipes)
+      expect(checkBeerJsonSchema(toBeerJson(recipeDocumentSchema.parse(demo.document))), demo.key).toBeNull();
   });
 
   it('exports and imports the example pale ale to the same document and numbers', () => {
@@ -55,7 +56,12 @@ describe('BeerJSON 1.0 specification — example recipe', () => {
     // US gallon = 3.785411784 L (common practice); 5.5 gal.
     expect(doc.batch.volumeL).toBeCloseTo(20.8198, 3);
     // 10 lb = 4.5359237 kg; fine grind 80% of sucrose's 46.214 ppg (common practice).
-    expect(doc.fermentables[0]).toMatchObject({ amountKg: 4.535924, potentialPpg: 36.97, colorLovibond: 2, kind: 'grain' });
+    expect(doc.fermentables[0]).toMatchObject({
+      amountKg: 4.535924,
+      potentialPpg: 36.97,
+      colorLovibond: 2,
+      kind: 'grain',
+    });
     // 12 oz; potential 1.034 = 34 ppg; 105 EBC → 53.3 SRM → 39.9 °L (EBC = 1.97 SRM; SRM = 1.3546 °L − 0.76).
     expect(doc.fermentables[1].amountKg).toBeCloseTo(0.340194, 5);
     expect(doc.fermentables[1].potentialPpg).toBe(34);
@@ -77,7 +83,9 @@ describe('BeerJSON 1.0 specification — example recipe', () => {
   it('keeps the unmodelled parts in the notes and lists them', () => {
     expect(doc.notes).toContain('Whirlfloc tablet (fining): 1 each');
     expect(doc.notes).toContain('dry hop added 3 days into fermentation');
-    expect(recipe.dropped.join('\n')).toMatch(/miscellaneous_additions\[1\] \(Whirlfloc tablet\): fining ingredients are not modelled/);
+    expect(recipe.dropped.join('\n')).toMatch(
+      /miscellaneous_additions\[1\] \(Whirlfloc tablet\): fining ingredients are not modelled/,
+    );
     expect(recipe.guessed.join('\n')).toMatch(/Serving temperature/);
   });
 });
@@ -92,14 +100,18 @@ describe('BeerJSON files we refuse', () => {
   it('refuses a file that fails the schema, naming the path', () => {
     const file = base();
     delete file.beerjson.recipes[0].batch_size;
-    expect(refusal(() => parseBeerJson(JSON.stringify(file))).message).toBe('beerjson.recipes[0].batch_size: is required by the BeerJSON 1.0 schema');
+    expect(refusal(() => parseBeerJson(JSON.stringify(file))).message).toBe(
+      'beerjson.recipes[0].batch_size: is required by the BeerJSON 1.0 schema',
+    );
   });
 
   it('refuses an unknown unit, naming the element and the units allowed', () => {
     const file = base();
     file.beerjson.recipes[0].ingredients.hop_additions[0].amount.unit = 'stone';
     const err = refusal(() => parseBeerJson(JSON.stringify(file)));
-    expect(err.message).toMatch(/^beerjson\.recipes\[0\]\.ingredients\.hop_additions\[0\]\.amount\.unit: "stone" is not allowed; use one of: .*gal.*kg/);
+    expect(err.message).toMatch(
+      /^beerjson\.recipes\[0\]\.ingredients\.hop_additions\[0\]\.amount\.unit: "stone" is not allowed; use one of: .*gal.*kg/,
+    );
   });
 
   it('refuses a negative amount, which the schema itself allows', () => {
@@ -113,7 +125,9 @@ describe('BeerJSON files we refuse', () => {
   it('refuses a fermentable measured by volume', () => {
     const file = base();
     file.beerjson.recipes[0].ingredients.fermentable_additions[0].amount = { unit: 'l', value: 2 };
-    expect(refusal(() => parseBeerJson(JSON.stringify(file))).message).toMatch(/fermentable_additions\[0\] \(Pale 2-row\)\.amount: the amount given as a volume/);
+    expect(refusal(() => parseBeerJson(JSON.stringify(file))).message).toMatch(
+      /fermentable_additions\[0\] \(Pale 2-row\)\.amount: the amount given as a volume/,
+    );
   });
 
   it('refuses a file with no recipe', () => {

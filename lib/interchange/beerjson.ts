@@ -100,7 +100,9 @@ class Node {
 
   child(key: string): Node | undefined {
     const value = this.data[key];
-    return value && typeof value === 'object' && !Array.isArray(value) ? new Node(value as Json, this.at(key)) : undefined;
+    return value && typeof value === 'object' && !Array.isArray(value)
+      ? new Node(value as Json, this.at(key))
+      : undefined;
   }
 
   list(key: string): Node[] {
@@ -108,7 +110,10 @@ class Node {
     if (!Array.isArray(value)) return [];
     return value.map((item, i) => {
       const name = (item as Json).name;
-      return new Node(item as Json, `${this.at(key)}[${i}]${typeof name === 'string' && name ? ` (${name.slice(0, 60)})` : ''}`);
+      return new Node(
+        item as Json,
+        `${this.at(key)}[${i}]${typeof name === 'string' && name ? ` (${name.slice(0, 60)})` : ''}`,
+      );
     });
   }
 
@@ -116,7 +121,8 @@ class Node {
   measured(key: string, opts: { allowNegative?: boolean } = {}): Measured | undefined {
     const value = this.data[key] as Measured | undefined;
     if (!value) return undefined;
-    if (!opts.allowNegative && value.value < 0) throw new InterchangeError(`must not be negative (got ${value.value} ${value.unit})`, this.at(key));
+    if (!opts.allowNegative && value.value < 0)
+      throw new InterchangeError(`must not be negative (got ${value.value} ${value.unit})`, this.at(key));
     return value;
   }
 }
@@ -185,9 +191,15 @@ function readRecipe(data: Json, basePath: string, library: Library): ImportedRec
   const boilSteps = boil?.list('boil_steps') ?? [];
   const ingredients = recipe.child('ingredients')!;
   const fermentables = readFermentables(ingredients, draft, origins);
-  const gristKg = fermentables.filter((f) => f.kind === 'grain' || f.kind === 'adjunct').reduce((n, f) => n + f.amountKg, 0);
+  const gristKg = fermentables
+    .filter((f) => f.kind === 'grain' || f.kind === 'adjunct')
+    .reduce((n, f) => n + f.amountKg, 0);
   const mash = readMash(recipe, draft, origins, gristKg);
-  const equipment = readEquipment(recipe, library, draft, { volumeL, boilTimeMin, preBoil: boil?.measured('pre_boil_size') });
+  const equipment = readEquipment(recipe, library, draft, {
+    volumeL,
+    boilTimeMin,
+    preBoil: boil?.measured('pre_boil_size'),
+  });
   const salts = readMiscs(ingredients, draft, origins);
   const document: RecipeDocumentInput = {
     title: name.trim().slice(0, 120) || 'Imported recipe',
@@ -212,7 +224,10 @@ function amountKg(node: Node, what: string): number {
   const amount = node.measured('amount');
   if (!amount) throw new InterchangeError('is required', node.at('amount'));
   if (!isMassUnit(amount.unit)) {
-    throw new InterchangeError(`${what} given as a volume (${amount.value} ${amount.unit}); Kettlefork needs a weight (kg, g, lb or oz)`, node.at('amount'));
+    throw new InterchangeError(
+      `${what} given as a volume (${amount.value} ${amount.unit}); Kettlefork needs a weight (kg, g, lb or oz)`,
+      node.at('amount'),
+    );
   }
   return toKg(amount, node.at('amount'));
 }
@@ -236,7 +251,11 @@ function readFermentables(ingredients: Node, draft: Draft, origins: Origins) {
     const fine = yieldNode.measured('fine_grind');
     const coarse = yieldNode.measured('coarse_grind');
     if (potential) {
-      if (potential.unit !== 'sg') throw new InterchangeError(`a potential in ${potential.unit} is not supported; give it as sg`, yieldNode.at('potential'));
+      if (potential.unit !== 'sg')
+        throw new InterchangeError(
+          `a potential in ${potential.unit} is not supported; give it as sg`,
+          yieldNode.at('potential'),
+        );
       let sg = potential.value;
       // Some files write the potential as gravity times 1000 (1037 for 1.037).
       if (sg >= 1000 && sg < 1200) {
@@ -254,7 +273,13 @@ function readFermentables(ingredients: Node, draft: Draft, origins: Origins) {
     if (timing?.str('use') && timing.str('use') !== 'add_to_mash' && timing.str('use') !== 'add_to_boil') {
       draft.kept.push(`${f.data.name}: added ${String(timing.str('use')).replace(/_/g, ' ')}`);
     }
-    return { name: String(f.data.name).slice(0, 80), amountKg: round(amountKg(f, 'the amount'), 6), potentialPpg, colorLovibond, kind };
+    return {
+      name: String(f.data.name).slice(0, 80),
+      amountKg: round(amountKg(f, 'the amount'), 6),
+      potentialPpg,
+      colorLovibond,
+      kind,
+    };
   });
 }
 
@@ -278,7 +303,9 @@ function readHops(ingredients: Node, boilSteps: Node[], draft: Draft, origins: O
     const amount = h.measured('amount');
     if (!amount || isMassUnit(amount.unit)) return true;
     // Hop oils and liquid extracts are measured by volume; they add aroma, and we count hops by weight.
-    draft.dropped.push(`${h.path}: measured by volume (${plain(amount.value, 3)} ${amount.unit}); hops are counted by weight`);
+    draft.dropped.push(
+      `${h.path}: measured by volume (${plain(amount.value, 3)} ${amount.unit}); hops are counted by weight`,
+    );
     draft.kept.push(`${String(h.data.name)}: ${plain(amount.value, 3)} ${amount.unit}`);
     return false;
   });
@@ -302,7 +329,8 @@ function readHops(ingredients: Node, boilSteps: Node[], draft: Draft, origins: O
     } else if (useText === 'add_to_fermentation' || useText === 'add_to_package') {
       use = 'dry_hop';
       timeMin = minutes(duration, 'duration');
-      if (time) draft.kept.push(`${name}: dry hop added ${plain(minutes(time, 'time')! / 1440, 2)} days into fermentation`);
+      if (time)
+        draft.kept.push(`${name}: dry hop added ${plain(minutes(time, 'time')! / 1440, 2)} days into fermentation`);
       if (useText === 'add_to_package') draft.guessed.push(`${h.path}: a hop added at packaging, counted as a dry hop`);
     } else {
       const step = typeof timing.data.step === 'number' ? boilSteps[(timing.data.step as number) - 1] : undefined;
@@ -320,8 +348,17 @@ function readHops(ingredients: Node, boilSteps: Node[], draft: Draft, origins: O
       timeMin = 0;
       draft.guessed.push(`${h.path}: timing gives no duration; used 0 min`);
     }
-    if (use === 'whirlpool' && tempC === undefined) draft.guessed.push(`${h.path}: hop stand temperature not given; counted at 80 °C`);
-    return { name, amountG, alphaPct, use, timeMin: round(timeMin, 3), form, ...(tempC === undefined ? {} : { tempC: round(tempC, 1) }) };
+    if (use === 'whirlpool' && tempC === undefined)
+      draft.guessed.push(`${h.path}: hop stand temperature not given; counted at 80 °C`);
+    return {
+      name,
+      amountG,
+      alphaPct,
+      use,
+      timeMin: round(timeMin, 3),
+      form,
+      ...(tempC === undefined ? {} : { tempC: round(tempC, 1) }),
+    };
   });
 }
 
@@ -354,7 +391,9 @@ const CULTURE_KINDS: Record<string, YeastKind> = {
 function readCultures(ingredients: Node, library: Library, draft: Draft, origins: Origins) {
   const cultures = ingredients.list('culture_additions');
   if (cultures.length === 0) {
-    draft.guessed.push(`Yeast: the recipe names none; added a clean ale yeast at ${DEFAULT_ATTENUATION_PCT.ale}% attenuation so the numbers can be worked out`);
+    draft.guessed.push(
+      `Yeast: the recipe names none; added a clean ale yeast at ${DEFAULT_ATTENUATION_PCT.ale}% attenuation so the numbers can be worked out`,
+    );
     return [{ name: 'Clean ale yeast', kind: 'ale' as const, attenuationPct: DEFAULT_ATTENUATION_PCT.ale }];
   }
   return cultures.map((c, index) => {
@@ -374,7 +413,12 @@ function readCultures(ingredients: Node, library: Library, draft: Draft, origins
     else {
       const range = infoNode?.child('attenuation_range');
       if (range) {
-        attenuationPct = round((toPercent(range.measured('minimum')!, range.at('minimum')) + toPercent(range.measured('maximum')!, range.at('maximum'))) / 2, 1);
+        attenuationPct = round(
+          (toPercent(range.measured('minimum')!, range.at('minimum')) +
+            toPercent(range.measured('maximum')!, range.at('maximum'))) /
+            2,
+          1,
+        );
         draft.guessed.push(`${name}: attenuation taken as the middle of its range, ${attenuationPct}%`);
       } else {
         attenuationPct = DEFAULT_ATTENUATION_PCT[kind];
@@ -382,8 +426,12 @@ function readCultures(ingredients: Node, library: Library, draft: Draft, origins
       }
     }
     const range = c.child('temperature_range') ?? infoNode?.child('temperature_range');
-    const tempMinC = range ? round(toCelsius(range.measured('minimum', { allowNegative: true })!, range.at('minimum')), 2) : undefined;
-    const tempMaxC = range ? round(toCelsius(range.measured('maximum', { allowNegative: true })!, range.at('maximum')), 2) : undefined;
+    const tempMinC = range
+      ? round(toCelsius(range.measured('minimum', { allowNegative: true })!, range.at('minimum')), 2)
+      : undefined;
+    const tempMaxC = range
+      ? round(toCelsius(range.measured('maximum', { allowNegative: true })!, range.at('maximum')), 2)
+      : undefined;
     const producer = [c.str('producer'), c.str('product_id')].filter(Boolean).join(' ');
     if (producer) draft.kept.push(`Culture ${name}: ${producer}`);
     return {
@@ -396,9 +444,16 @@ function readCultures(ingredients: Node, library: Library, draft: Draft, origins
   });
 }
 
-function readEquipment(recipe: Node, library: Library, draft: Draft, batch: { volumeL: number; boilTimeMin: number; preBoil?: Measured }) {
+function readEquipment(
+  recipe: Node,
+  library: Library,
+  draft: Draft,
+  batch: { volumeL: number; boilTimeMin: number; preBoil?: Measured },
+) {
   // Equipment sits beside the recipes in BeerJSON; one set (or one named like the recipe) is the recipe's.
-  const match = library.equipments.find((e) => e.name === recipe.data.name) ?? (library.equipments.length === 1 ? library.equipments[0] : undefined);
+  const match =
+    library.equipments.find((e) => e.name === recipe.data.name) ??
+    (library.equipments.length === 1 ? library.equipments[0] : undefined);
   const items = match ? new Node(match, `beerjson.equipments (${String(match.name)})`).list('equipment_items') : [];
   const kettle = items.find((i) => i.data.form === 'Brew Kettle');
   const tun = items.find((i) => i.data.form === 'Mash Tun' || i.data.form === 'Lauter Tun');
@@ -419,14 +474,16 @@ function readEquipment(recipe: Node, library: Library, draft: Draft, batch: { vo
     draft.guessed.push('Boil-off rate: the file gives none; used 4 L per hour');
   }
   let grainAbsorptionLPerKg = 1;
-  if (absorption) grainAbsorptionLPerKg = round(specificVolumeToLPerKg(absorption, tun!.at('grain_absorption_rate')), 3);
+  if (absorption)
+    grainAbsorptionLPerKg = round(specificVolumeToLPerKg(absorption, tun!.at('grain_absorption_rate')), 3);
   else draft.guessed.push('Grain absorption: the file gives none; used 1 L/kg');
   return { boilOffLPerHour, trubLossL, grainAbsorptionLPerKg };
 }
 
 /** Mash thickness and grain absorption: litres per kg from the schema's specific-volume units. */
 function specificVolumeToLPerKg(m: Measured, element: string): number {
-  const perKg = (volume: string, mass: string) => toLitres({ value: m.value, unit: volume }, element) / toKg({ value: 1, unit: mass }, element);
+  const perKg = (volume: string, mass: string) =>
+    toLitres({ value: m.value, unit: volume }, element) / toKg({ value: 1, unit: mass }, element);
   switch (m.unit) {
     case 'l/kg':
       return m.value;
@@ -482,7 +539,8 @@ function readMash(recipe: Node, draft: Draft, origins: Origins, gristKg: number)
     const name = step.str('name');
     steps.push({ ...(name ? { name: name.slice(0, 60) } : {}), tempC, timeMin });
   });
-  if (steps.length && !thicknessGiven) draft.guessed.push('Mash thickness: the first step gives no water-to-grain ratio; used 3 L/kg');
+  if (steps.length && !thicknessGiven)
+    draft.guessed.push('Mash thickness: the first step gives no water-to-grain ratio; used 3 L/kg');
   return { steps, mashWaterLPerKg };
 }
 
@@ -499,13 +557,19 @@ function readFermentation(recipe: Node, draft: Draft, origins: Origins) {
       draft.dropped.push(`${step.path}: a step with no time`);
       continue;
     }
-    let tempC = start ? toCelsius(start, step.at('start_temperature')) : end ? toCelsius(end, step.at('end_temperature')) : undefined;
+    let tempC = start
+      ? toCelsius(start, step.at('start_temperature'))
+      : end
+        ? toCelsius(end, step.at('end_temperature'))
+        : undefined;
     if (tempC === undefined) {
       tempC = lastC ?? 18;
       draft.guessed.push(`${step.path}: no temperature given; used ${tempC} °C`);
     }
     if (start && end && Math.abs(toCelsius(end, step.at('end_temperature')) - tempC) > 0.05) {
-      draft.kept.push(`${step.str('name') ?? 'Fermentation step'}: from ${plain(tempC, 1)} °C to ${plain(toCelsius(end, step.at('end_temperature')), 1)} °C`);
+      draft.kept.push(
+        `${step.str('name') ?? 'Fermentation step'}: from ${plain(tempC, 1)} °C to ${plain(toCelsius(end, step.at('end_temperature')), 1)} °C`,
+      );
     }
     lastC = tempC;
     origins.set(`fermentation.steps.${steps.length}`, step);
@@ -530,7 +594,9 @@ function readMiscs(ingredients: Node, draft: Draft, origins: Origins): { salt: S
     }
     draft.dropped.push(`${m.path}: ${String(m.data.type)} ingredients are not modelled`);
     const use = m.child('timing')?.str('use');
-    draft.kept.push(`${name} (${String(m.data.type)}): ${amount ? `${plain(amount.value, 3)} ${amount.unit}` : 'amount not given'}${use ? `, ${use.replace(/_/g, ' ')}` : ''}`);
+    draft.kept.push(
+      `${name} (${String(m.data.type)}): ${amount ? `${plain(amount.value, 3)} ${amount.unit}` : 'amount not given'}${use ? `, ${use.replace(/_/g, ' ')}` : ''}`,
+    );
   }
   return salts;
 }
@@ -549,7 +615,11 @@ function readWater(ingredients: Node, salts: { salt: SaltName; grams: number }[]
   let volumeL = readings.reduce((n, r) => n + r.volumeL, 0);
   if (readings.length) {
     const weights = volumeL > 0 ? readings.map((r) => r.volumeL / volumeL) : readings.map(() => 1 / readings.length);
-    for (const ion of ION_NAMES) source[ion] = round(readings.reduce((n, r, i) => n + r.ions[ion] * weights[i], 0), 3);
+    for (const ion of ION_NAMES)
+      source[ion] = round(
+        readings.reduce((n, r, i) => n + r.ions[ion] * weights[i], 0),
+        3,
+      );
     if (readings.length > 1) draft.guessed.push(`Water: ${readings.length} waters mixed into one profile by volume`);
   } else draft.guessed.push('Water: salts without a water profile; assumed water with no ions (distilled)');
   if (volumeL <= 0) {
@@ -562,20 +632,27 @@ function readWater(ingredients: Node, salts: { salt: SaltName; grams: number }[]
 function readCarbonation(recipe: Node, draft: Draft) {
   const vessel = recipe.child('packaging')?.list('packaging_vessels')[0];
   const volumes = typeof recipe.data.carbonation === 'number' ? recipe.data.carbonation : undefined;
-  const vesselCarbonation = typeof vessel?.data.carbonation === 'number' ? (vessel.data.carbonation as number) : undefined;
+  const vesselCarbonation =
+    typeof vessel?.data.carbonation === 'number' ? (vessel.data.carbonation as number) : undefined;
   const volumesCO2 = volumes ?? vesselCarbonation;
   if (volumesCO2 === undefined) return undefined;
   if (volumesCO2 < 0) throw new InterchangeError(`must not be negative (got ${volumesCO2})`, recipe.at('carbonation'));
   const start = vessel?.measured('start_temperature', { allowNegative: true });
   if (!start) draft.guessed.push(`Serving temperature: the file gives none; used ${DEFAULT_SERVING_TEMP_C} °C`);
-  return { volumesCO2, servingTempC: start ? round(toCelsius(start, vessel!.at('start_temperature')), 2) : DEFAULT_SERVING_TEMP_C };
+  return {
+    volumesCO2,
+    servingTempC: start ? round(toCelsius(start, vessel!.at('start_temperature')), 2) : DEFAULT_SERVING_TEMP_C,
+  };
 }
 
 function readStyle(recipe: Node, draft: Draft) {
   const style = recipe.child('style');
   if (!style) return undefined;
   const number = typeof style.data.category_number === 'number' ? String(style.data.category_number) : undefined;
-  return matchStyle({ name: style.str('name'), number, letter: style.str('style_letter'), guide: style.str('style_guide') }, draft);
+  return matchStyle(
+    { name: style.str('name'), number, letter: style.str('style_letter'), guide: style.str('style_guide') },
+    draft,
+  );
 }
 
 function readKeptExtras(recipe: Node, draft: Draft): void {
@@ -587,8 +664,17 @@ function readKeptExtras(recipe: Node, draft: Draft): void {
   };
   const og = measured('original_gravity');
   const fg = measured('final_gravity');
-  if (og || fg) draft.dropped.push(`${recipe.path}: the file's own gravity estimates (${[og && `OG ${og}`, fg && `FG ${fg}`].filter(Boolean).join(', ')}); Kettlefork recomputes them`);
-  for (const key of ['ibu_estimate', 'color_estimate', 'alcohol_by_volume', 'apparent_attenuation', 'calories_per_pint']) {
+  if (og || fg)
+    draft.dropped.push(
+      `${recipe.path}: the file's own gravity estimates (${[og && `OG ${og}`, fg && `FG ${fg}`].filter(Boolean).join(', ')}); Kettlefork recomputes them`,
+    );
+  for (const key of [
+    'ibu_estimate',
+    'color_estimate',
+    'alcohol_by_volume',
+    'apparent_attenuation',
+    'calories_per_pint',
+  ]) {
     if (recipe.data[key] !== undefined) draft.dropped.push(`${recipe.at(key)}: recomputed by Kettlefork`);
   }
   const taste = recipe.child('taste');
@@ -616,13 +702,27 @@ const litres = (value: number): Measured => ({ unit: 'l', value: round(value, 4)
 const celsius = (value: number): Measured => ({ unit: 'C', value });
 const percent = (value: number): Measured => ({ unit: '%', value });
 
-const FERMENTABLE_TYPES: Record<FermentableKind, string> = { grain: 'grain', adjunct: 'grain', extract: 'extract', sugar: 'sugar' };
-const CULTURE_TYPES: Record<YeastKind, string> = { ale: 'ale', lager: 'lager', kveik: 'kveik', wheat: 'ale', wild: 'brett', other: 'other' };
+const FERMENTABLE_TYPES: Record<FermentableKind, string> = {
+  grain: 'grain',
+  adjunct: 'grain',
+  extract: 'extract',
+  sugar: 'sugar',
+};
+const CULTURE_TYPES: Record<YeastKind, string> = {
+  ale: 'ale',
+  lager: 'lager',
+  kveik: 'kveik',
+  wheat: 'ale',
+  wild: 'brett',
+  other: 'other',
+};
 
 /** One recipe as a BeerJSON 1.0 file, with its equipment and cultures beside it as the format keeps them. */
 export function toBeerJson(doc: RecipeDocument, opts: { author?: string } = {}): Json {
   const boilSteps = buildBoilSteps(doc);
-  const gristKg = doc.fermentables.filter((f) => f.kind === 'grain' || f.kind === 'adjunct').reduce((n, f) => n + f.amountKg, 0);
+  const gristKg = doc.fermentables
+    .filter((f) => f.kind === 'grain' || f.kind === 'adjunct')
+    .reduce((n, f) => n + f.amountKg, 0);
   const recipe: Json = {
     name: doc.title,
     type: recipeType(doc),
@@ -702,7 +802,13 @@ export function toBeerJson(doc: RecipeDocument, opts: { author?: string } = {}):
           carbonation: doc.carbonation.volumesCO2,
           packaging: {
             name: 'Packaging',
-            packaging_vessels: [{ name: 'Serving vessel', carbonation: doc.carbonation.volumesCO2, start_temperature: celsius(doc.carbonation.servingTempC) }],
+            packaging_vessels: [
+              {
+                name: 'Serving vessel',
+                carbonation: doc.carbonation.volumesCO2,
+                start_temperature: celsius(doc.carbonation.servingTempC),
+              },
+            ],
           },
         }
       : {}),
@@ -713,13 +819,30 @@ export function toBeerJson(doc: RecipeDocument, opts: { author?: string } = {}):
       recipes: [recipe],
       cultures: doc.yeasts
         .filter((y) => y.tempMinC !== undefined && y.tempMaxC !== undefined)
-        .map((y) => ({ name: y.name, type: CULTURE_TYPES[y.kind], form: 'dry', temperature_range: { minimum: celsius(y.tempMinC!), maximum: celsius(y.tempMaxC!) } })),
+        .map((y) => ({
+          name: y.name,
+          type: CULTURE_TYPES[y.kind],
+          form: 'dry',
+          temperature_range: { minimum: celsius(y.tempMinC!), maximum: celsius(y.tempMaxC!) },
+        })),
       equipments: [
         {
           name: doc.title,
           equipment_items: [
-            { name: 'Kettle', form: 'Brew Kettle', maximum_volume: litres(doc.batch.volumeL * 2), boil_rate_per_hour: litres(doc.batch.boilOffLPerHour), loss: litres(doc.batch.trubLossL) },
-            { name: 'Mash tun', form: 'Mash Tun', maximum_volume: litres(doc.batch.volumeL * 2), loss: litres(0), grain_absorption_rate: { unit: 'l/kg', value: doc.batch.grainAbsorptionLPerKg } },
+            {
+              name: 'Kettle',
+              form: 'Brew Kettle',
+              maximum_volume: litres(doc.batch.volumeL * 2),
+              boil_rate_per_hour: litres(doc.batch.boilOffLPerHour),
+              loss: litres(doc.batch.trubLossL),
+            },
+            {
+              name: 'Mash tun',
+              form: 'Mash Tun',
+              maximum_volume: litres(doc.batch.volumeL * 2),
+              loss: litres(0),
+              grain_absorption_rate: { unit: 'l/kg', value: doc.batch.grainAbsorptionLPerKg },
+            },
           ],
         },
       ],
@@ -735,13 +858,31 @@ interface BoilStep {
 /** The boil as BeerJSON steps: first wort (if used), the boil, then one hop stand per temperature. */
 function buildBoilSteps(doc: RecipeDocument): BoilStep[] {
   const steps: BoilStep[] = [];
-  if (doc.hops.some((h) => h.use === 'first_wort')) steps.push({ key: 'first_wort', json: { name: 'First wort', step_time: time(0) } });
-  steps.push({ key: 'boil', json: { name: 'Boil', start_temperature: celsius(100), end_temperature: celsius(100), step_time: time(doc.batch.boilTimeMin) } });
+  if (doc.hops.some((h) => h.use === 'first_wort'))
+    steps.push({ key: 'first_wort', json: { name: 'First wort', step_time: time(0) } });
+  steps.push({
+    key: 'boil',
+    json: {
+      name: 'Boil',
+      start_temperature: celsius(100),
+      end_temperature: celsius(100),
+      step_time: time(doc.batch.boilTimeMin),
+    },
+  });
   const stands = [...new Set(doc.hops.filter((h) => h.use === 'whirlpool').map((h) => h.tempC))];
   for (const tempC of stands) {
-    const longest = Math.max(...doc.hops.filter((h) => h.use === 'whirlpool' && h.tempC === tempC).map((h) => h.timeMin));
+    const longest = Math.max(
+      ...doc.hops.filter((h) => h.use === 'whirlpool' && h.tempC === tempC).map((h) => h.timeMin),
+    );
     const temps = tempC === undefined ? {} : { start_temperature: celsius(tempC), end_temperature: celsius(tempC) };
-    steps.push({ key: `stand:${tempC ?? 'unstated'}`, json: { name: tempC === undefined ? 'Hop stand' : `Hop stand at ${tempC} °C`, ...temps, step_time: time(longest) } });
+    steps.push({
+      key: `stand:${tempC ?? 'unstated'}`,
+      json: {
+        name: tempC === undefined ? 'Hop stand' : `Hop stand at ${tempC} °C`,
+        ...temps,
+        step_time: time(longest),
+      },
+    });
   }
   return steps;
 }

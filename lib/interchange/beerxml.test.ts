@@ -39,8 +39,16 @@ describe('BeerXML round trip', () => {
 
   it('keeps kveik and wild yeasts, extract colour and hop-stand temperatures across the trip', () => {
     const doc = examplePaleAle();
-    doc.yeasts = [{ name: 'Kveik (Norwegian farmhouse) yeast', kind: 'kveik', attenuationPct: 80, tempMinC: 29, tempMaxC: 35 }];
-    doc.fermentables.push({ name: 'Liquid malt extract, light', amountKg: 0.5, potentialPpg: 36, colorLovibond: 4, kind: 'extract' });
+    doc.yeasts = [
+      { name: 'Kveik (Norwegian farmhouse) yeast', kind: 'kveik', attenuationPct: 80, tempMinC: 29, tempMaxC: 35 },
+    ];
+    doc.fermentables.push({
+      name: 'Liquid malt extract, light',
+      amountKg: 0.5,
+      potentialPpg: 36,
+      colorLovibond: 4,
+      kind: 'extract',
+    });
     doc.hops[2].tempC = 72;
     const [back] = parseBeerXml(toBeerXml(doc)).recipes;
     expect(back.document).toEqual(doc);
@@ -69,9 +77,21 @@ describe('BeerXML 1.0 specification, 2004 — example recipe', () => {
     expect(doc.title).toBe('Dry Stout');
     expect(doc.batch.volumeL).toBe(18.93);
     expect(doc.batch.efficiencyPct).toBe(72);
-    expect(doc.hops[0]).toMatchObject({ name: 'Goldings, East Kent', amountG: 63.8, alphaPct: 4.5, use: 'boil', timeMin: 60 });
+    expect(doc.hops[0]).toMatchObject({
+      name: 'Goldings, East Kent',
+      amountG: 63.8,
+      alphaPct: 4.5,
+      use: 'boil',
+      timeMin: 60,
+    });
     // Yield is % of sucrose's extract, 46.214 ppg (common practice): 78% → 36.05 ppg.
-    expect(doc.fermentables[0]).toMatchObject({ name: 'Pale Malt (2 row) UK', amountKg: 2.27, potentialPpg: 36.05, colorLovibond: 3, kind: 'grain' });
+    expect(doc.fermentables[0]).toMatchObject({
+      name: 'Pale Malt (2 row) UK',
+      amountKg: 2.27,
+      potentialPpg: 36.05,
+      colorLovibond: 3,
+      kind: 'grain',
+    });
     expect(doc.fermentables[1].kind).toBe('adjunct');
     expect(doc.fermentables[2].colorLovibond).toBe(500);
     // 10 L of strike water on 3.63 kg of grist.
@@ -124,8 +144,15 @@ describe('BeerXML files we refuse', () => {
   });
 
   it('refuses entity expansion (billion laughs) before parsing', () => {
-    const lol = ['<!ENTITY lol "lol">', ...Array.from({ length: 9 }, (_, i) => `<!ENTITY lol${i + 1} "${`&lol${i || ''};`.repeat(10)}">`)].join('');
-    const err = refusal(() => parseBeerXml(`<?xml version="1.0"?><!DOCTYPE lolz [${lol}]><RECIPES><RECIPE><NAME>&lol9;</NAME></RECIPE></RECIPES>`));
+    const lol = [
+      '<!ENTITY lol "lol">',
+      ...Array.from({ length: 9 }, (_, i) => `<!ENTITY lol${i + 1} "${`&lol${i || ''};`.repeat(10)}">`),
+    ].join('');
+    const err = refusal(() =>
+      parseBeerXml(
+        `<?xml version="1.0"?><!DOCTYPE lolz [${lol}]><RECIPES><RECIPE><NAME>&lol9;</NAME></RECIPE></RECIPES>`,
+      ),
+    );
     expect(err.kind).toBe('unsafe');
   });
 
@@ -145,7 +172,9 @@ describe('BeerXML files we refuse', () => {
   });
 
   it('refuses text where a number belongs', () => {
-    expect(refusal(() => parseBeerXml(hop('lots'))).message).toMatch(/HOP 1 \(Cascade\) › AMOUNT: "lots" is not a number/);
+    expect(refusal(() => parseBeerXml(hop('lots'))).message).toMatch(
+      /HOP 1 \(Cascade\) › AMOUNT: "lots" is not a number/,
+    );
   });
 
   it('refuses values our schema does not accept, naming the BeerXML element', () => {
@@ -159,7 +188,9 @@ describe('BeerXML files we refuse', () => {
   });
 
   it('offers every recipe of a file with several', () => {
-    const two = hop('0.03').replace('</RECIPE></RECIPES>', `</RECIPE>${hop('0.02').split('<RECIPES>')[1]}`).replace('</RECIPES></RECIPES>', '</RECIPES>');
+    const two = hop('0.03')
+      .replace('</RECIPE></RECIPES>', `</RECIPE>${hop('0.02').split('<RECIPES>')[1]}`)
+      .replace('</RECIPES></RECIPES>', '</RECIPES>');
     expect(parseBeerXml(two).recipes.map((r) => r.document.hops[0].amountG)).toEqual([30, 20]);
   });
 });

@@ -60,7 +60,10 @@ function recipeRecords(root: Record<string, unknown>): XmlRecord[] {
 
 function relabel(record: XmlRecord, index: number): XmlRecord {
   const name = record.node.NAME;
-  return new XmlRecord(record.node, `RECIPE ${index + 1}${typeof name === 'string' && name ? ` (${name.slice(0, 60)})` : ''}`);
+  return new XmlRecord(
+    record.node,
+    `RECIPE ${index + 1}${typeof name === 'string' && name ? ` (${name.slice(0, 60)})` : ''}`,
+  );
 }
 
 /** Where each part of our document came from, so a refusal can name the file's element. */
@@ -131,13 +134,17 @@ function readRecipe(recipe: XmlRecord): ImportedRecipe {
   const type = recipe.text('TYPE');
   let efficiencyPct = recipe.num('EFFICIENCY', { min: 0 });
   if (efficiencyPct === undefined || efficiencyPct < 10) {
-    draft.guessed.push(`Brewhouse efficiency: the file gives ${efficiencyPct === undefined ? 'none' : `${efficiencyPct}%`}; used ${DEFAULT_EFFICIENCY_PCT}%`);
+    draft.guessed.push(
+      `Brewhouse efficiency: the file gives ${efficiencyPct === undefined ? 'none' : `${efficiencyPct}%`}; used ${DEFAULT_EFFICIENCY_PCT}%`,
+    );
     efficiencyPct = DEFAULT_EFFICIENCY_PCT;
   }
   if (type) draft.dropped.push(`${recipe.at('TYPE')}: ${type} (the ingredients say how it is brewed)`);
 
   const fermentables = readFermentables(recipe, draft, origins);
-  const gristKg = fermentables.filter((f) => f.kind === 'grain' || f.kind === 'adjunct').reduce((n, f) => n + f.amountKg, 0);
+  const gristKg = fermentables
+    .filter((f) => f.kind === 'grain' || f.kind === 'adjunct')
+    .reduce((n, f) => n + f.amountKg, 0);
   const equipment = readEquipment(recipe, draft, { volumeL, boilSizeL, boilTimeMin });
   const mash = readMash(recipe, draft, origins, gristKg);
   const miscs = readMiscs(recipe, draft, origins);
@@ -168,7 +175,9 @@ function readRecipe(recipe: XmlRecord): ImportedRecipe {
     notes: '',
   };
   draft.guessed.push('Grain absorption: BeerXML 1.0 has no field for it; used 1 L/kg');
-  const notes = [recipe.text('NOTES'), recipe.text('TASTE_NOTES') && `Tasting notes: ${recipe.text('TASTE_NOTES')}`].filter(Boolean).join('\n\n');
+  const notes = [recipe.text('NOTES'), recipe.text('TASTE_NOTES') && `Tasting notes: ${recipe.text('TASTE_NOTES')}`]
+    .filter(Boolean)
+    .join('\n\n');
   listUnread(recipe, draft);
   document.notes = notesWith(notes, draft.kept, FORMAT_NAME);
   return finishRecipe(document, draft, describer(recipe, origins));
@@ -193,7 +202,11 @@ function readFermentables(recipe: XmlRecord, draft: Draft, origins: Origins) {
     const name = f.text('NAME', { required: true })!;
     const typeText = f.text('TYPE', { required: true })!;
     const kind = FERMENTABLE_TYPES[typeText.trim().toLowerCase()];
-    if (!kind) throw new InterchangeError(`unknown fermentable type "${typeText}" (expected Grain, Sugar, Extract, Dry Extract or Adjunct)`, f.at('TYPE'));
+    if (!kind)
+      throw new InterchangeError(
+        `unknown fermentable type "${typeText}" (expected Grain, Sugar, Extract, Dry Extract or Adjunct)`,
+        f.at('TYPE'),
+      );
     const amountKg = f.num('AMOUNT', { required: true, min: 0 })!;
     const yieldPct = f.num('YIELD', { required: true, min: 0 })!;
     const colour = f.num('COLOR', { required: true, min: 0 })!;
@@ -223,7 +236,11 @@ function readHops(recipe: XmlRecord, draft: Draft, origins: Origins) {
     const name = h.text('NAME', { required: true })!;
     const useText = h.text('USE', { required: true })!;
     const use = HOP_USES[useText.trim().toLowerCase()];
-    if (!use) throw new InterchangeError(`unknown hop use "${useText}" (expected Boil, Dry Hop, Mash, First Wort or Aroma)`, h.at('USE'));
+    if (!use)
+      throw new InterchangeError(
+        `unknown hop use "${useText}" (expected Boil, Dry Hop, Mash, First Wort or Aroma)`,
+        h.at('USE'),
+      );
     const amountKg = h.num('AMOUNT', { required: true, min: 0 })!;
     const alphaPct = h.num('ALPHA', { required: true, min: 0 })!;
     const timeMin = h.num('TIME', { required: true, min: 0 })!;
@@ -238,7 +255,15 @@ function readHops(recipe: XmlRecord, draft: Draft, origins: Origins) {
     }
     if (notes && !HOP_STAND_NOTE.test(notes)) draft.dropped.push(`${h.at('NOTES')}: ${notes.slice(0, 80)}`);
     listUnread(h, draft);
-    return { name: name.slice(0, 80), amountG: round(amountKg * 1000, 3), alphaPct, use, timeMin, form, ...(tempC === undefined ? {} : { tempC }) };
+    return {
+      name: name.slice(0, 80),
+      amountG: round(amountKg * 1000, 3),
+      alphaPct,
+      use,
+      timeMin,
+      form,
+      ...(tempC === undefined ? {} : { tempC }),
+    };
   });
 }
 
@@ -254,12 +279,20 @@ function readHopForm(formText: string | undefined, name: string, draft: Draft): 
   return 'pellet';
 }
 
-const YEAST_TYPES: Record<string, YeastKind> = { ale: 'ale', lager: 'lager', wheat: 'wheat', wine: 'other', champagne: 'other' };
+const YEAST_TYPES: Record<string, YeastKind> = {
+  ale: 'ale',
+  lager: 'lager',
+  wheat: 'wheat',
+  wine: 'other',
+  champagne: 'other',
+};
 
 function readYeasts(recipe: XmlRecord, draft: Draft, origins: Origins) {
   const yeasts = recipe.list('YEASTS', 'YEAST');
   if (yeasts.length === 0) {
-    draft.guessed.push(`Yeast: the recipe names none; added a clean ale yeast at ${DEFAULT_ATTENUATION_PCT.ale}% attenuation so the numbers can be worked out`);
+    draft.guessed.push(
+      `Yeast: the recipe names none; added a clean ale yeast at ${DEFAULT_ATTENUATION_PCT.ale}% attenuation so the numbers can be worked out`,
+    );
     return [{ name: 'Clean ale yeast', kind: 'ale' as const, attenuationPct: DEFAULT_ATTENUATION_PCT.ale }];
   }
   return yeasts.map((y, index) => {
@@ -267,7 +300,11 @@ function readYeasts(recipe: XmlRecord, draft: Draft, origins: Origins) {
     const name = y.text('NAME', { required: true })!;
     const typeText = y.text('TYPE', { required: true })!;
     let kind = YEAST_TYPES[typeText.trim().toLowerCase()];
-    if (!kind) throw new InterchangeError(`unknown yeast type "${typeText}" (expected Ale, Lager, Wheat, Wine or Champagne)`, y.at('TYPE'));
+    if (!kind)
+      throw new InterchangeError(
+        `unknown yeast type "${typeText}" (expected Ale, Lager, Wheat, Wine or Champagne)`,
+        y.at('TYPE'),
+      );
     if (kind === 'ale' && /kveik/i.test(name)) {
       kind = 'kveik';
       draft.guessed.push(`${name}: read as a kveik yeast from its name`);
@@ -298,7 +335,11 @@ function readYeasts(recipe: XmlRecord, draft: Draft, origins: Origins) {
   });
 }
 
-function readEquipment(recipe: XmlRecord, draft: Draft, batch: { volumeL: number; boilSizeL?: number; boilTimeMin: number }) {
+function readEquipment(
+  recipe: XmlRecord,
+  draft: Draft,
+  batch: { volumeL: number; boilSizeL?: number; boilTimeMin: number },
+) {
   const equipment = recipe.child('EQUIPMENT');
   const evapRatePct = equipment?.num('EVAP_RATE', { min: 0 });
   const boilSizeL = equipment?.num('BOIL_SIZE', { min: 0 }) ?? batch.boilSizeL;
@@ -341,7 +382,10 @@ function readMash(recipe: XmlRecord, draft: Draft, origins: Origins, gristKg: nu
       infusionGiven = true;
       const ratio = infuseL / gristKg;
       if (ratio >= 1 && ratio <= 10) mashWaterLPerKg = round(ratio, 3);
-      else draft.guessed.push(`Mash thickness: ${round(ratio, 2)} L/kg from the first infusion is outside 1–10 L/kg; used 3 L/kg`);
+      else
+        draft.guessed.push(
+          `Mash thickness: ${round(ratio, 2)} L/kg from the first infusion is outside 1–10 L/kg; used 3 L/kg`,
+        );
     }
     listUnread(step, draft);
     if (timeMin === 0) {
@@ -393,7 +437,9 @@ function readCarbonation(recipe: XmlRecord, draft: Draft) {
   if (!volumesCO2) return undefined;
   if (servingTempC === undefined) {
     servingTempC = DEFAULT_SERVING_TEMP_C;
-    draft.guessed.push(`Serving temperature: the file gives no carbonation temperature; used ${DEFAULT_SERVING_TEMP_C} °C`);
+    draft.guessed.push(
+      `Serving temperature: the file gives no carbonation temperature; used ${DEFAULT_SERVING_TEMP_C} °C`,
+    );
   }
   return { volumesCO2, servingTempC };
 }
@@ -406,7 +452,12 @@ function readStyle(recipe: XmlRecord, draft: Draft) {
     return undefined;
   }
   const matched = matchStyle(
-    { name: style.text('NAME'), number: style.text('CATEGORY_NUMBER'), letter: style.text('STYLE_LETTER'), guide: style.text('STYLE_GUIDE') },
+    {
+      name: style.text('NAME'),
+      number: style.text('CATEGORY_NUMBER'),
+      letter: style.text('STYLE_LETTER'),
+      guide: style.text('STYLE_GUIDE'),
+    },
     draft,
   );
   // The style's own ranges are the guide's, not the recipe's; we fit against our copy of the guidelines.
@@ -450,7 +501,9 @@ function readWater(recipe: XmlRecord, draft: Draft, salts: MiscReading['salts'],
   const source: WaterProfile = { calcium: 0, magnesium: 0, sodium: 0, chloride: 0, sulfate: 0, bicarbonate: 0 };
   const readings = waters.map((w) => {
     const volumeL = w.num('AMOUNT', { min: 0 }) ?? 0;
-    const ions = Object.fromEntries(ION_NAMES.map((ion) => [ion, w.num(ion.toUpperCase(), { min: 0 }) ?? 0])) as WaterProfile;
+    const ions = Object.fromEntries(
+      ION_NAMES.map((ion) => [ion, w.num(ion.toUpperCase(), { min: 0 }) ?? 0]),
+    ) as WaterProfile;
     w.markRead('NAME', 'NOTES');
     const ph = w.num('PH');
     if (ph !== undefined) draft.kept.push(`Water ${w.text('NAME') ?? ''} pH ${ph}`.replace('  ', ' '));
@@ -460,7 +513,11 @@ function readWater(recipe: XmlRecord, draft: Draft, salts: MiscReading['salts'],
   let volumeL = readings.reduce((n, r) => n + r.volumeL, 0);
   if (readings.length) {
     const weights = volumeL > 0 ? readings.map((r) => r.volumeL / volumeL) : readings.map(() => 1 / readings.length);
-    for (const ion of ION_NAMES) source[ion] = round(readings.reduce((n, r, i) => n + r.ions[ion] * weights[i], 0), 2);
+    for (const ion of ION_NAMES)
+      source[ion] = round(
+        readings.reduce((n, r, i) => n + r.ions[ion] * weights[i], 0),
+        2,
+      );
     if (readings.length > 1) draft.guessed.push(`Water: ${readings.length} waters mixed into one profile by volume`);
   } else {
     draft.guessed.push('Water: salts without a water profile; assumed water with no ions (distilled)');
@@ -479,7 +536,9 @@ function readKeptExtras(recipe: XmlRecord, draft: Draft): void {
   const og = recipe.num('OG');
   const fg = recipe.num('FG');
   if (og !== undefined || fg !== undefined) {
-    draft.kept.push(`Measured in the file: ${[og !== undefined && `OG ${og}`, fg !== undefined && `FG ${fg}`].filter(Boolean).join(', ')}`);
+    draft.kept.push(
+      `Measured in the file: ${[og !== undefined && `OG ${og}`, fg !== undefined && `FG ${fg}`].filter(Boolean).join(', ')}`,
+    );
   }
   const date = recipe.text('DATE');
   if (date) draft.kept.push(`Brewed on ${date}`);
@@ -503,19 +562,46 @@ function render(node: Tag, depth: number): string {
     if (node.children.length === 0) return `${pad}<${node.tag}></${node.tag}>`;
     return `${pad}<${node.tag}>\n${node.children.map((c) => render(c, depth + 1)).join('\n')}\n${pad}</${node.tag}>`;
   }
-  const value = typeof node.value === 'boolean' ? (node.value ? 'TRUE' : 'FALSE') : typeof node.value === 'number' ? plain(node.value) : escapeXml(node.value ?? '');
+  const value =
+    typeof node.value === 'boolean'
+      ? node.value
+        ? 'TRUE'
+        : 'FALSE'
+      : typeof node.value === 'number'
+        ? plain(node.value)
+        : escapeXml(node.value ?? '');
   return `${pad}<${node.tag}>${value}</${node.tag}>`;
 }
 
-const HOP_USE_WORDS: Record<HopUse, string> = { boil: 'Boil', dry_hop: 'Dry Hop', mash: 'Mash', first_wort: 'First Wort', whirlpool: 'Aroma' };
-const FERMENTABLE_WORDS: Record<FermentableKind, string> = { grain: 'Grain', sugar: 'Sugar', extract: 'Extract', adjunct: 'Adjunct' };
+const HOP_USE_WORDS: Record<HopUse, string> = {
+  boil: 'Boil',
+  dry_hop: 'Dry Hop',
+  mash: 'Mash',
+  first_wort: 'First Wort',
+  whirlpool: 'Aroma',
+};
+const FERMENTABLE_WORDS: Record<FermentableKind, string> = {
+  grain: 'Grain',
+  sugar: 'Sugar',
+  extract: 'Extract',
+  adjunct: 'Adjunct',
+};
 // BeerXML 1.0 has no kveik or wild type: they go out as Ale and are recognised again by name.
-const YEAST_WORDS: Record<YeastKind, string> = { ale: 'Ale', lager: 'Lager', kveik: 'Ale', wheat: 'Wheat', wild: 'Ale', other: 'Wine' };
+const YEAST_WORDS: Record<YeastKind, string> = {
+  ale: 'Ale',
+  lager: 'Lager',
+  kveik: 'Ale',
+  wheat: 'Wheat',
+  wild: 'Ale',
+  other: 'Wine',
+};
 
 /** One recipe as a BeerXML 1.0 file (a RECIPES group holding one RECIPE). */
 export function toBeerXml(doc: RecipeDocument, opts: { brewer?: string } = {}): string {
   const boilSizeL = round(preBoilVolumeL(doc.batch), 3);
-  const gristKg = doc.fermentables.filter((f) => f.kind === 'grain' || f.kind === 'adjunct').reduce((n, f) => n + f.amountKg, 0);
+  const gristKg = doc.fermentables
+    .filter((f) => f.kind === 'grain' || f.kind === 'adjunct')
+    .reduce((n, f) => n + f.amountKg, 0);
   const recipe: Tag[] = [
     t('NAME', doc.title),
     t('VERSION', 1),
@@ -627,7 +713,9 @@ export function toBeerXml(doc: RecipeDocument, opts: { brewer?: string } = {}): 
     ]),
     t('NOTES', notesForExport(doc)),
     ...fermentationTags(doc),
-    ...(doc.carbonation ? [t('CARBONATION', doc.carbonation.volumesCO2), t('CARBONATION_TEMP', doc.carbonation.servingTempC)] : []),
+    ...(doc.carbonation
+      ? [t('CARBONATION', doc.carbonation.volumesCO2), t('CARBONATION_TEMP', doc.carbonation.servingTempC)]
+      : []),
   ];
   return `<?xml version="1.0" encoding="UTF-8"?>\n${render(group('RECIPES', [group('RECIPE', recipe)]), 0)}\n`;
 }
@@ -642,7 +730,16 @@ function style(doc: RecipeDocument): Tag {
   const code = doc.style?.code;
   const guideline = code ? findStyle(code) : undefined;
   if (!doc.style || !guideline) {
-    return group('STYLE', [t('NAME', doc.style?.name ?? 'Unspecified'), t('CATEGORY', ''), t('VERSION', 1), t('CATEGORY_NUMBER', ''), t('STYLE_LETTER', ''), t('STYLE_GUIDE', ''), t('TYPE', 'Ale'), ...rangeTags(undefined)]);
+    return group('STYLE', [
+      t('NAME', doc.style?.name ?? 'Unspecified'),
+      t('CATEGORY', ''),
+      t('VERSION', 1),
+      t('CATEGORY_NUMBER', ''),
+      t('STYLE_LETTER', ''),
+      t('STYLE_GUIDE', ''),
+      t('TYPE', 'Ale'),
+      ...rangeTags(undefined),
+    ]);
   }
   const { number, letter } = splitStyleCode(guideline.code);
   return group('STYLE', [
@@ -658,10 +755,12 @@ function style(doc: RecipeDocument): Tag {
 }
 
 function rangeTags(vitals: NonNullable<ReturnType<typeof findStyle>>['vitals'] | undefined): Tag[] {
-  const range = (min: string, max: string, r: { min: number; max: number } | null | undefined, fallback: [number, number]) => [
-    t(min, r?.min ?? fallback[0]),
-    t(max, r?.max ?? fallback[1]),
-  ];
+  const range = (
+    min: string,
+    max: string,
+    r: { min: number; max: number } | null | undefined,
+    fallback: [number, number],
+  ) => [t(min, r?.min ?? fallback[0]), t(max, r?.max ?? fallback[1])];
   return [
     ...range('OG_MIN', 'OG_MAX', vitals?.og, [1, 1.2]),
     ...range('FG_MIN', 'FG_MAX', vitals?.fg, [0.99, 1.1]),

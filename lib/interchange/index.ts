@@ -16,7 +16,10 @@ export function detectFormat(text: string): InterchangeFormat {
 }
 
 /** Reads a recipe file in either open format; the format is detected when not given. */
-export function parseRecipeFile(text: string, format?: InterchangeFormat): { format: InterchangeFormat } & ImportResult {
+export function parseRecipeFile(
+  text: string,
+  format?: InterchangeFormat,
+): { format: InterchangeFormat } & ImportResult {
   const chosen = format ?? detectFormat(text);
   const body = text.replace(/^\uFEFF/, '');
   return { format: chosen, ...(chosen === 'beerxml' ? parseBeerXml(body) : parseBeerJson(body)) };

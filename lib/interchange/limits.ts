@@ -9,7 +9,11 @@ export function assertWithinLimit(text: string, maxBytes = MAX_IMPORT_BYTES): vo
   if (text.length * 3 <= maxBytes) return;
   const bytes = new TextEncoder().encode(text).length;
   if (bytes > maxBytes) {
-    throw new InterchangeError(`The file is ${formatMb(bytes)}; the largest we read is ${formatMb(maxBytes)}.`, '', 'too_large');
+    throw new InterchangeError(
+      `The file is ${formatMb(bytes)}; the largest we read is ${formatMb(maxBytes)}.`,
+      '',
+      'too_large',
+    );
   }
 }
 

@@ -25,7 +25,11 @@ export function notesWith(notes: string, kept: readonly string[], formatName: st
  * Checks a mapped document against our schema. A refusal names the element of the file
  * (through `describe`, which turns `hops.1.amountG` into the file's own words) and the rule.
  */
-export function finishRecipe(input: RecipeDocumentInput, draft: Draft, describe: (path: string) => string): ImportedRecipe {
+export function finishRecipe(
+  input: RecipeDocumentInput,
+  draft: Draft,
+  describe: (path: string) => string,
+): ImportedRecipe {
   const parsed = recipeDocumentSchema.safeParse(input);
   if (!parsed.success) {
     const issues = formatIssues(parsed.error);
@@ -76,7 +80,8 @@ export function matchStyle(
   const byCode = code ? findStyle(code) : undefined;
   const name = (file.name ?? '').trim().toLowerCase();
   const guide = file.guide ?? '';
-  if (byCode && (/2021/.test(guide) || byCode.name.toLowerCase() === name)) return { code: byCode.code, name: byCode.name };
+  if (byCode && (/2021/.test(guide) || byCode.name.toLowerCase() === name))
+    return { code: byCode.code, name: byCode.name };
   const byName = name ? listStyles().find((s) => s.name.toLowerCase() === name) : undefined;
   if (byName) {
     draft.guessed.push(`Style "${file.name}" matched by name to ${byName.code} ${byName.name} (BJCP 2021)`);

@@ -60,7 +60,10 @@ export interface Measured {
 function pick(table: Record<string, number>, m: Measured, what: string, element: string): number {
   const factor = Object.hasOwn(table, m.unit) ? table[m.unit] : undefined;
   if (factor === undefined) {
-    throw new InterchangeError(`unknown ${what} unit "${m.unit}" (expected one of: ${Object.keys(table).join(', ')})`, element);
+    throw new InterchangeError(
+      `unknown ${what} unit "${m.unit}" (expected one of: ${Object.keys(table).join(', ')})`,
+      element,
+    );
   }
   return m.value * factor;
 }

@@ -10,10 +10,18 @@ import { InterchangeError } from './types';
 export function parseXmlSafely(text: string): Record<string, unknown> {
   assertWithinLimit(text);
   if (/<!DOCTYPE/i.test(text)) {
-    throw new InterchangeError('a document type declaration (<!DOCTYPE …>) is not allowed in a recipe file', 'DOCTYPE', 'unsafe');
+    throw new InterchangeError(
+      'a document type declaration (<!DOCTYPE …>) is not allowed in a recipe file',
+      'DOCTYPE',
+      'unsafe',
+    );
   }
   if (/<!ENTITY/i.test(text)) {
-    throw new InterchangeError('entity declarations (<!ENTITY …>) are not allowed in a recipe file', 'ENTITY', 'unsafe');
+    throw new InterchangeError(
+      'entity declarations (<!ENTITY …>) are not allowed in a recipe file',
+      'ENTITY',
+      'unsafe',
+    );
   }
   const valid = XMLValidator.validate(text, { allowBooleanAttributes: true });
   if (valid !== true) {
@@ -36,7 +44,18 @@ export function parseXmlSafely(text: string): Record<string, unknown> {
 }
 
 /** BeerXML record tags that may repeat inside their plural group. */
-const REPEATED = new Set(['RECIPE', 'HOP', 'FERMENTABLE', 'MISC', 'YEAST', 'WATER', 'MASH_STEP', 'STYLE', 'EQUIPMENT', 'MASH']);
+const REPEATED = new Set([
+  'RECIPE',
+  'HOP',
+  'FERMENTABLE',
+  'MISC',
+  'YEAST',
+  'WATER',
+  'MASH_STEP',
+  'STYLE',
+  'EQUIPMENT',
+  'MASH',
+]);
 
 const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 
@@ -76,7 +95,10 @@ export class XmlRecord {
     if (!NUMBER.test(raw)) throw new InterchangeError(`"${raw.slice(0, 40)}" is not a number`, this.at(tag));
     const value = Number(raw);
     if (opts.min !== undefined && value < opts.min) {
-      throw new InterchangeError(opts.min === 0 ? `must not be negative (got ${raw})` : `must be at least ${opts.min} (got ${raw})`, this.at(tag));
+      throw new InterchangeError(
+        opts.min === 0 ? `must not be negative (got ${raw})` : `must be at least ${opts.min} (got ${raw})`,
+        this.at(tag),
+      );
     }
     return value;
   }
@@ -113,7 +135,10 @@ export class XmlRecord {
       const label = `${this.at(group)} › ${item} ${index + 1}`;
       if (typeof entry !== 'object' || entry === null) throw new InterchangeError('must be a record', label);
       const name = (entry as Record<string, unknown>).NAME;
-      return new XmlRecord(entry as Record<string, unknown>, typeof name === 'string' && name ? `${label} (${name.slice(0, 60)})` : label);
+      return new XmlRecord(
+        entry as Record<string, unknown>,
+        typeof name === 'string' && name ? `${label} (${name.slice(0, 60)})` : label,
+      );
     });
   }
 
@@ -123,10 +148,17 @@ export class XmlRecord {
 
   /** Tags with a value that no reader asked for (display-only appendix tags aside). */
   unread(): string[] {
-    return Object.keys(this.node).filter((tag) => !this.read.has(tag) && !DISPLAY_ONLY.test(tag) && this.node[tag] !== '');
+    return Object.keys(this.node).filter(
+      (tag) => !this.read.has(tag) && !DISPLAY_ONLY.test(tag) && this.node[tag] !== '',
+    );
   }
 }
 
 export function escapeXml(text: string): string {
-  return text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;').replace(/'/g, '&apos;');
+  return text
+    .replace(/&/g, '&amp;')
+    .replace(/</g, '&lt;')
+    .replace(/>/g, '&gt;')
+    .replace(/"/g, '&quot;')
+    .replace(/'/g, '&apos;');
 }

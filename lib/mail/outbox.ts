@@ -3,7 +3,9 @@ import { env } from '@/lib/env';
 import type { StoredMessage } from './fake/server';
 
 /** What the local SMTP fake has received, newest first (empty when it cannot be reached). */
-export async function listOutbox(opts: { to?: string } = {}): Promise<{ available: boolean; messages: StoredMessage[] }> {
+export async function listOutbox(
+  opts: { to?: string } = {},
+): Promise<{ available: boolean; messages: StoredMessage[] }> {
   const url = new URL('/messages', env().MAIL_OUTBOX_URL);
   if (opts.to) url.searchParams.set('to', opts.to);
   try {

@@ -19,7 +19,9 @@ export interface LoggedAction {
 const PAGE_SIZE = 100;
 
 /** The moderation log, newest first, filtered by action, actor handle or target type. */
-export async function listModerationActions(query: ActionLogQuery): Promise<{ actions: LoggedAction[]; hasMore: boolean }> {
+export async function listModerationActions(
+  query: ActionLogQuery,
+): Promise<{ actions: LoggedAction[]; hasMore: boolean }> {
   const rows = await db
     .select({
       id: moderationActions.id,

@@ -17,7 +17,9 @@ import type { ReportReason, ReportTarget } from './words';
 export async function createReport(viewer: Viewer, input: ReportInput): Promise<{ id: string }> {
   const target = await resolveTarget(viewer, input.targetType, input.targetId);
   if (target.ownerId === viewer.id) {
-    throw new AppError('bad_request', 'report', 'You cannot report your own content or yourself.', [{ path: 'targetId', message: 'You cannot report your own content or yourself.' }]);
+    throw new AppError('bad_request', 'report', 'You cannot report your own content or yourself.', [
+      { path: 'targetId', message: 'You cannot report your own content or yourself.' },
+    ]);
   }
   await consumeOrThrow(REPORT_PER_MEMBER, viewer.id);
   try {
@@ -55,7 +57,14 @@ export interface QueueItem {
   targetType: ReportTarget;
   targetId: string;
   owner: { id: string; name: string; handle: string; role: Viewer['role']; suspended: boolean } | null;
-  recipe: { id: string; title: string; slug: string; hidden: boolean; hiddenReason: string | null; notes: string } | null;
+  recipe: {
+    id: string;
+    title: string;
+    slug: string;
+    hidden: boolean;
+    hiddenReason: string | null;
+    notes: string;
+  } | null;
   /** The reported comment, for a comment report. */
   comment: { body: string; state: 'published' | 'held' | 'hidden' | 'deleted' } | null;
   /** The reported member's bio, for a member report. */
@@ -73,8 +82,21 @@ export async function listOpenReports(): Promise<QueueItem[]> {
       report: reports,
       reporterName: reporters.name,
       reporterHandle: reporters.handle,
-      owner: { id: owners.id, name: owners.name, handle: owners.handle, role: owners.role, suspendedAt: owners.suspendedAt, bio: owners.bio },
-      recipe: { id: recipes.id, title: recipes.title, slug: recipes.slug, hiddenAt: recipes.hiddenAt, hiddenReason: recipes.hiddenReason },
+      owner: {
+        id: owners.id,
+        name: owners.name,
+        handle: owners.handle,
+        role: owners.role,
+        suspendedAt: owners.suspendedAt,
+        bio: owners.bio,
+      },
+      recipe: {
+        id: recipes.id,
+        title: recipes.title,
+        slug: recipes.slug,
+        hiddenAt: recipes.hiddenAt,
+        hiddenReason: recipes.hiddenReason,
+      },
       notes: recipeVersions.document,
     })
     .from(reports)
@@ -97,7 +119,15 @@ export async function listOpenReports(): Promise<QueueItem[]> {
       item = {
         targetType: r.report.targetType,
         targetId: r.report.targetId,
-        owner: r.owner ? { id: r.owner.id, name: r.owner.name ?? r.owner.handle, handle: r.owner.handle, role: r.owner.role, suspended: Boolean(r.owner.suspendedAt) } : null,
+        owner: r.owner
+          ? {
+              id: r.owner.id,
+              name: r.owner.name ?? r.owner.handle,
+              handle: r.owner.handle,
+              role: r.owner.role,
+              suspended: Boolean(r.owner.suspendedAt),
+            }
+          : null,
         recipe: r.recipe
           ? {
               id: r.recipe.id,
@@ -139,7 +169,11 @@ const STATUS_WORDS: Record<Report['status'], string> = {
  * it. The reports are locked first, so a second moderator acting at the same moment is told
  * who got there first instead of acting twice.
  */
-export async function resolveReport(actor: Viewer, reportId: string, input: ResolveReportInput): Promise<{ status: Report['status']; settled: number }> {
+export async function resolveReport(
+  actor: Viewer,
+  reportId: string,
+  input: ResolveReportInput,
+): Promise<{ status: Report['status']; settled: number }> {
   if (!/^[0-9a-f-]{36}$/i.test(reportId)) throw new AppError('not_found', 'report');
   const [first] = await db.select().from(reports).where(eq(reports.id, reportId));
   if (!first) throw new AppError('not_found', 'report');
@@ -150,13 +184,28 @@ export async function resolveReport(actor: Viewer, reportId: string, input: Reso
     const locked = await tx
       .select()
       .from(reports)
-      .where(and(eq(reports.targetType, first.targetType), eq(reports.targetId, first.targetId), or(eq(reports.status, 'open'), eq(reports.id, reportId))))
+      .where(
+        and(
+          eq(reports.targetType, first.targetType),
+          eq(reports.targetId, first.targetId),
+          or(eq(reports.status, 'open'), eq(reports.id, reportId)),
+        ),
+      )
       .orderBy(asc(reports.id))
       .for('update');
     const report = locked.find((r) => r.id === reportId)!;
     if (report.status !== 'open') {
-      const [by] = report.resolvedById ? await tx.select({ name: users.name, handle: users.handle }).from(users).where(eq(users.id, report.resolvedById)) : [];
-      throw new AppError('conflict', 'report', `This report was already handled${by ? ` by ${by.name ?? by.handle}` : ''}: ${STATUS_WORDS[report.status]}. Nothing more was done.`);
+      const [by] = report.resolvedById
+        ? await tx
+            .select({ name: users.name, handle: users.handle })
+            .from(users)
+            .where(eq(users.id, report.resolvedById))
+        : [];
+      throw new AppError(
+        'conflict',
+        'report',
+        `This report was already handled${by ? ` by ${by.name ?? by.handle}` : ''}: ${STATUS_WORDS[report.status]}. Nothing more was done.`,
+      );
     }
     const open = locked.filter((r) => r.status === 'open');
     const details = { reportIds: open.map((r) => r.id) };
@@ -165,7 +214,8 @@ export async function resolveReport(actor: Viewer, reportId: string, input: Reso
     if (input.action === 'dismiss') {
       await log(tx, actor, 'dismiss_reports', report.targetType, report.targetId, input.reason, details);
     } else {
-      if (input.action === 'hide' || report.targetType !== 'member') recipeChanged = (await hideTarget(tx, actor, target, input.reason, details)).recipeChanged;
+      if (input.action === 'hide' || report.targetType !== 'member')
+        recipeChanged = (await hideTarget(tx, actor, target, input.reason, details)).recipeChanged;
       status = 'hidden';
       if (input.action === 'suspend') {
         // setSuspended writes its own log entry and ends the member's sessions.
@@ -176,7 +226,12 @@ export async function resolveReport(actor: Viewer, reportId: string, input: Reso
     await tx
       .update(reports)
       .set({ status, resolvedById: actor.id, resolvedAt: new Date(), resolution: input.reason })
-      .where(inArray(reports.id, open.map((r) => r.id)));
+      .where(
+        inArray(
+          reports.id,
+          open.map((r) => r.id),
+        ),
+      );
     return { status, settled: open.length };
   });
   if (recipeChanged) afterRecipeCommit();
@@ -194,8 +249,10 @@ async function checkSuspendable(actor: Viewer, ownerId: string | null): Promise<
   const [owner] = await db.select({ role: users.role }).from(users).where(eq(users.id, ownerId));
   if (!owner) throw new AppError('not_found', 'member');
   if (ownerId === actor.id) throw new AppError('forbidden', 'member', 'You cannot suspend yourself.');
-  if (owner.role === 'admin') throw new AppError('forbidden', 'member', 'An admin cannot be suspended from the moderation queue.');
-  if (owner.role === 'moderator' && actor.role !== 'admin') throw new AppError('forbidden', 'member', 'Only an admin can suspend a moderator.');
+  if (owner.role === 'admin')
+    throw new AppError('forbidden', 'member', 'An admin cannot be suspended from the moderation queue.');
+  if (owner.role === 'moderator' && actor.role !== 'admin')
+    throw new AppError('forbidden', 'member', 'Only an admin can suspend a moderator.');
 }
 
 export interface HeldComment {
@@ -209,7 +266,14 @@ export interface HeldComment {
 /** Comments waiting for review under the new-member link rule, oldest first. */
 export async function listHeldComments(): Promise<HeldComment[]> {
   const rows = await db
-    .select({ comment: comments, authorName: users.name, authorHandle: users.handle, joinedAt: users.createdAt, title: recipes.title, slug: recipes.slug })
+    .select({
+      comment: comments,
+      authorName: users.name,
+      authorHandle: users.handle,
+      joinedAt: users.createdAt,
+      title: recipes.title,
+      slug: recipes.slug,
+    })
     .from(comments)
     .innerJoin(users, eq(users.id, comments.authorId))
     .innerJoin(recipes, eq(recipes.id, comments.recipeId))
@@ -220,13 +284,22 @@ export async function listHeldComments(): Promise<HeldComment[]> {
     id: r.comment.id,
     body: r.comment.body,
     createdAt: r.comment.createdAt,
-    author: { id: r.comment.authorId, name: r.authorName ?? r.authorHandle, handle: r.authorHandle, joinedAt: r.joinedAt },
+    author: {
+      id: r.comment.authorId,
+      name: r.authorName ?? r.authorHandle,
+      handle: r.authorHandle,
+      joinedAt: r.joinedAt,
+    },
     recipe: { title: r.title, slug: r.slug },
   }));
 }
 
 /** A moderator publishes a held comment (its notifications go out now) or hides it with a reason. */
-export async function reviewHeldComment(actor: Viewer, commentId: string, input: { action: 'approve' | 'hide'; reason: string }): Promise<{ state: 'published' | 'hidden' }> {
+export async function reviewHeldComment(
+  actor: Viewer,
+  commentId: string,
+  input: { action: 'approve' | 'hide'; reason: string },
+): Promise<{ state: 'published' | 'hidden' }> {
   if (!/^[0-9a-f-]{36}$/i.test(commentId)) throw new AppError('not_found', 'comment');
   return db.transaction(async (tx) => {
     const [row] = await tx
@@ -237,13 +310,20 @@ export async function reviewHeldComment(actor: Viewer, commentId: string, input:
       .for('update', { of: comments });
     if (!row) throw new AppError('not_found', 'comment');
     const c = row.comment;
-    if (c.status !== 'held' || c.hiddenAt || c.deletedAt) throw new AppError('conflict', 'comment', 'This comment was already reviewed (or removed by its author). Nothing more was done.');
+    if (c.status !== 'held' || c.hiddenAt || c.deletedAt)
+      throw new AppError(
+        'conflict',
+        'comment',
+        'This comment was already reviewed (or removed by its author). Nothing more was done.',
+      );
     if (input.action === 'hide') {
       await hideTarget(tx, actor, { type: 'comment', id: c.id, recipeId: c.recipeId }, input.reason, { held: true });
       return { state: 'hidden' as const };
     }
     await tx.update(comments).set({ status: 'published', approvedById: actor.id }).where(eq(comments.id, c.id));
-    const [parent] = c.parentId ? await tx.select({ authorId: comments.authorId }).from(comments).where(eq(comments.id, c.parentId)) : [];
+    const [parent] = c.parentId
+      ? await tx.select({ authorId: comments.authorId }).from(comments).where(eq(comments.id, c.parentId))
+      : [];
     await announceComment(tx, c, row.recipe, parent?.authorId ?? null);
     await log(tx, actor, 'approve_comment', 'comment', c.id, input.reason, { recipeId: c.recipeId });
     return { state: 'published' as const };
@@ -251,8 +331,12 @@ export async function reviewHeldComment(actor: Viewer, commentId: string, input:
 }
 
 /** A moderator undoes a hide. */
-export async function restoreHidden(actor: Viewer, input: { targetType: 'recipe' | 'comment' | 'photo'; targetId: string; reason: string }): Promise<void> {
-  const { recipeChanged } = await db.transaction((tx) => unhideTarget(tx, actor, input.targetType, input.targetId, input.reason));
+export async function restoreHidden(
+  actor: Viewer,
+  input: { targetType: 'recipe' | 'comment' | 'photo'; targetId: string; reason: string },
+): Promise<void> {
+  const { recipeChanged } = await db.transaction((tx) =>
+    unhideTarget(tx, actor, input.targetType, input.targetId, input.reason),
+  );
   if (recipeChanged) afterRecipeCommit();
 }
-

@@ -24,7 +24,10 @@ export interface ResolvedTarget {
 
 /** Whether a photo is hidden from everyone but its uploader and the moderators. */
 export async function isPhotoHidden(photoId: string): Promise<boolean> {
-  const [row] = await db.select({ id: hiddenPhotos.photoId }).from(hiddenPhotos).where(eq(hiddenPhotos.photoId, photoId));
+  const [row] = await db
+    .select({ id: hiddenPhotos.photoId })
+    .from(hiddenPhotos)
+    .where(eq(hiddenPhotos.photoId, photoId));
   return Boolean(row);
 }
 
@@ -54,7 +57,10 @@ export async function resolveTarget(viewer: MaybeViewer, type: ReportTarget, id:
         .innerJoin(recipes, eq(recipes.id, brewDays.recipeId))
         .leftJoin(hiddenPhotos, eq(hiddenPhotos.photoId, photos.id))
         .where(eq(photos.id, idParam(id, 'photo')));
-      const maySee = row && canView(row.recipe, viewer) && (!row.hidden || viewer?.id === row.uploaderId || (viewer && hasRole(viewer, 'moderator')));
+      const maySee =
+        row &&
+        canView(row.recipe, viewer) &&
+        (!row.hidden || viewer?.id === row.uploaderId || (viewer && hasRole(viewer, 'moderator')));
       if (!row || !maySee) throw new AppError('not_found', 'photo');
       return { ownerId: row.uploaderId, recipeId: row.recipe.id };
     }
@@ -74,7 +80,13 @@ export async function resolveTarget(viewer: MaybeViewer, type: ReportTarget, id:
 }
 
 /** Hides reported content inside the moderator's transaction and writes the log entry. */
-export async function hideTarget(tx: Transaction, actor: Viewer, target: { type: ReportTarget; id: string; recipeId: string | null }, reason: string, details: Record<string, unknown> = {}): Promise<{ recipeChanged: boolean }> {
+export async function hideTarget(
+  tx: Transaction,
+  actor: Viewer,
+  target: { type: ReportTarget; id: string; recipeId: string | null },
+  reason: string,
+  details: Record<string, unknown> = {},
+): Promise<{ recipeChanged: boolean }> {
   switch (target.type) {
     case 'recipe':
     case 'version': {
@@ -85,7 +97,10 @@ export async function hideTarget(tx: Transaction, actor: Viewer, target: { type:
         .set({ hiddenAt: sql`coalesce(${recipes.hiddenAt}, now())`, hiddenReason: reason })
         .where(eq(recipes.id, recipeId));
       await recordRecipeChange(tx, recipeId);
-      await log(tx, actor, 'hide_recipe', 'recipe', recipeId, reason, { ...details, reported: target.type === 'version' ? { version: target.id } : undefined });
+      await log(tx, actor, 'hide_recipe', 'recipe', recipeId, reason, {
+        ...details,
+        reported: target.type === 'version' ? { version: target.id } : undefined,
+      });
       return { recipeChanged: true };
     }
     case 'comment':
@@ -111,22 +126,47 @@ export async function hideTarget(tx: Transaction, actor: Viewer, target: { type:
 }
 
 /** Makes hidden content visible again. */
-export async function unhideTarget(tx: Transaction, actor: Viewer, type: 'recipe' | 'comment' | 'photo', id: string, reason: string): Promise<{ recipeChanged: boolean }> {
+export async function unhideTarget(
+  tx: Transaction,
+  actor: Viewer,
+  type: 'recipe' | 'comment' | 'photo',
+  id: string,
+  reason: string,
+): Promise<{ recipeChanged: boolean }> {
   if (type === 'recipe') {
-    const rows = await tx.update(recipes).set({ hiddenAt: null, hiddenReason: null }).where(eq(recipes.id, id)).returning({ id: recipes.id });
+    const rows = await tx
+      .update(recipes)
+      .set({ hiddenAt: null, hiddenReason: null })
+      .where(eq(recipes.id, id))
+      .returning({ id: recipes.id });
     if (!rows.length) throw new AppError('not_found', 'recipe');
     await recordRecipeChange(tx, id);
   } else if (type === 'comment') {
-    const rows = await tx.update(comments).set({ hiddenAt: null, hiddenReason: null }).where(eq(comments.id, id)).returning({ id: comments.id });
+    const rows = await tx
+      .update(comments)
+      .set({ hiddenAt: null, hiddenReason: null })
+      .where(eq(comments.id, id))
+      .returning({ id: comments.id });
     if (!rows.length) throw new AppError('not_found', 'comment');
   } else {
-    const rows = await tx.delete(hiddenPhotos).where(eq(hiddenPhotos.photoId, id)).returning({ id: hiddenPhotos.photoId });
+    const rows = await tx
+      .delete(hiddenPhotos)
+      .where(eq(hiddenPhotos.photoId, id))
+      .returning({ id: hiddenPhotos.photoId });
     if (!rows.length) throw new AppError('not_found', 'hidden photo');
   }
   await log(tx, actor, `unhide_${type}`, type, id, reason);
   return { recipeChanged: type === 'recipe' };
 }
 
-export async function log(tx: Transaction, actor: Pick<Viewer, 'id'>, action: string, targetType: string, targetId: string, reason = '', details: Record<string, unknown> = {}): Promise<void> {
+export async function log(
+  tx: Transaction,
+  actor: Pick<Viewer, 'id'>,
+  action: string,
+  targetType: string,
+  targetId: string,
+  reason = '',
+  details: Record<string, unknown> = {},
+): Promise<void> {
   await tx.insert(moderationActions).values({ actorId: actor.id, action, targetType, targetId, reason, details });
 }

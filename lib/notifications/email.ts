@@ -68,7 +68,10 @@ export async function flushEmailNotifications(opts: FlushOptions = {}): Promise<
       result.error = String((err as Error).message ?? err);
       await db
         .update(notificationEmails)
-        .set({ attempts: sql`${notificationEmails.attempts} + 1`, lastError: String((err as Error).message ?? err).slice(0, 500) })
+        .set({
+          attempts: sql`${notificationEmails.attempts} + 1`,
+          lastError: String((err as Error).message ?? err).slice(0, 500),
+        })
         .where(and(eq(notificationEmails.userId, userId), isNull(notificationEmails.sentAt)));
     }
   }
@@ -77,7 +80,10 @@ export async function flushEmailNotifications(opts: FlushOptions = {}): Promise<
 
 const actors = alias(users, 'actor');
 
-async function sendDigest(userId: string, send: (mail: OutgoingMail) => Promise<void>): Promise<{ sent: boolean; skipped: number }> {
+async function sendDigest(
+  userId: string,
+  send: (mail: OutgoingMail) => Promise<void>,
+): Promise<{ sent: boolean; skipped: number }> {
   return db.transaction(async (tx) => {
     // Another server sending this member's digest right now holds these rows: leave them to it.
     const pending = await tx
@@ -89,7 +95,14 @@ async function sendDigest(userId: string, send: (mail: OutgoingMail) => Promise<
     if (!pending.length) return { sent: false, skipped: 0 };
     const ids = pending.map((p) => p.id);
     const [member] = await tx
-      .select({ id: users.id, email: users.email, name: users.name, handle: users.handle, role: users.role, suspendedAt: users.suspendedAt })
+      .select({
+        id: users.id,
+        email: users.email,
+        name: users.name,
+        handle: users.handle,
+        role: users.role,
+        suspendedAt: users.suspendedAt,
+      })
       .from(users)
       .where(eq(users.id, userId));
     const offKinds = new Set(
@@ -123,18 +136,30 @@ async function sendDigest(userId: string, send: (mail: OutgoingMail) => Promise<
       .orderBy(asc(notifications.createdAt));
     const viewer = member && { id: member.id, role: member.role };
     const wanted = rows.filter(
-      (r) => member && !member.suspendedAt && !offKinds.has(r.kind) && (!r.recipe?.ownerId || canView(r.recipe as Parameters<typeof canView>[0], viewer)),
+      (r) =>
+        member &&
+        !member.suspendedAt &&
+        !offKinds.has(r.kind) &&
+        (!r.recipe?.ownerId || canView(r.recipe as Parameters<typeof canView>[0], viewer)),
     );
     const skippedIds = rows.filter((r) => !wanted.includes(r)).map((r) => r.emailId);
     if (skippedIds.length) {
-      await tx.update(notificationEmails).set({ outcome: 'skipped', sentAt: new Date() }).where(inArray(notificationEmails.id, skippedIds));
+      await tx
+        .update(notificationEmails)
+        .set({ outcome: 'skipped', sentAt: new Date() })
+        .where(inArray(notificationEmails.id, skippedIds));
     }
     if (!wanted.length) return { sent: false, skipped: skippedIds.length };
     await send(digestMessage(member!, wanted));
     await tx
       .update(notificationEmails)
       .set({ outcome: 'sent', sentAt: new Date(), attempts: sql`${notificationEmails.attempts} + 1`, lastError: null })
-      .where(inArray(notificationEmails.id, wanted.map((w) => w.emailId)));
+      .where(
+        inArray(
+          notificationEmails.id,
+          wanted.map((w) => w.emailId),
+        ),
+      );
     return { sent: true, skipped: skippedIds.length };
   });
 }
@@ -148,24 +173,33 @@ interface DigestItem {
 }
 
 export function unsubscribeUrl(userId: string, scope: UnsubscribeScope): string {
-  return new URL(`/api/unsubscribe?token=${encodeURIComponent(unsubscribeToken(userId, scope))}`, env().NEXTAUTH_URL).toString();
+  return new URL(
+    `/api/unsubscribe?token=${encodeURIComponent(unsubscribeToken(userId, scope))}`,
+    env().NEXTAUTH_URL,
+  ).toString();
 }
 
 /** One plain-text message listing the notices, with a one-click unsubscribe link per kind. */
-export function digestMessage(member: { id: string; email: string; name: string | null; handle: string }, items: DigestItem[]): OutgoingMail {
+export function digestMessage(
+  member: { id: string; email: string; name: string | null; handle: string },
+  items: DigestItem[],
+): OutgoingMail {
   const base = env().NEXTAUTH_URL;
   const lines = items.slice(0, ITEMS_PER_MESSAGE).map((item) => {
     const line = describeNotification(item.kind, item.actorName, item.recipe?.title ?? 'a recipe');
     const excerpt = item.excerpt ? `\n  “${item.excerpt}”` : '';
     return `• ${line}${excerpt}\n  ${new URL(item.url, base).toString()}`;
   });
-  if (items.length > ITEMS_PER_MESSAGE) lines.push(`…and ${items.length - ITEMS_PER_MESSAGE} more: ${new URL('/notifications', base).toString()}`);
+  if (items.length > ITEMS_PER_MESSAGE)
+    lines.push(`…and ${items.length - ITEMS_PER_MESSAGE} more: ${new URL('/notifications', base).toString()}`);
   const kinds = [...new Set(items.map((i) => i.kind))];
   const subject =
     items.length === 1
       ? describeNotification(items[0].kind, items[0].actorName, items[0].recipe?.title ?? 'a recipe')
       : `${items.length} new things on Kettlefork`;
-  const stopLines = kinds.map((k) => `Stop e-mails like this (${KIND_LABELS[k].toLowerCase()}): ${unsubscribeUrl(member.id, k)}`);
+  const stopLines = kinds.map(
+    (k) => `Stop e-mails like this (${KIND_LABELS[k].toLowerCase()}): ${unsubscribeUrl(member.id, k)}`,
+  );
   // The mail client's own unsubscribe button stops what this message is about: its one kind, or all of them.
   const headerScope: UnsubscribeScope = kinds.length === 1 ? kinds[0] : 'all';
   const text = [

@@ -1,6 +1,15 @@
 // Pure: shared by the server, the e-mail sender and client components.
 
-export const NOTIFICATION_KINDS = ['fork', 'comment', 'reply', 'star', 'brewed', 'new_recipe', 'proposal', 'proposal_decision'] as const;
+export const NOTIFICATION_KINDS = [
+  'fork',
+  'comment',
+  'reply',
+  'star',
+  'brewed',
+  'new_recipe',
+  'proposal',
+  'proposal_decision',
+] as const;
 export type NotificationKind = (typeof NOTIFICATION_KINDS)[number];
 
 /** How each kind is named on the settings page and in unsubscribe messages. */

@@ -24,7 +24,10 @@ const actors = alias(users, 'actor');
  * A member's notifications, newest first. A notice about a recipe they may no longer see (hidden
  * or made private since) is left out.
  */
-export async function listNotifications(viewer: Pick<Viewer, 'id' | 'role'>, opts: { page?: number } = {}): Promise<{ items: NotificationItem[]; hasMore: boolean }> {
+export async function listNotifications(
+  viewer: Pick<Viewer, 'id' | 'role'>,
+  opts: { page?: number } = {},
+): Promise<{ items: NotificationItem[]; hasMore: boolean }> {
   const page = opts.page ?? 1;
   const rows = await db
     .select({
@@ -35,7 +38,12 @@ export async function listNotifications(viewer: Pick<Viewer, 'id' | 'role'>, opt
       readAt: notifications.readAt,
       createdAt: notifications.createdAt,
       actorName: sql<string>`coalesce(${actors.name}, ${actors.handle}, 'Someone')`,
-      recipe: { title: recipes.title, ownerId: recipes.ownerId, visibility: recipes.visibility, hiddenAt: recipes.hiddenAt },
+      recipe: {
+        title: recipes.title,
+        ownerId: recipes.ownerId,
+        visibility: recipes.visibility,
+        hiddenAt: recipes.hiddenAt,
+      },
     })
     .from(notifications)
     .leftJoin(actors, eq(actors.id, notifications.actorId))
@@ -72,7 +80,13 @@ export async function markRead(viewer: Pick<Viewer, 'id'>, ids?: string[]): Prom
   const rows = await db
     .update(notifications)
     .set({ readAt: new Date() })
-    .where(and(eq(notifications.userId, viewer.id), isNull(notifications.readAt), ids ? inArray(notifications.id, ids) : undefined))
+    .where(
+      and(
+        eq(notifications.userId, viewer.id),
+        isNull(notifications.readAt),
+        ids ? inArray(notifications.id, ids) : undefined,
+      ),
+    )
     .returning({ id: notifications.id });
   return rows.length;
 }

@@ -22,7 +22,10 @@ export async function setEmailChoices(tx: Transaction, userId: string, choices: 
     await tx
       .insert(notificationPreferences)
       .values({ userId, kind, email })
-      .onConflictDoUpdate({ target: [notificationPreferences.userId, notificationPreferences.kind], set: { email, updatedAt: new Date() } });
+      .onConflictDoUpdate({
+        target: [notificationPreferences.userId, notificationPreferences.kind],
+        set: { email, updatedAt: new Date() },
+      });
   }
 }
 

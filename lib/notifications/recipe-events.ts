@@ -20,9 +20,13 @@ export async function notifyRecipeCreated(
       .from(recipeVersions)
       .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
       .where(eq(recipeVersions.id, recipe.forkedFromVersionId));
-    if (source) await notify(tx, { userId: source.ownerId, kind: 'fork', actorId: recipe.ownerId, recipeId: source.id, url });
+    if (source)
+      await notify(tx, { userId: source.ownerId, kind: 'fork', actorId: recipe.ownerId, recipeId: source.id, url });
   }
-  const followers = await tx.select({ id: memberFollows.followerId }).from(memberFollows).where(eq(memberFollows.followeeId, recipe.ownerId));
+  const followers = await tx
+    .select({ id: memberFollows.followerId })
+    .from(memberFollows)
+    .where(eq(memberFollows.followeeId, recipe.ownerId));
   for (const f of followers) {
     await notify(tx, { userId: f.id, kind: 'new_recipe', actorId: recipe.ownerId, recipeId: recipe.id, url });
   }

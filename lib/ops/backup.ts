@@ -12,7 +12,11 @@ export interface BackupManifest {
 
 /** Finds a PostgreSQL client tool (pg_dump, pg_restore) next to the server binaries or on PATH. */
 function pgTool(name: 'pg_dump' | 'pg_restore'): string {
-  for (const dir of readdirSync('/usr/lib/postgresql', { withFileTypes: true }).filter((d) => d.isDirectory()).map((d) => d.name).sort().reverse()) {
+  for (const dir of readdirSync('/usr/lib/postgresql', { withFileTypes: true })
+    .filter((d) => d.isDirectory())
+    .map((d) => d.name)
+    .sort()
+    .reverse()) {
     const candidate = `/usr/lib/postgresql/${dir}/bin/${name}`;
     if (existsSync(candidate)) return candidate;
   }
@@ -31,7 +35,11 @@ function describeDatabase(url: string): string {
  */
 export async function backup(dir: string, databaseUrl: string): Promise<BackupManifest> {
   mkdirSync(path.join(dir, 'photos'), { recursive: true });
-  execFileSync(pgTool('pg_dump'), ['--format=custom', '--no-owner', '--file', path.join(dir, 'database.dump'), databaseUrl], { stdio: 'inherit' });
+  execFileSync(
+    pgTool('pg_dump'),
+    ['--format=custom', '--no-owner', '--file', path.join(dir, 'database.dump'), databaseUrl],
+    { stdio: 'inherit' },
+  );
   const keys = await listObjectKeys();
   for (const key of keys) {
     const body = await getObject(key);
@@ -40,7 +48,11 @@ export async function backup(dir: string, databaseUrl: string): Promise<BackupMa
     mkdirSync(path.dirname(file), { recursive: true });
     writeFileSync(file, body);
   }
-  const manifest = { createdAt: new Date().toISOString(), database: describeDatabase(databaseUrl), photos: keys.length };
+  const manifest = {
+    createdAt: new Date().toISOString(),
+    database: describeDatabase(databaseUrl),
+    photos: keys.length,
+  };
   writeFileSync(path.join(dir, 'manifest.json'), JSON.stringify(manifest, null, 2));
   return manifest;
 }
@@ -58,9 +70,23 @@ function filesBelow(dir: string): string[] {
  */
 export async function restore(dir: string, databaseUrl: string): Promise<{ photos: number }> {
   const manifest = JSON.parse(readFileSync(path.join(dir, 'manifest.json'), 'utf8')) as BackupManifest;
-  execFileSync(pgTool('pg_restore'), ['--clean', '--if-exists', '--no-owner', '--single-transaction', '--dbname', databaseUrl, path.join(dir, 'database.dump')], { stdio: 'inherit' });
+  execFileSync(
+    pgTool('pg_restore'),
+    [
+      '--clean',
+      '--if-exists',
+      '--no-owner',
+      '--single-transaction',
+      '--dbname',
+      databaseUrl,
+      path.join(dir, 'database.dump'),
+    ],
+    { stdio: 'inherit' },
+  );
   const files = filesBelow(path.join(dir, 'photos'));
-  for (const key of files) await putObject(key.split(path.sep).join('/'), readFileSync(path.join(dir, 'photos', key)), 'image/jpeg');
-  if (files.length !== manifest.photos) throw new Error(`the backup lists ${manifest.photos} photos but holds ${files.length}`);
+  for (const key of files)
+    await putObject(key.split(path.sep).join('/'), readFileSync(path.join(dir, 'photos', key)), 'image/jpeg');
+  if (files.length !== manifest.photos)
+    throw new Error(`the backup lists ${manifest.photos} photos but holds ${files.length}`);
   return { photos: files.length };
 }

@@ -17,7 +17,12 @@ export function isLive(proposal: Pick<Proposal, 'status'>): boolean {
  * from; its proposer and the source's owner even when the fork is no longer visible to others (so
  * the owner sees why it cannot be accepted). A hidden proposal only its proposer and the moderators.
  */
-export function canViewProposal(proposal: Pick<Proposal, 'proposerId' | 'hiddenAt'>, source: Gate, fork: Gate, viewer: MaybeViewer): boolean {
+export function canViewProposal(
+  proposal: Pick<Proposal, 'proposerId' | 'hiddenAt'>,
+  source: Gate,
+  fork: Gate,
+  viewer: MaybeViewer,
+): boolean {
   const moderator = Boolean(viewer && hasRole(viewer, 'moderator'));
   const proposer = viewer?.id === proposal.proposerId;
   if (proposal.hiddenAt && !proposer && !moderator) return false;

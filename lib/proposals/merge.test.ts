@@ -45,7 +45,10 @@ describe('mergeDocuments', () => {
   });
 
   it('lists a field both sides changed differently as a conflict with all three values', () => {
-    const docs = three({ ours: (d) => void (d.mash.steps[0].tempC = 65), theirs: (d) => void (d.mash.steps[0].tempC = 68) });
+    const docs = three({
+      ours: (d) => void (d.mash.steps[0].tempC = 65),
+      theirs: (d) => void (d.mash.steps[0].tempC = 68),
+    });
     const result = merge(docs);
     expect(result.conflicts).toEqual([{ path: 'mash.steps[0].tempC', base: 66, ours: 65, theirs: 68 }]);
     // Until a pick, the merged document keeps the source's value.
@@ -69,7 +72,12 @@ describe('mergeDocuments', () => {
     const result = merge(docs);
     expect(result.conflicts).toEqual([]);
     expect(names(result.merged.fermentables)).toEqual(['Pale ale malt, 2-row', 'Munich malt', 'Wheat malt']);
-    expect(result.merged.hops.map((h) => `${h.name}|${h.use}`)).toEqual(['Cascade|boil', 'Centennial|whirlpool', 'Cascade|dry_hop', 'Chinook|boil']);
+    expect(result.merged.hops.map((h) => `${h.name}|${h.use}`)).toEqual([
+      'Cascade|boil',
+      'Centennial|whirlpool',
+      'Cascade|dry_hop',
+      'Chinook|boil',
+    ]);
     expectValid(result.merged);
   });
 
@@ -86,7 +94,10 @@ describe('mergeDocuments', () => {
 
   it('keeps an ingredient added identically on both sides once', () => {
     const wheat = { name: 'Wheat malt', amountKg: 0.3, potentialPpg: 37, colorLovibond: 2, kind: 'grain' as const };
-    const docs = three({ ours: (d) => void d.fermentables.push({ ...wheat }), theirs: (d) => void d.fermentables.push({ ...wheat }) });
+    const docs = three({
+      ours: (d) => void d.fermentables.push({ ...wheat }),
+      theirs: (d) => void d.fermentables.push({ ...wheat }),
+    });
     const result = merge(docs);
     expect(result.conflicts).toEqual([]);
     expect(result.merged.fermentables.filter((f) => f.name === 'Wheat malt')).toHaveLength(1);
@@ -95,9 +106,14 @@ describe('mergeDocuments', () => {
 
   it('lists the fields of an ingredient added on both sides with different amounts as conflicts', () => {
     const wheat = { name: 'Wheat malt', amountKg: 0.3, potentialPpg: 37, colorLovibond: 2, kind: 'grain' as const };
-    const docs = three({ ours: (d) => void d.fermentables.push({ ...wheat }), theirs: (d) => void d.fermentables.push({ ...wheat, amountKg: 0.5 }) });
+    const docs = three({
+      ours: (d) => void d.fermentables.push({ ...wheat }),
+      theirs: (d) => void d.fermentables.push({ ...wheat, amountKg: 0.5 }),
+    });
     const result = merge(docs);
-    expect(result.conflicts).toEqual([{ path: 'fermentables[wheat malt].amountKg', base: undefined, ours: 0.3, theirs: 0.5 }]);
+    expect(result.conflicts).toEqual([
+      { path: 'fermentables[wheat malt].amountKg', base: undefined, ours: 0.3, theirs: 0.5 },
+    ]);
     const resolved = resolveMerge(result, { 'fermentables[wheat malt].amountKg': 'theirs' });
     expect(resolved.fermentables.find((f) => f.name === 'Wheat malt')!.amountKg).toBe(0.5);
     expectValid(resolved);
@@ -110,16 +126,25 @@ describe('mergeDocuments', () => {
     });
     const result = merge(docs);
     expect(result.conflicts).toHaveLength(1);
-    expect(result.conflicts[0]).toMatchObject({ path: 'fermentables[munich malt]', ours: undefined, theirs: { name: 'Munich malt', amountKg: 0.6 } });
+    expect(result.conflicts[0]).toMatchObject({
+      path: 'fermentables[munich malt]',
+      ours: undefined,
+      theirs: { name: 'Munich malt', amountKg: 0.6 },
+    });
     expect(names(result.merged.fermentables)).not.toContain('Munich malt');
-    expect(names(resolveMerge(result, { 'fermentables[munich malt]': 'theirs' }).fermentables)).toContain('Munich malt');
+    expect(names(resolveMerge(result, { 'fermentables[munich malt]': 'theirs' }).fermentables)).toContain(
+      'Munich malt',
+    );
     const keptOut = resolveMerge(result, { 'fermentables[munich malt]': 'ours' });
     expect(names(keptOut.fermentables)).not.toContain('Munich malt');
     expectValid(keptOut);
   });
 
   it('drops an ingredient removed on one side when the other side left it alone', () => {
-    const docs = three({ theirs: (d) => void (d.yeasts = [{ name: 'Kveik', kind: 'kveik', attenuationPct: 80, tempMinC: 25, tempMaxC: 38 }]) });
+    const docs = three({
+      theirs: (d) =>
+        void (d.yeasts = [{ name: 'Kveik', kind: 'kveik', attenuationPct: 80, tempMinC: 25, tempMaxC: 38 }]),
+    });
     const result = merge(docs);
     expect(result.conflicts).toEqual([]);
     expect(names(result.merged.yeasts)).toEqual(['Kveik']);
@@ -214,15 +239,21 @@ describe('resolveMerge', () => {
       }
     })();
     expect(error).toBeInstanceOf(MergePickError);
-    expect(error!.issues).toEqual([{ path: 'mash.steps[0].tempC', message: expect.stringContaining('Choose which side') }]);
+    expect(error!.issues).toEqual([
+      { path: 'mash.steps[0].tempC', message: expect.stringContaining('Choose which side') },
+    ]);
   });
 
   it('refuses a pick for a path that is not a conflict, naming it', () => {
-    expect(() => resolveMerge(conflicted(), { notes: 'ours', 'mash.steps[0].tempC': 'ours', 'batch.volumeL': 'theirs' })).toThrow(/batch\.volumeL.*not a conflict/);
+    expect(() =>
+      resolveMerge(conflicted(), { notes: 'ours', 'mash.steps[0].tempC': 'ours', 'batch.volumeL': 'theirs' }),
+    ).toThrow(/batch\.volumeL.*not a conflict/);
   });
 
   it('refuses a pick that is neither side', () => {
-    expect(() => resolveMerge(conflicted(), { notes: 'both', 'mash.steps[0].tempC': 'ours' })).toThrow(/Choose “ours” or “theirs”/);
+    expect(() => resolveMerge(conflicted(), { notes: 'both', 'mash.steps[0].tempC': 'ours' })).toThrow(
+      /Choose “ours” or “theirs”/,
+    );
   });
 
   it('applies a mix of picks and always gives a valid document', () => {

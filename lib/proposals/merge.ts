@@ -79,7 +79,13 @@ function stableJson(value: unknown): string {
 }
 
 /** The whole-value rule: one side changed → that side; both the same → it; both different → a conflict. */
-function mergeValue<T>(ctx: Ctx, path: string, base: T | undefined, ours: T | undefined, theirs: T | undefined): T | undefined {
+function mergeValue<T>(
+  ctx: Ctx,
+  path: string,
+  base: T | undefined,
+  ours: T | undefined,
+  theirs: T | undefined,
+): T | undefined {
   if (same(ours, theirs)) return ours;
   if (same(base, ours)) {
     ctx.fromTheirs.push(path);
@@ -111,7 +117,13 @@ function mergeFields<T extends object>(ctx: Ctx, path: string, base: T | undefin
  * field by field; removed on one side wins if the other side left it as it was, and is a
  * conflict about the whole entry if the other side changed it.
  */
-function mergeEntry<T extends object>(ctx: Ctx, path: string, base: T | undefined, ours: T | undefined, theirs: T | undefined): T | undefined {
+function mergeEntry<T extends object>(
+  ctx: Ctx,
+  path: string,
+  base: T | undefined,
+  ours: T | undefined,
+  theirs: T | undefined,
+): T | undefined {
   if (ours !== undefined && theirs !== undefined) {
     return same(ours, theirs) ? ours : mergeFields(ctx, path, base, ours, theirs);
   }
@@ -132,11 +144,22 @@ function keyed<T>(items: readonly T[], key: (item: T) => string): Map<string, T>
 }
 
 /** Entries matched by identity; ours keep their order, entries only the proposal added follow. */
-function mergeKeyedList<T extends object>(ctx: Ctx, path: string, base: readonly T[], ours: readonly T[], theirs: readonly T[], key: (item: T) => string): T[] {
+function mergeKeyedList<T extends object>(
+  ctx: Ctx,
+  path: string,
+  base: readonly T[],
+  ours: readonly T[],
+  theirs: readonly T[],
+  key: (item: T) => string,
+): T[] {
   const b = keyed(base, key);
   const o = keyed(ours, key);
   const t = keyed(theirs, key);
-  const order = [...o.keys(), ...[...t.keys()].filter((k) => !o.has(k)), ...[...b.keys()].filter((k) => !o.has(k) && !t.has(k))];
+  const order = [
+    ...o.keys(),
+    ...[...t.keys()].filter((k) => !o.has(k)),
+    ...[...b.keys()].filter((k) => !o.has(k) && !t.has(k)),
+  ];
   const out: T[] = [];
   for (const k of order) {
     const merged = mergeEntry(ctx, `${path}[${k}]`, b.get(k), o.get(k), t.get(k));
@@ -146,7 +169,13 @@ function mergeKeyedList<T extends object>(ctx: Ctx, path: string, base: readonly
 }
 
 /** Entries matched by position (mash and fermentation steps). */
-function mergeByPosition<T extends object>(ctx: Ctx, path: string, base: readonly T[], ours: readonly T[], theirs: readonly T[]): T[] {
+function mergeByPosition<T extends object>(
+  ctx: Ctx,
+  path: string,
+  base: readonly T[],
+  ours: readonly T[],
+  theirs: readonly T[],
+): T[] {
   const out: T[] = [];
   for (let i = 0; i < Math.max(base.length, ours.length, theirs.length); i++) {
     const merged = mergeEntry(ctx, `${path}[${i}]`, base[i], ours[i], theirs[i]);
@@ -156,7 +185,14 @@ function mergeByPosition<T extends object>(ctx: Ctx, path: string, base: readonl
 }
 
 /** An optional section (water, carbonation): field by field when all three have it, else whole. */
-function mergeOptional<T extends object>(ctx: Ctx, path: string, base: T | undefined, ours: T | undefined, theirs: T | undefined, inner: (b: T, o: T, t: T) => T): T | undefined {
+function mergeOptional<T extends object>(
+  ctx: Ctx,
+  path: string,
+  base: T | undefined,
+  ours: T | undefined,
+  theirs: T | undefined,
+  inner: (b: T, o: T, t: T) => T,
+): T | undefined {
   if (base && ours && theirs) return inner(base, ours, theirs);
   return mergeValue(ctx, path, base, ours, theirs);
 }
@@ -169,11 +205,26 @@ function mergeWith(base: RecipeDocument, ours: RecipeDocument, theirs: RecipeDoc
   const merged: RecipeDocument = {
     title: ours.title,
     batch: mergeFields(ctx, 'batch', base.batch, ours.batch, theirs.batch),
-    fermentables: mergeKeyedList(ctx, 'fermentables', base.fermentables, ours.fermentables, theirs.fermentables, nameKey),
+    fermentables: mergeKeyedList(
+      ctx,
+      'fermentables',
+      base.fermentables,
+      ours.fermentables,
+      theirs.fermentables,
+      nameKey,
+    ),
     hops: mergeKeyedList(ctx, 'hops', base.hops, ours.hops, theirs.hops, hopKey),
     yeasts: mergeKeyedList(ctx, 'yeasts', base.yeasts, ours.yeasts, theirs.yeasts, nameKey),
     mash: { steps: mergeByPosition(ctx, 'mash.steps', base.mash.steps, ours.mash.steps, theirs.mash.steps) },
-    fermentation: { steps: mergeByPosition(ctx, 'fermentation.steps', base.fermentation.steps, ours.fermentation.steps, theirs.fermentation.steps) },
+    fermentation: {
+      steps: mergeByPosition(
+        ctx,
+        'fermentation.steps',
+        base.fermentation.steps,
+        ours.fermentation.steps,
+        theirs.fermentation.steps,
+      ),
+    },
     notes: mergeValue(ctx, 'notes', base.notes, ours.notes, theirs.notes) ?? '',
   };
   const water = mergeOptional(ctx, 'water', base.water, ours.water, theirs.water, (b, o, t) => ({
@@ -181,7 +232,14 @@ function mergeWith(base: RecipeDocument, ours: RecipeDocument, theirs: RecipeDoc
     source: mergeFields(ctx, 'water.source', b.source, o.source, t.source),
     salts: mergeKeyedList(ctx, 'water.salts', b.salts, o.salts, t.salts, (s) => s.salt),
   }));
-  const carbonation = mergeOptional(ctx, 'carbonation', base.carbonation, ours.carbonation, theirs.carbonation, (b, o, t) => mergeFields(ctx, 'carbonation', b, o, t));
+  const carbonation = mergeOptional(
+    ctx,
+    'carbonation',
+    base.carbonation,
+    ours.carbonation,
+    theirs.carbonation,
+    (b, o, t) => mergeFields(ctx, 'carbonation', b, o, t),
+  );
   const style = mergeValue(ctx, 'style', base.style, ours.style, theirs.style);
   if (water) merged.water = water;
   if (carbonation) merged.carbonation = carbonation;
@@ -202,15 +260,21 @@ export function resolveMerge(result: MergeResult, picks: Readonly<Record<string,
   const open = new Set(result.conflicts.map((c) => c.path));
   const issues: MergePickIssue[] = [];
   for (const [path, side] of Object.entries(picks)) {
-    if (!open.has(path)) issues.push({ path, message: `“${path}” is not a conflict in this merge; there is nothing to choose there.` });
-    else if (side !== 'ours' && side !== 'theirs') issues.push({ path, message: `Choose “ours” or “theirs” for ${path}.` });
+    if (!open.has(path))
+      issues.push({ path, message: `“${path}” is not a conflict in this merge; there is nothing to choose there.` });
+    else if (side !== 'ours' && side !== 'theirs')
+      issues.push({ path, message: `Choose “ours” or “theirs” for ${path}.` });
   }
-  for (const path of open) if (!(path in picks)) issues.push({ path, message: `Choose which side to keep for ${path}.` });
+  for (const path of open)
+    if (!(path in picks)) issues.push({ path, message: `Choose which side to keep for ${path}.` });
   if (issues.length) throw new MergePickError(issues);
   const { base, ours, theirs } = result.inputs;
   const resolved = mergeWith(base, ours, theirs, picks as Picks);
   // Every conflict had a pick, so none is left open (a pick can only settle, never raise one).
-  if (resolved.conflicts.length) throw new MergePickError(resolved.conflicts.map((c) => ({ path: c.path, message: `Choose which side to keep for ${c.path}.` })));
+  if (resolved.conflicts.length)
+    throw new MergePickError(
+      resolved.conflicts.map((c) => ({ path: c.path, message: `Choose which side to keep for ${c.path}.` })),
+    );
   return resolved.merged;
 }
 

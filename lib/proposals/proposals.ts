@@ -108,12 +108,17 @@ function forkNotVisibleError(): AppError {
 export async function openProposal(viewer: Viewer, input: OpenProposalInput): Promise<{ id: string }> {
   const { recipe: fork, version } = await getVersionById(viewer, input.versionId);
   if (!isOwner(fork, viewer)) {
-    throw new AppError('forbidden', 'version', 'You can propose only a version of your own fork.', [{ path: 'versionId', message: 'You can propose only a version of your own fork.' }]);
+    throw new AppError('forbidden', 'version', 'You can propose only a version of your own fork.', [
+      { path: 'versionId', message: 'You can propose only a version of your own fork.' },
+    ]);
   }
   if (!fork.forkedFromVersionId) {
-    throw new AppError('bad_request', 'recipe', `“${fork.title}” is not a fork, so there is no original to propose to.`, [
-      { path: 'versionId', message: 'This recipe is not a fork of another recipe.' },
-    ]);
+    throw new AppError(
+      'bad_request',
+      'recipe',
+      `“${fork.title}” is not a fork, so there is no original to propose to.`,
+      [{ path: 'versionId', message: 'This recipe is not a fork of another recipe.' }],
+    );
   }
   const ancestors = await getAncestorsByRecipeId(db, { recipeId: fork.id });
   const target = input.sourceRecipeId ? ancestors.find((a) => a.recipeId === input.sourceRecipeId) : ancestors[0];
@@ -121,9 +126,12 @@ export async function openProposal(viewer: Viewer, input: OpenProposalInput): Pr
     // A recipe the member cannot see at all is "not found", exactly as a missing one.
     const [other] = await db.select().from(recipes).where(eq(recipes.id, input.sourceRecipeId));
     if (!other || !canView(other, viewer)) throw new AppError('not_found', 'recipe');
-    throw new AppError('bad_request', 'proposal', `“${other.title}” is not a recipe your fork descends from; you can propose only to an ancestor of your fork.`, [
-      { path: 'sourceRecipeId', message: 'Not an ancestor of your fork.' },
-    ]);
+    throw new AppError(
+      'bad_request',
+      'proposal',
+      `“${other.title}” is not a recipe your fork descends from; you can propose only to an ancestor of your fork.`,
+      [{ path: 'sourceRecipeId', message: 'Not an ancestor of your fork.' }],
+    );
   }
   if (!target || !canView(target.recipe, viewer)) throw new AppError('not_found', 'recipe');
   if (!forkVisibleToOwner(fork, target.ownerId)) {
@@ -159,7 +167,11 @@ export async function openProposal(viewer: Viewer, input: OpenProposalInput): Pr
     return { id };
   } catch (err) {
     if (isUniqueViolation(err)) {
-      throw new AppError('conflict', 'proposal', `Your fork already has an open proposal to “${target.title}”. Update that one to a newer version instead.`);
+      throw new AppError(
+        'conflict',
+        'proposal',
+        `Your fork already has an open proposal to “${target.title}”. Update that one to a newer version instead.`,
+      );
     }
     throw err;
   }
@@ -173,7 +185,12 @@ interface LoadedProposal {
 
 const forks = alias(recipes, 'fork');
 
-async function loadProposal(tx: Db, viewer: MaybeViewer, id: string, opts: { lock?: boolean } = {}): Promise<LoadedProposal> {
+async function loadProposal(
+  tx: Db,
+  viewer: MaybeViewer,
+  id: string,
+  opts: { lock?: boolean } = {},
+): Promise<LoadedProposal> {
   idParam(id, 'proposal');
   const query = tx
     .select({ proposal: proposals, source: recipes, fork: forks })
@@ -187,19 +204,43 @@ async function loadProposal(tx: Db, viewer: MaybeViewer, id: string, opts: { loc
 }
 
 /** The proposal's recipe ids and proposer, if the viewer may see it (for reports). */
-export async function getVisibleProposal(viewer: MaybeViewer, id: string): Promise<{ proposerId: string; sourceRecipeId: string }> {
+export async function getVisibleProposal(
+  viewer: MaybeViewer,
+  id: string,
+): Promise<{ proposerId: string; sourceRecipeId: string }> {
   const { proposal } = await loadProposal(db, viewer, id);
   return { proposerId: proposal.proposerId, sourceRecipeId: proposal.sourceRecipeId };
 }
 
 function refuseUnlessLive(proposal: Proposal): void {
   if (isLive(proposal)) return;
-  throw new AppError('conflict', 'proposal', `This proposal was already ${STATUS_WORDS[proposal.status]}. Nothing was changed.`);
+  throw new AppError(
+    'conflict',
+    'proposal',
+    `This proposal was already ${STATUS_WORDS[proposal.status]}. Nothing was changed.`,
+  );
 }
 
-async function versionDoc(tx: Db, versionId: string): Promise<{ id: string; number: number; recipeId: string; document: RecipeDocument; stats: RecipeStats; message: string }> {
+async function versionDoc(
+  tx: Db,
+  versionId: string,
+): Promise<{
+  id: string;
+  number: number;
+  recipeId: string;
+  document: RecipeDocument;
+  stats: RecipeStats;
+  message: string;
+}> {
   const [row] = await tx
-    .select({ id: recipeVersions.id, number: recipeVersions.number, recipeId: recipeVersions.recipeId, document: recipeVersions.document, stats: recipeVersions.stats, message: recipeVersions.message })
+    .select({
+      id: recipeVersions.id,
+      number: recipeVersions.number,
+      recipeId: recipeVersions.recipeId,
+      document: recipeVersions.document,
+      stats: recipeVersions.stats,
+      message: recipeVersions.message,
+    })
     .from(recipeVersions)
     .where(eq(recipeVersions.id, versionId));
   // Documents written by an older engine are re-checked (and given today's defaults) on the way in.
@@ -210,19 +251,28 @@ async function versionDoc(tx: Db, versionId: string): Promise<{ id: string; numb
 export async function updateProposal(viewer: Viewer, id: string, input: UpdateProposalInput): Promise<{ id: string }> {
   await db.transaction(async (tx) => {
     const { proposal, source, fork } = await loadProposal(tx, viewer, id, { lock: true });
-    if (proposal.proposerId !== viewer.id) throw new AppError('forbidden', 'proposal', 'Only the member who proposed this can change it.');
+    if (proposal.proposerId !== viewer.id)
+      throw new AppError('forbidden', 'proposal', 'Only the member who proposed this can change it.');
     refuseUnlessLive(proposal);
     let proposedVersionId = proposal.proposedVersionId;
     if (input.versionId && input.versionId !== proposal.proposedVersionId) {
-      const [next] = await tx.select({ id: recipeVersions.id, number: recipeVersions.number, recipeId: recipeVersions.recipeId }).from(recipeVersions).where(eq(recipeVersions.id, input.versionId));
+      const [next] = await tx
+        .select({ id: recipeVersions.id, number: recipeVersions.number, recipeId: recipeVersions.recipeId })
+        .from(recipeVersions)
+        .where(eq(recipeVersions.id, input.versionId));
       if (!next || next.recipeId !== fork.id) {
-        throw new AppError('bad_request', 'proposal', `Choose a version of your fork “${fork.title}”.`, [{ path: 'versionId', message: `Not a version of “${fork.title}”.` }]);
+        throw new AppError('bad_request', 'proposal', `Choose a version of your fork “${fork.title}”.`, [
+          { path: 'versionId', message: `Not a version of “${fork.title}”.` },
+        ]);
       }
       const current = await versionDoc(tx, proposal.proposedVersionId);
       if (next.number <= current.number) {
-        throw new AppError('bad_request', 'proposal', `Choose a version newer than version ${current.number}, the one proposed now.`, [
-          { path: 'versionId', message: `Not newer than version ${current.number}.` },
-        ]);
+        throw new AppError(
+          'bad_request',
+          'proposal',
+          `Choose a version newer than version ${current.number}, the one proposed now.`,
+          [{ path: 'versionId', message: `Not newer than version ${current.number}.` }],
+        );
       }
       if (!forkVisibleToOwner(fork, source.ownerId)) throw forkNotVisibleError();
       proposedVersionId = next.id;
@@ -253,7 +303,8 @@ export async function updateProposal(viewer: Viewer, id: string, input: UpdatePr
 export async function withdrawProposal(viewer: Viewer, id: string): Promise<{ status: Proposal['status'] }> {
   return db.transaction(async (tx) => {
     const { proposal } = await loadProposal(tx, viewer, id, { lock: true });
-    if (proposal.proposerId !== viewer.id) throw new AppError('forbidden', 'proposal', 'Only the member who proposed this can withdraw it.');
+    if (proposal.proposerId !== viewer.id)
+      throw new AppError('forbidden', 'proposal', 'Only the member who proposed this can withdraw it.');
     refuseUnlessLive(proposal);
     await tx.update(proposals).set({ status: 'withdrawn', updatedAt: new Date() }).where(eq(proposals.id, proposal.id));
     return { status: 'withdrawn' as const };
@@ -261,14 +312,25 @@ export async function withdrawProposal(viewer: Viewer, id: string): Promise<{ st
 }
 
 /** The source's owner declines or asks for changes, with a comment the proposer is sent. */
-export async function decideProposal(viewer: Viewer, id: string, input: DecideProposalInput): Promise<{ status: Proposal['status'] }> {
+export async function decideProposal(
+  viewer: Viewer,
+  id: string,
+  input: DecideProposalInput,
+): Promise<{ status: Proposal['status'] }> {
   return db.transaction(async (tx) => {
     const { proposal, source } = await loadProposal(tx, viewer, id, { lock: true });
-    if (!isOwner(source, viewer)) throw new AppError('forbidden', 'proposal', `Only the owner of “${source.title}” can decide on this proposal.`);
+    if (!isOwner(source, viewer))
+      throw new AppError('forbidden', 'proposal', `Only the owner of “${source.title}” can decide on this proposal.`);
     refuseUnlessLive(proposal);
     await tx
       .update(proposals)
-      .set({ status: input.decision, decisionComment: input.comment, decidedById: viewer.id, decidedAt: new Date(), updatedAt: new Date() })
+      .set({
+        status: input.decision,
+        decisionComment: input.comment,
+        decidedById: viewer.id,
+        decidedAt: new Date(),
+        updatedAt: new Date(),
+      })
       .where(eq(proposals.id, proposal.id));
     await notify(tx, {
       userId: proposal.proposerId,
@@ -284,7 +346,12 @@ export async function decideProposal(viewer: Viewer, id: string, input: DecidePr
 
 function pickIssuesError(err: MergePickError): AppError {
   const fields = err.issues.map((i) => ({ path: `picks.${i.path}`, message: i.message }));
-  return new AppError('bad_request', 'proposal', `Please check your choices: ${err.issues.map((i) => i.message).join(' ')}`, fields);
+  return new AppError(
+    'bad_request',
+    'proposal',
+    `Please check your choices: ${err.issues.map((i) => i.message).join(' ')}`,
+    fields,
+  );
 }
 
 /**
@@ -294,17 +361,35 @@ function pickIssuesError(err: MergePickError): AppError {
  * against, and is refused with 409 if the head has moved since. The proposal row is locked, so a
  * second acceptance waits and is then told it was already accepted.
  */
-export async function acceptProposal(viewer: Viewer, id: string, input: AcceptProposalInput): Promise<{ recipe: { id: string; slug: string }; version: { id: string; number: number } }> {
+export async function acceptProposal(
+  viewer: Viewer,
+  id: string,
+  input: AcceptProposalInput,
+): Promise<{ recipe: { id: string; slug: string }; version: { id: string; number: number } }> {
   const saved = await db.transaction(async (tx) => {
     const { proposal, source, fork } = await loadProposal(tx, viewer, id, { lock: true });
-    if (!isOwner(source, viewer)) throw new AppError('forbidden', 'proposal', `Only the owner of “${source.title}” can accept this proposal.`);
+    if (!isOwner(source, viewer))
+      throw new AppError('forbidden', 'proposal', `Only the owner of “${source.title}” can accept this proposal.`);
     if (proposal.status === 'accepted') {
-      const [v] = proposal.acceptedVersionId ? await tx.select({ number: recipeVersions.number }).from(recipeVersions).where(eq(recipeVersions.id, proposal.acceptedVersionId)) : [];
-      throw new AppError('conflict', 'proposal', `This proposal was already accepted${v ? ` as version ${v.number}` : ''}. Nothing more was saved.`);
+      const [v] = proposal.acceptedVersionId
+        ? await tx
+            .select({ number: recipeVersions.number })
+            .from(recipeVersions)
+            .where(eq(recipeVersions.id, proposal.acceptedVersionId))
+        : [];
+      throw new AppError(
+        'conflict',
+        'proposal',
+        `This proposal was already accepted${v ? ` as version ${v.number}` : ''}. Nothing more was saved.`,
+      );
     }
     refuseUnlessLive(proposal);
     if (!forkVisibleToOwner(fork, source.ownerId)) throw forkNotVisibleError();
-    const [head] = await tx.select({ headVersionId: recipes.headVersionId }).from(recipes).where(eq(recipes.id, source.id)).for('update');
+    const [head] = await tx
+      .select({ headVersionId: recipes.headVersionId })
+      .from(recipes)
+      .where(eq(recipes.id, source.id))
+      .for('update');
     if (head.headVersionId !== input.sourceHeadVersionId) {
       const headVersion = await versionDoc(tx, head.headVersionId!);
       throw new AppError(
@@ -315,7 +400,11 @@ export async function acceptProposal(viewer: Viewer, id: string, input: AcceptPr
         { head: { id: headVersion.id, number: headVersion.number } },
       );
     }
-    const [base, ours, theirs] = await Promise.all([versionDoc(tx, proposal.baseVersionId), versionDoc(tx, head.headVersionId!), versionDoc(tx, proposal.proposedVersionId)]);
+    const [base, ours, theirs] = await Promise.all([
+      versionDoc(tx, proposal.baseVersionId),
+      versionDoc(tx, head.headVersionId!),
+      versionDoc(tx, proposal.proposedVersionId),
+    ]);
     let merged: RecipeDocument;
     try {
       merged = resolveMerge(mergeDocuments(base.document, ours.document, theirs.document), input.picks);
@@ -326,9 +415,17 @@ export async function acceptProposal(viewer: Viewer, id: string, input: AcceptPr
     const checked = recipeDocumentSchema.safeParse(merged);
     if (!checked.success) {
       const fields = formatIssues(checked.error).map((f) => ({ path: `document.${f.path}`, message: f.message }));
-      throw new AppError('bad_request', 'proposal', `The merged recipe would not be valid: ${fields[0].message}. Choose differently for the fields involved.`, fields);
+      throw new AppError(
+        'bad_request',
+        'proposal',
+        `The merged recipe would not be valid: ${fields[0].message}. Choose differently for the fields involved.`,
+        fields,
+      );
     }
-    const [proposer] = await tx.select({ name: users.name, handle: users.handle }).from(users).where(eq(users.id, proposal.proposerId));
+    const [proposer] = await tx
+      .select({ name: users.name, handle: users.handle })
+      .from(users)
+      .where(eq(users.id, proposal.proposerId));
     const result = await saveVersionInTransaction(tx, viewer, source.id, {
       document: checked.data,
       baseVersionId: input.sourceHeadVersionId,
@@ -337,7 +434,13 @@ export async function acceptProposal(viewer: Viewer, id: string, input: AcceptPr
     });
     await tx
       .update(proposals)
-      .set({ status: 'accepted', acceptedVersionId: result.version.id, decidedById: viewer.id, decidedAt: new Date(), updatedAt: new Date() })
+      .set({
+        status: 'accepted',
+        acceptedVersionId: result.version.id,
+        decidedById: viewer.id,
+        decidedAt: new Date(),
+        updatedAt: new Date(),
+      })
       .where(eq(proposals.id, proposal.id));
     await notify(tx, {
       userId: proposal.proposerId,
@@ -357,7 +460,10 @@ export async function acceptProposal(viewer: Viewer, id: string, input: AcceptPr
 export async function addProposalComment(viewer: Viewer, id: string, body: string): Promise<{ id: string }> {
   const { proposal } = await loadProposal(db, viewer, id);
   await consumeOrThrow(COMMENT_PER_MEMBER, viewer.id);
-  const [row] = await db.insert(proposalComments).values({ proposalId: proposal.id, authorId: viewer.id, body }).returning({ id: proposalComments.id });
+  const [row] = await db
+    .insert(proposalComments)
+    .values({ proposalId: proposal.id, authorId: viewer.id, body })
+    .returning({ id: proposalComments.id });
   return row;
 }
 
@@ -386,9 +492,19 @@ export interface ProposalSummary {
 
 const proposers = alias(users, 'proposer');
 
-async function summaries(viewer: MaybeViewer, where: ReturnType<typeof eq>, direction: (p: Proposal) => ProposalSummary['direction']): Promise<ProposalSummary[]> {
+async function summaries(
+  viewer: MaybeViewer,
+  where: ReturnType<typeof eq>,
+  direction: (p: Proposal) => ProposalSummary['direction'],
+): Promise<ProposalSummary[]> {
   const rows = await db
-    .select({ proposal: proposals, source: recipes, fork: forks, proposerName: proposers.name, proposerHandle: proposers.handle })
+    .select({
+      proposal: proposals,
+      source: recipes,
+      fork: forks,
+      proposerName: proposers.name,
+      proposerHandle: proposers.handle,
+    })
     .from(proposals)
     .innerJoin(recipes, eq(recipes.id, proposals.sourceRecipeId))
     .innerJoin(forks, eq(forks.id, proposals.forkRecipeId))
@@ -414,18 +530,29 @@ async function summaries(viewer: MaybeViewer, where: ReturnType<typeof eq>, dire
 }
 
 /** Proposals offered to a recipe and from it (as a fork), newest activity first. */
-export async function getProposalsByRecipeId({ viewer, recipeId }: { viewer: MaybeViewer; recipeId: string }): Promise<ProposalSummary[]> {
+export async function getProposalsByRecipeId({
+  viewer,
+  recipeId,
+}: {
+  viewer: MaybeViewer;
+  recipeId: string;
+}): Promise<ProposalSummary[]> {
   return summaries(viewer, or(eq(proposals.sourceRecipeId, recipeId), eq(proposals.forkRecipeId, recipeId))!, (p) =>
     p.sourceRecipeId === recipeId ? 'incoming' : 'outgoing',
   );
 }
 
 /** The signed-in member's proposals: offered to their recipes, and offered by them. */
-export async function getProposalsByMember(viewer: Viewer): Promise<{ incoming: ProposalSummary[]; outgoing: ProposalSummary[] }> {
+export async function getProposalsByMember(
+  viewer: Viewer,
+): Promise<{ incoming: ProposalSummary[]; outgoing: ProposalSummary[] }> {
   const rows = await summaries(viewer, or(eq(recipes.ownerId, viewer.id), eq(proposals.proposerId, viewer.id))!, (p) =>
     p.proposerId === viewer.id ? 'outgoing' : 'incoming',
   );
-  return { incoming: rows.filter((r) => r.direction === 'incoming'), outgoing: rows.filter((r) => r.direction === 'outgoing') };
+  return {
+    incoming: rows.filter((r) => r.direction === 'incoming'),
+    outgoing: rows.filter((r) => r.direction === 'outgoing'),
+  };
 }
 
 export interface ProposalCommentView {
@@ -437,7 +564,18 @@ export interface ProposalCommentView {
 }
 
 export interface ProposalView {
-  proposal: Pick<Proposal, 'id' | 'title' | 'description' | 'status' | 'decisionComment' | 'createdAt' | 'updatedAt' | 'decidedAt' | 'hiddenReason'> & { hidden: boolean };
+  proposal: Pick<
+    Proposal,
+    | 'id'
+    | 'title'
+    | 'description'
+    | 'status'
+    | 'decisionComment'
+    | 'createdAt'
+    | 'updatedAt'
+    | 'decidedAt'
+    | 'hiddenReason'
+  > & { hidden: boolean };
   proposer: { id: string; name: string; handle: string };
   source: { id: string; slug: string; title: string; ownerName: string; headVersionId: string; headNumber: number };
   fork: { id: string; slug: string; title: string; ownerName: string };
@@ -465,7 +603,10 @@ export interface ProposalView {
 export async function getProposalView(viewer: MaybeViewer, id: string): Promise<ProposalView> {
   const { proposal, source, fork } = await loadProposal(db, viewer, id);
   const [people, headDoc, baseDoc, proposedDoc] = await Promise.all([
-    db.select({ id: users.id, name: users.name, handle: users.handle }).from(users).where(inArray(users.id, [proposal.proposerId, source.ownerId, fork.ownerId])),
+    db
+      .select({ id: users.id, name: users.name, handle: users.handle })
+      .from(users)
+      .where(inArray(users.id, [proposal.proposerId, source.ownerId, fork.ownerId])),
     versionDoc(db, source.headVersionId!),
     versionDoc(db, proposal.baseVersionId),
     versionDoc(db, proposal.proposedVersionId),
@@ -485,18 +626,34 @@ export async function getProposalView(viewer: MaybeViewer, id: string): Promise<
   const compareFrom = live ? headDoc : baseDoc;
   if (forkVisible) {
     // The fork's own name is not part of the proposal: compare under the source's title.
-    comparison = compareDocuments(compareFrom.document, { ...proposedDoc.document, title: compareFrom.document.title }, compareFrom.stats, proposedDoc.stats);
-    if (live && headMoved) ({ conflicts, fromTheirs } = mergeDocuments(baseDoc.document, headDoc.document, proposedDoc.document));
+    comparison = compareDocuments(
+      compareFrom.document,
+      { ...proposedDoc.document, title: compareFrom.document.title },
+      compareFrom.stats,
+      proposedDoc.stats,
+    );
+    if (live && headMoved)
+      ({ conflicts, fromTheirs } = mergeDocuments(baseDoc.document, headDoc.document, proposedDoc.document));
   }
   const [commentRows, brewDays, newer, accepted] = await Promise.all([
     db
-      .select({ id: proposalComments.id, body: proposalComments.body, createdAt: proposalComments.createdAt, name: users.name, handle: users.handle })
+      .select({
+        id: proposalComments.id,
+        body: proposalComments.body,
+        createdAt: proposalComments.createdAt,
+        name: users.name,
+        handle: users.handle,
+      })
       .from(proposalComments)
       .innerJoin(users, eq(users.id, proposalComments.authorId))
       .where(eq(proposalComments.proposalId, proposal.id))
       .orderBy(asc(proposalComments.createdAt))
       .limit(500),
-    forkVisible ? getBrewDaysByRecipeId({ recipeId: fork.id, viewer }).then((days) => days.filter((d) => d.versionNumber === proposedDoc.number)) : Promise.resolve([]),
+    forkVisible
+      ? getBrewDaysByRecipeId({ recipeId: fork.id, viewer }).then((days) =>
+          days.filter((d) => d.versionNumber === proposedDoc.number),
+        )
+      : Promise.resolve([]),
     viewer?.id === proposal.proposerId && live
       ? db
           .select({ id: recipeVersions.id, number: recipeVersions.number, message: recipeVersions.message })
@@ -504,11 +661,20 @@ export async function getProposalView(viewer: MaybeViewer, id: string): Promise<
           .where(and(eq(recipeVersions.recipeId, fork.id), sql`${recipeVersions.number} > ${proposedDoc.number}`))
           .orderBy(desc(recipeVersions.number))
       : Promise.resolve([]),
-    proposal.acceptedVersionId ? db.select({ number: recipeVersions.number }).from(recipeVersions).where(eq(recipeVersions.id, proposal.acceptedVersionId)) : Promise.resolve([]),
+    proposal.acceptedVersionId
+      ? db
+          .select({ number: recipeVersions.number })
+          .from(recipeVersions)
+          .where(eq(recipeVersions.id, proposal.acceptedVersionId))
+      : Promise.resolve([]),
   ]);
   const owner = isOwner(source, viewer);
   const proposer = viewer?.id === proposal.proposerId;
-  const blocked = !live ? null : !ownerCanSeeFork ? 'The proposed version is no longer visible: its fork was made private or hidden by the moderators, so it cannot be accepted.' : null;
+  const blocked = !live
+    ? null
+    : !ownerCanSeeFork
+      ? 'The proposed version is no longer visible: its fork was made private or hidden by the moderators, so it cannot be accepted.'
+      : null;
   return {
     proposal: {
       id: proposal.id,
@@ -523,7 +689,14 @@ export async function getProposalView(viewer: MaybeViewer, id: string): Promise<
       hiddenReason: proposal.hiddenAt ? proposal.hiddenReason : null,
     },
     proposer: person(proposal.proposerId),
-    source: { id: source.id, slug: source.slug, title: source.title, ownerName: person(source.ownerId).name, headVersionId: source.headVersionId!, headNumber: source.headNumber },
+    source: {
+      id: source.id,
+      slug: source.slug,
+      title: source.title,
+      ownerName: person(source.ownerId).name,
+      headVersionId: source.headVersionId!,
+      headNumber: source.headNumber,
+    },
     fork: { id: fork.id, slug: fork.slug, title: fork.title, ownerName: person(fork.ownerId).name },
     base: { id: baseDoc.id, number: baseDoc.number },
     proposed: forkVisible ? { id: proposedDoc.id, number: proposedDoc.number, message: proposedDoc.message } : null,
@@ -534,7 +707,13 @@ export async function getProposalView(viewer: MaybeViewer, id: string): Promise<
     conflicts,
     fromTheirs,
     brewDays,
-    comments: commentRows.map((c) => ({ id: c.id, body: c.body, createdAt: c.createdAt, authorName: c.name ?? c.handle, authorHandle: c.handle })),
+    comments: commentRows.map((c) => ({
+      id: c.id,
+      body: c.body,
+      createdAt: c.createdAt,
+      authorName: c.name ?? c.handle,
+      authorHandle: c.handle,
+    })),
     newerVersions: newer,
     can: {
       accept: owner && live && !blocked && !proposal.hiddenAt,
@@ -553,4 +732,3 @@ function isUniqueViolation(err: unknown): boolean {
   const e = err as { code?: string; cause?: { code?: string } };
   return e.code === '23505' || e.cause?.code === '23505';
 }
-

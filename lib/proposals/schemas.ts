@@ -41,10 +41,17 @@ export const acceptProposalSchema = z.object({
   sourceHeadVersionId: z.uuid({ error: 'Name the version of your recipe you reviewed against.' }),
   /** One choice per conflicting field: keep the recipe's own value (`ours`) or the proposal's (`theirs`). */
   picks: z
-    .record(z.string().max(300, 'That is not a field of the recipe.'), z.enum(['ours', 'theirs'], { error: 'Choose “ours” or “theirs”.' }))
+    .record(
+      z.string().max(300, 'That is not a field of the recipe.'),
+      z.enum(['ours', 'theirs'], { error: 'Choose “ours” or “theirs”.' }),
+    )
     .refine((p) => Object.keys(p).length <= 500, 'Too many choices.')
     .default({}),
-  message: z.string({ error: 'The message must be text.' }).trim().max(500, 'Keep the message under 500 characters.').default(''),
+  message: z
+    .string({ error: 'The message must be text.' })
+    .trim()
+    .max(500, 'Keep the message under 500 characters.')
+    .default(''),
 });
 export type AcceptProposalInput = z.infer<typeof acceptProposalSchema>;
 

@@ -20,7 +20,8 @@ export interface ItemComparison {
 }
 
 export interface SectionComparison {
-  section: 'settings' | 'fermentables' | 'hops' | 'yeasts' | 'mash' | 'fermentation' | 'water' | 'salts' | 'carbonation';
+  section:
+    'settings' | 'fermentables' | 'hops' | 'yeasts' | 'mash' | 'fermentation' | 'water' | 'salts' | 'carbonation';
   items: ItemComparison[];
 }
 
@@ -55,7 +56,11 @@ function flat(value: object | undefined | null): Record<string, Scalar> | null {
   return out;
 }
 
-function compareItem(label: string, before: Record<string, Scalar> | null, after: Record<string, Scalar> | null): ItemComparison {
+function compareItem(
+  label: string,
+  before: Record<string, Scalar> | null,
+  after: Record<string, Scalar> | null,
+): ItemComparison {
   if (!before) return { label, status: 'added', before, after, changes: [] };
   if (!after) return { label, status: 'removed', before, after, changes: [] };
   const changes: FieldChange[] = [];
@@ -71,7 +76,12 @@ function compareItem(label: string, before: Record<string, Scalar> | null, after
  * Pairs list entries by a key (an ingredient's name and role); entries with the same key pair in
  * order, so two Cascade boil additions pair first with first.
  */
-function pairByKey<T extends object>(before: readonly T[], after: readonly T[], key: (item: T) => string, label: (item: T) => string): ItemComparison[] {
+function pairByKey<T extends object>(
+  before: readonly T[],
+  after: readonly T[],
+  key: (item: T) => string,
+  label: (item: T) => string,
+): ItemComparison[] {
   const remaining = new Map<string, T[]>();
   for (const item of after) {
     const k = key(item);
@@ -87,9 +97,14 @@ function pairByKey<T extends object>(before: readonly T[], after: readonly T[], 
   return items;
 }
 
-function pairByIndex<T extends object>(before: readonly T[], after: readonly T[], label: (i: number) => string): ItemComparison[] {
+function pairByIndex<T extends object>(
+  before: readonly T[],
+  after: readonly T[],
+  label: (i: number) => string,
+): ItemComparison[] {
   const items: ItemComparison[] = [];
-  for (let i = 0; i < Math.max(before.length, after.length); i++) items.push(compareItem(label(i), flat(before[i]), flat(after[i])));
+  for (let i = 0; i < Math.max(before.length, after.length); i++)
+    items.push(compareItem(label(i), flat(before[i]), flat(after[i])));
   return items;
 }
 
@@ -98,9 +113,19 @@ const nameKey = (item: { name: string }) => item.name.trim().toLowerCase();
 const STAT_KEYS = ['og', 'fg', 'abv', 'ibu', 'srm', 'ebc', 'buGu', 'caloriesPer355mL', 'attenuationPct'] as const;
 
 function statDeltas(a: RecipeStats, b: RecipeStats): StatDelta[] {
-  const rows: StatDelta[] = STAT_KEYS.map((stat) => ({ stat, before: a[stat], after: b[stat], delta: b[stat] - a[stat] }));
+  const rows: StatDelta[] = STAT_KEYS.map((stat) => ({
+    stat,
+    before: a[stat],
+    after: b[stat],
+    delta: b[stat] - a[stat],
+  }));
   const pair = (stat: string, before: number | undefined, after: number | undefined) =>
-    rows.push({ stat, before: before ?? null, after: after ?? null, delta: before !== undefined && after !== undefined ? after - before : null });
+    rows.push({
+      stat,
+      before: before ?? null,
+      after: after ?? null,
+      delta: before !== undefined && after !== undefined ? after - before : null,
+    });
   pair('sulfateToChloride', a.water?.sulfateToChloride, b.water?.sulfateToChloride);
   pair('residualAlkalinity', a.water?.residualAlkalinity, b.water?.residualAlkalinity);
   pair('kegPressureKPa', a.carbonation?.kegPressureKPa, b.carbonation?.kegPressureKPa);
@@ -108,7 +133,12 @@ function statDeltas(a: RecipeStats, b: RecipeStats): StatDelta[] {
 }
 
 /** A structured comparison of two recipe documents and their numbers (pure; no I/O). */
-export function compareDocuments(a: RecipeDocument, b: RecipeDocument, statsA: RecipeStats, statsB: RecipeStats): DocumentComparison {
+export function compareDocuments(
+  a: RecipeDocument,
+  b: RecipeDocument,
+  statsA: RecipeStats,
+  statsB: RecipeStats,
+): DocumentComparison {
   const settingsA = { title: a.title, style: a.style ? `${a.style.code} ${a.style.name}` : null, ...a.batch };
   const settingsB = { title: b.title, style: b.style ? `${b.style.code} ${b.style.name}` : null, ...b.batch };
   const sections: SectionComparison[] = [
@@ -116,19 +146,52 @@ export function compareDocuments(a: RecipeDocument, b: RecipeDocument, statsA: R
     { section: 'fermentables', items: pairByKey(a.fermentables, b.fermentables, nameKey, (f) => f.name) },
     {
       section: 'hops',
-      items: pairByKey(a.hops, b.hops, (h) => `${nameKey(h)}|${h.use}`, (h) => `${h.name} (${h.use.replace('_', ' ')})`),
+      items: pairByKey(
+        a.hops,
+        b.hops,
+        (h) => `${nameKey(h)}|${h.use}`,
+        (h) => `${h.name} (${h.use.replace('_', ' ')})`,
+      ),
     },
     { section: 'yeasts', items: pairByKey(a.yeasts, b.yeasts, nameKey, (y) => y.name) },
     { section: 'mash', items: pairByIndex(a.mash.steps, b.mash.steps, (i) => `Mash step ${i + 1}`) },
-    { section: 'fermentation', items: pairByIndex(a.fermentation.steps, b.fermentation.steps, (i) => `Fermentation step ${i + 1}`) },
+    {
+      section: 'fermentation',
+      items: pairByIndex(a.fermentation.steps, b.fermentation.steps, (i) => `Fermentation step ${i + 1}`),
+    },
     {
       section: 'water',
-      items: a.water || b.water ? [compareItem('Source water', flat(a.water && { volumeL: a.water.volumeL, ...a.water.source }), flat(b.water && { volumeL: b.water.volumeL, ...b.water.source }))] : [],
+      items:
+        a.water || b.water
+          ? [
+              compareItem(
+                'Source water',
+                flat(a.water && { volumeL: a.water.volumeL, ...a.water.source }),
+                flat(b.water && { volumeL: b.water.volumeL, ...b.water.source }),
+              ),
+            ]
+          : [],
     },
-    { section: 'salts', items: pairByKey(a.water?.salts ?? [], b.water?.salts ?? [], (s) => s.salt, (s) => s.salt.replace('_', ' ')) },
-    { section: 'carbonation', items: a.carbonation || b.carbonation ? [compareItem('Carbonation', flat(a.carbonation), flat(b.carbonation))] : [] },
+    {
+      section: 'salts',
+      items: pairByKey(
+        a.water?.salts ?? [],
+        b.water?.salts ?? [],
+        (s) => s.salt,
+        (s) => s.salt.replace('_', ' '),
+      ),
+    },
+    {
+      section: 'carbonation',
+      items:
+        a.carbonation || b.carbonation ? [compareItem('Carbonation', flat(a.carbonation), flat(b.carbonation))] : [],
+    },
   ];
-  const notes = diffWords(a.notes ?? '', b.notes ?? '').map((p) => ({ value: p.value, added: Boolean(p.added), removed: Boolean(p.removed) }));
+  const notes = diffWords(a.notes ?? '', b.notes ?? '').map((p) => ({
+    value: p.value,
+    added: Boolean(p.added),
+    removed: Boolean(p.removed),
+  }));
   const changeCount = sections.reduce((n, s) => n + s.items.filter((i) => i.status !== 'same').length, 0);
   return { sections, stats: statDeltas(statsA, statsB), notes, changeCount };
 }

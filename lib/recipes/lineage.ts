@@ -42,7 +42,10 @@ type Row = {
  * each with its versions (recursive queries over fork links). Recipes the viewer may not see are
  * left out, except hidden ones, which stay as placeholders so the tree keeps its shape.
  */
-export async function getLineageByRecipeId(viewer: Pick<Viewer, 'id' | 'role'> | null, { recipeId }: { recipeId: string }): Promise<LineageRecipe[]> {
+export async function getLineageByRecipeId(
+  viewer: Pick<Viewer, 'id' | 'role'> | null,
+  { recipeId }: { recipeId: string },
+): Promise<LineageRecipe[]> {
   await getRecipe(viewer, { id: recipeId });
   const result = await db.execute<Row>(sql`
     with recursive ancestors(id, forked_from_version_id, hops) as (
@@ -77,11 +80,34 @@ export async function getLineageByRecipeId(viewer: Pick<Viewer, 'id' | 'role'> |
   const out: LineageRecipe[] = [];
   for (const r of result.rows) {
     const gate = { ownerId: r.owner_id, visibility: r.visibility, hiddenAt: r.hidden_at };
-    const visible = canView(gate, viewer) && (isListed(gate) || r.id === recipeId || viewer?.id === r.owner_id || (viewer !== null && viewer.role !== 'member'));
+    const visible =
+      canView(gate, viewer) &&
+      (isListed(gate) ||
+        r.id === recipeId ||
+        viewer?.id === r.owner_id ||
+        (viewer !== null && viewer.role !== 'member'));
     if (visible) {
-      out.push({ id: r.id, slug: r.slug, title: r.title, ownerName: r.owner_name, forkedFromVersionId: r.forked_from_version_id, depth: r.depth, hidden: Boolean(r.hidden_at), versions: r.versions });
+      out.push({
+        id: r.id,
+        slug: r.slug,
+        title: r.title,
+        ownerName: r.owner_name,
+        forkedFromVersionId: r.forked_from_version_id,
+        depth: r.depth,
+        hidden: Boolean(r.hidden_at),
+        versions: r.versions,
+      });
     } else if (r.hidden_at && r.visibility === 'public') {
-      out.push({ id: r.id, slug: null, title: 'Hidden recipe', ownerName: '', forkedFromVersionId: r.forked_from_version_id, depth: r.depth, hidden: true, versions: r.versions.map((v) => ({ ...v, message: '' })) });
+      out.push({
+        id: r.id,
+        slug: null,
+        title: 'Hidden recipe',
+        ownerName: '',
+        forkedFromVersionId: r.forked_from_version_id,
+        depth: r.depth,
+        hidden: true,
+        versions: r.versions.map((v) => ({ ...v, message: '' })),
+      });
     }
   }
   return out;

@@ -33,9 +33,14 @@ const PAGE_SIZE = 24;
  * Recipe cards, newest first. Others' recipes appear only when public and not hidden; an owner
  * listing their own sees all of theirs.
  */
-export async function listRecipes(viewer: Pick<Viewer, 'id'> | null, opts: { ownerHandle?: string; page?: number } = {}): Promise<{ cards: RecipeCard[]; hasMore: boolean }> {
+export async function listRecipes(
+  viewer: Pick<Viewer, 'id'> | null,
+  opts: { ownerHandle?: string; page?: number } = {},
+): Promise<{ cards: RecipeCard[]; hasMore: boolean }> {
   const page = opts.page ?? 1;
-  const owner = opts.ownerHandle ? await db.select({ id: users.id }).from(users).where(eq(users.handle, opts.ownerHandle)) : [];
+  const owner = opts.ownerHandle
+    ? await db.select({ id: users.id }).from(users).where(eq(users.handle, opts.ownerHandle))
+    : [];
   if (opts.ownerHandle && !owner.length) return { cards: [], hasMore: false };
   const ownListing = Boolean(viewer && owner[0]?.id === viewer.id);
   const conditions = [
@@ -70,7 +75,13 @@ export async function listRecipes(viewer: Pick<Viewer, 'id'> | null, opts: { own
     .orderBy(desc(recipes.updatedAt))
     .limit(PAGE_SIZE + 1)
     .offset((page - 1) * PAGE_SIZE);
-  const cards = rows.slice(0, PAGE_SIZE).map(({ hiddenAt, ownerName, ...r }) => ({ ...r, ownerName: ownerName ?? r.ownerHandle, hidden: Boolean(hiddenAt) }));
+  const cards = rows
+    .slice(0, PAGE_SIZE)
+    .map(({ hiddenAt, ownerName, ...r }) => ({
+      ...r,
+      ownerName: ownerName ?? r.ownerHandle,
+      hidden: Boolean(hiddenAt),
+    }));
   return { cards, hasMore: rows.length > PAGE_SIZE };
 }
 
@@ -81,7 +92,15 @@ export interface VersionComparison {
 }
 
 /** Any two versions the viewer can see, of one recipe or across forks. */
-export async function compareVersions(viewer: Pick<Viewer, 'id' | 'role'> | null, aId: string, bId: string): Promise<VersionComparison> {
+export async function compareVersions(
+  viewer: Pick<Viewer, 'id' | 'role'> | null,
+  aId: string,
+  bId: string,
+): Promise<VersionComparison> {
   const [a, b] = await Promise.all([getVersionById(viewer, aId), getVersionById(viewer, bId)]);
-  return { a, b, comparison: compareDocuments(a.version.document, b.version.document, a.version.stats, b.version.stats) };
+  return {
+    a,
+    b,
+    comparison: compareDocuments(a.version.document, b.version.document, a.version.stats, b.version.stats),
+  };
 }

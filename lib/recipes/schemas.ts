@@ -34,7 +34,11 @@ export const restoreVersionSchema = z.object({
 });
 
 export const forkSchema = z.object({
-  title: z.string({ error: 'Give your fork a title.' }).trim().min(1, 'Give your fork a title.').max(120, 'Keep the title under 120 characters.'),
+  title: z
+    .string({ error: 'Give your fork a title.' })
+    .trim()
+    .min(1, 'Give your fork a title.')
+    .max(120, 'Keep the title under 120 characters.'),
   visibility: visibilitySchema.default('public'),
 });
 export type ForkInput = z.input<typeof forkSchema>;
@@ -50,5 +54,10 @@ export const compareQuerySchema = z.object({
 
 export const listRecipesQuerySchema = z.object({
   owner: z.string().trim().max(40, 'Owner handle is too long.').optional(),
-  page: z.coerce.number({ error: 'Page must be a whole number.' }).int('Page must be a whole number.').min(1, 'Page starts at 1.').max(1000, 'Page must be at most 1000.').default(1),
+  page: z.coerce
+    .number({ error: 'Page must be a whole number.' })
+    .int('Page must be a whole number.')
+    .min(1, 'Page starts at 1.')
+    .max(1000, 'Page must be at most 1000.')
+    .default(1),
 });

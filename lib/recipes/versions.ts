@@ -3,7 +3,13 @@ import { and, desc, eq, sql } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 import { db, type Transaction } from '@/db';
 import { recipeVersions, recipes, users, type Recipe, type RecipeVersion } from '@/db/schema';
-import { computeStats, ENGINE_VERSION, recipeDocumentSchema, type RecipeDocument, type RecipeStats } from '@/lib/brewing';
+import {
+  computeStats,
+  ENGINE_VERSION,
+  recipeDocumentSchema,
+  type RecipeDocument,
+  type RecipeStats,
+} from '@/lib/brewing';
 import type { Viewer } from '@/lib/auth/session';
 import { AppError } from '@/lib/errors';
 import { notifyRecipeCreated } from '@/lib/notifications/recipe-events';
@@ -22,7 +28,14 @@ type VersionRow = typeof recipeVersions.$inferInsert;
 /** The row for a new version: the document with its freshly computed numbers. */
 function versionRow(
   doc: RecipeDocument,
-  fields: { recipeId: string; number: number; parentVersionId: string | null; authorId: string; message: string; coAuthorId?: string | null },
+  fields: {
+    recipeId: string;
+    number: number;
+    parentVersionId: string | null;
+    authorId: string;
+    message: string;
+    coAuthorId?: string | null;
+  },
 ): VersionRow {
   const stats = computeStats(doc);
   return {
@@ -41,7 +54,13 @@ function versionRow(
 
 async function insertRecipeWithFirstVersion(
   tx: Transaction,
-  opts: { ownerId: string; doc: RecipeDocument; visibility: Visibility; message: string; forkedFromVersionId: string | null },
+  opts: {
+    ownerId: string;
+    doc: RecipeDocument;
+    visibility: Visibility;
+    message: string;
+    forkedFromVersionId: string | null;
+  },
 ): Promise<SavedVersion> {
   const [recipe] = await tx
     .insert(recipes)
@@ -67,7 +86,12 @@ async function insertRecipeWithFirstVersion(
     .returning({ id: recipeVersions.id, number: recipeVersions.number });
   await tx.update(recipes).set({ headVersionId: version.id, headNumber: 1 }).where(eq(recipes.id, recipe.id));
   await recordRecipeChange(tx, recipe.id);
-  await notifyRecipeCreated(tx, { ...recipe, ownerId: opts.ownerId, visibility: opts.visibility, forkedFromVersionId: opts.forkedFromVersionId });
+  await notifyRecipeCreated(tx, {
+    ...recipe,
+    ownerId: opts.ownerId,
+    visibility: opts.visibility,
+    forkedFromVersionId: opts.forkedFromVersionId,
+  });
   return { recipe, version };
 }
 
@@ -138,7 +162,12 @@ export async function saveVersionInTransaction(
 ): Promise<SavedVersion> {
   const [recipe] = await tx.select().from(recipes).where(eq(recipes.id, recipeId)).for('update');
   if (!recipe || !canView(recipe, viewer)) throw new AppError('not_found', 'recipe');
-  if (!isOwner(recipe, viewer)) throw new AppError('forbidden', 'recipe', 'Only the owner can save versions of this recipe. Fork it to make your own.');
+  if (!isOwner(recipe, viewer))
+    throw new AppError(
+      'forbidden',
+      'recipe',
+      'Only the owner can save versions of this recipe. Fork it to make your own.',
+    );
   if (recipe.headVersionId !== input.baseVersionId) {
     const head = await headSummary(tx, recipe.headVersionId!);
     throw new AppError(
@@ -228,7 +257,11 @@ async function loadVersionView(viewer: Pick<Viewer, 'id' | 'role'> | null, key: 
 }
 
 /** loadVersionView's query, with the recipe's activity flags selected when asked for (all false otherwise). */
-async function loadVersionRow(viewer: Pick<Viewer, 'id' | 'role'> | null, key: VersionKey, withActivity: boolean): Promise<{ view: VersionView; activity: RecipeActivity }> {
+async function loadVersionRow(
+  viewer: Pick<Viewer, 'id' | 'role'> | null,
+  key: VersionKey,
+  withActivity: boolean,
+): Promise<{ view: VersionView; activity: RecipeActivity }> {
   const [row] = await db
     .select({
       version: recipeVersions,
@@ -257,7 +290,14 @@ async function loadVersionRow(viewer: Pick<Viewer, 'id' | 'role'> | null, key: V
     },
   };
   const flags = row as Partial<RecipeActivity>;
-  return { view, activity: { brewDays: Boolean(flags.brewDays), proposals: Boolean(flags.proposals), comments: Boolean(flags.comments) } };
+  return {
+    view,
+    activity: {
+      brewDays: Boolean(flags.brewDays),
+      proposals: Boolean(flags.proposals),
+      comments: Boolean(flags.comments),
+    },
+  };
 }
 
 /** One version and its recipe, if the viewer may see it (404 otherwise, never a hint that it exists). */
@@ -265,17 +305,29 @@ export function getVersionById(viewer: Pick<Viewer, 'id' | 'role'> | null, versi
   return loadVersionView(viewer, { versionId });
 }
 
-export function getVersionByNumber(viewer: Pick<Viewer, 'id' | 'role'> | null, recipeId: string, number: number): Promise<VersionView> {
+export function getVersionByNumber(
+  viewer: Pick<Viewer, 'id' | 'role'> | null,
+  recipeId: string,
+  number: number,
+): Promise<VersionView> {
   return loadVersionView(viewer, { recipeId, number });
 }
 
 /** A recipe's version by the recipe's slug: the head when no number is given. */
-export function getVersionBySlug(viewer: Pick<Viewer, 'id' | 'role'> | null, slug: string, number?: number): Promise<VersionView> {
+export function getVersionBySlug(
+  viewer: Pick<Viewer, 'id' | 'role'> | null,
+  slug: string,
+  number?: number,
+): Promise<VersionView> {
   return loadVersionView(viewer, { slug, number });
 }
 
 /** As getVersionBySlug, in the same single query, plus whether the recipe has any brew days, proposals or comments. */
-export async function getVersionWithActivityBySlug(viewer: Pick<Viewer, 'id' | 'role'> | null, slug: string, number?: number): Promise<VersionView & { activity: RecipeActivity }> {
+export async function getVersionWithActivityBySlug(
+  viewer: Pick<Viewer, 'id' | 'role'> | null,
+  slug: string,
+  number?: number,
+): Promise<VersionView & { activity: RecipeActivity }> {
   const { view, activity } = await loadVersionRow(viewer, { slug, number }, true);
   return { ...view, activity };
 }
@@ -288,19 +340,42 @@ export interface ForkSource {
 }
 
 /** Where a fork came from, in one light query; a source the viewer may not see is named only vaguely. */
-export async function getForkSource(viewer: Pick<Viewer, 'id' | 'role'> | null, versionId: string): Promise<ForkSource> {
+export async function getForkSource(
+  viewer: Pick<Viewer, 'id' | 'role'> | null,
+  versionId: string,
+): Promise<ForkSource> {
   const [row] = await db
-    .select({ recipe: { ownerId: recipes.ownerId, visibility: recipes.visibility, hiddenAt: recipes.hiddenAt, slug: recipes.slug, title: recipes.title }, number: recipeVersions.number, ownerName: users.name, ownerHandle: users.handle })
+    .select({
+      recipe: {
+        ownerId: recipes.ownerId,
+        visibility: recipes.visibility,
+        hiddenAt: recipes.hiddenAt,
+        slug: recipes.slug,
+        title: recipes.title,
+      },
+      number: recipeVersions.number,
+      ownerName: users.name,
+      ownerHandle: users.handle,
+    })
     .from(recipeVersions)
     .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
     .innerJoin(users, eq(users.id, recipes.ownerId))
     .where(eq(recipeVersions.id, versionId));
-  if (!row || !canView(row.recipe, viewer)) return { title: 'a recipe you cannot see', slug: null, number: null, ownerName: null };
-  return { title: row.recipe.title, slug: row.recipe.slug, number: row.number, ownerName: row.ownerName ?? row.ownerHandle };
+  if (!row || !canView(row.recipe, viewer))
+    return { title: 'a recipe you cannot see', slug: null, number: null, ownerName: null };
+  return {
+    title: row.recipe.title,
+    slug: row.recipe.slug,
+    number: row.number,
+    ownerName: row.ownerName ?? row.ownerHandle,
+  };
 }
 
 /** A recipe by slug or id, if the viewer may see it. */
-export async function getRecipe(viewer: Pick<Viewer, 'id' | 'role'> | null, key: { slug?: string; id?: string }): Promise<Recipe> {
+export async function getRecipe(
+  viewer: Pick<Viewer, 'id' | 'role'> | null,
+  key: { slug?: string; id?: string },
+): Promise<Recipe> {
   const where = key.id ? eq(recipes.id, key.id) : eq(recipes.slug, key.slug ?? '');
   if (key.id && !/^[0-9a-f-]{36}$/i.test(key.id)) throw new AppError('not_found', 'recipe');
   const [recipe] = await db.select().from(recipes).where(where);
@@ -325,7 +400,9 @@ export interface HistoryEntry {
 
 /** Every version of a recipe, newest first, with the numbers the timeline shows. */
 export async function getVersionsByRecipeId({ recipeId }: { recipeId: string }): Promise<HistoryEntry[]> {
-  const coAuthor = sql<string | null>`(select coalesce(name, handle) from users c where c.id = ${recipeVersions.coAuthorId})`;
+  const coAuthor = sql<
+    string | null
+  >`(select coalesce(name, handle) from users c where c.id = ${recipeVersions.coAuthorId})`;
   const rows = await db
     .select({
       id: recipeVersions.id,
@@ -349,7 +426,11 @@ export async function getVersionsByRecipeId({ recipeId }: { recipeId: string }):
 }
 
 /** Forks a version the viewer can see into a new recipe of theirs, remembering the exact source version. */
-export async function forkRecipe(viewer: Viewer, versionId: string, input: { title: string; visibility: Visibility }): Promise<SavedVersion> {
+export async function forkRecipe(
+  viewer: Viewer,
+  versionId: string,
+  input: { title: string; visibility: Visibility },
+): Promise<SavedVersion> {
   const source = await getVersionById(viewer, versionId);
   const document = recipeDocumentSchema.parse({ ...source.version.document, title: input.title });
   const saved = await db.transaction(async (tx) => {
@@ -374,7 +455,8 @@ export async function forkRecipe(viewer: Viewer, versionId: string, input: { tit
 /** The owner changes who can see a recipe. */
 export async function setVisibility(viewer: Viewer, recipeId: string, visibility: Visibility): Promise<void> {
   const recipe = await getRecipe(viewer, { id: recipeId });
-  if (!isOwner(recipe, viewer)) throw new AppError('forbidden', 'recipe', 'Only the owner can change who sees this recipe.');
+  if (!isOwner(recipe, viewer))
+    throw new AppError('forbidden', 'recipe', 'Only the owner can change who sees this recipe.');
   await db.transaction(async (tx) => {
     await tx.update(recipes).set({ visibility, updatedAt: new Date() }).where(eq(recipes.id, recipeId));
     await recordRecipeChange(tx, recipeId);

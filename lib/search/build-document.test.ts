@@ -26,7 +26,10 @@ function row(overrides: Partial<RecipeIndexRow> = {}): RecipeIndexRow {
       style: { code: '18B', name: 'American Pale Ale' },
       fermentables: [{ name: 'Pale ale malt, 2-row' }, { name: 'Munich malt' }, { name: ' Munich malt ' }],
       hops: [{ name: 'Magnum' }, { name: 'Cascade' }, { name: 'Centennial' }, { name: 'cascade' }],
-      yeasts: [{ name: 'Clean ale yeast', kind: 'ale' }, { name: 'Second ale yeast', kind: 'ale' }],
+      yeasts: [
+        { name: 'Clean ale yeast', kind: 'ale' },
+        { name: 'Second ale yeast', kind: 'ale' },
+      ],
       notes: 'Dry hop on day 4.',
     },
     ...overrides,
@@ -84,8 +87,14 @@ describe('toSearchDocument', () => {
   });
 
   it('indexes a recipe without a style or with an unknown code, leaving the category empty', () => {
-    expect(toSearchDocument(row({ styleCode: null, document: {} }))).toMatchObject({ styleCode: '', styleName: '', styleCategory: '' });
-    expect(toSearchDocument(row({ styleCode: 'X9', document: { style: { code: 'X9', name: 'House special' } } }))).toMatchObject({
+    expect(toSearchDocument(row({ styleCode: null, document: {} }))).toMatchObject({
+      styleCode: '',
+      styleName: '',
+      styleCategory: '',
+    });
+    expect(
+      toSearchDocument(row({ styleCode: 'X9', document: { style: { code: 'X9', name: 'House special' } } })),
+    ).toMatchObject({
       styleCode: 'X9',
       styleName: 'House special',
       styleCategory: '',
@@ -93,7 +102,15 @@ describe('toSearchDocument', () => {
   });
 
   it('tolerates missing or malformed ingredient lists and caps long notes', () => {
-    const doc = toSearchDocument(row({ document: { hops: 'none', fermentables: [null, { name: 7 }, { name: 'Pilsner malt' }], notes: 'x'.repeat(9_000) } }));
+    const doc = toSearchDocument(
+      row({
+        document: {
+          hops: 'none',
+          fermentables: [null, { name: 7 }, { name: 'Pilsner malt' }],
+          notes: 'x'.repeat(9_000),
+        },
+      }),
+    );
     expect(doc.hops).toEqual([]);
     expect(doc.fermentables).toEqual(['Pilsner malt']);
     expect(doc.yeasts).toEqual([]);

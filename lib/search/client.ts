@@ -2,7 +2,14 @@
 import 'server-only';
 import { Meilisearch, type EnqueuedTask, type SearchParams, type Task } from 'meilisearch';
 import { env } from '../env';
-import { FACET_ATTRIBUTES, RECIPE_INDEX_SETTINGS, RECIPES_INDEX, RECIPES_PRIMARY_KEY, type RecipeFacet, type RecipeSearchDocument } from './document';
+import {
+  FACET_ATTRIBUTES,
+  RECIPE_INDEX_SETTINGS,
+  RECIPES_INDEX,
+  RECIPES_PRIMARY_KEY,
+  type RecipeFacet,
+  type RecipeSearchDocument,
+} from './document';
 import { buildRecipeFilter, sortFor, type SearchViewer } from './filters';
 import { SEARCH_PAGE_SIZE, type RecipeSearchQuery } from './schemas';
 
@@ -36,7 +43,8 @@ function assertSucceeded(task: Task): Task {
 /** Creates the recipes index if missing and applies its settings; returns how many documents it holds. */
 export async function ensureRecipeIndex(client: Meilisearch = getSearchClient()): Promise<{ documentCount: number }> {
   const created = await client.createIndex(RECIPES_INDEX, { primaryKey: RECIPES_PRIMARY_KEY }).waitTask(WRITE_WAIT);
-  if (created.status !== 'succeeded' && created.error?.code !== 'index_already_exists') throw new SearchTaskError(created);
+  if (created.status !== 'succeeded' && created.error?.code !== 'index_already_exists')
+    throw new SearchTaskError(created);
   const index = client.index(RECIPES_INDEX);
   assertSucceeded(await index.updateSettings(RECIPE_INDEX_SETTINGS).waitTask(WRITE_WAIT));
   const stats = await index.getStats();
@@ -46,7 +54,10 @@ export async function ensureRecipeIndex(client: Meilisearch = getSearchClient())
 const UPSERT_BATCH_SIZE = 1_000;
 
 /** Adds or replaces recipes; resolves once the index holds them, so the next search sees them. */
-export async function upsertRecipeDocuments(docs: RecipeSearchDocument[], client: Meilisearch = getSearchClient()): Promise<void> {
+export async function upsertRecipeDocuments(
+  docs: RecipeSearchDocument[],
+  client: Meilisearch = getSearchClient(),
+): Promise<void> {
   const index = client.index<RecipeSearchDocument>(RECIPES_INDEX);
   for (let start = 0; start < docs.length; start += UPSERT_BATCH_SIZE) {
     const batch = docs.slice(start, start + UPSERT_BATCH_SIZE);
@@ -59,12 +70,18 @@ export async function upsertRecipeDocuments(docs: RecipeSearchDocument[], client
  * engine works through queued batches while the next one is read. Hand every task to
  * `waitForRecipeTasks` before relying on the documents.
  */
-export async function enqueueRecipeDocuments(docs: RecipeSearchDocument[], client: Meilisearch = getSearchClient()): Promise<EnqueuedTask> {
+export async function enqueueRecipeDocuments(
+  docs: RecipeSearchDocument[],
+  client: Meilisearch = getSearchClient(),
+): Promise<EnqueuedTask> {
   return client.index<RecipeSearchDocument>(RECIPES_INDEX).addDocuments(docs, { primaryKey: RECIPES_PRIMARY_KEY });
 }
 
 /** Resolves once every queued task has succeeded; throws on the first that failed. */
-export async function waitForRecipeTasks(tasks: EnqueuedTask[], client: Meilisearch = getSearchClient()): Promise<void> {
+export async function waitForRecipeTasks(
+  tasks: EnqueuedTask[],
+  client: Meilisearch = getSearchClient(),
+): Promise<void> {
   if (tasks.length === 0) return;
   const done = await client.tasks.waitForTasks(tasks, { timeout: 120_000, interval: 50 });
   done.forEach(assertSucceeded);
@@ -100,7 +117,14 @@ export const RECIPE_HIT_FIELDS = [
 export type RecipeSearchHit = Pick<RecipeSearchDocument, (typeof RECIPE_HIT_FIELDS)[number]>;
 
 /** Facets that come back as value → count; the numeric ones come back as min/max only. */
-export const DISTRIBUTION_FACETS = ['styleCategory', 'styleCode', 'hops', 'fermentables', 'yeasts', 'yeastKinds'] as const;
+export const DISTRIBUTION_FACETS = [
+  'styleCategory',
+  'styleCode',
+  'hops',
+  'fermentables',
+  'yeasts',
+  'yeastKinds',
+] as const;
 export type DistributionFacet = (typeof DISTRIBUTION_FACETS)[number];
 
 export interface RecipeSearchResult {
@@ -141,7 +165,9 @@ async function runRecipeSearch(
     page: response.page,
     pageCount: response.totalPages,
     pageSize: hitsPerPage,
-    facetDistribution: Object.fromEntries(DISTRIBUTION_FACETS.map((facet) => [facet, distribution[facet] ?? {}])) as RecipeSearchResult['facetDistribution'],
+    facetDistribution: Object.fromEntries(
+      DISTRIBUTION_FACETS.map((facet) => [facet, distribution[facet] ?? {}]),
+    ) as RecipeSearchResult['facetDistribution'],
     facetStats: response.facetStats ?? {},
     processingTimeMs: response.processingTimeMs,
   };
@@ -154,7 +180,11 @@ const STYLE_FACETS = ['styleCategory', 'styleCode'] as const;
  * are alternatives (any of them), so style counts are taken as if no style were chosen: a reader
  * sees how many recipes each further style would add.
  */
-export async function searchRecipes(query: RecipeSearchQuery, viewer: SearchViewer, client: Meilisearch = getSearchClient()): Promise<RecipeSearchResult> {
+export async function searchRecipes(
+  query: RecipeSearchQuery,
+  viewer: SearchViewer,
+  client: Meilisearch = getSearchClient(),
+): Promise<RecipeSearchResult> {
   if (query.style.length === 0) return runRecipeSearch(query, viewer, client);
   const [result, withoutStyle] = await Promise.all([
     runRecipeSearch(query, viewer, client),
@@ -171,17 +201,25 @@ export interface LooseningSuggestion {
   total: number;
 }
 
-function loosenedQueries(query: RecipeSearchQuery): Array<{ suggestion: Omit<LooseningSuggestion, 'total'>; query: RecipeSearchQuery }> {
+function loosenedQueries(
+  query: RecipeSearchQuery,
+): Array<{ suggestion: Omit<LooseningSuggestion, 'total'>; query: RecipeSearchQuery }> {
   const variants: Array<{ suggestion: Omit<LooseningSuggestion, 'total'>; query: RecipeSearchQuery }> = [];
   if (query.q !== '') variants.push({ suggestion: { field: 'q' }, query: { ...query, q: '' } });
   for (const field of ['style', 'hop', 'malt', 'yeast'] as const) {
     for (const value of query[field]) {
-      variants.push({ suggestion: { field, value }, query: { ...query, [field]: query[field].filter((v) => v !== value) } });
+      variants.push({
+        suggestion: { field, value },
+        query: { ...query, [field]: query[field].filter((v) => v !== value) },
+      });
     }
   }
   for (const field of ['abv', 'ibu', 'srm', 'og'] as const) {
     if (query[`${field}Min`] !== undefined || query[`${field}Max`] !== undefined) {
-      variants.push({ suggestion: { field }, query: { ...query, [`${field}Min`]: undefined, [`${field}Max`]: undefined } });
+      variants.push({
+        suggestion: { field },
+        query: { ...query, [`${field}Min`]: undefined, [`${field}Max`]: undefined },
+      });
     }
   }
   return variants.map((variant) => ({ ...variant, query: { ...variant.query, page: 1 } }));
@@ -198,7 +236,9 @@ export async function suggestLoosening(
 ): Promise<LooseningSuggestion[]> {
   const variants = loosenedQueries(query);
   const totals = await Promise.all(
-    variants.map((variant) => runRecipeSearch(variant.query, viewer, client, { hitsPerPage: 0, facets: [] }).then((result) => result.total)),
+    variants.map((variant) =>
+      runRecipeSearch(variant.query, viewer, client, { hitsPerPage: 0, facets: [] }).then((result) => result.total),
+    ),
   );
   return variants
     .map((variant, i) => ({ ...variant.suggestion, total: totals[i] }))

@@ -69,12 +69,29 @@ export const FILTERABLE_ATTRIBUTES = [
   'ownerId',
 ] as const satisfies ReadonlyArray<keyof RecipeSearchDocument>;
 
-export const SORTABLE_ATTRIBUTES = ['createdAt', 'updatedAt', 'stars', 'forks', 'abv', 'ibu', 'og'] as const satisfies ReadonlyArray<
-  keyof RecipeSearchDocument
->;
+export const SORTABLE_ATTRIBUTES = [
+  'createdAt',
+  'updatedAt',
+  'stars',
+  'forks',
+  'abv',
+  'ibu',
+  'og',
+] as const satisfies ReadonlyArray<keyof RecipeSearchDocument>;
 
 /** Facets the search page shows counts for. */
-export const FACET_ATTRIBUTES = ['styleCategory', 'styleCode', 'hops', 'fermentables', 'yeasts', 'yeastKinds', 'abv', 'ibu', 'srm', 'og'] as const;
+export const FACET_ATTRIBUTES = [
+  'styleCategory',
+  'styleCode',
+  'hops',
+  'fermentables',
+  'yeasts',
+  'yeastKinds',
+  'abv',
+  'ibu',
+  'srm',
+  'og',
+] as const;
 
 export type RecipeFacet = (typeof FACET_ATTRIBUTES)[number];
 

@@ -52,7 +52,8 @@ export function buildRecipeFilter(query: RecipeSearchQuery, viewer: SearchViewer
   const clauses = [viewerFilter(viewer)];
   if (query.style.length > 0) clauses.push(`styleCode IN [${query.style.map(quoteFilterValue).join(', ')}]`);
   clauses.push(...allOf('hops', query.hop), ...allOf('fermentables', query.malt));
-  for (const yeast of query.yeast) clauses.push(`(yeasts = ${quoteFilterValue(yeast)} OR yeastKinds = ${quoteFilterValue(yeast)})`);
+  for (const yeast of query.yeast)
+    clauses.push(`(yeasts = ${quoteFilterValue(yeast)} OR yeastKinds = ${quoteFilterValue(yeast)})`);
   clauses.push(...numericClauses(query));
   return clauses;
 }

@@ -62,7 +62,13 @@ const baseSchema = z.object({
     .default(''),
   style: valueList(
     'style',
-    z.string({ error: 'style values must be text' }).trim().regex(STYLE_CODE, 'style values must be style codes such as 21A (letters, digits, dots and dashes, up to 16 characters)'),
+    z
+      .string({ error: 'style values must be text' })
+      .trim()
+      .regex(
+        STYLE_CODE,
+        'style values must be style codes such as 21A (letters, digits, dots and dashes, up to 16 characters)',
+      ),
   ),
   hop: valueList('hop', ingredientName('hop')),
   malt: valueList('malt', ingredientName('malt')),
@@ -90,7 +96,11 @@ export const recipeSearchQuerySchema = baseSchema.superRefine((query, ctx) => {
     const min = query[`${field}Min`];
     const max = query[`${field}Max`];
     if (min !== undefined && max !== undefined && min > max) {
-      ctx.addIssue({ code: 'custom', path: [`${field}Min`], message: `${field}Min must not be greater than ${field}Max` });
+      ctx.addIssue({
+        code: 'custom',
+        path: [`${field}Min`],
+        message: `${field}Min must not be greater than ${field}Max`,
+      });
     }
   }
 });

@@ -9,7 +9,12 @@ import { asc, count, eq, gt, inArray, isNotNull, sql, type SQL } from 'drizzle-o
 import type { EnqueuedTask, Meilisearch } from 'meilisearch';
 import { db, type Database, type Transaction } from '@/db';
 import { recipes, recipeVersions, searchOutbox, users } from '@/db/schema';
-import { toSearchDocument, MAX_INDEXED_NOTES_CHARS, type IndexedDocumentParts, type RecipeIndexRow } from './build-document';
+import {
+  toSearchDocument,
+  MAX_INDEXED_NOTES_CHARS,
+  type IndexedDocumentParts,
+  type RecipeIndexRow,
+} from './build-document';
 import {
   deleteRecipeDocuments,
   enqueueRecipeDocuments,
@@ -173,7 +178,10 @@ export function processSearchOutbox(client: Meilisearch = getSearchClient(), dat
  * Reindexes every recipe from PostgreSQL, 1,000 at a time in id order (keyset pagination). Each
  * batch is queued without waiting, so the engine indexes one batch while the next is read.
  */
-export async function rebuildSearchIndex(client: Meilisearch = getSearchClient(), database: Executor = db): Promise<{ count: number; ms: number }> {
+export async function rebuildSearchIndex(
+  client: Meilisearch = getSearchClient(),
+  database: Executor = db,
+): Promise<{ count: number; ms: number }> {
   const started = performance.now();
   const tasks: EnqueuedTask[] = [];
   let total = 0;
@@ -203,7 +211,11 @@ async function refillIfEmpty(documentCount: number, client: Meilisearch, databas
 }
 
 /** Creates the index with its settings; when it is empty but PostgreSQL has recipes, rebuilds it. */
-export async function ensureSearchReady(client: Meilisearch = getSearchClient(), database: Executor = db, opts: { cameBackBare?: boolean } = {}): Promise<void> {
+export async function ensureSearchReady(
+  client: Meilisearch = getSearchClient(),
+  database: Executor = db,
+  opts: { cameBackBare?: boolean } = {},
+): Promise<void> {
   const { documentCount } = await ensureRecipeIndex(client);
   // An index that a write re-created without our settings means the engine lost everything:
   // whatever few documents it holds now, refill it whole.
@@ -216,7 +228,10 @@ async function readIndexStatus(client: Meilisearch): Promise<{ configured: boole
     const index = client.index(RECIPES_INDEX);
     const [settings, stats] = await Promise.all([index.getSettings(), index.getStats()]);
     const filterable = new Set(settings.filterableAttributes ?? []);
-    return { configured: FILTERABLE_ATTRIBUTES.every((attribute) => filterable.has(attribute)), documentCount: stats.numberOfDocuments };
+    return {
+      configured: FILTERABLE_ATTRIBUTES.every((attribute) => filterable.has(attribute)),
+      documentCount: stats.numberOfDocuments,
+    };
   } catch {
     return { configured: false, documentCount: 0 };
   }

@@ -51,7 +51,9 @@ export function probeImage(bytes: Uint8Array): { type: ImageType; width: number;
   const height = size.height ?? 0;
   const expected = type === 'jpeg' ? 'jpg' : type;
   if (size.type !== expected || width < 1 || height < 1) {
-    throw new AppError('bad_request', 'photo', 'The photo is damaged or incomplete.', [{ path: 'photo', message: 'The photo is damaged or incomplete.' }]);
+    throw new AppError('bad_request', 'photo', 'The photo is damaged or incomplete.', [
+      { path: 'photo', message: 'The photo is damaged or incomplete.' },
+    ]);
   }
   if (width > MAX_PHOTO_SIDE_PX || height > MAX_PHOTO_SIDE_PX || width * height > MAX_PHOTO_PIXELS) {
     const message = `The photo is ${width}×${height} pixels; the largest we take is ${MAX_PHOTO_SIDE_PX} pixels a side and ${MAX_PHOTO_PIXELS / 1_000_000} megapixels.`;
@@ -113,7 +115,11 @@ export function jpegIsComplete(bytes: Uint8Array): boolean {
     i += 2 + ((bytes[i + 2] << 8) | bytes[i + 3]);
     if (marker === 0xda) {
       // Entropy-coded data runs to the next marker that is neither a stuffed 0x00 nor a restart.
-      while (i + 1 < bytes.length && !(bytes[i] === 0xff && bytes[i + 1] !== 0x00 && !(bytes[i + 1] >= 0xd0 && bytes[i + 1] <= 0xd7))) i += 1;
+      while (
+        i + 1 < bytes.length &&
+        !(bytes[i] === 0xff && bytes[i + 1] !== 0x00 && !(bytes[i + 1] >= 0xd0 && bytes[i + 1] <= 0xd7))
+      )
+        i += 1;
     }
   }
   return false;

@@ -1,5 +1,11 @@
 import 'server-only';
-import { DeleteObjectCommand, GetObjectCommand, ListObjectsV2Command, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
+import {
+  DeleteObjectCommand,
+  GetObjectCommand,
+  ListObjectsV2Command,
+  PutObjectCommand,
+  S3Client,
+} from '@aws-sdk/client-s3';
 import { env } from '@/lib/env';
 
 /**
@@ -22,7 +28,15 @@ function client(): S3Client {
 }
 
 export async function putObject(key: string, body: Buffer, contentType: string): Promise<void> {
-  await client().send(new PutObjectCommand({ Bucket: env().S3_BUCKET, Key: key, Body: body, ContentType: contentType, ContentLength: body.length }));
+  await client().send(
+    new PutObjectCommand({
+      Bucket: env().S3_BUCKET,
+      Key: key,
+      Body: body,
+      ContentType: contentType,
+      ContentLength: body.length,
+    }),
+  );
 }
 
 /** The object's bytes, or null when there is no such key. */
@@ -47,7 +61,9 @@ export async function listObjectKeys(prefix = ''): Promise<string[]> {
   const keys: string[] = [];
   let token: string | undefined;
   do {
-    const page = await client().send(new ListObjectsV2Command({ Bucket: env().S3_BUCKET, Prefix: prefix || undefined, ContinuationToken: token }));
+    const page = await client().send(
+      new ListObjectsV2Command({ Bucket: env().S3_BUCKET, Prefix: prefix || undefined, ContinuationToken: token }),
+    );
     for (const item of page.Contents ?? []) if (item.Key) keys.push(item.Key);
     token = page.IsTruncated ? page.NextContinuationToken : undefined;
   } while (token);

@@ -56,7 +56,9 @@ describe('role guards', () => {
     expect(res.status).toBe(200);
     expect((await member.me())?.role).toBe('moderator');
     expect((await admin.put(`/api/admin/users/${adminUser.id}/role`, { role: 'member' })).status).toBe(403);
-    const bad = await admin.put<{ error: { fields: { path: string }[] } }>(`/api/admin/users/${user.id}/role`, { role: 'overlord' });
+    const bad = await admin.put<{ error: { fields: { path: string }[] } }>(`/api/admin/users/${user.id}/role`, {
+      role: 'overlord',
+    });
     expect(bad.status).toBe(400);
     expect(bad.body.error.fields[0].path).toBe('role');
   });

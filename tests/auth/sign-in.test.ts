@@ -10,7 +10,12 @@ describe('sign-in with a password', () => {
     const res = await client.fetch('/api/auth/callback/credentials', {
       method: 'POST',
       headers: { 'content-type': 'application/x-www-form-urlencoded' },
-      body: new URLSearchParams({ email: user.email, password: TEST_PASSWORD, csrfToken: csrf.body.csrfToken, json: 'true' }).toString(),
+      body: new URLSearchParams({
+        email: user.email,
+        password: TEST_PASSWORD,
+        csrfToken: csrf.body.csrfToken,
+        json: 'true',
+      }).toString(),
     });
     const cookie = res.headers.getSetCookie().find((c) => c.startsWith('next-auth.session-token='));
     expect(cookie).toBeDefined();

@@ -10,7 +10,12 @@ import { createRecipeVia, paleAle } from '../helpers/recipes';
 
 export const S3_ENDPOINT = process.env.S3_ENDPOINT ?? 'http://127.0.0.1:4570';
 const bucket = process.env.S3_BUCKET ?? 'kettlefork-photos';
-const s3 = new S3Client({ endpoint: S3_ENDPOINT, region: 'us-east-1', forcePathStyle: true, credentials: { accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' } });
+const s3 = new S3Client({
+  endpoint: S3_ENDPOINT,
+  region: 'us-east-1',
+  forcePathStyle: true,
+  credentials: { accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' },
+});
 
 /** Every key in the photo bucket (the fake holds only what the tests stored). */
 export async function listBucket(prefix = ''): Promise<string[]> {
@@ -25,7 +30,10 @@ export async function listBucket(prefix = ''): Promise<string[]> {
 }
 
 export async function photoRowCount(brewDayId: string): Promise<number> {
-  const [row] = await db.select({ n: sql<number>`count(*)::int` }).from(photos).where(eq(photos.brewDayId, brewDayId));
+  const [row] = await db
+    .select({ n: sql<number>`count(*)::int` })
+    .from(photos)
+    .where(eq(photos.brewDayId, brewDayId));
   return row.n;
 }
 
@@ -55,10 +63,15 @@ export async function png(width = 320, height = 240): Promise<Buffer> {
 /** A WebP made with the libwebp WebAssembly encoder (jimp has no WebP encoder of its own). */
 export async function webp(width = 300, height = 200): Promise<Buffer> {
   const { default: encode, init } = await import('@jsquash/webp/encode.js');
-  const wasm = await WebAssembly.compile(await readFile(path.resolve('node_modules/@jsquash/webp/codec/enc/webp_enc.wasm')));
+  const wasm = await WebAssembly.compile(
+    await readFile(path.resolve('node_modules/@jsquash/webp/codec/enc/webp_enc.wasm')),
+  );
   await (init as unknown as (m: WebAssembly.Module) => Promise<void>)(wasm);
   const image = picture(width, height);
-  const out = await encode({ data: new Uint8ClampedArray(image.bitmap.data), width, height, colorSpace: 'srgb' } as ImageData, { quality: 80 });
+  const out = await encode(
+    { data: new Uint8ClampedArray(image.bitmap.data), width, height, colorSpace: 'srgb' } as ImageData,
+    { quality: 80 },
+  );
   return Buffer.from(out);
 }
 
@@ -91,9 +104,18 @@ export async function jpegBomb(): Promise<Buffer> {
   return out;
 }
 
-export async function uploadVia(client: TestClient, brewDayId: string, file: Buffer, opts: { field?: string; name?: string; type?: string; caption?: string } = {}) {
+export async function uploadVia(
+  client: TestClient,
+  brewDayId: string,
+  file: Buffer,
+  opts: { field?: string; name?: string; type?: string; caption?: string } = {},
+) {
   const form = new FormData();
-  form.append(opts.field ?? 'photo', new Blob([new Uint8Array(file)], { type: opts.type ?? 'image/jpeg' }), opts.name ?? 'photo.jpg');
+  form.append(
+    opts.field ?? 'photo',
+    new Blob([new Uint8Array(file)], { type: opts.type ?? 'image/jpeg' }),
+    opts.name ?? 'photo.jpg',
+  );
   if (opts.caption !== undefined) form.append('caption', opts.caption);
   const res = await client.fetch(`/api/brew-days/${brewDayId}/photos`, { method: 'POST', body: form });
   const text = await res.text();
@@ -111,7 +133,10 @@ export function today(offsetDays = 0): string {
 }
 
 /** A recipe of the client's and a brew day of its first version. */
-export async function brewDayVia(client: TestClient, opts: { visibility?: 'public' | 'unlisted' | 'private'; fields?: Record<string, unknown> } = {}) {
+export async function brewDayVia(
+  client: TestClient,
+  opts: { visibility?: 'public' | 'unlisted' | 'private'; fields?: Record<string, unknown> } = {},
+) {
   const saved = await createRecipeVia(client, { document: paleAle(), visibility: opts.visibility ?? 'public' });
   const res = await client.post<{ id: string }>('/api/brew-days', {
     versionId: saved.version.id,

@@ -9,13 +9,23 @@ describe('photos hidden by moderators', { timeout: 120_000 }, () => {
     const reader = await signedInClient();
     const moderator = await signedInClient('moderator');
     const day = await brewDayVia(owner.client);
-    const upload = await uploadVia(owner.client, day.brewDayId, await jpeg(800, 600), { caption: 'Suspicious picture' });
+    const upload = await uploadVia(owner.client, day.brewDayId, await jpeg(800, 600), {
+      caption: 'Suspicious picture',
+    });
     expect(upload.status).toBe(201);
     const photoId = upload.body.id!;
 
-    const report = await reader.client.post<{ id: string }>('/api/reports', { targetType: 'photo', targetId: photoId, reason: 'abuse', note: 'not beer' });
+    const report = await reader.client.post<{ id: string }>('/api/reports', {
+      targetType: 'photo',
+      targetId: photoId,
+      reason: 'abuse',
+      note: 'not beer',
+    });
     expect(report.status).toBe(201);
-    const hidden = await moderator.client.post(`/api/moderation/reports/${report.body.id}`, { action: 'hide', reason: 'Not a brewing photo' });
+    const hidden = await moderator.client.post(`/api/moderation/reports/${report.body.id}`, {
+      action: 'hide',
+      reason: 'Not a brewing photo',
+    });
     expect(hidden.status).toBeLessThan(300);
 
     const anon = new TestClient();

@@ -1,5 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { brixToGravity, correctHydrometerReading, fermentingGravityFromBrix, measuredEfficiencyPct, type RecipeDocument } from '@/lib/brewing';
+import {
+  brixToGravity,
+  correctHydrometerReading,
+  fermentingGravityFromBrix,
+  measuredEfficiencyPct,
+  type RecipeDocument,
+} from '@/lib/brewing';
 import { signedInClient } from '../helpers/users';
 import { createRecipeVia, paleAle, saveVia } from '../helpers/recipes';
 import { TestClient } from '../helpers/http';
@@ -45,7 +51,12 @@ describe('logging a brew day', () => {
 
     const view = await client.get<{
       version: { number: number; stats: { og: number; fg: number } };
-      outcome: { efficiencyPct: number; abv: number; kegPressureAboveTypicalRating: boolean; comparisons: { key: string; measured: number | null; predicted: number | null; difference: number | null }[] };
+      outcome: {
+        efficiencyPct: number;
+        abv: number;
+        kegPressureAboveTypicalRating: boolean;
+        comparisons: { key: string; measured: number | null; predicted: number | null; difference: number | null }[];
+      };
     }>(`/api/brew-days/${res.body.id}`);
     expect(view.status).toBe(200);
     expect(view.body.version.number).toBe(1);
@@ -80,21 +91,43 @@ describe('logging a brew day', () => {
     });
     expect(bad.status).toBe(400);
     expect(paths(bad.body)).toEqual(
-      expect.arrayContaining(['strikeTempC', 'mashTempC', 'pitchTempC', 'og.value', 'fg.value', 'preBoilGravity.value']),
+      expect.arrayContaining([
+        'strikeTempC',
+        'mashTempC',
+        'pitchTempC',
+        'og.value',
+        'fg.value',
+        'preBoilGravity.value',
+      ]),
     );
-    const packaging = await client.post('/api/brew-days', { versionId: saved.version.id, brewedOn: today(-3), packagedOn: today(-5), packaging: 'bottles', kegPressureKPa: 100 });
+    const packaging = await client.post('/api/brew-days', {
+      versionId: saved.version.id,
+      brewedOn: today(-3),
+      packagedOn: today(-5),
+      packaging: 'bottles',
+      kegPressureKPa: 100,
+    });
     expect(packaging.status).toBe(400);
     expect(paths(packaging.body)).toEqual(expect.arrayContaining(['packagedOn', 'kegPressureKPa']));
     const messages = (bad.body as ErrorBody).error.fields.map((f) => f.message).join(' | ');
     expect(messages).toContain('between 0.980 and 1.200');
     expect(messages).toContain('0 and 100 °C');
 
-    const fgAboveOg = await client.post('/api/brew-days', { versionId: saved.version.id, brewedOn: today(), og: { method: 'hydrometer', value: 1.04 }, fg: { method: 'hydrometer', value: 1.05 } });
+    const fgAboveOg = await client.post('/api/brew-days', {
+      versionId: saved.version.id,
+      brewedOn: today(),
+      og: { method: 'hydrometer', value: 1.04 },
+      fg: { method: 'hydrometer', value: 1.05 },
+    });
     expect(fgAboveOg.status).toBe(400);
     expect(paths(fgAboveOg.body)).toContain('fg.value');
 
     // A hydrometer reading in range whose temperature correction takes it out of range is refused too.
-    const corrected = await client.post('/api/brew-days', { versionId: saved.version.id, brewedOn: today(), og: { method: 'hydrometer', value: 1.195, sampleTempC: 90 } });
+    const corrected = await client.post('/api/brew-days', {
+      versionId: saved.version.id,
+      brewedOn: today(),
+      og: { method: 'hydrometer', value: 1.195, sampleTempC: 90 },
+    });
     expect(corrected.status).toBe(400);
     expect(paths(corrected.body)).toContain('og.value');
 
@@ -107,21 +140,40 @@ describe('logging a brew day', () => {
     const { client } = await signedInClient();
     const { brewDayId } = await brewDayVia(client, { fields: { og: { method: 'refractometer', value: 12.5 } } });
     const row = await brewDayRow(brewDayId);
-    const reading = await client.post<{ id: string }>(`/api/brew-days/${brewDayId}/readings`, { takenOn: today(-15), method: 'refractometer', value: 7.2, beerTempC: 19 });
+    const reading = await client.post<{ id: string }>(`/api/brew-days/${brewDayId}/readings`, {
+      takenOn: today(-15),
+      method: 'refractometer',
+      value: 7.2,
+      beerTempC: 19,
+    });
     expect(reading.status).toBe(201);
-    const view = await client.get<{ readings: { id: string; gravity: number; beerTempC: number }[] }>(`/api/brew-days/${brewDayId}`);
+    const view = await client.get<{ readings: { id: string; gravity: number; beerTempC: number }[] }>(
+      `/api/brew-days/${brewDayId}`,
+    );
     const stored = view.body.readings.find((r) => r.id === reading.body.id)!;
     // Terrill, "Refractometer FG Results" (2011): fermenting gravity from original and current Brix.
     expect(stored.gravity).toBeCloseTo(fermentingGravityFromBrix(12.5, 7.2), 6);
     expect(row.og).toBeCloseTo(brixToGravity(12.5), 6);
 
-    const tempOnly = await client.post(`/api/brew-days/${brewDayId}/readings`, { takenOn: today(-14), beerTempC: 20.5 });
+    const tempOnly = await client.post(`/api/brew-days/${brewDayId}/readings`, {
+      takenOn: today(-14),
+      beerTempC: 20.5,
+    });
     expect(tempOnly.status).toBe(201);
 
-    const early = await client.post(`/api/brew-days/${brewDayId}/readings`, { takenOn: today(-40), method: 'hydrometer', value: 1.02 });
+    const early = await client.post(`/api/brew-days/${brewDayId}/readings`, {
+      takenOn: today(-40),
+      method: 'hydrometer',
+      value: 1.02,
+    });
     expect(early.status).toBe(400);
     expect(paths(early.body)).toEqual(['takenOn']);
-    const outOfRange = await client.post(`/api/brew-days/${brewDayId}/readings`, { takenOn: today(-10), method: 'hydrometer', value: 1.3, beerTempC: 130 });
+    const outOfRange = await client.post(`/api/brew-days/${brewDayId}/readings`, {
+      takenOn: today(-10),
+      method: 'hydrometer',
+      value: 1.3,
+      beerTempC: 130,
+    });
     expect(outOfRange.status).toBe(400);
     expect(paths(outOfRange.body)).toEqual(expect.arrayContaining(['value', 'beerTempC']));
     const nothing = await client.post(`/api/brew-days/${brewDayId}/readings`, { takenOn: today(-10) });
@@ -151,10 +203,18 @@ describe('logging a brew day', () => {
     const bad = await friend.post(`/api/brew-days/${brewDayId}/tastings`, { tastedOn: today(-60), rating: 6 });
     expect(bad.status).toBe(400);
     expect(paths(bad.body)).toEqual(expect.arrayContaining(['rating', 'overall']));
-    const early = await friend.post(`/api/brew-days/${brewDayId}/tastings`, { tastedOn: today(-60), overall: 'Early', rating: 3 });
+    const early = await friend.post(`/api/brew-days/${brewDayId}/tastings`, {
+      tastedOn: today(-60),
+      overall: 'Early',
+      rating: 3,
+    });
     expect(early.status).toBe(400);
     expect(paths(early.body)).toEqual(['tastedOn']);
-    const anonymous = await new TestClient().post(`/api/brew-days/${brewDayId}/tastings`, { tastedOn: today(), overall: 'x', rating: 3 });
+    const anonymous = await new TestClient().post(`/api/brew-days/${brewDayId}/tastings`, {
+      tastedOn: today(),
+      overall: 'x',
+      rating: 3,
+    });
     expect(anonymous.status).toBe(401);
     const view = await client.get<{ tastings: { rating: number; aroma: string }[] }>(`/api/brew-days/${brewDayId}`);
     expect(view.body.tastings).toHaveLength(1);
@@ -171,7 +231,9 @@ describe('logging a brew day', () => {
     expect(missing.status).toBe(404);
     expect((hidden.body as ErrorBody).error.message).toBe((missing.body as ErrorBody).error.message);
     expect((await new TestClient().get(`/api/brew-days/${brewDayId}`)).status).toBe(404);
-    expect((await other.post(`/api/brew-days/${brewDayId}/tastings`, { tastedOn: today(), overall: 'x', rating: 3 })).status).toBe(404);
+    expect(
+      (await other.post(`/api/brew-days/${brewDayId}/tastings`, { tastedOn: today(), overall: 'x', rating: 3 })).status,
+    ).toBe(404);
     expect((await other.post('/api/brew-days', { versionId: version.id, brewedOn: today() })).status).toBe(404);
     expect((await client.get(`/api/brew-days/${brewDayId}`)).status).toBe(200);
   });
@@ -196,11 +258,17 @@ describe('logging a brew day', () => {
 
   it('offers the brewer their averages: efficiency and attenuation per yeast kind', async () => {
     const { client } = await signedInClient();
-    await brewDayVia(client, { fields: { og: { method: 'hydrometer', value: 1.05 }, fg: { method: 'hydrometer', value: 1.01 } } });
-    await brewDayVia(client, { fields: { og: { method: 'hydrometer', value: 1.048 }, fg: { method: 'hydrometer', value: 1.012 } } });
-    const res = await client.get<{ brewDayCount: number; efficiency: { meanPct: number; count: number }; attenuationByYeastKind: { yeastKind: string; meanPct: number; count: number }[] }>(
-      '/api/me/brew-averages',
-    );
+    await brewDayVia(client, {
+      fields: { og: { method: 'hydrometer', value: 1.05 }, fg: { method: 'hydrometer', value: 1.01 } },
+    });
+    await brewDayVia(client, {
+      fields: { og: { method: 'hydrometer', value: 1.048 }, fg: { method: 'hydrometer', value: 1.012 } },
+    });
+    const res = await client.get<{
+      brewDayCount: number;
+      efficiency: { meanPct: number; count: number };
+      attenuationByYeastKind: { yeastKind: string; meanPct: number; count: number }[];
+    }>('/api/me/brew-averages');
     expect(res.status).toBe(200);
     expect(res.body.brewDayCount).toBe(2);
     expect(res.body.efficiency.count).toBe(2);

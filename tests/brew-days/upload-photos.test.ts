@@ -7,7 +7,18 @@ import { PHOTO_QUOTA_COUNT, uploadPhoto } from '@/lib/brew-days/photos';
 import { BASE_URL } from '../helpers/env';
 import { TestClient } from '../helpers/http';
 import { signedInClient } from '../helpers/users';
-import { brewDayVia, jpeg, jpegBomb, jpegWithLocation, listBucket, photoRowCount, png, pngBomb, uploadVia, webp } from './fixtures';
+import {
+  brewDayVia,
+  jpeg,
+  jpegBomb,
+  jpegWithLocation,
+  listBucket,
+  photoRowCount,
+  png,
+  pngBomb,
+  uploadVia,
+  webp,
+} from './fixtures';
 
 type Owner = Awaited<ReturnType<typeof signedInClient>>;
 
@@ -20,7 +31,10 @@ describe('photo uploads', () => {
   });
 
   /** Runs a refused upload and checks that nothing was stored: no objects, no rows. */
-  async function refused(run: () => Promise<{ status: number; body: { error?: { message: string; fields?: { path: string }[] } } }>, status: number) {
+  async function refused(
+    run: () => Promise<{ status: number; body: { error?: { message: string; fields?: { path: string }[] } } }>,
+    status: number,
+  ) {
     // Keys are always under the brew day's prefix, so other test files uploading meanwhile do not disturb this.
     const keysBefore = await listBucket(`brew-days/${brewDayId}/`);
     const rowsBefore = await photoRowCount(brewDayId);
@@ -33,7 +47,10 @@ describe('photo uploads', () => {
   }
 
   it('stores a JPEG as display and thumbnail JPEGs under server-chosen keys and serves them with nosniff', async () => {
-    const res = await uploadVia(owner.client, brewDayId, await jpeg(2400, 1800), { caption: 'Mash in', name: '../../evil.php' });
+    const res = await uploadVia(owner.client, brewDayId, await jpeg(2400, 1800), {
+      caption: 'Mash in',
+      name: '../../evil.php',
+    });
     expect(res.status).toBe(201);
     const id = res.body.id!;
     const [row] = await db.select().from(photos).where(eq(photos.id, id));
@@ -58,7 +75,10 @@ describe('photo uploads', () => {
   it('takes PNG and WebP, decided by content whatever the name or declared type says', async () => {
     const fromPng = await uploadVia(owner.client, brewDayId, await png(), { name: 'picture.gif', type: 'text/plain' });
     expect(fromPng.status).toBe(201);
-    const fromWebp = await uploadVia(owner.client, brewDayId, await webp(), { name: 'picture.jpg', type: 'image/jpeg' });
+    const fromWebp = await uploadVia(owner.client, brewDayId, await webp(), {
+      name: 'picture.jpg',
+      type: 'image/jpeg',
+    });
     expect(fromWebp.status).toBe(201);
     const served = await owner.client.fetch(`/api/photos/${fromWebp.body.id}/display`);
     const bytes = Buffer.from(await served.arrayBuffer());
@@ -78,7 +98,14 @@ describe('photo uploads', () => {
   });
 
   it('refuses a file that is not an image', async () => {
-    const res = await refused(() => uploadVia(owner.client, brewDayId, Buffer.from('#!/bin/sh\necho not a photo\n'), { name: 'photo.jpg', type: 'image/jpeg' }), 400);
+    const res = await refused(
+      () =>
+        uploadVia(owner.client, brewDayId, Buffer.from('#!/bin/sh\necho not a photo\n'), {
+          name: 'photo.jpg',
+          type: 'image/jpeg',
+        }),
+      400,
+    );
     expect(res.body.error!.message).toMatch(/JPEG, PNG or WebP/);
     expect(res.body.error!.fields?.[0].path).toBe('photo');
   });
@@ -87,14 +114,20 @@ describe('photo uploads', () => {
     const whole = await jpeg(800, 600);
     await refused(() => uploadVia(owner.client, brewDayId, whole.subarray(0, Math.floor(whole.length * 0.7))), 400);
     const wholePng = await png(400, 300);
-    await refused(() => uploadVia(owner.client, brewDayId, wholePng.subarray(0, Math.floor(wholePng.length * 0.6))), 400);
+    await refused(
+      () => uploadVia(owner.client, brewDayId, wholePng.subarray(0, Math.floor(wholePng.length * 0.6))),
+      400,
+    );
     await refused(() => uploadVia(owner.client, brewDayId, whole.subarray(0, 40)), 400);
   });
 
   it('refuses decompression bombs from their header, before decoding', async () => {
     const bombPng = pngBomb();
     expect(bombPng.length).toBeLessThan(5000);
-    const res = await refused(() => uploadVia(owner.client, brewDayId, bombPng, { type: 'image/png', name: 'bomb.png' }), 413);
+    const res = await refused(
+      () => uploadVia(owner.client, brewDayId, bombPng, { type: 'image/png', name: 'bomb.png' }),
+      413,
+    );
     expect(res.body.error!.message).toContain('30000×30000');
     await refused(async () => uploadVia(owner.client, brewDayId, await jpegBomb()), 413);
   });
@@ -107,7 +140,9 @@ describe('photo uploads', () => {
 
   it('refuses an 11 MB file sent without a Content-Length while reading it', async () => {
     const boundary = '----kettlefork-test-boundary';
-    const head = Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="photo"; filename="big.jpg"\r\nContent-Type: image/jpeg\r\n\r\n`);
+    const head = Buffer.from(
+      `--${boundary}\r\nContent-Disposition: form-data; name="photo"; filename="big.jpg"\r\nContent-Type: image/jpeg\r\n\r\n`,
+    );
     const chunk = Buffer.alloc(256 * 1024, 7);
     let sent = 0;
     const stream = new ReadableStream<Uint8Array>({
@@ -162,7 +197,11 @@ describe('photo uploads', () => {
     const form = new FormData();
     form.append('photo', new Blob([new Uint8Array(await jpeg())]), 'p.jpg');
     const keysBefore = await listBucket(`brew-days/${brewDayId}/`);
-    const res = await owner.client.fetch(`/api/brew-days/${brewDayId}/photos`, { method: 'POST', body: form, headers: { origin: 'https://elsewhere.example' } });
+    const res = await owner.client.fetch(`/api/brew-days/${brewDayId}/photos`, {
+      method: 'POST',
+      body: form,
+      headers: { origin: 'https://elsewhere.example' },
+    });
     expect(res.status).toBe(403);
     expect(await listBucket(`brew-days/${brewDayId}/`)).toEqual(keysBefore);
   });
@@ -191,7 +230,14 @@ describe('photo uploads', () => {
   });
 
   it('deletes the stored objects when the row cannot be written', async () => {
-    const viewer = { id: owner.user.id, name: owner.user.name ?? '', email: owner.user.email, handle: owner.user.handle, role: owner.user.role, units: owner.user.units };
+    const viewer = {
+      id: owner.user.id,
+      name: owner.user.name ?? '',
+      email: owner.user.email,
+      handle: owner.user.handle,
+      role: owner.user.role,
+      units: owner.user.units,
+    };
     const keysBefore = await listBucket(`brew-days/${brewDayId}/`);
     const rowsBefore = await photoRowCount(brewDayId);
     // A caption longer than its column (the route would refuse it first) makes the insert fail after the objects are stored.
@@ -215,12 +261,15 @@ describe('photo uploads', () => {
 
     const moderator = await signedInClient('moderator');
     expect((await moderator.client.delete(`/api/photos/${second.body.id}?reason=off-topic`)).status).toBe(200);
-    const [logged] = await db.select().from(moderationActions).where(sql`${moderationActions.targetId} = ${second.body.id}`);
+    const [logged] = await db
+      .select()
+      .from(moderationActions)
+      .where(sql`${moderationActions.targetId} = ${second.body.id}`);
     expect(logged).toMatchObject({ actorId: moderator.user.id, action: 'delete_photo', reason: 'off-topic' });
     expect((await owner.client.delete(`/api/photos/${second.body.id}`)).status).toBe(404);
   });
 
-  it('lists brew days with photo thumbnails on the recipe page and the brewer\'s page', async () => {
+  it("lists brew days with photo thumbnails on the recipe page and the brewer's page", async () => {
     const { recipe, brewDayId: day } = await brewDayVia(owner.client);
     const up = await uploadVia(owner.client, day, await jpeg(200, 150));
     expect(up.status).toBe(201);

@@ -12,7 +12,16 @@ const valid = {
   units: 'us',
   defaultBatchVolumeL: 23,
   defaultEfficiencyPct: 75,
-  emailChoices: { fork: true, comment: true, reply: true, star: false, brewed: true, new_recipe: false, proposal: true, proposal_decision: true },
+  emailChoices: {
+    fork: true,
+    comment: true,
+    reply: true,
+    star: false,
+    brewed: true,
+    new_recipe: false,
+    proposal: true,
+    proposal_decision: true,
+  },
 };
 
 describe('member settings', () => {
@@ -22,7 +31,12 @@ describe('member settings', () => {
     expect(res.status).toBe(200);
     expect(res.body.settings).toMatchObject(valid);
     const [row] = await db.select().from(users).where(eq(users.id, user.id));
-    expect(row).toMatchObject({ name: 'Settled Brewer', units: 'us', defaultBatchVolumeL: 23, defaultEfficiencyPct: 75 });
+    expect(row).toMatchObject({
+      name: 'Settled Brewer',
+      units: 'us',
+      defaultBatchVolumeL: 23,
+      defaultEfficiencyPct: 75,
+    });
     expect((await client.me())?.handle).toBe(user.handle);
     const page = await (await new TestClient().fetch(`/members/${user.handle}`)).text();
     expect(textOf(page)).toContain('Settled Brewer');
@@ -40,7 +54,12 @@ describe('member settings', () => {
       defaultEfficiencyPct: 140,
     });
     expect(res.status).toBe(400);
-    expect(res.body.error.fields.map((f) => f.path).sort()).toEqual(['defaultBatchVolumeL', 'defaultEfficiencyPct', 'name', 'units']);
+    expect(res.body.error.fields.map((f) => f.path).sort()).toEqual([
+      'defaultBatchVolumeL',
+      'defaultEfficiencyPct',
+      'name',
+      'units',
+    ]);
     const [row] = await db.select().from(users).where(eq(users.id, user.id));
     expect(row.name).toBe(user.name);
     expect((await new TestClient().put('/api/me/settings', valid)).status).toBe(401);

@@ -80,7 +80,10 @@ describe('comments on recipes', () => {
     expect(list).toHaveLength(1);
     expect(list[0]).toMatchObject({ body: '', state: 'deleted', authorHandle: null });
     expect(list[0].replies.map((r) => r.body)).toEqual(['Reply']);
-    const logged = await db.select().from(moderationActions).where(eq(moderationActions.targetId, lone.body.comment.id));
+    const logged = await db
+      .select()
+      .from(moderationActions)
+      .where(eq(moderationActions.targetId, lone.body.comment.id));
     expect(logged).toMatchObject([{ action: 'delete_comment', actorId: mod.id }]);
   });
 
@@ -96,13 +99,22 @@ describe('comments on recipes', () => {
     expect((await commentVia(newcomer, recipe.recipe.id, 'No link here')).body.held).toBe(false);
     expect((await commentVia(veteran, recipe.recipe.id, 'My notes: https://example.org/notes')).body.held).toBe(false);
 
-    expect((await commentsOf(owner, recipe.recipe.id)).map((c) => c.body)).not.toContain('Cheap kettles at https://deals.example/kettles');
-    expect((await commentsOf(newcomer, recipe.recipe.id)).find((c) => c.id === held.body.comment.id)?.state).toBe('held');
+    expect((await commentsOf(owner, recipe.recipe.id)).map((c) => c.body)).not.toContain(
+      'Cheap kettles at https://deals.example/kettles',
+    );
+    expect((await commentsOf(newcomer, recipe.recipe.id)).find((c) => c.id === held.body.comment.id)?.state).toBe(
+      'held',
+    );
     const queue = await moderator.get<{ heldComments: { id: string }[] }>('/api/moderation/queue');
     expect(queue.body.heldComments.map((c) => c.id)).toContain(held.body.comment.id);
 
-    expect((await moderator.post(`/api/moderation/comments/${held.body.comment.id}`, { action: 'approve' })).status).toBe(200);
-    const again = await moderator.post<{ error: { message: string } }>(`/api/moderation/comments/${held.body.comment.id}`, { action: 'approve' });
+    expect(
+      (await moderator.post(`/api/moderation/comments/${held.body.comment.id}`, { action: 'approve' })).status,
+    ).toBe(200);
+    const again = await moderator.post<{ error: { message: string } }>(
+      `/api/moderation/comments/${held.body.comment.id}`,
+      { action: 'approve' },
+    );
     expect(again.status).toBe(409);
     expect((await commentsOf(owner, recipe.recipe.id)).map((c) => c.id)).toContain(held.body.comment.id);
   });

@@ -9,7 +9,10 @@ export interface CommentBody {
 }
 
 export async function commentVia(client: TestClient, recipeId: string, body: string, parentId?: string) {
-  return client.post<CommentBody & { error?: { message: string; fields?: { path: string }[] } }>(`/api/recipes/${recipeId}/comments`, { body, parentId });
+  return client.post<CommentBody & { error?: { message: string; fields?: { path: string }[] } }>(
+    `/api/recipes/${recipeId}/comments`,
+    { body, parentId },
+  );
 }
 
 export interface ListedComment {

@@ -20,7 +20,10 @@ async function mailsTo(to: string): Promise<StoredMessage[]> {
 }
 
 async function pending(userId: string) {
-  return db.select().from(notificationEmails).where(and(eq(notificationEmails.userId, userId), isNull(notificationEmails.sentAt)));
+  return db
+    .select()
+    .from(notificationEmails)
+    .where(and(eq(notificationEmails.userId, userId), isNull(notificationEmails.sentAt)));
 }
 
 const later = (minutes: number) => new Date(Date.now() + minutes * 60_000);
@@ -34,7 +37,10 @@ describe('notifications in the site', () => {
     await reader.put(`/api/recipes/${recipe.recipe.id}/star`);
     expect((await owner.get('/api/notifications/unread')).body).toEqual({ unread: 2 });
     const list = await owner.get<{ items: { text: string; url: string; read: boolean }[] }>('/api/notifications');
-    expect(list.body.items.map((i) => i.text)).toEqual([expect.stringMatching(/starred/), expect.stringMatching(/commented on/)]);
+    expect(list.body.items.map((i) => i.text)).toEqual([
+      expect.stringMatching(/starred/),
+      expect.stringMatching(/commented on/),
+    ]);
     expect(list.body.items[1].url).toMatch(new RegExp(`^/recipes/${recipe.recipe.slug}#comment-`));
     expect((await owner.post('/api/notifications/read', {})).status).toBe(200);
     expect((await owner.get('/api/notifications/unread')).body).toEqual({ unread: 0 });
@@ -99,7 +105,13 @@ describe('notifications by e-mail', () => {
     const recipe = await createRecipeVia(ownerClient);
     await db.transaction(async (tx) => {
       for (const kind of ['comment', 'brewed', 'fork'] as const) {
-        await notify(tx, { userId: owner.id, kind, actorId: actor.id, recipeId: recipe.recipe.id, url: `/recipes/${recipe.recipe.slug}` });
+        await notify(tx, {
+          userId: owner.id,
+          kind,
+          actorId: actor.id,
+          recipeId: recipe.recipe.id,
+          url: `/recipes/${recipe.recipe.slug}`,
+        });
       }
     });
     await flushEmailNotifications();
@@ -108,7 +120,9 @@ describe('notifications by e-mail', () => {
     expect(digest.text).toContain('Busy Brewer forked your recipe');
     expect(JSON.stringify(digest.headers)).toContain(`/api/unsubscribe?token=${owner.id}.all.`);
 
-    await db.transaction((tx) => notify(tx, { userId: owner.id, kind: 'brewed', actorId: actor.id, recipeId: recipe.recipe.id, url: '/' }));
+    await db.transaction((tx) =>
+      notify(tx, { userId: owner.id, kind: 'brewed', actorId: actor.id, recipeId: recipe.recipe.id, url: '/' }),
+    );
     await flushEmailNotifications();
     expect(await pending(owner.id)).toHaveLength(1);
     expect(await mailsTo(owner.email)).toHaveLength(1);

@@ -10,7 +10,9 @@ import { textOf } from './helpers';
 async function waitForSearchHit(q: string, match: (hit: { id: string; stars: number }) => boolean): Promise<void> {
   const deadline = Date.now() + 15_000;
   while (Date.now() < deadline) {
-    const res = await new TestClient().get<{ hits: { id: string; stars: number }[] }>(`/api/search?q=${encodeURIComponent(q)}`);
+    const res = await new TestClient().get<{ hits: { id: string; stars: number }[] }>(
+      `/api/search?q=${encodeURIComponent(q)}`,
+    );
     if (res.status === 200 && res.body.hits.some(match)) return;
     await new Promise((r) => setTimeout(r, 250));
   }
@@ -39,7 +41,10 @@ describe('stars', () => {
     expect((await fan.delete(`/api/recipes/${recipe.recipe.id}/star`)).body).toEqual({ starred: false, starCount: 0 });
     expect((await fan.delete(`/api/recipes/${recipe.recipe.id}/star`)).body).toEqual({ starred: false, starCount: 0 });
     await fan.put(`/api/recipes/${recipe.recipe.id}/star`);
-    const told = await db.select().from(notifications).where(and(eq(notifications.userId, ownerUser.id), eq(notifications.kind, 'star')));
+    const told = await db
+      .select()
+      .from(notifications)
+      .where(and(eq(notifications.userId, ownerUser.id), eq(notifications.kind, 'star')));
     expect(told).toHaveLength(1);
     const page = await (await new TestClient().fetch(`/recipes/${recipe.recipe.slug}`)).text();
     expect(textOf(page)).toContain('Star (1)');
@@ -68,7 +73,14 @@ describe('follows and the feed', () => {
     const fresh = await createRecipeVia(brewer, { document: paleAle({ title: 'Followed Pale' }) });
     await createRecipeVia(brewer, { visibility: 'private', document: paleAle({ title: 'Secret Pale' }) });
     await saveVia(other, watched.recipe.id, watched.version.id, paleAle({ title: 'Watched Bitter' }), 'More hops');
-    await db.insert(brewDays).values({ recipeId: fresh.recipe.id, versionId: fresh.version.id, brewerId: brewerUser.id, brewedOn: '2026-03-01' });
+    await db
+      .insert(brewDays)
+      .values({
+        recipeId: fresh.recipe.id,
+        versionId: fresh.version.id,
+        brewerId: brewerUser.id,
+        brewedOn: '2026-03-01',
+      });
 
     const feed = textOf(await (await reader.fetch('/feed')).text());
     expect(feed).toContain('Followed Pale');
@@ -76,7 +88,10 @@ describe('follows and the feed', () => {
     expect(feed).toContain('brewed Followed Pale (version 1)');
     expect(feed).not.toContain('Secret Pale');
 
-    const told = await db.select().from(notifications).where(and(eq(notifications.userId, readerUser.id), eq(notifications.kind, 'new_recipe')));
+    const told = await db
+      .select()
+      .from(notifications)
+      .where(and(eq(notifications.userId, readerUser.id), eq(notifications.kind, 'new_recipe')));
     expect(told.map((n) => n.recipeId)).toEqual([fresh.recipe.id]);
 
     expect((await reader.delete('/api/follows', { type: 'member', id: brewerUser.id })).status).toBe(200);
@@ -88,11 +103,19 @@ describe('follows and the feed', () => {
     const { client: owner, user: ownerUser } = await signedInClient();
     const { client: forker, user: forkerUser } = await signedInClient();
     const source = await createRecipeVia(owner, { document: paleAle({ title: 'Source Pale' }) });
-    const fork = await forker.post<{ recipe: { slug: string } }>(`/api/versions/${source.version.id}/fork`, { title: 'Forked Pale', visibility: 'public' });
+    const fork = await forker.post<{ recipe: { slug: string } }>(`/api/versions/${source.version.id}/fork`, {
+      title: 'Forked Pale',
+      visibility: 'public',
+    });
     expect(fork.status).toBe(201);
     await forker.put(`/api/recipes/${source.recipe.id}/star`);
-    const told = await db.select().from(notifications).where(and(eq(notifications.userId, ownerUser.id), eq(notifications.kind, 'fork')));
-    expect(told).toMatchObject([{ actorId: forkerUser.id, recipeId: source.recipe.id, url: `/recipes/${fork.body.recipe.slug}` }]);
+    const told = await db
+      .select()
+      .from(notifications)
+      .where(and(eq(notifications.userId, ownerUser.id), eq(notifications.kind, 'fork')));
+    expect(told).toMatchObject([
+      { actorId: forkerUser.id, recipeId: source.recipe.id, url: `/recipes/${fork.body.recipe.slug}` },
+    ]);
 
     const forkerPage = await (await new TestClient().fetch(`/members/${forkerUser.handle}`)).text();
     expect(forkerPage).toContain('Forked Pale');

@@ -23,7 +23,13 @@ async function axeViolations(page: Page): Promise<AxeViolation[]> {
   if (!(await page.evaluate(() => 'axe' in window))) await page.addScriptTag({ path: AXE_SCRIPT });
   return page.evaluate(async () => {
     type Result = {
-      violations: { id: string; impact: string | null; help: string; helpUrl: string; nodes: { target: unknown[]; failureSummary?: string }[] }[];
+      violations: {
+        id: string;
+        impact: string | null;
+        help: string;
+        helpUrl: string;
+        nodes: { target: unknown[]; failureSummary?: string }[];
+      }[];
     };
     const axe = (window as unknown as { axe: { run(context: Document, options: object): Promise<Result> } }).axe;
     const result = await axe.run(document, { resultTypes: ['violations'] });
@@ -32,26 +38,39 @@ async function axeViolations(page: Page): Promise<AxeViolation[]> {
       impact: v.impact,
       help: v.help,
       helpUrl: v.helpUrl,
-      nodes: v.nodes.map((n) => ({ target: n.target.map(String).join(' '), summary: (n.failureSummary ?? '').replace(/\s+/g, ' ') })),
+      nodes: v.nodes.map((n) => ({
+        target: n.target.map(String).join(' '),
+        summary: (n.failureSummary ?? '').replace(/\s+/g, ' '),
+      })),
     }));
   });
 }
 
 function describeViolations(violations: AxeViolation[]): string {
   return violations
-    .map((v) => [`${v.id} (${v.impact}): ${v.help} — ${v.helpUrl}`, ...v.nodes.slice(0, 8).map((n) => `    at ${n.target}: ${n.summary}`)].join('\n'))
+    .map((v) =>
+      [
+        `${v.id} (${v.impact}): ${v.help} — ${v.helpUrl}`,
+        ...v.nodes.slice(0, 8).map((n) => `    at ${n.target}: ${n.summary}`),
+      ].join('\n'),
+    )
     .join('\n');
 }
 
 /** Elements that reach past the right edge of the window, so the page would scroll sideways. */
-async function sidewaysOverflow(page: Page): Promise<{ scrollWidth: number; innerWidth: number; culprits: string[] } | null> {
+async function sidewaysOverflow(
+  page: Page,
+): Promise<{ scrollWidth: number; innerWidth: number; culprits: string[] } | null> {
   return page.evaluate(() => {
     const { scrollWidth } = document.documentElement;
     if (scrollWidth <= window.innerWidth + 1) return null;
     const culprits = [...document.querySelectorAll<HTMLElement>('body *')]
       .filter((el) => el.getBoundingClientRect().right > window.innerWidth + 1)
       .slice(0, 10)
-      .map((el) => `${el.tagName.toLowerCase()}${el.id ? `#${el.id}` : ''}.${String(el.className).split(/\s+/).slice(0, 4).join('.')} right=${Math.round(el.getBoundingClientRect().right)}`);
+      .map(
+        (el) =>
+          `${el.tagName.toLowerCase()}${el.id ? `#${el.id}` : ''}.${String(el.className).split(/\s+/).slice(0, 4).join('.')} right=${Math.round(el.getBoundingClientRect().right)}`,
+      );
     return { scrollWidth, innerWidth: window.innerWidth, culprits };
   });
 }
@@ -126,19 +145,42 @@ beforeAll(async () => {
   owner = ownerSession.client;
   const { client: brewer } = await signedInClient();
   const stamp = Date.now().toString(36);
-  const created = await createRecipeVia(owner, { document: paleAle({ title: `Axe Check Pale Ale ${stamp}` }), message: 'First brew of the season' });
-  const v2doc = paleAle({ title: `Axe Check Pale Ale ${stamp}`, notes: 'A bright, bitter pale ale for **long summer evenings**.' });
+  const created = await createRecipeVia(owner, {
+    document: paleAle({ title: `Axe Check Pale Ale ${stamp}` }),
+    message: 'First brew of the season',
+  });
+  const v2doc = paleAle({
+    title: `Axe Check Pale Ale ${stamp}`,
+    notes: 'A bright, bitter pale ale for **long summer evenings**.',
+  });
   v2doc.hops[1].amountG = 40;
   v2doc.fermentables.push({ name: 'Wheat malt', amountKg: 0.4, potentialPpg: 37, colorLovibond: 3, kind: 'grain' });
   const v2 = await saveVia(owner, created.recipe.id, created.version.id, v2doc, 'More late Cascade and some wheat');
   expect(v2.status).toBe(201);
 
-  const fork = await brewer.post<{ id: string }>(`/api/versions/${v2.body.version.id}/fork`, { title: `Axe Check Fork ${stamp}` });
+  const fork = await brewer.post<{ id: string }>(`/api/versions/${v2.body.version.id}/fork`, {
+    title: `Axe Check Fork ${stamp}`,
+  });
   expect(fork.status).toBe(201);
-  expect((await brewer.post(`/api/recipes/${created.recipe.id}/comments`, { body: 'Brewed this last weekend: lovely **citrus** aroma.' })).status).toBe(201);
+  expect(
+    (
+      await brewer.post(`/api/recipes/${created.recipe.id}/comments`, {
+        body: 'Brewed this last weekend: lovely **citrus** aroma.',
+      })
+    ).status,
+  ).toBe(201);
   expect((await brewer.put(`/api/recipes/${created.recipe.id}/star`)).status).toBeLessThan(300);
   expect((await brewer.post('/api/follows', { type: 'member', id: ownerSession.user.id })).status).toBeLessThan(300);
-  expect((await brewer.post('/api/reports', { targetType: 'recipe', targetId: created.recipe.id, reason: 'other', note: 'Checking how the queue reads.' })).status).toBe(201);
+  expect(
+    (
+      await brewer.post('/api/reports', {
+        targetType: 'recipe',
+        targetId: created.recipe.id,
+        reason: 'other',
+        note: 'Checking how the queue reads.',
+      })
+    ).status,
+  ).toBe(201);
 
   const day = await owner.post<{ id: string }>('/api/brew-days', {
     versionId: v2.body.version.id,
@@ -154,8 +196,27 @@ beforeAll(async () => {
     notes: 'Mash ran a little cool; topped up with **hot water**.',
   });
   expect(day.status).toBe(201);
-  expect((await owner.post(`/api/brew-days/${day.body.id}/readings`, { takenOn: isoDay(-8), method: 'hydrometer', value: 1.02, beerTempC: 18, note: 'Krausen falling' })).status).toBe(201);
-  expect((await owner.post(`/api/brew-days/${day.body.id}/tastings`, { tastedOn: isoDay(-1), aroma: 'Grapefruit and bread crust', overall: 'Clean and bright', rating: 4 })).status).toBe(201);
+  expect(
+    (
+      await owner.post(`/api/brew-days/${day.body.id}/readings`, {
+        takenOn: isoDay(-8),
+        method: 'hydrometer',
+        value: 1.02,
+        beerTempC: 18,
+        note: 'Krausen falling',
+      })
+    ).status,
+  ).toBe(201);
+  expect(
+    (
+      await owner.post(`/api/brew-days/${day.body.id}/tastings`, {
+        tastedOn: isoDay(-1),
+        aroma: 'Grapefruit and bread crust',
+        overall: 'Clean and bright',
+        rating: 4,
+      })
+    ).status,
+  ).toBe(201);
 
   await waitForSearchHit(owner, 'pale', created.recipe.id);
 
@@ -173,7 +234,8 @@ type Rgb = [number, number, number];
 /** The palette's custom properties (`--kf-ink: 33 28 22;`) inside one CSS block. */
 function paletteIn(block: string): Record<string, Rgb> {
   const palette: Record<string, Rgb> = {};
-  for (const [, name, rgb] of block.matchAll(/--kf-([a-z-]+):\s*(\d+ \d+ \d+);/g)) palette[name] = rgb.split(' ').map(Number) as Rgb;
+  for (const [, name, rgb] of block.matchAll(/--kf-([a-z-]+):\s*(\d+ \d+ \d+);/g))
+    palette[name] = rgb.split(' ').map(Number) as Rgb;
   return palette;
 }
 
@@ -199,11 +261,17 @@ function over(colour: Rgb, alpha: number, background: Rgb): Rgb {
 describe('the palette in app/globals.css', () => {
   const css = readFileSync(path.resolve('app/globals.css'), 'utf8');
   const darkStart = css.indexOf('@media (prefers-color-scheme: dark)');
-  const darkButton = css.slice(css.lastIndexOf('@media (prefers-color-scheme: dark)')).match(/\.kf-btn\s*{\s*color:\s*rgb\((\d+) (\d+) (\d+)\)/);
+  const darkButton = css
+    .slice(css.lastIndexOf('@media (prefers-color-scheme: dark)'))
+    .match(/\.kf-btn\s*{\s*color:\s*rgb\((\d+) (\d+) (\d+)\)/);
   const schemes: { name: string; palette: Record<string, Rgb>; buttonText: Rgb }[] = [
     // The light button's text is Tailwind's text-white.
     { name: 'light', palette: paletteIn(css.slice(0, darkStart)), buttonText: [255, 255, 255] },
-    { name: 'dark', palette: paletteIn(css.slice(darkStart)), buttonText: darkButton ? (darkButton.slice(1, 4).map(Number) as Rgb) : [0, 0, 0] },
+    {
+      name: 'dark',
+      palette: paletteIn(css.slice(darkStart)),
+      buttonText: darkButton ? (darkButton.slice(1, 4).map(Number) as Rgb) : [0, 0, 0],
+    },
   ];
 
   it.each(schemes)('keeps WCAG AA contrast for text in the $name scheme', ({ palette, buttonText }) => {
@@ -211,17 +279,30 @@ describe('the palette in app/globals.css', () => {
     const pairs: [string, Rgb, Rgb, number][] = [];
     for (const ground of ['paper', 'card']) {
       // Normal-size text needs 4.5:1 (WCAG 2.1, 1.4.3).
-      for (const ink of ['ink', 'muted', 'copper', 'copper-strong', 'bine', 'danger', 'caution']) pairs.push([`${ink} on ${ground}`, palette[ink], palette[ground], 4.5]);
+      for (const ink of ['ink', 'muted', 'copper', 'copper-strong', 'bine', 'danger', 'caution'])
+        pairs.push([`${ink} on ${ground}`, palette[ink], palette[ground], 4.5]);
       // Badges and notices: coloured text on a wash of its own colour.
       pairs.push([`bine on bine/15 over ${ground}`, palette.bine, over(palette.bine, 0.15, palette[ground]), 4.5]);
-      pairs.push([`danger on danger/10 over ${ground}`, palette.danger, over(palette.danger, 0.1, palette[ground]), 4.5]);
-      pairs.push([`caution on caution/5 over ${ground}`, palette.caution, over(palette.caution, 0.05, palette[ground]), 4.5]);
+      pairs.push([
+        `danger on danger/10 over ${ground}`,
+        palette.danger,
+        over(palette.danger, 0.1, palette[ground]),
+        4.5,
+      ]);
+      pairs.push([
+        `caution on caution/5 over ${ground}`,
+        palette.caution,
+        over(palette.caution, 0.05, palette[ground]),
+        4.5,
+      ]);
       // The focus ring is a non-text indicator: 3:1 (WCAG 2.1, 1.4.11).
       pairs.push([`focus ring (copper) on ${ground}`, palette.copper, palette[ground], 3]);
     }
     pairs.push(['button text on copper', buttonText, palette.copper, 4.5]);
     pairs.push(['button text on copper-strong (hover)', buttonText, palette['copper-strong'], 4.5]);
-    const failing = pairs.filter(([, a, b, needed]) => contrast(a, b) < needed).map(([name, a, b, needed]) => `${name}: ${contrast(a, b).toFixed(2)} < ${needed}`);
+    const failing = pairs
+      .filter(([, a, b, needed]) => contrast(a, b) < needed)
+      .map(([name, a, b, needed]) => `${name}: ${contrast(a, b).toFixed(2)} < ${needed}`);
     expect(failing).toEqual([]);
   });
 });
@@ -258,8 +339,12 @@ for (const colorScheme of ['light', 'dark'] as const) {
           const violations = await axeViolations(s.page);
           const serious = violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
           const minor = violations.filter((v) => !serious.includes(v));
-          if (minor.length > 0) console.log(`${url} (${colorScheme}, ${width} px), minor axe findings:\n${describeViolations(minor)}`);
-          expect(serious.map((v) => v.id), `${url} (${colorScheme}, ${width} px):\n${describeViolations(serious)}`).toEqual([]);
+          if (minor.length > 0)
+            console.log(`${url} (${colorScheme}, ${width} px), minor axe findings:\n${describeViolations(minor)}`);
+          expect(
+            serious.map((v) => v.id),
+            `${url} (${colorScheme}, ${width} px):\n${describeViolations(serious)}`,
+          ).toEqual([]);
 
           if (width < 600) {
             const overflow = await sidewaysOverflow(s.page);

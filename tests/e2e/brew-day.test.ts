@@ -15,10 +15,13 @@ describe('a brew day in a real browser', { timeout: 120_000 }, () => {
   it('logs a brew day from a recipe version, uploads a photo and shows its thumbnail and larger view', async () => {
     const { client } = await signedInClient();
     const saved = await createRecipeVia(client, { document: paleAle({ title: 'Browser brew pale' }) });
-    const session = client.cookieHeader().split('; ').map((pair) => {
-      const eq = pair.indexOf('=');
-      return { name: pair.slice(0, eq), value: pair.slice(eq + 1), url: BASE_URL };
-    });
+    const session = client
+      .cookieHeader()
+      .split('; ')
+      .map((pair) => {
+        const eq = pair.indexOf('=');
+        return { name: pair.slice(0, eq), value: pair.slice(eq + 1), url: BASE_URL };
+      });
     await s.context.addCookies(session);
 
     await s.page.goto(`/recipes/${saved.recipe.slug}`);
@@ -37,7 +40,9 @@ describe('a brew day in a real browser', { timeout: 120_000 }, () => {
     await s.page.getByRole('heading', { name: 'Measured against predicted' }).waitFor();
     expect(await s.page.getByRole('link', { name: 'Safety guide' }).count()).toBeGreaterThan(0);
 
-    await s.page.locator('#photo-file').setInputFiles({ name: 'mash.jpg', mimeType: 'image/jpeg', buffer: await jpeg(1200, 900) });
+    await s.page
+      .locator('#photo-file')
+      .setInputFiles({ name: 'mash.jpg', mimeType: 'image/jpeg', buffer: await jpeg(1200, 900) });
     await s.page.locator('#photo-caption').fill('Mash in');
     await s.page.getByRole('button', { name: 'Upload photo' }).click();
     const thumb = s.page.locator('img[src*="/thumb"]').first();
@@ -63,8 +68,15 @@ describe('a brew day in a real browser', { timeout: 120_000 }, () => {
     await s.page.locator('#reading-value').fill('1.021');
     await s.page.locator('#reading-beerTempC').fill('19');
     await s.page.getByRole('button', { name: 'Add reading' }).click();
-    await s.page.getByRole('figure', { name: /Fermentation chart/ }).locator('svg.recharts-surface').first().waitFor();
-    await s.page.getByText(/Predicted FG 1\.0\d\d/).first().waitFor();
+    await s.page
+      .getByRole('figure', { name: /Fermentation chart/ })
+      .locator('svg.recharts-surface')
+      .first()
+      .waitFor();
+    await s.page
+      .getByText(/Predicted FG 1\.0\d\d/)
+      .first()
+      .waitFor();
     await s.shot('brew-day-chart');
 
     await s.page.setViewportSize({ width: 375, height: 800 });

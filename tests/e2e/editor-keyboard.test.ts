@@ -19,8 +19,17 @@ async function focused(page: Page): Promise<Focused> {
     const el = document.activeElement as HTMLElement | null;
     if (!el || el === document.body) return { id: '', tag: 'body', text: '', outline: 'none', boxShadow: 'none' };
     const style = getComputedStyle(el);
-    const outline = style.outlineStyle === 'none' || parseFloat(style.outlineWidth) === 0 ? 'none' : `${style.outlineStyle} ${style.outlineWidth} ${style.outlineColor}`;
-    return { id: el.id, tag: el.tagName.toLowerCase(), text: (el.textContent ?? '').trim().slice(0, 60), outline, boxShadow: style.boxShadow };
+    const outline =
+      style.outlineStyle === 'none' || parseFloat(style.outlineWidth) === 0
+        ? 'none'
+        : `${style.outlineStyle} ${style.outlineWidth} ${style.outlineColor}`;
+    return {
+      id: el.id,
+      tag: el.tagName.toLowerCase(),
+      text: (el.textContent ?? '').trim().slice(0, 60),
+      outline,
+      boxShadow: style.boxShadow,
+    };
   });
 }
 
@@ -35,7 +44,11 @@ function expectVisibleFocus(f: Focused): void {
 }
 
 /** Presses Tab (or Shift+Tab) until `arrived` holds, checking at every step that focus is visible. */
-async function tabUntil(page: Page, arrived: (f: Focused) => boolean, opts: { backwards?: boolean; maxSteps?: number } = {}): Promise<Focused> {
+async function tabUntil(
+  page: Page,
+  arrived: (f: Focused) => boolean,
+  opts: { backwards?: boolean; maxSteps?: number } = {},
+): Promise<Focused> {
   const key = opts.backwards ? 'Shift+Tab' : 'Tab';
   const path: string[] = [];
   for (let step = 0; step < (opts.maxSteps ?? 250); step += 1) {
@@ -72,7 +85,11 @@ describe('the recipe editor from the keyboard alone', { timeout: 180_000 }, () =
     const cookies = client
       .cookieHeader()
       .split('; ')
-      .map((pair) => ({ name: pair.slice(0, pair.indexOf('=')), value: pair.slice(pair.indexOf('=') + 1), url: BASE_URL }));
+      .map((pair) => ({
+        name: pair.slice(0, pair.indexOf('=')),
+        value: pair.slice(pair.indexOf('=') + 1),
+        url: BASE_URL,
+      }));
     await s.context.addCookies(cookies);
     const { page } = s;
     await page.goto(`/recipes/${created.recipe.slug}/edit`, { waitUntil: 'networkidle' });

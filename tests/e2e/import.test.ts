@@ -35,15 +35,21 @@ describe('importing a recipe file and printing its brew sheet in a real browser'
     await s.page.waitForURL(/\/recipes\/dry-stout-/);
     savedUrl = s.page.url();
     await s.page.getByRole('heading', { level: 1, name: 'Dry Stout' }).waitFor();
-    for (const name of ['BeerXML', 'BeerJSON', 'JSON']) expect(await s.page.getByRole('link', { name, exact: true }).count()).toBe(1);
+    for (const name of ['BeerXML', 'BeerJSON', 'JSON'])
+      expect(await s.page.getByRole('link', { name, exact: true }).count()).toBe(1);
     expect(s.problems).toEqual([]);
   });
 
   it('shows a message naming the problem for an unsafe file', async () => {
     await s.page.goto('/import');
-    await s.page.getByLabel('Or paste its text').fill('<?xml version="1.0"?><!DOCTYPE r [<!ENTITY x SYSTEM "file:///etc/passwd">]><RECIPES/>');
+    await s.page
+      .getByLabel('Or paste its text')
+      .fill('<?xml version="1.0"?><!DOCTYPE r [<!ENTITY x SYSTEM "file:///etc/passwd">]><RECIPES/>');
     await s.page.getByRole('button', { name: 'Preview' }).click();
-    await s.page.getByRole('alert').filter({ hasText: /DOCTYPE/ }).waitFor();
+    await s.page
+      .getByRole('alert')
+      .filter({ hasText: /DOCTYPE/ })
+      .waitFor();
     // The refused preview answers 400; nothing else may fail.
     expect(s.problems.filter((p) => !/^HTTP 400: .*\/api\/import$/.test(p))).toEqual([]);
     s.problems.length = 0;

@@ -39,7 +39,9 @@ describe('the moderator story in a real browser', { timeout: 120_000 }, () => {
     moderator = await createUser({ role: 'moderator', name: 'Mod on Duty' });
     const client = new TestClient();
     await client.signIn(spammer.email, TEST_PASSWORD);
-    spam = await createRecipeVia(client, { document: paleAle({ title, notes: 'Buy watches at [our shop](https://deals.example/watches)' }) });
+    spam = await createRecipeVia(client, {
+      document: paleAle({ title, notes: 'Buy watches at [our shop](https://deals.example/watches)' }),
+    });
     await waitForSearch(word, (ids) => ids.includes(spam.recipe.id));
   });
 
@@ -54,7 +56,9 @@ describe('the moderator story in a real browser', { timeout: 120_000 }, () => {
     await member.page.goto(`/recipes/${spam.recipe.slug}`);
     await member.page.getByRole('button', { name: 'Report this recipe' }).click();
     await member.page.getByLabel('Why are you reporting this recipe?').selectOption('spam');
-    await member.page.getByLabel('Anything the moderators should know (optional)').fill('Advertises watches; not a beer.');
+    await member.page
+      .getByLabel('Anything the moderators should know (optional)')
+      .fill('Advertises watches; not a beer.');
     await member.shot('moderation-report-form');
     await member.page.getByRole('button', { name: 'Send report' }).click();
     await member.page.getByText('Reported', { exact: true }).waitFor();

@@ -67,7 +67,9 @@ describe('finding recipes in a real browser', { timeout: 120_000 }, () => {
 
     // Back once more undoes the ABV range.
     await page.goBack();
-    await page.waitForURL((url) => url.searchParams.get('abvMin') === null && url.searchParams.get('hop') === 'Cascade');
+    await page.waitForURL(
+      (url) => url.searchParams.get('abvMin') === null && url.searchParams.get('hop') === 'Cascade',
+    );
     await expect.poll(() => heading().textContent()).toBe('2 recipes');
 
     // The shared address, opened afresh, shows the same search.
@@ -104,7 +106,9 @@ describe('finding recipes in a real browser', { timeout: 120_000 }, () => {
       expect(await phone.page.getByRole('heading', { name: 'Hops', exact: true }).isVisible()).toBe(false);
       await toggle.click();
       await phone.page.getByRole('heading', { name: 'Hops', exact: true }).waitFor();
-      const overflow = await phone.page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+      const overflow = await phone.page.evaluate(
+        () => document.documentElement.scrollWidth - document.documentElement.clientWidth,
+      );
       expect(overflow).toBeLessThanOrEqual(0);
       await phone.shot('search-phone');
       expect(phone.problems).toEqual([]);

@@ -19,7 +19,9 @@ export interface BrowserSession {
  * Debian's Chromium driven by playwright-core, with a fresh profile each launch. Every console error, page error and failed
  * request is collected in `problems`, which a test expects to stay empty.
  */
-export async function openBrowser(opts: { width?: number; height?: number; colorScheme?: 'light' | 'dark' } = {}): Promise<BrowserSession> {
+export async function openBrowser(
+  opts: { width?: number; height?: number; colorScheme?: 'light' | 'dark' } = {},
+): Promise<BrowserSession> {
   const browser = await chromium.launch({
     executablePath: '/usr/bin/chromium',
     headless: true,
@@ -44,18 +46,23 @@ export async function openBrowser(opts: { width?: number; height?: number; color
   const goto = page.goto.bind(page);
   page.goto = async (url, options) => {
     const response = await goto(url, options);
-    await page.locator('html[data-hydrated]').waitFor({ state: 'attached', timeout: 15_000 }).catch(() => undefined);
+    await page
+      .locator('html[data-hydrated]')
+      .waitFor({ state: 'attached', timeout: 15_000 })
+      .catch(() => undefined);
     return response;
   };
   const problems: string[] = [];
   page.on('console', (msg) => {
     // Failed responses are recorded with their URL below; the browser's own line for them adds nothing.
-    if (msg.type() === 'error' && !msg.text().startsWith('Failed to load resource')) problems.push(`console: ${msg.text()}`);
+    if (msg.type() === 'error' && !msg.text().startsWith('Failed to load resource'))
+      problems.push(`console: ${msg.text()}`);
   });
   page.on('pageerror', (err) => problems.push(`page error: ${err.message}`));
   page.on('requestfailed', (req) => {
     // A navigation away cancels in-flight requests; that is not a failure of the page.
-    if (req.failure()?.errorText !== 'net::ERR_ABORTED') problems.push(`request failed: ${req.url()} ${req.failure()?.errorText}`);
+    if (req.failure()?.errorText !== 'net::ERR_ABORTED')
+      problems.push(`request failed: ${req.url()} ${req.failure()?.errorText}`);
   });
   page.on('response', (res) => {
     if (res.status() >= 400) problems.push(`HTTP ${res.status()}: ${res.url()}`);

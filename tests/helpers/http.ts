@@ -67,7 +67,12 @@ export class TestClient {
     return res;
   }
 
-  async json<T = Record<string, unknown>>(method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<JsonResponse<T>> {
+  async json<T = Record<string, unknown>>(
+    method: string,
+    path: string,
+    body?: unknown,
+    headers: Record<string, string> = {},
+  ): Promise<JsonResponse<T>> {
     const res = await this.fetch(path, {
       method,
       headers: body === undefined ? headers : { 'content-type': 'application/json', ...headers },

@@ -2,7 +2,11 @@ import type { StoredMessage } from '@/lib/mail/fake/server';
 import { MAIL_OUTBOX_URL } from './env';
 
 /** Waits until the mail fake holds a message to `to` matching `match`, and returns it. */
-export async function waitForMail(to: string, match: (m: StoredMessage) => boolean = () => true, timeoutMs = 10_000): Promise<StoredMessage> {
+export async function waitForMail(
+  to: string,
+  match: (m: StoredMessage) => boolean = () => true,
+  timeoutMs = 10_000,
+): Promise<StoredMessage> {
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
     const res = await fetch(`${MAIL_OUTBOX_URL}/messages?to=${encodeURIComponent(to)}`);

@@ -14,7 +14,9 @@ export function uniqueEmail(prefix = 'brewer'): string {
 }
 
 /** Inserts a member straight into the test database (the password is TEST_PASSWORD). */
-export async function createUser(opts: { role?: User['role']; name?: string; suspended?: boolean } = {}): Promise<User> {
+export async function createUser(
+  opts: { role?: User['role']; name?: string; suspended?: boolean } = {},
+): Promise<User> {
   cachedHash ??= hashPassword(TEST_PASSWORD);
   const email = uniqueEmail(opts.role ?? 'member');
   const [user] = await db

@@ -5,7 +5,8 @@ import { TestClient } from '../helpers/http';
 import { createRecipeVia, paleAle } from '../helpers/recipes';
 import { signedInClient } from '../helpers/users';
 
-const example = (name: string) => readFileSync(new URL(`../../lib/interchange/examples/${name}`, import.meta.url), 'utf8');
+const example = (name: string) =>
+  readFileSync(new URL(`../../lib/interchange/examples/${name}`, import.meta.url), 'utf8');
 
 interface Preview {
   format: string;
@@ -52,16 +53,36 @@ describe('POST /api/import', () => {
   describe('refuses bad files with a message naming the problem, and creates nothing', () => {
     const cases: [string, string, RegExp][] = [
       ['malformed XML', '<RECIPES>\n<RECIPE><NAME>Half</RECIPE>\n</RECIPES>', /malformed.*line 2/i],
-      ['an external entity (XXE)', '<?xml version="1.0"?>\n<!DOCTYPE r [<!ENTITY x SYSTEM "file:///etc/passwd">]>\n<RECIPES><RECIPE><NAME>&x;</NAME></RECIPE></RECIPES>', /DOCTYPE/],
+      [
+        'an external entity (XXE)',
+        '<?xml version="1.0"?>\n<!DOCTYPE r [<!ENTITY x SYSTEM "file:///etc/passwd">]>\n<RECIPES><RECIPE><NAME>&x;</NAME></RECIPE></RECIPES>',
+        /DOCTYPE/,
+      ],
       [
         'entity expansion (billion laughs)',
         `<?xml version="1.0"?><!DOCTYPE lolz [<!ENTITY lol "lol">${Array.from({ length: 9 }, (_, i) => `<!ENTITY lol${i + 1} "${`&lol${i || ''};`.repeat(10)}">`).join('')}]><RECIPES><RECIPE><NAME>&lol9;</NAME></RECIPE></RECIPES>`,
         /DOCTYPE/,
       ],
-      ['a negative amount', example('beerxml-spec-dry-stout.xml').replace('<AMOUNT>0.0638</AMOUNT>', '<AMOUNT>-0.0638</AMOUNT>'), /HOP 1 \(Goldings, East Kent\) › AMOUNT: must not be negative/],
-      ['BeerJSON that fails its schema', example('beerjson-spec-pale-ale.json').replace('"batch_size"', '"batch_volume"'), /batch_size: is required by the BeerJSON 1\.0 schema/],
-      ['an unknown unit', example('beerjson-spec-pale-ale.json').replace('"unit": "lb", "value": 10', '"unit": "stone", "value": 10'), /fermentable_additions\[0\]\.amount\.unit: "stone" is not allowed/],
-      ['a negative BeerJSON amount', example('beerjson-spec-pale-ale.json').replace('"unit": "oz", "value": 12', '"unit": "oz", "value": -12'), /Crystal 40\)\.amount: must not be negative/],
+      [
+        'a negative amount',
+        example('beerxml-spec-dry-stout.xml').replace('<AMOUNT>0.0638</AMOUNT>', '<AMOUNT>-0.0638</AMOUNT>'),
+        /HOP 1 \(Goldings, East Kent\) › AMOUNT: must not be negative/,
+      ],
+      [
+        'BeerJSON that fails its schema',
+        example('beerjson-spec-pale-ale.json').replace('"batch_size"', '"batch_volume"'),
+        /batch_size: is required by the BeerJSON 1\.0 schema/,
+      ],
+      [
+        'an unknown unit',
+        example('beerjson-spec-pale-ale.json').replace('"unit": "lb", "value": 10', '"unit": "stone", "value": 10'),
+        /fermentable_additions\[0\]\.amount\.unit: "stone" is not allowed/,
+      ],
+      [
+        'a negative BeerJSON amount',
+        example('beerjson-spec-pale-ale.json').replace('"unit": "oz", "value": 12', '"unit": "oz", "value": -12'),
+        /Crystal 40\)\.amount: must not be negative/,
+      ],
     ];
     for (const [what, text, message] of cases) {
       it(what, async () => {
@@ -99,7 +120,9 @@ describe('GET /api/versions/[id]/export and the round trip back in', () => {
       const saved = await createRecipeVia(client, { document: original, visibility: 'private' });
       const res = await client.fetch(`/api/versions/${saved.version.id}/export?format=${format}`);
       expect(res.status).toBe(200);
-      expect(res.headers.get('content-disposition')).toBe(`attachment; filename="round-trip-pale-v1.${format === 'beerxml' ? 'xml' : 'beer.json'}"`);
+      expect(res.headers.get('content-disposition')).toBe(
+        `attachment; filename="round-trip-pale-v1.${format === 'beerxml' ? 'xml' : 'beer.json'}"`,
+      );
       const text = await res.text();
       const preview = await client.post<Preview>('/api/import', { text });
       expect(preview.status).toBe(200);
@@ -111,17 +134,23 @@ describe('GET /api/versions/[id]/export and the round trip back in', () => {
       expect(back.stats.srm).toBeCloseTo(stats.srm, 4);
 
       // Saving reuses the recipe routes: a new recipe, then a new version of it.
-      const created = await client.post<{ recipe: { id: string }; version: { id: string; number: number } }>('/api/recipes', {
-        document: back.document,
-        visibility: 'private',
-        message: 'Imported',
-      });
+      const created = await client.post<{ recipe: { id: string }; version: { id: string; number: number } }>(
+        '/api/recipes',
+        {
+          document: back.document,
+          visibility: 'private',
+          message: 'Imported',
+        },
+      );
       expect(created.status).toBe(201);
-      const version = await client.post<{ version: { number: number } }>(`/api/recipes/${created.body.recipe.id}/versions`, {
-        document: { ...back.document, notes: 'Second import' },
-        baseVersionId: created.body.version.id,
-        message: 'Imported again',
-      });
+      const version = await client.post<{ version: { number: number } }>(
+        `/api/recipes/${created.body.recipe.id}/versions`,
+        {
+          document: { ...back.document, notes: 'Second import' },
+          baseVersionId: created.body.version.id,
+          message: 'Imported again',
+        },
+      );
       expect(version.status).toBe(201);
       expect(version.body.version.number).toBe(2);
     });

@@ -17,7 +17,6 @@ const RUN_SECONDS = 50;
 /** The e-mail sender loop's period for this run (30 s in service), so the SMTP outage fits in seconds. */
 const EMAIL_LOOP_MS = 2_000;
 
-
 execFileSync('bash', ['scripts/db.sh', 'start'], { stdio: 'inherit' });
 db('drop', 'kettlefork_faults');
 db('create', 'kettlefork_faults');
@@ -66,10 +65,14 @@ try {
   const brewer = new TestClient('10.9.0.1');
   if (!(await brewer.signIn('wren@kettlefork.test', 'mash-paddle-demo'))) throw new Error('demo sign-in failed');
   const mine = (await brewer.get<{ recipes: { id: string; slug: string }[] }>('/api/recipes?owner=wren')).body.recipes;
-  const pages = (await brewer.get<{ recipes: { slug: string }[] }>('/api/recipes')).body.recipes.map((r) => `/recipes/${r.slug}`);
+  const pages = (await brewer.get<{ recipes: { slug: string }[] }>('/api/recipes')).body.recipes.map(
+    (r) => `/recipes/${r.slug}`,
+  );
   const target = mine[0];
-  let head = (await brewer.get<{ recipe: { headVersionId: string } }>(`/api/recipes/${target.id}`)).body.recipe.headVersionId;
-  const document = (await brewer.get<{ version: { document: Record<string, unknown> } }>(`/api/versions/${head}`)).body.version.document;
+  let head = (await brewer.get<{ recipe: { headVersionId: string } }>(`/api/recipes/${target.id}`)).body.recipe
+    .headVersionId;
+  const document = (await brewer.get<{ version: { document: Record<string, unknown> } }>(`/api/versions/${head}`)).body
+    .version.document;
 
   // For the SMTP outage: a member who has never been e-mailed (so no digest interval holds their
   // next message back) and owns a public recipe, and another member who comments on it. E-mails
@@ -86,7 +89,8 @@ try {
   await setup.end();
   if (!recipient) throw new Error('no demo member without e-mails to notify');
   const commenter = new TestClient('10.9.4.1');
-  const commenterEmail = recipient.email === 'kofi@kettlefork.test' ? 'juniper@kettlefork.test' : 'kofi@kettlefork.test';
+  const commenterEmail =
+    recipient.email === 'kofi@kettlefork.test' ? 'juniper@kettlefork.test' : 'kofi@kettlefork.test';
   if (!(await commenter.signIn(commenterEmail, 'mash-paddle-demo'))) throw new Error('commenter sign-in failed');
   const mailOutage = { comments: 0, pending: 0, tried: false, received: 0, sentRows: 0 };
 
@@ -101,7 +105,8 @@ try {
     try {
       const res = await run();
       const text = await res.clone().text();
-      if (res.status >= 500 && /\bat .+\.(js|ts):\d+|node_modules/.test(text)) stackLeaks.push(`${label} ${res.status}`);
+      if (res.status >= 500 && /\bat .+\.(js|ts):\d+|node_modules/.test(text))
+        stackLeaks.push(`${label} ${res.status}`);
       const key = `${label} ${res.status}`;
       statuses.set(key, (statuses.get(key) ?? 0) + 1);
       return res;
@@ -116,12 +121,16 @@ try {
 
   const reader = async (n: number) => {
     const client = new TestClient(`10.9.1.${n}`);
-    for (let i = 0; Date.now() < deadline; i++) await timed('page', () => client.fetch(pages[(i + n) % pages.length], { signal: AbortSignal.timeout(15_000) }));
+    for (let i = 0; Date.now() < deadline; i++)
+      await timed('page', () => client.fetch(pages[(i + n) % pages.length], { signal: AbortSignal.timeout(15_000) }));
   };
   const searcher = async (n: number) => {
     const client = new TestClient(`10.9.2.${n}`);
     const words = ['pale', 'stout', 'kveik', 'saaz', 'ipa', 'porter'];
-    for (let i = 0; Date.now() < deadline; i++) await timed('search', () => client.fetch(`/api/search?q=${words[(i + n) % words.length]}`, { signal: AbortSignal.timeout(15_000) }));
+    for (let i = 0; Date.now() < deadline; i++)
+      await timed('search', () =>
+        client.fetch(`/api/search?q=${words[(i + n) % words.length]}`, { signal: AbortSignal.timeout(15_000) }),
+      );
   };
   const saver = async () => {
     for (let i = 0; Date.now() < deadline; i++) {
@@ -129,7 +138,11 @@ try {
         brewer.fetch(`/api/recipes/${target.id}/versions`, {
           method: 'POST',
           headers: { 'content-type': 'application/json' },
-          body: JSON.stringify({ document: { ...document, notes: `load save ${i}` }, baseVersionId: head, message: `load save ${i}` }),
+          body: JSON.stringify({
+            document: { ...document, notes: `load save ${i}` },
+            baseVersionId: head,
+            message: `load save ${i}`,
+          }),
           signal: AbortSignal.timeout(15_000),
         }),
       );
@@ -138,7 +151,9 @@ try {
         savedIds.push(body.version.id);
         head = body.version.id;
       } else if (res?.status === 409) {
-        head = (await brewer.get<{ recipe: { headVersionId: string } }>(`/api/recipes/${target.id}`)).body.recipe.headVersionId ?? head;
+        head =
+          (await brewer.get<{ recipe: { headVersionId: string } }>(`/api/recipes/${target.id}`)).body.recipe
+            .headVersionId ?? head;
       } else {
         await sleep(200);
       }
@@ -170,7 +185,9 @@ try {
     const tags: string[] = [];
     for (let i = 1; i <= 3; i++) {
       const tag = `mail-outage-${i}-${Date.now().toString(36)}`;
-      const res = await commenter.post(`/api/recipes/${recipient.recipeId}/comments`, { body: `How long did you cold crash this one? (${tag})` });
+      const res = await commenter.post(`/api/recipes/${recipient.recipeId}/comments`, {
+        body: `How long did you cold crash this one? (${tag})`,
+      });
       if (res.status === 201) tags.push(tag);
       else console.log(`comment answered ${res.status}`);
     }
@@ -222,7 +239,10 @@ try {
   const unexpected = [...statuses.keys()].filter((k) => /\b5\d\d$/.test(k) && !k.endsWith(' 503') && k !== 'page 500');
   check(unexpected.length === 0, `outage answers were 503, not other 5xx (${unexpected.join(', ') || 'none'})`);
   const caughtMidRender = statuses.get('page 500') ?? 0;
-  check(caughtMidRender <= 20, `only pages caught mid-render by the outage ended on the error page (${caughtMidRender})`);
+  check(
+    caughtMidRender <= 20,
+    `only pages caught mid-render by the outage ended on the error page (${caughtMidRender})`,
+  );
   check((statuses.get('page 503') ?? 0) > 0, 'pages answered 503 during the database outage');
 
   await waitFor(`${BASE}/api/health`, 30);
@@ -231,8 +251,14 @@ try {
 
   const client = new Client({ connectionString: databaseUrl });
   await client.connect();
-  const found = savedIds.length ? (await client.query('select count(*)::int as n from recipe_versions where id = any($1::uuid[])', [savedIds])).rows[0].n : 0;
-  check(savedIds.length > 0 && found === savedIds.length, `every save that answered 2xx is in the database (${found} of ${savedIds.length})`);
+  const found = savedIds.length
+    ? (await client.query('select count(*)::int as n from recipe_versions where id = any($1::uuid[])', [savedIds]))
+        .rows[0].n
+    : 0;
+  check(
+    savedIds.length > 0 && found === savedIds.length,
+    `every save that answered 2xx is in the database (${found} of ${savedIds.length})`,
+  );
 
   let pending = -1;
   for (let i = 0; i < 60; i++) {
@@ -247,14 +273,19 @@ try {
     hits = await new TestClient('10.9.3.2').get<{ total: number }>('/api/search?q=pale');
     await sleep(1_000);
   }
-  check(hits.status === 200 && hits.body.total > 1, `search answers again with the whole index rebuilt (${hits.status}, ${hits.body.total} hits for "pale")`);
+  check(
+    hits.status === 200 && hits.body.total > 1,
+    `search answers again with the whole index rebuilt (${hits.status}, ${hits.body.total} hits for "pale")`,
+  );
 
   check(
     mailOutage.comments === 3 && mailOutage.tried && mailOutage.pending === mailOutage.comments,
     `notification e-mails wait while SMTP is down (${mailOutage.pending} pending, tried and kept with their error)`,
   );
   check(
-    mailOutage.comments > 0 && mailOutage.received === mailOutage.comments && mailOutage.sentRows >= mailOutage.comments,
+    mailOutage.comments > 0 &&
+      mailOutage.received === mailOutage.comments &&
+      mailOutage.sentRows >= mailOutage.comments,
     `they are delivered when it returns (${mailOutage.received} received)`,
   );
 } catch (err) {

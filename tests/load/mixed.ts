@@ -34,7 +34,20 @@ const API_READ_P95_TARGET_MS = 100;
 const REQUEST_TIMEOUT_MS = 30_000;
 const WARMUP_SECONDS = 5;
 /** Demo members who own recipes; savers sign in as these, one each, and save to their own recipe. */
-const SAVER_HANDLES = ['wren', 'kofi', 'ilse', 'hollis', 'marisol', 'dov', 'agnieszka', 'bastian', 'juniper', 'tamsin', 'rufus', 'ottoline'];
+const SAVER_HANDLES = [
+  'wren',
+  'kofi',
+  'ilse',
+  'hollis',
+  'marisol',
+  'dov',
+  'agnieszka',
+  'bastian',
+  'juniper',
+  'tamsin',
+  'rufus',
+  'ottoline',
+];
 const DEMO_PASSWORD = 'mash-paddle-demo';
 
 /** Searches as readers type them: words, ingredient and style filters, ranges, sorts and later pages. */
@@ -120,7 +133,6 @@ interface RecipeTarget {
 
 type Recorder = (route: string, kind: RouteKind, ms: number | null, status: number) => void;
 
-
 /** A small seeded generator, so a run's request sequence is the same every time. */
 function rng(seed: number): () => number {
   let a = seed >>> 0;
@@ -143,7 +155,10 @@ function envNumber(name: string, fallback: number): number {
 }
 
 function runNode(args: string[], env: NodeJS.ProcessEnv): void {
-  execFileSync('node', ['--conditions=react-server', '--import', 'tsx', ...args], { env, stdio: ['ignore', 'pipe', 'inherit'] });
+  execFileSync('node', ['--conditions=react-server', '--import', 'tsx', ...args], {
+    env,
+    stdio: ['ignore', 'pipe', 'inherit'],
+  });
 }
 
 function build(env: NodeJS.ProcessEnv): void {
@@ -151,7 +166,11 @@ function build(env: NodeJS.ProcessEnv): void {
     execFileSync('npx', ['next', 'build'], { env, stdio: ['ignore', 'pipe', 'pipe'], maxBuffer: 64 * 2 ** 20 });
   } catch (err) {
     const e = err as { stdout?: Buffer; stderr?: Buffer };
-    const tail = `${e.stdout?.toString() ?? ''}\n${e.stderr?.toString() ?? ''}`.trim().split('\n').slice(-40).join('\n');
+    const tail = `${e.stdout?.toString() ?? ''}\n${e.stderr?.toString() ?? ''}`
+      .trim()
+      .split('\n')
+      .slice(-40)
+      .join('\n');
     throw new Error(`next build failed:\n${tail}`);
   }
 }
@@ -176,7 +195,8 @@ function cpuSeconds(groups: Record<string, number>): Record<string, number> {
     const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
     const pgid = Number(fields[2]);
     const ticks = Number(fields[11]) + Number(fields[12]);
-    const group = Object.entries(groups).find(([, id]) => id === pgid)?.[0] ?? (comm === 'postgres' ? 'PostgreSQL' : null);
+    const group =
+      Object.entries(groups).find(([, id]) => id === pgid)?.[0] ?? (comm === 'postgres' ? 'PostgreSQL' : null);
     if (group) totals[group] += ticks / hz;
   }
   const own = process.cpuUsage();
@@ -193,7 +213,11 @@ class RawReader {
     return new Promise((resolve, reject) => {
       const req = http.get(
         `${BASE}${path}`,
-        { agent: this.agent, headers: { 'accept-encoding': 'gzip', 'x-forwarded-for': this.address }, timeout: REQUEST_TIMEOUT_MS },
+        {
+          agent: this.agent,
+          headers: { 'accept-encoding': 'gzip', 'x-forwarded-for': this.address },
+          timeout: REQUEST_TIMEOUT_MS,
+        },
         (res) => {
           res.on('data', () => undefined);
           res.on('end', () => resolve(res.statusCode ?? 0));
@@ -270,11 +294,17 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
       .values({ email: 'loadbrewer@kettlefork.test', handle: 'loadbrewer', name: 'Load Brewer' })
       .returning({ id: schema.users.id });
     await bulkLoadRecipes(drizzleDb, { ownerId: owner.id, recipes: generated, versionsPerRecipe, slugPrefix: 'load' });
-    await pool.query(`insert into search_outbox (recipe_id) select r.id from recipes r where r.owner_id = $1`, [owner.id]);
+    await pool.query(`insert into search_outbox (recipe_id) select r.id from recipes r where r.owner_id = $1`, [
+      owner.id,
+    ]);
     log(`load: generated recipes in ${((performance.now() - loadStart) / 1000).toFixed(1)} s`);
 
     await sql.connect();
-    const dataset = (await sql.query('select (select count(*)::int from recipes) as recipes, (select count(*)::int from recipe_versions) as versions')).rows[0] as {
+    const dataset = (
+      await sql.query(
+        'select (select count(*)::int from recipes) as recipes, (select count(*)::int from recipe_versions) as versions',
+      )
+    ).rows[0] as {
       recipes: number;
       versions: number;
     };
@@ -290,14 +320,19 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
     const demoRecipes = targets.filter((t) => t.ownerHandle !== 'loadbrewer');
     const members = [...new Set(targets.map((t) => t.ownerHandle))];
     if (generatedRecipes.length !== generated || demoRecipes.length === 0) {
-      throw new Error(`expected ${generated} generated and some demo recipes, found ${generatedRecipes.length} and ${demoRecipes.length}`);
+      throw new Error(
+        `expected ${generated} generated and some demo recipes, found ${generatedRecipes.length} and ${demoRecipes.length}`,
+      );
     }
 
     if (opts.build ?? process.env.KF_LOAD_BUILD !== 'skip') {
       log(`load: building into ${DIST_DIR}`);
       build(env);
     }
-    groups['app (all workers)'] = startChild(['scripts/serve.mjs', '-H', '127.0.0.1', '-p', String(APP_PORT)], env).pid!;
+    groups['app (all workers)'] = startChild(
+      ['scripts/serve.mjs', '-H', '127.0.0.1', '-p', String(APP_PORT)],
+      env,
+    ).pid!;
     await waitFor(`${BASE}/api/health`, 120);
 
     // The search index must hold the generated recipes before anything is measured.
@@ -308,22 +343,35 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
       indexed = res.status === 200 ? (res.body.total ?? 0) : 0;
       if (indexed < generated) await sleep(500);
     }
-    if (indexed < generated) throw new Error(`search reports ${indexed} of ${generated} generated recipes after 2 minutes`);
+    if (indexed < generated)
+      throw new Error(`search reports ${indexed} of ${generated} generated recipes after 2 minutes`);
     log(`load: search holds the ${generated} generated recipes`);
 
     // Savers: each signs in as a demo member, from an address of its own, and saves to their own recipe.
     const saverHandles = SAVER_HANDLES.filter((h) => demoRecipes.some((r) => r.ownerHandle === h)).slice(0, savers);
-    if (saverHandles.length < savers) throw new Error(`only ${saverHandles.length} demo members with recipes to save as, need ${savers}`);
+    if (saverHandles.length < savers)
+      throw new Error(`only ${saverHandles.length} demo members with recipes to save as, need ${savers}`);
     const saved: string[] = [];
     const saverStates = await Promise.all(
       saverHandles.map(async (handle, n) => {
         const client = new TestClient(`10.96.3.${n + 1}`);
-        if (!(await client.signIn(`${handle}@kettlefork.test`, DEMO_PASSWORD))) throw new Error(`sign-in as ${handle} failed`);
+        if (!(await client.signIn(`${handle}@kettlefork.test`, DEMO_PASSWORD)))
+          throw new Error(`sign-in as ${handle} failed`);
         const recipe = demoRecipes.find((r) => r.ownerHandle === handle)!;
         const head = await client.get<{ recipe: { headVersionId: string } }>(`/api/recipes/${recipe.id}`);
-        const version = await client.get<{ version: { document: Record<string, unknown> } }>(`/api/versions/${head.body.recipe.headVersionId}`);
-        if (head.status !== 200 || version.status !== 200) throw new Error(`could not load ${handle}'s recipe (${head.status}, ${version.status})`);
-        return { client, handle, recipeId: recipe.id, head: head.body.recipe.headVersionId, document: version.body.version.document, n: 0 };
+        const version = await client.get<{ version: { document: Record<string, unknown> } }>(
+          `/api/versions/${head.body.recipe.headVersionId}`,
+        );
+        if (head.status !== 200 || version.status !== 200)
+          throw new Error(`could not load ${handle}'s recipe (${head.status}, ${version.status})`);
+        return {
+          client,
+          handle,
+          recipeId: recipe.id,
+          head: head.body.recipe.headVersionId,
+          document: version.body.version.document,
+          n: 0,
+        };
       }),
     );
 
@@ -367,7 +415,13 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
      * node:http on a kept-alive socket of their own, asking for gzip as a browser does but leaving
      * the bytes compressed: the generator shares the cores with the app, so it spends as little as it can.
      */
-    async function read(client: RawReader, route: string, kind: RouteKind, path: string, record: Recorder): Promise<void> {
+    async function read(
+      client: RawReader,
+      route: string,
+      kind: RouteKind,
+      path: string,
+      record: Recorder,
+    ): Promise<void> {
       const t = performance.now();
       try {
         const status = await client.get(path);
@@ -380,39 +434,83 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
     const recipeFor = (r: () => number) => (r() < 0.6 ? pick(generatedRecipes, r) : pick(demoRecipes, r));
 
     /** Page readers: recipe pages most, then version pages and searches, then the home page and members. */
-    const pageSchedule = ['recipe', 'recipe', 'recipe', 'recipe', 'version', 'version', 'search', 'search', 'home', 'member'] as const;
+    const pageSchedule = [
+      'recipe',
+      'recipe',
+      'recipe',
+      'recipe',
+      'version',
+      'version',
+      'search',
+      'search',
+      'home',
+      'member',
+    ] as const;
     async function pageReader(n: number, until: number, record: Recorder): Promise<void> {
       const client = new RawReader(`10.96.1.${n + 1}`);
       const r = rng(1000 + n);
       for (let i = n; Date.now() < until; i++) {
         const step = pageSchedule[i % pageSchedule.length];
-        if (step === 'recipe') await read(client, 'page /recipes/[slug]', 'page', `/recipes/${recipeFor(r).slug}`, record);
+        if (step === 'recipe')
+          await read(client, 'page /recipes/[slug]', 'page', `/recipes/${recipeFor(r).slug}`, record);
         else if (step === 'version') {
           const recipe = recipeFor(r);
-          await read(client, 'page /recipes/[slug]/v/[number]', 'page', `/recipes/${recipe.slug}/v/${1 + Math.floor(r() * recipe.headNumber)}`, record);
-        } else if (step === 'search') await read(client, 'page /search', 'page', `/search?${pick(SEARCHES, r)}`, record);
+          await read(
+            client,
+            'page /recipes/[slug]/v/[number]',
+            'page',
+            `/recipes/${recipe.slug}/v/${1 + Math.floor(r() * recipe.headNumber)}`,
+            record,
+          );
+        } else if (step === 'search')
+          await read(client, 'page /search', 'page', `/search?${pick(SEARCHES, r)}`, record);
         else if (step === 'home') await read(client, 'page /', 'page', '/', record);
         else await read(client, 'page /members/[handle]', 'page', `/members/${pick(members, r)}`, record);
       }
     }
 
     /** API readers: searches most, then a recipe, a version and a comparison. */
-    const apiSchedule = ['search', 'search', 'search', 'search', 'recipe', 'recipe', 'version', 'version', 'compare', 'compare'] as const;
+    const apiSchedule = [
+      'search',
+      'search',
+      'search',
+      'search',
+      'recipe',
+      'recipe',
+      'version',
+      'version',
+      'compare',
+      'compare',
+    ] as const;
     async function apiReader(n: number, until: number, record: Recorder): Promise<void> {
       const client = new RawReader(`10.96.2.${n + 1}`);
       const r = rng(2000 + n);
       for (let i = n; Date.now() < until; i++) {
         const step = apiSchedule[i % apiSchedule.length];
-        if (step === 'search') await read(client, 'api GET /api/search', 'api read', `/api/search?${pick(SEARCHES, r)}`, record);
-        else if (step === 'recipe') await read(client, 'api GET /api/recipes/[id]', 'api read', `/api/recipes/${recipeFor(r).id}`, record);
+        if (step === 'search')
+          await read(client, 'api GET /api/search', 'api read', `/api/search?${pick(SEARCHES, r)}`, record);
+        else if (step === 'recipe')
+          await read(client, 'api GET /api/recipes/[id]', 'api read', `/api/recipes/${recipeFor(r).id}`, record);
         else if (step === 'version') {
           const recipe = recipeFor(r);
-          await read(client, 'api GET /api/versions/[id]', 'api read', `/api/versions/${r() < 0.5 ? recipe.firstVersionId : recipe.headVersionId}`, record);
+          await read(
+            client,
+            'api GET /api/versions/[id]',
+            'api read',
+            `/api/versions/${r() < 0.5 ? recipe.firstVersionId : recipe.headVersionId}`,
+            record,
+          );
         } else {
           // Half compare a recipe's first version with its head, half two different recipes.
           const a = recipeFor(r);
           const b = r() < 0.5 ? a : recipeFor(r);
-          await read(client, 'api GET /api/compare', 'api read', `/api/compare?a=${a.firstVersionId}&b=${b.headVersionId}`, record);
+          await read(
+            client,
+            'api GET /api/compare',
+            'api read',
+            `/api/compare?a=${a.firstVersionId}&b=${b.headVersionId}`,
+            record,
+          );
         }
       }
     }
@@ -439,7 +537,9 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
       if (ms !== null) entry.ms.push(ms);
       entry.statuses.set(status, (entry.statuses.get(status) ?? 0) + 1);
     };
-    log(`load: ${clientCount} clients (${pageReaders} page readers, ${apiReaders} API readers, ${savers} savers) for ${seconds} s`);
+    log(
+      `load: ${clientCount} clients (${pageReaders} page readers, ${apiReaders} API readers, ${savers} savers) for ${seconds} s`,
+    );
     const cpuBefore = cpuSeconds(groups);
     const started = performance.now();
     const until = Date.now() + seconds * 1000;
@@ -452,8 +552,15 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
     const cpuAfter = cpuSeconds(groups);
     const cpu = Object.fromEntries(Object.keys(cpuAfter).map((k) => [k, round(cpuAfter[k] - (cpuBefore[k] ?? 0), 1)]));
 
-    const targetFor = (kind: RouteKind) => (kind === 'page' ? PAGE_P95_TARGET_MS : kind === 'api read' ? API_READ_P95_TARGET_MS : null);
-    const rowOf = (route: string, kind: LoadRow['kind'], ms: number[], statuses: Map<number, number>, target: number | null): LoadRow => {
+    const targetFor = (kind: RouteKind) =>
+      kind === 'page' ? PAGE_P95_TARGET_MS : kind === 'api read' ? API_READ_P95_TARGET_MS : null;
+    const rowOf = (
+      route: string,
+      kind: LoadRow['kind'],
+      ms: number[],
+      statuses: Map<number, number>,
+      target: number | null,
+    ): LoadRow => {
       let serverErrors = 0;
       let otherNon2xx = 0;
       let noAnswer = 0;
@@ -483,20 +590,35 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
     const kindOrder: RouteKind[] = ['page', 'api read', 'write'];
     const rows = [...latencies]
       .map(([route, e]) => rowOf(route, e.kind, e.ms, e.statuses, targetFor(e.kind)))
-      .sort((a, b) => kindOrder.indexOf(a.kind as RouteKind) - kindOrder.indexOf(b.kind as RouteKind) || a.route.localeCompare(b.route));
+      .sort(
+        (a, b) =>
+          kindOrder.indexOf(a.kind as RouteKind) - kindOrder.indexOf(b.kind as RouteKind) ||
+          a.route.localeCompare(b.route),
+      );
     const allStatuses = new Map<number, number>();
-    for (const e of latencies.values()) for (const [s, n] of e.statuses) allStatuses.set(s, (allStatuses.get(s) ?? 0) + n);
-    const total = rowOf('all requests', 'all', [...latencies.values()].flatMap((e) => e.ms), allStatuses, null);
+    for (const e of latencies.values())
+      for (const [s, n] of e.statuses) allStatuses.set(s, (allStatuses.get(s) ?? 0) + n);
+    const total = rowOf(
+      'all requests',
+      'all',
+      [...latencies.values()].flatMap((e) => e.ms),
+      allStatuses,
+      null,
+    );
 
     // Every save that answered 2xx must be in the database.
-    const found = saved.length ? (await sql.query('select count(*)::int as n from recipe_versions where id = any($1::uuid[])', [saved])).rows[0].n : 0;
+    const found = saved.length
+      ? (await sql.query('select count(*)::int as n from recipe_versions where id = any($1::uuid[])', [saved])).rows[0]
+          .n
+      : 0;
 
     const problems: string[] = [];
     for (const row of rows) {
       if (row.serverErrors) problems.push(`${row.route}: ${row.serverErrors} answers with a 5xx status`);
       if (row.noAnswer) problems.push(`${row.route}: ${row.noAnswer} requests without an answer`);
     }
-    if (saved.length === 0 || found !== saved.length) problems.push(`saves: ${found} of ${saved.length} that answered 2xx are in the database`);
+    if (saved.length === 0 || found !== saved.length)
+      problems.push(`saves: ${found} of ${saved.length} that answered 2xx are in the database`);
 
     const result: Omit<LoadResult, 'markdown'> = {
       rows,
@@ -522,7 +644,8 @@ const fmt = (n: number) => (Number.isNaN(n) ? '–' : n.toLocaleString('en-GB'))
 export function renderLoadReport(result: Omit<LoadResult, 'markdown'>): string {
   const cpus = os.cpus();
   const { clients, dataset } = result;
-  const targetText = (row: LoadRow) => (row.kind === 'all' ? '' : row.targetP95Ms === null ? 'no 5xx' : `p95 < ${row.targetP95Ms} ms, no 5xx`);
+  const targetText = (row: LoadRow) =>
+    row.kind === 'all' ? '' : row.targetP95Ms === null ? 'no 5xx' : `p95 < ${row.targetP95Ms} ms, no 5xx`;
   const verdict = (row: LoadRow) => (row.kind === 'all' ? '' : row.met ? 'met' : '**missed**');
   const line = (row: LoadRow) =>
     `| ${row.kind === 'all' ? '**all requests**' : `\`${row.route}\``} | ${fmt(row.count)} | ${fmt(row.perSecond)} | ${fmt(row.p50)} | ${fmt(row.p95)} | ${fmt(row.p99)} | ${row.serverErrors} | ${row.otherNon2xx} | ${row.noAnswer} | ${targetText(row)} | ${verdict(row)} |`;
@@ -544,7 +667,9 @@ export function renderLoadReport(result: Omit<LoadResult, 'markdown'>): string {
     ...result.rows.map(line),
     line(result.total),
     '',
-    result.problems.length ? `Broken: ${result.problems.join('; ')}.` : 'No 5xx answers, every request answered, every 2xx save in the database.',
+    result.problems.length
+      ? `Broken: ${result.problems.join('; ')}.`
+      : 'No 5xx answers, every request answered, every 2xx save in the database.',
     '',
     `Where the cores went during the measured ${result.cpu.seconds} s (${result.cpu.cores} cores, so ${round(result.cpu.seconds * result.cpu.cores, 1)} CPU-seconds in all), from /proc:`,
     '',
@@ -552,7 +677,10 @@ export function renderLoadReport(result: Omit<LoadResult, 'markdown'>): string {
     '|---|---:|---:|',
     ...Object.entries(result.cpu.byProcess)
       .sort((a, b) => b[1] - a[1])
-      .map(([name, sec]) => `| ${name} | ${sec} | ${Math.round((100 * sec) / (result.cpu.seconds * result.cpu.cores))} % |`),
+      .map(
+        ([name, sec]) =>
+          `| ${name} | ${sec} | ${Math.round((100 * sec) / (result.cpu.seconds * result.cpu.cores))} % |`,
+      ),
     '',
   ].join('\n');
 }

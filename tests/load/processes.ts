@@ -5,7 +5,10 @@ import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
 export const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 /** scripts/db.sh with arguments; its output, trimmed. */
-export const db = (...args: string[]) => execFileSync('bash', ['scripts/db.sh', ...args]).toString().trim();
+export const db = (...args: string[]) =>
+  execFileSync('bash', ['scripts/db.sh', ...args])
+    .toString()
+    .trim();
 
 const children = new Set<ChildProcess>();
 
@@ -49,7 +52,13 @@ export async function stopChildren(): Promise<void> {
 /** Waits until `url` answers below 500, for at most `seconds`. */
 export async function waitFor(url: string, seconds: number): Promise<void> {
   for (let i = 0; i < seconds * 4; i++) {
-    if (await fetch(url).then((r) => r.status < 500, () => false)) return;
+    if (
+      await fetch(url).then(
+        (r) => r.status < 500,
+        () => false,
+      )
+    )
+      return;
     await sleep(250);
   }
   throw new Error(`${url} did not come up within ${seconds} s`);

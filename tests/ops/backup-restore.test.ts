@@ -30,10 +30,17 @@ async function query<T>(url: string, text: string, values: unknown[] = []): Prom
 
 /** Row counts of every table, and one checksum over every version's document. */
 async function fingerprint(url: string) {
-  const tables = await query<{ name: string }>(url, `select tablename as name from pg_tables where schemaname = 'public' order by 1`);
+  const tables = await query<{ name: string }>(
+    url,
+    `select tablename as name from pg_tables where schemaname = 'public' order by 1`,
+  );
   const counts: Record<string, number> = {};
-  for (const { name } of tables) counts[name] = (await query<{ n: number }>(url, `select count(*)::int as n from "${name}"`))[0].n;
-  const [{ sum }] = await query<{ sum: string }>(url, `select md5(coalesce(string_agg(id::text || document::text, '|' order by id), '')) as sum from recipe_versions`);
+  for (const { name } of tables)
+    counts[name] = (await query<{ n: number }>(url, `select count(*)::int as n from "${name}"`))[0].n;
+  const [{ sum }] = await query<{ sum: string }>(
+    url,
+    `select md5(coalesce(string_agg(id::text || document::text, '|' order by id), '')) as sum from recipe_versions`,
+  );
   return { counts, versionsChecksum: sum };
 }
 

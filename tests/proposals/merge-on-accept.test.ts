@@ -13,7 +13,11 @@ async function viewOf(client: Parameters<typeof proposalTo>[0], id: string): Pro
 }
 
 /** The owner saves a change on top of the version the fork came from, so the head moves. */
-async function moveHead(client: Parameters<typeof proposalTo>[0], p: Awaited<ReturnType<typeof proposalTo>>, change: (d: RecipeDocumentInput) => void) {
+async function moveHead(
+  client: Parameters<typeof proposalTo>[0],
+  p: Awaited<ReturnType<typeof proposalTo>>,
+  change: (d: RecipeDocumentInput) => void,
+) {
   const doc = paleAle();
   change(doc);
   const saved = await saveVia(client, p.source.recipe.id, p.source.version.id, doc, 'Owner’s own change');
@@ -39,14 +43,18 @@ describe('accepting after the source moved on (three-way merge)', () => {
     expect(page).toContain('has moved on since the fork');
 
     // Reviewed against the old head: refused like any save, nothing written.
-    const stale = await owner.client.post<ApiError>(`/api/proposals/${p.id}/accept`, { sourceHeadVersionId: p.source.version.id });
+    const stale = await owner.client.post<ApiError>(`/api/proposals/${p.id}/accept`, {
+      sourceHeadVersionId: p.source.version.id,
+    });
     expect(stale.status).toBe(409);
     expect(stale.body.error.message).toMatch(/Version 2 .* was saved after the one you reviewed/);
     expect(stale.body.error.details?.head?.number).toBe(2);
     const [still] = await db.select().from(proposals).where(eq(proposals.id, p.id));
     expect(still.status).toBe('open');
 
-    const res = await owner.client.post<{ version: { id: string; number: number } }>(`/api/proposals/${p.id}/accept`, { sourceHeadVersionId: head.id });
+    const res = await owner.client.post<{ version: { id: string; number: number } }>(`/api/proposals/${p.id}/accept`, {
+      sourceHeadVersionId: head.id,
+    });
     expect(res.status).toBe(201);
     expect(res.body.version.number).toBe(3);
     const doc = await documentOf(res.body.version.id);
@@ -63,30 +71,55 @@ describe('accepting after the source moved on (three-way merge)', () => {
       d.notes = 'Owner’s notes.';
     });
     const view = await viewOf(owner.client, p.id);
-    expect(view.conflicts.map((c) => c.path).sort()).toEqual(['fermentation.steps[0].days', 'fermentation.steps[0].tempC']);
-    expect(view.conflicts.find((c) => c.path === 'fermentation.steps[0].tempC')).toEqual({ path: 'fermentation.steps[0].tempC', base: 18, ours: 19, theirs: 32 });
+    expect(view.conflicts.map((c) => c.path).sort()).toEqual([
+      'fermentation.steps[0].days',
+      'fermentation.steps[0].tempC',
+    ]);
+    expect(view.conflicts.find((c) => c.path === 'fermentation.steps[0].tempC')).toEqual({
+      path: 'fermentation.steps[0].tempC',
+      base: 18,
+      ours: 19,
+      theirs: 32,
+    });
     // The fork removed the second fermentation step, the owner too: no conflict there.
     const page = await (await owner.client.fetch(`/proposals/${p.id}`)).text();
     expect(page).toContain('Fermentation step 1 · tempC');
 
-    const missing = await owner.client.post<ApiError>(`/api/proposals/${p.id}/accept`, { sourceHeadVersionId: head.id, picks: { 'fermentation.steps[0].tempC': 'theirs' } });
+    const missing = await owner.client.post<ApiError>(`/api/proposals/${p.id}/accept`, {
+      sourceHeadVersionId: head.id,
+      picks: { 'fermentation.steps[0].tempC': 'theirs' },
+    });
     expect(missing.status).toBe(400);
-    expect(missing.body.error.fields).toEqual([{ path: 'picks.fermentation.steps[0].days', message: expect.stringContaining('Choose which side') }]);
+    expect(missing.body.error.fields).toEqual([
+      { path: 'picks.fermentation.steps[0].days', message: expect.stringContaining('Choose which side') },
+    ]);
 
     const stray = await owner.client.post<ApiError>(`/api/proposals/${p.id}/accept`, {
       sourceHeadVersionId: head.id,
-      picks: { 'fermentation.steps[0].tempC': 'theirs', 'fermentation.steps[0].days': 'theirs', 'batch.volumeL': 'ours' },
+      picks: {
+        'fermentation.steps[0].tempC': 'theirs',
+        'fermentation.steps[0].days': 'theirs',
+        'batch.volumeL': 'ours',
+      },
     });
     expect(stray.status).toBe(400);
-    expect(stray.body.error.fields).toEqual([{ path: 'picks.batch.volumeL', message: expect.stringContaining('not a conflict') }]);
+    expect(stray.body.error.fields).toEqual([
+      { path: 'picks.batch.volumeL', message: expect.stringContaining('not a conflict') },
+    ]);
 
-    const badSide = await owner.client.post<ApiError>(`/api/proposals/${p.id}/accept`, { sourceHeadVersionId: head.id, picks: { notes: 'both' } });
+    const badSide = await owner.client.post<ApiError>(`/api/proposals/${p.id}/accept`, {
+      sourceHeadVersionId: head.id,
+      picks: { notes: 'both' },
+    });
     expect(badSide.status).toBe(400);
     expect(badSide.body.error.fields?.[0].path).toBe('picks.notes');
 
     const [untouched] = await db.select().from(proposals).where(eq(proposals.id, p.id));
     expect(untouched.status).toBe('open');
-    const versions = await db.select({ id: recipeVersions.id }).from(recipeVersions).where(eq(recipeVersions.recipeId, p.source.recipe.id));
+    const versions = await db
+      .select({ id: recipeVersions.id })
+      .from(recipeVersions)
+      .where(eq(recipeVersions.recipeId, p.source.recipe.id));
     expect(versions).toHaveLength(2);
 
     const res = await owner.client.post<{ version: { id: string } }>(`/api/proposals/${p.id}/accept`, {
@@ -108,12 +141,19 @@ describe('accepting after the source moved on (three-way merge)', () => {
       d.fermentables = d.fermentables.filter((f) => f.name !== 'Munich malt');
     });
     const proposerDoc = { ...(await documentOf(p.proposedVersion.id)) };
-    proposerDoc.fermentables = proposerDoc.fermentables.map((f) => (f.name === 'Munich malt' ? { ...f, amountKg: 0.6 } : f));
+    proposerDoc.fermentables = proposerDoc.fermentables.map((f) =>
+      f.name === 'Munich malt' ? { ...f, amountKg: 0.6 } : f,
+    );
     const newer = await saveVia(p.proposer.client, p.fork.recipe.id, p.proposedVersion.id, proposerDoc, 'More Munich');
-    expect((await p.proposer.client.patch(`/api/proposals/${p.id}`, { versionId: newer.body.version.id })).status).toBe(200);
+    expect((await p.proposer.client.patch(`/api/proposals/${p.id}`, { versionId: newer.body.version.id })).status).toBe(
+      200,
+    );
     const view = await viewOf(owner.client, p.id);
     expect(view.conflicts.map((c) => c.path)).toEqual(['fermentables[munich malt]']);
-    const res = await owner.client.post<{ version: { id: string } }>(`/api/proposals/${p.id}/accept`, { sourceHeadVersionId: head.id, picks: { 'fermentables[munich malt]': 'theirs' } });
+    const res = await owner.client.post<{ version: { id: string } }>(`/api/proposals/${p.id}/accept`, {
+      sourceHeadVersionId: head.id,
+      picks: { 'fermentables[munich malt]': 'theirs' },
+    });
     expect(res.status).toBe(201);
     const doc = await documentOf(res.body.version.id);
     expect(doc.fermentables.find((f) => f.name === 'Munich malt')?.amountKg).toBe(0.6);

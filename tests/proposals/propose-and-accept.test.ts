@@ -31,10 +31,16 @@ describe('proposing a fork’s version back to its source', () => {
     const owner = await signedInClient();
     const p = await proposalTo(owner.client);
 
-    const told = await db.select().from(notifications).where(and(eq(notifications.userId, owner.user.id), eq(notifications.kind, 'proposal')));
+    const told = await db
+      .select()
+      .from(notifications)
+      .where(and(eq(notifications.userId, owner.user.id), eq(notifications.kind, 'proposal')));
     expect(told).toHaveLength(1);
     expect(told[0].url).toBe(`/proposals/${p.id}`);
-    const queued = await db.select().from(notificationEmails).where(and(eq(notificationEmails.userId, owner.user.id), eq(notificationEmails.kind, 'proposal')));
+    const queued = await db
+      .select()
+      .from(notificationEmails)
+      .where(and(eq(notificationEmails.userId, owner.user.id), eq(notificationEmails.kind, 'proposal')));
     expect(queued).toHaveLength(1);
     await flushEmailNotifications();
     const mail = await waitForMail(owner.user.email, (m) => /proposed a change/.test(m.text));
@@ -48,7 +54,9 @@ describe('proposing a fork’s version back to its source', () => {
       fg: { method: 'hydrometer', value: 1.009 },
     });
     expect(brew.status).toBe(201);
-    expect((await p.proposer.client.post(`/api/proposals/${p.id}/comments`, { body: 'Try it at **32 °C**.' })).status).toBe(201);
+    expect(
+      (await p.proposer.client.post(`/api/proposals/${p.id}/comments`, { body: 'Try it at **32 °C**.' })).status,
+    ).toBe(201);
 
     const view = await viewOf(owner.client, p.id);
     expect(view.proposal.status).toBe('open');
@@ -81,18 +89,26 @@ describe('proposing a fork’s version back to its source', () => {
     // Listed for both members and on both recipes.
     const mine = await owner.client.get<{ incoming: { id: string }[]; outgoing: { id: string }[] }>('/api/proposals');
     expect(mine.body.incoming.map((i) => i.id)).toContain(p.id);
-    const theirs = await p.proposer.client.get<{ incoming: { id: string }[]; outgoing: { id: string }[] }>('/api/proposals?direction=outgoing');
+    const theirs = await p.proposer.client.get<{ incoming: { id: string }[]; outgoing: { id: string }[] }>(
+      '/api/proposals?direction=outgoing',
+    );
     expect(theirs.body.outgoing.map((i) => i.id)).toEqual([p.id]);
     expect(theirs.body.incoming).toEqual([]);
-    expect(textOf(await (await new TestClient().fetch(`/recipes/${p.source.recipe.slug}`)).text())).toContain('Proposals (1 open)');
-    expect(textOf(await (await new TestClient().fetch(`/recipes/${p.fork.recipe.slug}`)).text())).toContain('Offered from this fork');
+    expect(textOf(await (await new TestClient().fetch(`/recipes/${p.source.recipe.slug}`)).text())).toContain(
+      'Proposals (1 open)',
+    );
+    expect(textOf(await (await new TestClient().fetch(`/recipes/${p.fork.recipe.slug}`)).text())).toContain(
+      'Offered from this fork',
+    );
     expect(textOf(await (await owner.client.fetch('/proposals')).text())).toContain('To your recipes (1)');
   });
 
   it('accepts in one step: a new version with the proposed document, the proposer credited, the proposal closed and the proposer told', async () => {
     const owner = await signedInClient();
     const p = await proposalTo(owner.client);
-    const res = await owner.client.post<{ version: { id: string; number: number } }>(`/api/proposals/${p.id}/accept`, { sourceHeadVersionId: p.source.version.id });
+    const res = await owner.client.post<{ version: { id: string; number: number } }>(`/api/proposals/${p.id}/accept`, {
+      sourceHeadVersionId: p.source.version.id,
+    });
     expect(res.status).toBe(201);
     expect(res.body.version.number).toBe(2);
 
@@ -106,7 +122,10 @@ describe('proposing a fork’s version back to its source', () => {
 
     const [row] = await db.select().from(proposals).where(eq(proposals.id, p.id));
     expect(row).toMatchObject({ status: 'accepted', acceptedVersionId: version.id, decidedById: owner.user.id });
-    const told = await db.select().from(notifications).where(and(eq(notifications.userId, proposerUser.id), eq(notifications.kind, 'proposal_decision')));
+    const told = await db
+      .select()
+      .from(notifications)
+      .where(and(eq(notifications.userId, proposerUser.id), eq(notifications.kind, 'proposal_decision')));
     expect(told.map((n) => n.excerpt)).toEqual([expect.stringContaining('Accepted as version 2')]);
 
     const history = textOf(await (await new TestClient().fetch(`/recipes/${p.source.recipe.slug}/history`)).text());
@@ -118,32 +137,55 @@ describe('proposing a fork’s version back to its source', () => {
   it('declines with a comment the proposer reads', async () => {
     const owner = await signedInClient();
     const p = await proposalTo(owner.client);
-    const res = await owner.client.post(`/api/proposals/${p.id}/decision`, { decision: 'declined', comment: 'I like the clean yeast here.' });
+    const res = await owner.client.post(`/api/proposals/${p.id}/decision`, {
+      decision: 'declined',
+      comment: 'I like the clean yeast here.',
+    });
     expect(res.status).toBe(201);
     const view = await viewOf(p.proposer.client, p.id);
     expect(view.proposal).toMatchObject({ status: 'declined', decisionComment: 'I like the clean yeast here.' });
     expect(view.can.withdraw).toBe(false);
     const proposerUser = (await p.proposer.client.me())!;
-    const told = await db.select().from(notifications).where(and(eq(notifications.userId, proposerUser.id), eq(notifications.kind, 'proposal_decision')));
+    const told = await db
+      .select()
+      .from(notifications)
+      .where(and(eq(notifications.userId, proposerUser.id), eq(notifications.kind, 'proposal_decision')));
     expect(told.map((n) => n.excerpt)).toEqual(['Declined: I like the clean yeast here.']);
   });
 
   it('asks for changes; the proposer offers a newer version of the fork, and that is what gets accepted', async () => {
     const owner = await signedInClient();
     const p = await proposalTo(owner.client);
-    expect((await owner.client.post(`/api/proposals/${p.id}/decision`, { decision: 'changes_requested', comment: 'Could you keep the dry hop?' })).status).toBe(201);
+    expect(
+      (
+        await owner.client.post(`/api/proposals/${p.id}/decision`, {
+          decision: 'changes_requested',
+          comment: 'Could you keep the dry hop?',
+        })
+      ).status,
+    ).toBe(201);
     expect((await viewOf(p.proposer.client, p.id)).proposal.status).toBe('changes_requested');
 
-    const newer = await saveVia(p.proposer.client, p.fork.recipe.id, p.proposedVersion.id, { ...kveikChange(), notes: 'Kveik, dry hop kept.' }, 'Notes for the owner');
+    const newer = await saveVia(
+      p.proposer.client,
+      p.fork.recipe.id,
+      p.proposedVersion.id,
+      { ...kveikChange(), notes: 'Kveik, dry hop kept.' },
+      'Notes for the owner',
+    );
     expect(newer.status).toBe(201);
     const proposerView = await viewOf(p.proposer.client, p.id);
     expect(proposerView.newerVersions.map((v) => v.number)).toEqual([newer.body.version.number]);
-    expect((await p.proposer.client.patch(`/api/proposals/${p.id}`, { versionId: newer.body.version.id })).status).toBe(200);
+    expect((await p.proposer.client.patch(`/api/proposals/${p.id}`, { versionId: newer.body.version.id })).status).toBe(
+      200,
+    );
     const view = await viewOf(owner.client, p.id);
     expect(view.proposal.status).toBe('open');
     expect(view.proposed!.number).toBe(newer.body.version.number);
 
-    const res = await owner.client.post<{ version: { id: string } }>(`/api/proposals/${p.id}/accept`, { sourceHeadVersionId: p.source.version.id });
+    const res = await owner.client.post<{ version: { id: string } }>(`/api/proposals/${p.id}/accept`, {
+      sourceHeadVersionId: p.source.version.id,
+    });
     expect(res.status).toBe(201);
     const [version] = await db.select().from(recipeVersions).where(eq(recipeVersions.id, res.body.version.id));
     expect((version.document as { notes: string }).notes).toBe('Kveik, dry hop kept.');
@@ -153,7 +195,9 @@ describe('proposing a fork’s version back to its source', () => {
     const owner = await signedInClient();
     const p = await proposalTo(owner.client);
     expect((await p.proposer.client.post(`/api/proposals/${p.id}/withdraw`)).status).toBe(201);
-    const res = await owner.client.post<ApiError>(`/api/proposals/${p.id}/accept`, { sourceHeadVersionId: p.source.version.id });
+    const res = await owner.client.post<ApiError>(`/api/proposals/${p.id}/accept`, {
+      sourceHeadVersionId: p.source.version.id,
+    });
     expect(res.status).toBe(409);
     expect(res.body.error.message).toMatch(/already withdrawn/);
   });
@@ -169,7 +213,11 @@ describe('proposing a fork’s version back to its source', () => {
     const res = await proposeVia(proposer.client, saved.body.version.id, { sourceRecipeId: source.recipe.id });
     expect(res.status).toBe(201);
     const [row] = await db.select().from(proposals).where(eq(proposals.id, res.body.id));
-    expect(row).toMatchObject({ sourceRecipeId: source.recipe.id, baseVersionId: source.version.id, forkRecipeId: fork.recipe.id });
+    expect(row).toMatchObject({
+      sourceRecipeId: source.recipe.id,
+      baseVersionId: source.version.id,
+      forkRecipeId: fork.recipe.id,
+    });
     // Left out, the target is the recipe the fork came from directly.
     const direct = await proposeVia(proposer.client, saved.body.version.id);
     expect(direct.status).toBe(201);

@@ -24,10 +24,16 @@ describe('who can see and change a recipe', () => {
       for (const path of reads) {
         const res = await viewer.get<{ error: { message: string } }>(path);
         expect(res.status, path).toBe(404);
-        const missingRes = await viewer.get<{ error: { message: string } }>(path.replaceAll(priv.recipe.id, missing).replaceAll(priv.version.id, missing));
+        const missingRes = await viewer.get<{ error: { message: string } }>(
+          path.replaceAll(priv.recipe.id, missing).replaceAll(priv.version.id, missing),
+        );
         expect(res.body.error.message, path).toBe(missingRes.body.error.message);
       }
-      const pages = [`/recipes/${priv.recipe.slug}`, `/recipes/${priv.recipe.slug}/history`, `/recipes/${priv.recipe.slug}/v/1`];
+      const pages = [
+        `/recipes/${priv.recipe.slug}`,
+        `/recipes/${priv.recipe.slug}/history`,
+        `/recipes/${priv.recipe.slug}/v/1`,
+      ];
       for (const path of pages) expect((await viewer.fetch(path)).status, path).toBe(404);
     }
     for (const viewer of [other, moderator]) {
@@ -44,7 +50,9 @@ describe('who can see and change a recipe', () => {
     await createRecipeVia(owner, { visibility: 'unlisted', document: paleAle({ title: 'Link Only Ale' }) });
     await createRecipeVia(owner, { visibility: 'public', document: paleAle({ title: 'Open Door Ale' }) });
     const titles = async (c: TestClient) =>
-      ((await c.get<{ recipes: { title: string }[] }>(`/api/recipes?owner=${user.handle}`)).body.recipes ?? []).map((r) => r.title).sort();
+      ((await c.get<{ recipes: { title: string }[] }>(`/api/recipes?owner=${user.handle}`)).body.recipes ?? [])
+        .map((r) => r.title)
+        .sort();
     expect(await titles(new TestClient())).toEqual(['Open Door Ale']);
     expect(await titles(owner)).toEqual(['Link Only Ale', 'Open Door Ale', 'Secret Stash Ale']);
   });

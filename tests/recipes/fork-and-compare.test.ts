@@ -21,7 +21,9 @@ describe('forks, lineage and compare', () => {
     const child = await fork(b, v2.body.version.id, 'Hillside, kveik take');
     const grandchild = await fork(c, child.version.id, 'Hillside, kveik take, hotter');
 
-    const lineage = await new TestClient().get<{ recipes: LineageRecipe[] }>(`/api/recipes/${grandchild.recipe.id}/lineage`);
+    const lineage = await new TestClient().get<{ recipes: LineageRecipe[] }>(
+      `/api/recipes/${grandchild.recipe.id}/lineage`,
+    );
     expect(lineage.status).toBe(200);
     const byId = new Map(lineage.body.recipes.map((r) => [r.id, r]));
     expect(byId.get(source.recipe.id)?.depth).toBe(0);
@@ -33,7 +35,9 @@ describe('forks, lineage and compare', () => {
 
     const src = await new TestClient().get<{ recipe: { forkCount: number } }>(`/api/recipes/${source.recipe.id}`);
     expect(src.body.recipe.forkCount).toBe(1);
-    const firstOfFork = await new TestClient().get<{ version: { parentVersionId: string } }>(`/api/versions/${child.version.id}`);
+    const firstOfFork = await new TestClient().get<{ version: { parentVersionId: string } }>(
+      `/api/versions/${child.version.id}`,
+    );
     expect(firstOfFork.body.version.parentVersionId).toBe(v2.body.version.id);
   });
 
@@ -59,7 +63,9 @@ describe('forks, lineage and compare', () => {
     changed.hops.push({ name: 'Cascade, late', amountG: 10, alphaPct: 6, use: 'boil', timeMin: 5, form: 'pellet' });
     const v2 = await saveVia(b, forked.recipe.id, forked.version.id, changed, 'Kveik, hotter mash');
 
-    const res = await new TestClient().get<{ comparison: DocumentComparison }>(`/api/compare?a=${source.version.id}&b=${v2.body.version.id}`);
+    const res = await new TestClient().get<{ comparison: DocumentComparison }>(
+      `/api/compare?a=${source.version.id}&b=${v2.body.version.id}`,
+    );
     expect(res.status).toBe(200);
     const { sections, stats, notes } = res.body.comparison;
     const yeasts = sections.find((s) => s.section === 'yeasts')!.items;
@@ -83,7 +89,9 @@ describe('forks, lineage and compare', () => {
   it('refuses a fork without a title with a field message', async () => {
     const { client: a } = await signedInClient();
     const source = await createRecipeVia(a);
-    const res = await a.post<{ error: { fields: { path: string }[] } }>(`/api/versions/${source.version.id}/fork`, { title: '  ' });
+    const res = await a.post<{ error: { fields: { path: string }[] } }>(`/api/versions/${source.version.id}/fork`, {
+      title: '  ',
+    });
     expect(res.status).toBe(400);
     expect(res.body.error.fields[0].path).toBe('title');
   });

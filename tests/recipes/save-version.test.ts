@@ -24,7 +24,11 @@ describe('saving versions', () => {
     const [recipe] = await db.select().from(recipes).where(eq(recipes.id, created.recipe.id));
     expect(recipe.headVersionId).toBe(v3.body.version.id);
     expect(recipe.headNumber).toBe(3);
-    const rows = await db.select().from(recipeVersions).where(eq(recipeVersions.recipeId, created.recipe.id)).orderBy(asc(recipeVersions.number));
+    const rows = await db
+      .select()
+      .from(recipeVersions)
+      .where(eq(recipeVersions.recipeId, created.recipe.id))
+      .orderBy(asc(recipeVersions.number));
     expect(rows.map((r) => r.number)).toEqual([1, 2, 3]);
     expect(rows[2].parentVersionId).toBe(rows[1].id);
     for (const row of rows) {
@@ -47,7 +51,10 @@ describe('saving versions', () => {
     expect(stale.status).toBe(409);
     expect(stale.body.error?.code).toBe('conflict');
     expect(stale.body.error?.details?.head).toMatchObject({ id: v2.body.version.id, number: 2 });
-    const count = await db.select({ n: sql<number>`count(*)::int` }).from(recipeVersions).where(eq(recipeVersions.recipeId, created.recipe.id));
+    const count = await db
+      .select({ n: sql<number>`count(*)::int` })
+      .from(recipeVersions)
+      .where(eq(recipeVersions.recipeId, created.recipe.id));
     expect(count[0].n).toBe(2);
   });
 
@@ -55,12 +62,18 @@ describe('saving versions', () => {
     const { client } = await signedInClient();
     const created = await createRecipeVia(client);
     const results = await Promise.all(
-      Array.from({ length: 20 }, (_, i) => saveVia(client, created.recipe.id, created.version.id, paleAle({ notes: `attempt ${i}` }), `attempt ${i}`)),
+      Array.from({ length: 20 }, (_, i) =>
+        saveVia(client, created.recipe.id, created.version.id, paleAle({ notes: `attempt ${i}` }), `attempt ${i}`),
+      ),
     );
     const statuses = results.map((r) => r.status).sort();
     expect(statuses.filter((s) => s === 201)).toHaveLength(1);
     expect(statuses.filter((s) => s === 409)).toHaveLength(19);
-    const rows = await db.select().from(recipeVersions).where(eq(recipeVersions.recipeId, created.recipe.id)).orderBy(asc(recipeVersions.number));
+    const rows = await db
+      .select()
+      .from(recipeVersions)
+      .where(eq(recipeVersions.recipeId, created.recipe.id))
+      .orderBy(asc(recipeVersions.number));
     expect(rows.map((r) => r.number)).toEqual([1, 2]);
     const winner = results.find((r) => r.status === 201)!;
     expect(rows[1].id).toBe(winner.body.version.id);
@@ -89,14 +102,19 @@ describe('saving versions', () => {
     const { client } = await signedInClient();
     const created = await createRecipeVia(client);
     const v2 = await saveVia(client, created.recipe.id, created.version.id, paleAle({ notes: 'changed my mind' }));
-    const restored = await client.post<{ version: { id: string; number: number } }>(`/api/recipes/${created.recipe.id}/restore`, {
-      versionId: created.version.id,
-      baseVersionId: v2.body.version.id,
-    });
+    const restored = await client.post<{ version: { id: string; number: number } }>(
+      `/api/recipes/${created.recipe.id}/restore`,
+      {
+        versionId: created.version.id,
+        baseVersionId: v2.body.version.id,
+      },
+    );
     expect(restored.status).toBe(201);
     expect(restored.body.version.number).toBe(3);
     const [v1, v3] = await Promise.all(
-      [created.version.id, restored.body.version.id].map(async (id) => (await db.select().from(recipeVersions).where(eq(recipeVersions.id, id)))[0]),
+      [created.version.id, restored.body.version.id].map(
+        async (id) => (await db.select().from(recipeVersions).where(eq(recipeVersions.id, id)))[0],
+      ),
     );
     expect(v3.document).toEqual(v1.document);
     expect(v3.message).toBe('Restored version 1');
@@ -105,7 +123,9 @@ describe('saving versions', () => {
   it('the database refuses to change or delete a saved version', async () => {
     const { client } = await signedInClient();
     const created = await createRecipeVia(client);
-    await expect(db.update(recipeVersions).set({ message: 'rewritten' }).where(eq(recipeVersions.id, created.version.id))).rejects.toThrow();
+    await expect(
+      db.update(recipeVersions).set({ message: 'rewritten' }).where(eq(recipeVersions.id, created.version.id)),
+    ).rejects.toThrow();
     await expect(db.delete(recipeVersions).where(eq(recipeVersions.id, created.version.id))).rejects.toThrow();
   });
 });

@@ -1,7 +1,9 @@
 import type { RecipeSearchResponse } from '@/lib/search/client';
 import type { TestClient } from '../helpers/http';
 
-export type SearchBody = RecipeSearchResponse & { error?: { code: string; message: string; fields: Array<{ path: string; message: string }> } };
+export type SearchBody = RecipeSearchResponse & {
+  error?: { code: string; message: string; fields: Array<{ path: string; message: string }> };
+};
 
 /** A word no other test's recipe holds, so searches for it see only this test's recipes. */
 export function uniqueWord(prefix = 'zq'): string {
@@ -10,7 +12,8 @@ export function uniqueWord(prefix = 'zq'): string {
 
 export function searchVia(client: TestClient, params: Record<string, string | string[] | number>) {
   const query = new URLSearchParams();
-  for (const [key, value] of Object.entries(params)) for (const item of Array.isArray(value) ? value : [value]) query.append(key, String(item));
+  for (const [key, value] of Object.entries(params))
+    for (const item of Array.isArray(value) ? value : [value]) query.append(key, String(item));
   return client.get<SearchBody>(`/api/search?${query}`);
 }
 
@@ -25,7 +28,10 @@ export async function waitForSearch(
   for (;;) {
     const res = await searchVia(client, params);
     if (res.status === 200 && done(res.body)) return res.body;
-    if (Date.now() > deadline) throw new Error(`search ${JSON.stringify(params)} did not settle: ${res.status} ${JSON.stringify(res.body).slice(0, 400)}`);
+    if (Date.now() > deadline)
+      throw new Error(
+        `search ${JSON.stringify(params)} did not settle: ${res.status} ${JSON.stringify(res.body).slice(0, 400)}`,
+      );
     await new Promise((resolve) => setTimeout(resolve, 100));
   }
 }

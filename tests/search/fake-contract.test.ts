@@ -97,7 +97,9 @@ describe('settings', () => {
   });
 
   it('refuses a settings payload of the wrong type', async () => {
-    const error = await apiError(fake.client.index('settings-check').updateSettings({ filterableAttributes: 'hops' as unknown as string[] }));
+    const error = await apiError(
+      fake.client.index('settings-check').updateSettings({ filterableAttributes: 'hops' as unknown as string[] }),
+    );
     expect(error.response.status).toBe(400);
     expect(error.cause?.code).toBe('invalid_settings_filterable_attributes');
   });
@@ -113,13 +115,21 @@ describe('documents', () => {
         { id: 'a2', title: 'Bitter', abv: 4 },
       ])
       .waitTask();
-    expect(added).toMatchObject({ status: 'succeeded', type: 'documentAdditionOrUpdate', details: { receivedDocuments: 2, indexedDocuments: 2 } });
+    expect(added).toMatchObject({
+      status: 'succeeded',
+      type: 'documentAdditionOrUpdate',
+      details: { receivedDocuments: 2, indexedDocuments: 2 },
+    });
     expect((await fake.client.getIndex('docs')).primaryKey).toBe('id');
 
-    await index().addDocuments([{ id: 'a1', title: 'Amber Two' }]).waitTask();
+    await index()
+      .addDocuments([{ id: 'a1', title: 'Amber Two' }])
+      .waitTask();
     expect(await index().getDocument('a1')).toEqual({ id: 'a1', title: 'Amber Two' });
 
-    await index().updateDocuments([{ id: 'a2', abv: 4.2 }]).waitTask();
+    await index()
+      .updateDocuments([{ id: 'a2', abv: 4.2 }])
+      .waitTask();
     expect(await index().getDocument('a2')).toEqual({ id: 'a2', title: 'Bitter', abv: 4.2 });
     expect(await index().getDocument('a2', { fields: ['title'] })).toEqual({ title: 'Bitter' });
 
@@ -139,7 +149,11 @@ describe('documents', () => {
     expect(missing.cause?.code).toBe('document_not_found');
 
     const batch = await index().deleteDocuments(['d2', 'd3', 'never']).waitTask();
-    expect(batch).toMatchObject({ status: 'succeeded', type: 'documentDeletion', details: { providedIds: 3, deletedDocuments: 2 } });
+    expect(batch).toMatchObject({
+      status: 'succeeded',
+      type: 'documentDeletion',
+      details: { providedIds: 3, deletedDocuments: 2 },
+    });
 
     await index().deleteAllDocuments().waitTask();
     expect((await index().getStats()).numberOfDocuments).toBe(0);

@@ -5,11 +5,46 @@ import { startFake, type FakeHarness } from './fixtures';
 let fake: FakeHarness;
 
 const BEERS = [
-  { id: 'pale', title: 'Porch Pale', style: 'Pale Ale', hops: ['Cascade', 'Centennial'], abv: 5.2, ibu: 40, dry: true, notes: 'citrus' },
+  {
+    id: 'pale',
+    title: 'Porch Pale',
+    style: 'Pale Ale',
+    hops: ['Cascade', 'Centennial'],
+    abv: 5.2,
+    ibu: 40,
+    dry: true,
+    notes: 'citrus',
+  },
   { id: 'lager', title: 'Meadow Lager', style: 'Lager', hops: ['Saaz'], abv: 4.6, ibu: 22, dry: false, notes: null },
-  { id: 'stout', title: 'Night Stout', style: 'Stout', hops: ['Fuggle', 'East Kent Golding'], abv: 6.8, ibu: 35, dry: false },
-  { id: 'ipa', title: 'Ridge IPA', style: 'IPA', hops: ['Chinook', 'Cascade'], abv: 7.1, ibu: 65, dry: true, notes: '' },
-  { id: 'weiss', title: 'Wheat Field', style: 'Weissbier', hops: ['Hallertau Mittelfrüh'], abv: 5.0, ibu: 12, dry: false, notes: 'banana' },
+  {
+    id: 'stout',
+    title: 'Night Stout',
+    style: 'Stout',
+    hops: ['Fuggle', 'East Kent Golding'],
+    abv: 6.8,
+    ibu: 35,
+    dry: false,
+  },
+  {
+    id: 'ipa',
+    title: 'Ridge IPA',
+    style: 'IPA',
+    hops: ['Chinook', 'Cascade'],
+    abv: 7.1,
+    ibu: 65,
+    dry: true,
+    notes: '',
+  },
+  {
+    id: 'weiss',
+    title: 'Wheat Field',
+    style: 'Weissbier',
+    hops: ['Hallertau Mittelfrüh'],
+    abv: 5.0,
+    ibu: 12,
+    dry: false,
+    notes: 'banana',
+  },
   { id: 'quote', title: 'Odd Name', style: 'Say "hi" \\ bye', hops: [], abv: 3.9, ibu: 18, dry: false },
 ];
 
@@ -122,6 +157,8 @@ describe('invalid filters', () => {
   });
 
   it('names the attribute that is not filterable', async () => {
-    await expect(fake.client.index('filters').search('', { filter: 'title = x' })).rejects.toThrow(/`title` is not filterable/);
+    await expect(fake.client.index('filters').search('', { filter: 'title = x' })).rejects.toThrow(
+      /`title` is not filterable/,
+    );
   });
 });

@@ -6,13 +6,60 @@ let fake: FakeHarness;
 const index = () => fake.client.index('beers');
 
 const BEERS = [
-  { id: 'b1', title: 'Cascade Sunrise', category: 'Pale Ale', hops: ['Cascade'], malts: ['Pale ale malt'], abv: 5.1, stars: 12 },
-  { id: 'b2', title: 'Harbour Pale', category: 'Pale Ale', hops: ['Cascade', 'Centennial'], malts: ['Pale ale malt', 'Munich'], abv: 5.6, stars: 30 },
-  { id: 'b3', title: 'Copper Bitter', category: 'Bitter', hops: ['Fuggle', 'East Kent Golding'], malts: ['Maris-style pale malt', 'Crystal 60'], abv: 4.1, stars: 8 },
+  {
+    id: 'b1',
+    title: 'Cascade Sunrise',
+    category: 'Pale Ale',
+    hops: ['Cascade'],
+    malts: ['Pale ale malt'],
+    abv: 5.1,
+    stars: 12,
+  },
+  {
+    id: 'b2',
+    title: 'Harbour Pale',
+    category: 'Pale Ale',
+    hops: ['Cascade', 'Centennial'],
+    malts: ['Pale ale malt', 'Munich'],
+    abv: 5.6,
+    stars: 30,
+  },
+  {
+    id: 'b3',
+    title: 'Copper Bitter',
+    category: 'Bitter',
+    hops: ['Fuggle', 'East Kent Golding'],
+    malts: ['Maris-style pale malt', 'Crystal 60'],
+    abv: 4.1,
+    stars: 8,
+  },
   { id: 'b4', title: 'Village Pils', category: 'Lager', hops: ['Saaz'], malts: ['Pilsner malt'], abv: 4.9, stars: 30 },
-  { id: 'b5', title: 'Forest Porter', category: 'Porter', hops: ['Willamette'], malts: ['Pale ale malt', 'Chocolate malt'], abv: 6.0, stars: 2 },
-  { id: 'b6', title: 'Dark Sky Stout', category: 'Stout', hops: ['East Kent Golding'], malts: ['Roasted barley', 'Pale ale malt'], abv: 7.2, stars: 19 },
-  { id: 'b7', title: 'Hop Ridge', category: 'IPA', hops: ['Chinook', 'Centennial', 'Cascade'], malts: ['Pale ale malt'], abv: 6.8 },
+  {
+    id: 'b5',
+    title: 'Forest Porter',
+    category: 'Porter',
+    hops: ['Willamette'],
+    malts: ['Pale ale malt', 'Chocolate malt'],
+    abv: 6.0,
+    stars: 2,
+  },
+  {
+    id: 'b6',
+    title: 'Dark Sky Stout',
+    category: 'Stout',
+    hops: ['East Kent Golding'],
+    malts: ['Roasted barley', 'Pale ale malt'],
+    abv: 7.2,
+    stars: 19,
+  },
+  {
+    id: 'b7',
+    title: 'Hop Ridge',
+    category: 'IPA',
+    hops: ['Chinook', 'Centennial', 'Cascade'],
+    malts: ['Pale ale malt'],
+    abv: 6.8,
+  },
 ];
 
 beforeAll(async () => {
@@ -83,8 +130,24 @@ describe('facets', () => {
 
 describe('sorting', () => {
   it('sorts by one and several attributes, missing values last', async () => {
-    expect(hitIds((await index().search('', { sort: ['abv:asc'] })).hits)).toEqual(['b3', 'b4', 'b1', 'b2', 'b5', 'b7', 'b6']);
-    expect(hitIds((await index().search('', { sort: ['stars:desc', 'abv:asc'] })).hits)).toEqual(['b4', 'b2', 'b6', 'b1', 'b3', 'b5', 'b7']);
+    expect(hitIds((await index().search('', { sort: ['abv:asc'] })).hits)).toEqual([
+      'b3',
+      'b4',
+      'b1',
+      'b2',
+      'b5',
+      'b7',
+      'b6',
+    ]);
+    expect(hitIds((await index().search('', { sort: ['stars:desc', 'abv:asc'] })).hits)).toEqual([
+      'b4',
+      'b2',
+      'b6',
+      'b1',
+      'b3',
+      'b5',
+      'b7',
+    ]);
     expect(hitIds((await index().search('', { sort: ['stars:asc'] })).hits).at(-1)).toBe('b7');
   });
 
@@ -122,7 +185,12 @@ describe('paging', () => {
 
 describe('GET search', () => {
   it('accepts the same parameters in the query string', async () => {
-    const result = await index().searchGet('pale', { filter: 'abv < 5.5', sort: ['abv:desc'], facets: ['category'], attributesToRetrieve: ['id'] });
+    const result = await index().searchGet('pale', {
+      filter: 'abv < 5.5',
+      sort: ['abv:desc'],
+      facets: ['category'],
+      attributesToRetrieve: ['id'],
+    });
     expect(result.hits).toEqual([{ id: 'b1' }, { id: 'b3' }]);
     expect(result.facetDistribution?.category).toEqual({ Bitter: 1, 'Pale Ale': 1 });
   });
@@ -131,7 +199,9 @@ describe('GET search', () => {
 describe('freshness', () => {
   it('shows a saved document to the next query once its task has succeeded', async () => {
     expect((await index().search('meadowsweet')).hits).toHaveLength(0);
-    const task = await index().addDocuments([{ id: 'b8', title: 'Meadowsweet Gruit', category: 'Herb', hops: [], malts: [], abv: 4.4 }]).waitTask();
+    const task = await index()
+      .addDocuments([{ id: 'b8', title: 'Meadowsweet Gruit', category: 'Herb', hops: [], malts: [], abv: 4.4 }])
+      .waitTask();
     expect(task.status).toBe('succeeded');
     expect(hitIds((await index().search('meadowsweet')).hits)).toEqual(['b8']);
     await index().deleteDocument('b8').waitTask();
@@ -139,7 +209,9 @@ describe('freshness', () => {
   });
 
   it('reindexes an updated document for text and filters', async () => {
-    await index().updateDocuments([{ id: 'b5', title: 'Forest Brown', abv: 5.0 }]).waitTask();
+    await index()
+      .updateDocuments([{ id: 'b5', title: 'Forest Brown', abv: 5.0 }])
+      .waitTask();
     expect(hitIds((await index().search('brown', { filter: 'abv = 5' })).hits)).toEqual(['b5']);
     expect((await index().search('porter', { filter: 'abv = 6' })).hits).toHaveLength(0);
     expect((await index().search('', { filter: 'category = Porter' })).hits).toHaveLength(1);

@@ -21,7 +21,10 @@ function farmhouseIpa(word: string): RecipeDocumentInput {
     { name: 'East Kent Golding', amountG: 40, alphaPct: 5.5, use: 'whirlpool', timeMin: 15, form: 'pellet', tempC: 80 },
     { name: 'Willamette', amountG: 50, alphaPct: 5, use: 'dry_hop', timeMin: 4320, form: 'leaf' },
   ];
-  doc.fermentables = [...doc.fermentables, { name: 'Rye malt', amountKg: 0.5, potentialPpg: 29, colorLovibond: 4, kind: 'grain' }];
+  doc.fermentables = [
+    ...doc.fermentables,
+    { name: 'Rye malt', amountKg: 0.5, potentialPpg: 29, colorLovibond: 4, kind: 'grain' },
+  ];
   doc.yeasts = [{ name: 'Farmhouse kveik blend', kind: 'kveik', attenuationPct: 80, tempMinC: 25, tempMaxC: 38 }];
   doc.fermentation = { steps: [{ tempC: 32, days: 5 }] };
   return doc;
@@ -47,16 +50,32 @@ describe('keeping the index in step with recipes', () => {
       stars: 0,
       hidden: false,
     });
-    const matching: Array<Record<string, string>> = [{ hop: 'Willamette' }, { hop: 'East Kent Golding' }, { malt: 'Rye malt' }, { yeast: 'kveik' }, { style: '21A' }];
+    const matching: Array<Record<string, string>> = [
+      { hop: 'Willamette' },
+      { hop: 'East Kent Golding' },
+      { malt: 'Rye malt' },
+      { yeast: 'kveik' },
+      { style: '21A' },
+    ];
     for (const filter of matching) {
-      expect(ids((await searchVia(anon, { q: word, ...filter })).body), JSON.stringify(filter)).toEqual([created.recipe.id]);
+      expect(ids((await searchVia(anon, { q: word, ...filter })).body), JSON.stringify(filter)).toEqual([
+        created.recipe.id,
+      ]);
     }
-    const missing: Array<Record<string, string>> = [{ hop: 'Saaz' }, { malt: 'Smoked malt' }, { yeast: 'lager' }, { style: '4A' }];
+    const missing: Array<Record<string, string>> = [
+      { hop: 'Saaz' },
+      { malt: 'Smoked malt' },
+      { yeast: 'lager' },
+      { style: '4A' },
+    ];
     for (const filter of missing) {
       expect((await searchVia(anon, { q: word, ...filter })).body.total, JSON.stringify(filter)).toBe(0);
     }
     // Each hop counts once, however many additions name it.
-    expect((await searchVia(anon, { q: word })).body.facetDistribution.hops).toEqual({ Willamette: 1, 'East Kent Golding': 1 });
+    expect((await searchVia(anon, { q: word })).body.facetDistribution.hops).toEqual({
+      Willamette: 1,
+      'East Kent Golding': 1,
+    });
 
     const pending = await db.select().from(searchOutbox).where(eq(searchOutbox.recipeId, created.recipe.id));
     expect(pending).toEqual([]);
@@ -88,7 +107,11 @@ describe('keeping the index in step with recipes', () => {
     const source = await createRecipeVia(owner, { document: farmhouseIpa(word) });
     const fork = await forker.post(`/api/versions/${source.version.id}/fork`, { title: `My take on ${word}` });
     expect(fork.status).toBe(201);
-    const found = await waitForSearch(new TestClient(), { q: word }, (body) => body.hits.find((hit) => hit.id === source.recipe.id)?.forks === 1);
+    const found = await waitForSearch(
+      new TestClient(),
+      { q: word },
+      (body) => body.hits.find((hit) => hit.id === source.recipe.id)?.forks === 1,
+    );
     expect(found.total).toBe(2);
   });
 });
@@ -108,7 +131,10 @@ describe('when search is down', () => {
     // Everything happens in one transaction that is rolled back, so the app under test (which sends
     // every committed change) never sees this recipe or its outbox row.
     const run = db.transaction(async (tx) => {
-      const [recipe] = await tx.insert(recipes).values({ slug: `outage-${word}`, ownerId: owner.id, title: document.title }).returning({ id: recipes.id });
+      const [recipe] = await tx
+        .insert(recipes)
+        .values({ slug: `outage-${word}`, ownerId: owner.id, title: document.title })
+        .returning({ id: recipes.id });
       recipeId = recipe.id;
       const [version] = await tx
         .insert(recipeVersions)
@@ -176,7 +202,9 @@ describe('rebuilding from PostgreSQL', () => {
 
     await deleteRecipeDocuments([created.recipe.id], fake.client);
     await ensureSearchReady(fake.client);
-    expect((await searchRecipes(query({ q: word }), { id: (await client.me())!.id, role: 'member' }, fake.client)).total).toBe(0);
+    expect(
+      (await searchRecipes(query({ q: word }), { id: (await client.me())!.id, role: 'member' }, fake.client)).total,
+    ).toBe(0);
 
     const rebuilt = await rebuildSearchIndex(fake.client);
     expect(rebuilt.count).toBeGreaterThanOrEqual(stats.numberOfDocuments);

@@ -1,5 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { parseRecipeSearchQuery, parseSearchParams, parseSearchParamsLeniently, serializeSearchQuery } from '../../lib/search/schemas';
+import {
+  parseRecipeSearchQuery,
+  parseSearchParams,
+  parseSearchParamsLeniently,
+  serializeSearchQuery,
+} from '../../lib/search/schemas';
 
 const parse = (query: string) => parseSearchParams(new URLSearchParams(query));
 
@@ -18,7 +23,9 @@ describe('search query parsing', () => {
   });
 
   it('reads repeated keys as lists and numbers from text', () => {
-    const result = parse('q=citrus+pale&style=18B&style=21A&hop=Cascade&hop=East+Kent+Golding&yeast=kveik&abvMin=4.5&abvMax=6&ogMin=1.04&sort=stars&page=3');
+    const result = parse(
+      'q=citrus+pale&style=18B&style=21A&hop=Cascade&hop=East+Kent+Golding&yeast=kveik&abvMin=4.5&abvMax=6&ogMin=1.04&sort=stars&page=3',
+    );
     expect(result).toEqual({
       success: true,
       data: {
@@ -78,13 +85,17 @@ describe('search query refusals name the field', () => {
   });
 
   it('checks JSON input the same way', () => {
-    expect(parseRecipeSearchQuery({ page: 2000 })).toMatchObject({ success: false, fieldErrors: { page: ['page must be a whole number from 1 to 1000'] } });
+    expect(parseRecipeSearchQuery({ page: 2000 })).toMatchObject({
+      success: false,
+      fieldErrors: { page: ['page must be a whole number from 1 to 1000'] },
+    });
   });
 });
 
 describe('serializing back to the URL', () => {
   it('round-trips a full query and leaves out defaults', () => {
-    const source = 'q=citrus+pale&style=18B&hop=Cascade&hop=Saaz&malt=Munich&yeast=lager&abvMin=4.5&ibuMax=40&srmMin=3&ogMax=1.06&page=2&sort=newest';
+    const source =
+      'q=citrus+pale&style=18B&hop=Cascade&hop=Saaz&malt=Munich&yeast=lager&abvMin=4.5&ibuMax=40&srmMin=3&ogMax=1.06&page=2&sort=newest';
     const parsed = parse(source);
     if (!parsed.success) throw new Error('expected a valid query');
     const serialized = serializeSearchQuery(parsed.data);
@@ -95,15 +106,22 @@ describe('serializing back to the URL', () => {
 
 describe('reading a hand-edited search address', () => {
   it('searches with the usable parts and names the parts left out', () => {
-    const { query, ignored } = parseSearchParamsLeniently(new URLSearchParams('q=pale&hop=Saaz&abvMin=7&abvMax=4&sort=oldest&page=0'));
+    const { query, ignored } = parseSearchParamsLeniently(
+      new URLSearchParams('q=pale&hop=Saaz&abvMin=7&abvMax=4&sort=oldest&page=0'),
+    );
     expect(query).toMatchObject({ q: 'pale', hop: ['Saaz'], sort: 'relevance', page: 1 });
     expect([query.abvMin, query.abvMax]).toEqual([undefined, undefined]);
     expect(ignored.map((entry) => entry.field).sort()).toEqual(['abvMin', 'page', 'sort']);
-    expect(ignored.find((entry) => entry.field === 'abvMin')?.messages).toEqual(['abvMin must not be greater than abvMax']);
+    expect(ignored.find((entry) => entry.field === 'abvMin')?.messages).toEqual([
+      'abvMin must not be greater than abvMax',
+    ]);
   });
 
   it('leaves a clean address untouched', () => {
     const params = new URLSearchParams('q=porter&style=20A&ibuMax=40');
-    expect(parseSearchParamsLeniently(params)).toEqual({ query: (parseSearchParams(params) as { data: unknown }).data, ignored: [] });
+    expect(parseSearchParamsLeniently(params)).toEqual({
+      query: (parseSearchParams(params) as { data: unknown }).data,
+      ignored: [],
+    });
   });
 });

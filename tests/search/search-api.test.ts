@@ -11,9 +11,18 @@ describe('GET /api/search: who sees what', () => {
     const { client: moderator } = await signedInClient('moderator');
     const anon = new TestClient();
     const word = uniqueWord();
-    const priv = await createRecipeVia(owner, { visibility: 'private', document: paleAle({ title: `Private ${word} Ale` }) });
-    const unlisted = await createRecipeVia(owner, { visibility: 'unlisted', document: paleAle({ title: `Unlisted ${word} Ale` }) });
-    const pub = await createRecipeVia(owner, { visibility: 'public', document: paleAle({ title: `Public ${word} Ale` }) });
+    const priv = await createRecipeVia(owner, {
+      visibility: 'private',
+      document: paleAle({ title: `Private ${word} Ale` }),
+    });
+    const unlisted = await createRecipeVia(owner, {
+      visibility: 'unlisted',
+      document: paleAle({ title: `Unlisted ${word} Ale` }),
+    });
+    const pub = await createRecipeVia(owner, {
+      visibility: 'public',
+      document: paleAle({ title: `Public ${word} Ale` }),
+    });
 
     // Once the owner sees all three, the index holds them; the others must still see only the public one.
     const mine = await waitForSearch(owner, { q: word }, (body) => body.total === 3);
@@ -70,7 +79,11 @@ describe('GET /api/search: refusals', () => {
     expect(await refusedFields({ page: 'two' })).toEqual(['page']);
     expect(await refusedFields({ ibuMax: 'lots' })).toEqual(['ibuMax']);
     expect(await refusedFields({ style: 'not a style code!' })).toEqual(['style']);
-    expect((await refusedFields({ q: 'x'.repeat(201), sort: 'oldest', page: '-1' })).sort()).toEqual(['page', 'q', 'sort']);
+    expect((await refusedFields({ q: 'x'.repeat(201), sort: 'oldest', page: '-1' })).sort()).toEqual([
+      'page',
+      'q',
+      'sort',
+    ]);
   });
 
   it('gives people a message, never a stack', async () => {
@@ -84,7 +97,10 @@ describe('GET /api/search: hostile values', () => {
   it('cannot widen the results with a filter value, the words or the sort', async () => {
     const { client: owner } = await signedInClient();
     const word = uniqueWord();
-    const priv = await createRecipeVia(owner, { visibility: 'private', document: paleAle({ title: `Guarded ${word} Ale` }) });
+    const priv = await createRecipeVia(owner, {
+      visibility: 'private',
+      document: paleAle({ title: `Guarded ${word} Ale` }),
+    });
     await waitForSearch(owner, { q: word }, (body) => ids(body).includes(priv.recipe.id));
 
     const anon = new TestClient();

@@ -22,7 +22,8 @@ function mutatingRoutes(): { method: string; path: string }[] {
         // next-auth's own endpoints speak forms, not JSON, and are exercised by the sign-in tests.
         if (urlPath.startsWith('/api/auth/')) continue;
         for (const method of MUTATING) {
-          if (new RegExp(`export (const|async function) ${method}\\b`).test(source)) routes.push({ method, path: urlPath });
+          if (new RegExp(`export (const|async function) ${method}\\b`).test(source))
+            routes.push({ method, path: urlPath });
         }
       }
     }
@@ -47,7 +48,13 @@ async function rowsTouching(userId: string): Promise<number> {
   let total = 0;
   for (const c of columns) {
     if (c.table_name === 'sessions' || c.table_name === 'accounts') continue;
-    const [{ n }] = (await db.execute<{ n: number }>(sql.raw(`select count(*)::int as n from "${c.table_name}" where "${c.column_name}" = '${userId.replace(/'/g, "''")}'`))).rows;
+    const [{ n }] = (
+      await db.execute<{ n: number }>(
+        sql.raw(
+          `select count(*)::int as n from "${c.table_name}" where "${c.column_name}" = '${userId.replace(/'/g, "''")}'`,
+        ),
+      )
+    ).rows;
     total += n;
   }
   return total;
@@ -56,8 +63,32 @@ async function rowsTouching(userId: string): Promise<number> {
 const malformedBody = fc.oneof(
   fc.jsonValue().map((v) => JSON.stringify(v)),
   fc.string({ maxLength: 200 }),
-  fc.constantFrom('{', '{"document":', '[1,2', 'null', '""', '{"__proto__":{"admin":true}}', '{"document":{"title":1e309}}'),
-  fc.dictionary(fc.constantFrom('document', 'message', 'title', 'visibility', 'baseVersionId', 'body', 'reason', 'role', 'text', 'format'), fc.jsonValue()).map((o) => JSON.stringify(o)),
+  fc.constantFrom(
+    '{',
+    '{"document":',
+    '[1,2',
+    'null',
+    '""',
+    '{"__proto__":{"admin":true}}',
+    '{"document":{"title":1e309}}',
+  ),
+  fc
+    .dictionary(
+      fc.constantFrom(
+        'document',
+        'message',
+        'title',
+        'visibility',
+        'baseVersionId',
+        'body',
+        'reason',
+        'role',
+        'text',
+        'format',
+      ),
+      fc.jsonValue(),
+    )
+    .map((o) => JSON.stringify(o)),
 );
 
 describe('every JSON route under malformed input', { timeout: 300_000 }, () => {

@@ -4,7 +4,12 @@ import { createRecipeVia } from '../helpers/recipes';
 import { signedInClient } from '../helpers/users';
 
 function scriptSrc(policy: string): string {
-  return policy.split(';').map((d) => d.trim()).find((d) => d.startsWith('script-src')) ?? '';
+  return (
+    policy
+      .split(';')
+      .map((d) => d.trim())
+      .find((d) => d.startsWith('script-src')) ?? ''
+  );
 }
 
 describe('security headers', () => {
@@ -43,7 +48,12 @@ describe('security headers', () => {
   });
 
   it('answers errors with a plain message and a request id, never a stack trace', async () => {
-    const res = await new TestClient().json<{ error: { message: string; requestId: string } }>('POST', '/api/accounts', '{not json', { 'content-type': 'application/json' });
+    const res = await new TestClient().json<{ error: { message: string; requestId: string } }>(
+      'POST',
+      '/api/accounts',
+      '{not json',
+      { 'content-type': 'application/json' },
+    );
     expect(res.status).toBe(400);
     expect(res.body.error.requestId).toMatch(/^[0-9a-f-]{36}$/);
     expect(JSON.stringify(res.body)).not.toMatch(/at .*\.(ts|js):\d+/);

@@ -41,7 +41,13 @@ const PAYLOADS = [
 const ALL = PAYLOADS.join('\n\n');
 
 // Next.js's own inline scripts (the streamed page data, the bundler's chunk list and its bootstrapping) start like this.
-const FRAMEWORK_INLINE = [/^\(?self\.__next_[a-z]/, /^\(globalThis\["TURBOPACK"\]/, /^\$R[A-Z]/, /^requestAnimationFrame\(/, /^document\.currentScript/];
+const FRAMEWORK_INLINE = [
+  /^\(?self\.__next_[a-z]/,
+  /^\(globalThis\["TURBOPACK"\]/,
+  /^\$R[A-Z]/,
+  /^requestAnimationFrame\(/,
+  /^document\.currentScript/,
+];
 const URL_ATTRIBUTES = new Set(['href', 'src', 'action', 'formaction', 'xlink:href', 'data', 'poster', 'background']);
 const FORBIDDEN_TAGS = new Set(['iframe', 'object', 'embed', 'frame', 'frameset', 'applet', 'base', 'meta', 'link']);
 
@@ -54,14 +60,17 @@ function executableParts(html: string): string[] {
       onopentag(name, attribs) {
         stack.push({ name, attribs, text: '' });
         const inHead = stack.some((s) => s.name === 'head');
-        if (FORBIDDEN_TAGS.has(name) && !(inHead && (name === 'meta' || name === 'link'))) found.push(`<${name}> element`);
+        if (FORBIDDEN_TAGS.has(name) && !(inHead && (name === 'meta' || name === 'link')))
+          found.push(`<${name}> element`);
         for (const [attr, value] of Object.entries(attribs)) {
           const v = value.replace(/[\s\u0000-\u001f]/g, '').toLowerCase();
           if (attr.startsWith('on')) found.push(`${attr} handler on <${name}>`);
-          if (URL_ATTRIBUTES.has(attr) && /^(javascript|vbscript|data):/.test(v)) found.push(`${attr}="${value}" on <${name}>`);
+          if (URL_ATTRIBUTES.has(attr) && /^(javascript|vbscript|data):/.test(v))
+            found.push(`${attr}="${value}" on <${name}>`);
           if (attr === 'style' && /expression\(|javascript:|url\(/.test(v)) found.push(`style="${value}" on <${name}>`);
         }
-        if (name === 'script' && attribs.src && !attribs.src.startsWith('/_next/')) found.push(`script src=${attribs.src}`);
+        if (name === 'script' && attribs.src && !attribs.src.startsWith('/_next/'))
+          found.push(`script src=${attribs.src}`);
       },
       ontext(text) {
         if (stack.length) stack[stack.length - 1].text += text;
@@ -99,40 +108,94 @@ describe('user text cannot run script', () => {
       units: 'metric',
       defaultBatchVolumeL: 20,
       defaultEfficiencyPct: 72,
-      emailChoices: { fork: true, comment: true, reply: true, star: true, brewed: true, new_recipe: true, proposal: true, proposal_decision: true },
+      emailChoices: {
+        fork: true,
+        comment: true,
+        reply: true,
+        star: true,
+        brewed: true,
+        new_recipe: true,
+        proposal: true,
+        proposal_decision: true,
+      },
     });
     // An established member: a new one's link comments would wait for review instead of showing.
     await ageAccount(commenterUser.id);
-    const named = await commenter.put('/api/me/settings', settings('<img src=x onerror=kfXss()>"><script>kfXss()</script>'));
+    const named = await commenter.put(
+      '/api/me/settings',
+      settings('<img src=x onerror=kfXss()>"><script>kfXss()</script>'),
+    );
     expect(named.status).toBe(200);
 
     // Recipe notes and titles.
-    const recipe = await createRecipeVia(owner, { document: paleAle({ title: '<script>kfXss()</script> Pale', notes: ALL }) });
+    const recipe = await createRecipeVia(owner, {
+      document: paleAle({ title: '<script>kfXss()</script> Pale', notes: ALL }),
+    });
     const titled: Saved[] = [];
-    for (const p of PAYLOADS.filter((x) => x.length <= 100)) titled.push(await createRecipeVia(commenter, { document: paleAle({ title: `${p} Ale` }) }));
+    for (const p of PAYLOADS.filter((x) => x.length <= 100))
+      titled.push(await createRecipeVia(commenter, { document: paleAle({ title: `${p} Ale` }) }));
     await follower.post('/api/follows', { type: 'member', id: commenterUser.id });
 
     // Comments (Markdown) and a reply.
-    const comment = await commenter.post<{ comment: { id: string } }>(`/api/recipes/${recipe.recipe.id}/comments`, { body: ALL.slice(0, 5000) });
+    const comment = await commenter.post<{ comment: { id: string } }>(`/api/recipes/${recipe.recipe.id}/comments`, {
+      body: ALL.slice(0, 5000),
+    });
     expect(comment.status).toBe(201);
-    await commenter.post(`/api/recipes/${recipe.recipe.id}/comments`, { body: '<svg onload=kfXss()>', parentId: comment.body.comment.id });
+    await commenter.post(`/api/recipes/${recipe.recipe.id}/comments`, {
+      body: '<svg onload=kfXss()>',
+      parentId: comment.body.comment.id,
+    });
 
     // Report notes, shown to moderators in the queue.
     const halves = [PAYLOADS.slice(0, 11).join('\n'), PAYLOADS.slice(11).join('\n')];
-    expect((await reporter.post('/api/reports', { targetType: 'comment', targetId: comment.body.comment.id, reason: 'abuse', note: halves[0] })).status).toBe(201);
-    expect((await reporter.post('/api/reports', { targetType: 'member', targetId: commenterUser.id, reason: 'other', note: halves[1] })).status).toBe(201);
+    expect(
+      (
+        await reporter.post('/api/reports', {
+          targetType: 'comment',
+          targetId: comment.body.comment.id,
+          reason: 'abuse',
+          note: halves[0],
+        })
+      ).status,
+    ).toBe(201);
+    expect(
+      (
+        await reporter.post('/api/reports', {
+          targetType: 'member',
+          targetId: commenterUser.id,
+          reason: 'other',
+          note: halves[1],
+        })
+      ).status,
+    ).toBe(201);
 
     // A proposal's title, description and discussion.
-    const proposal = await proposalTo(owner, { proposal: { title: '<script>kfXss()</script> idea', description: ALL.slice(0, 5000) } });
-    expect((await commenter.post(`/api/proposals/${proposal.id}/comments`, { body: '<img src=x onerror=kfXss()>' })).status).toBe(201);
+    const proposal = await proposalTo(owner, {
+      proposal: { title: '<script>kfXss()</script> idea', description: ALL.slice(0, 5000) },
+    });
+    expect(
+      (await commenter.post(`/api/proposals/${proposal.id}/comments`, { body: '<img src=x onerror=kfXss()>' })).status,
+    ).toBe(201);
 
     pages.push(
-      { name: 'proposal page with its title, description and discussion', client: new TestClient(), path: `/proposals/${proposal.id}` },
-      { name: 'recipe page with notes, comments and names', client: new TestClient(), path: `/recipes/${recipe.recipe.slug}` },
+      {
+        name: 'proposal page with its title, description and discussion',
+        client: new TestClient(),
+        path: `/proposals/${proposal.id}`,
+      },
+      {
+        name: 'recipe page with notes, comments and names',
+        client: new TestClient(),
+        path: `/recipes/${recipe.recipe.slug}`,
+      },
       { name: 'recipe page seen by its owner', client: owner, path: `/recipes/${recipe.recipe.slug}` },
       { name: 'a payload title', client: new TestClient(), path: `/recipes/${titled[0].recipe.slug}` },
       { name: 'recent recipes', client: new TestClient(), path: '/recipes' },
-      { name: 'member page with bio and display name', client: new TestClient(), path: `/members/${commenterUser.handle}` },
+      {
+        name: 'member page with bio and display name',
+        client: new TestClient(),
+        path: `/members/${commenterUser.handle}`,
+      },
       { name: 'notifications', client: owner, path: '/notifications' },
       { name: 'feed', client: follower, path: '/feed' },
       { name: 'moderation queue with report notes', client: moderator, path: '/admin/moderation' },
@@ -165,9 +228,16 @@ describe('user text cannot run script', () => {
     for (const page of pages.filter((p) => p.client.cookieHeader() === '')) {
       await browser.page.goto(page.path, { waitUntil: 'load' });
       await browser.page.waitForTimeout(300);
-      expect(await browser.page.evaluate(() => (window as unknown as { __kfXssRuns: number }).__kfXssRuns), page.name).toBe(0);
+      expect(
+        await browser.page.evaluate(() => (window as unknown as { __kfXssRuns: number }).__kfXssRuns),
+        page.name,
+      ).toBe(0);
       const handlers = await browser.page.evaluate(() =>
-        [...document.querySelectorAll('*')].flatMap((el) => [...el.attributes].filter((a) => a.name.startsWith('on') || /^\s*(javascript|data|vbscript):/i.test(a.value)).map((a) => `${el.tagName} ${a.name}`)),
+        [...document.querySelectorAll('*')].flatMap((el) =>
+          [...el.attributes]
+            .filter((a) => a.name.startsWith('on') || /^\s*(javascript|data|vbscript):/i.test(a.value))
+            .map((a) => `${el.tagName} ${a.name}`),
+        ),
       );
       expect(handlers, page.name).toEqual([]);
     }

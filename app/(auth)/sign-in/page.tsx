@@ -11,10 +11,17 @@ const linkErrors: Record<string, string> = {
   EmailSignin: 'We could not send the sign-in e-mail. Please try again in a moment.',
 };
 
-export default async function SignInPage({ searchParams }: { searchParams: Promise<{ error?: string; callbackUrl?: string }> }) {
+export default async function SignInPage({
+  searchParams,
+}: {
+  searchParams: Promise<{ error?: string; callbackUrl?: string }>;
+}) {
   const { error, callbackUrl } = await searchParams;
   const safeCallback = callbackUrl?.startsWith('/') && !callbackUrl.startsWith('//') ? callbackUrl : '/';
-  const message = error && error !== 'CredentialsSignin' ? (linkErrors[error] ?? 'Signing in did not work. Please try again.') : undefined;
+  const message =
+    error && error !== 'CredentialsSignin'
+      ? (linkErrors[error] ?? 'Signing in did not work. Please try again.')
+      : undefined;
   return (
     <div className="mx-auto max-w-md">
       <h1 className="text-3xl font-semibold">Sign in</h1>
@@ -22,7 +29,10 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
         New here? <Link href="/sign-up">Create an account</Link>.
       </p>
       {message && (
-        <p role="alert" className="mt-4 rounded-md border border-danger/40 bg-danger/5 p-3 font-sans text-sm text-danger">
+        <p
+          role="alert"
+          className="mt-4 rounded-md border border-danger/40 bg-danger/5 p-3 font-sans text-sm text-danger"
+        >
           {message}
         </p>
       )}

@@ -8,13 +8,18 @@ export const metadata: Metadata = { title: 'My brew days' };
 
 export default async function MyBrewDaysPage() {
   const viewer = await requirePageViewer('/brew-days');
-  const [days, averages] = await Promise.all([getBrewDaysByBrewerId({ brewerId: viewer.id, viewer }), getBrewerAverages({ brewer: viewer })]);
+  const [days, averages] = await Promise.all([
+    getBrewDaysByBrewerId({ brewerId: viewer.id, viewer }),
+    getBrewerAverages({ brewer: viewer }),
+  ]);
   return (
     <div className="space-y-6">
       <h1 className="text-3xl font-semibold">My brew days</h1>
       <BrewerAveragesPanel averages={averages} />
       {days.length === 0 ? (
-        <p className="font-sans text-sm text-muted">No brew days yet. Open a recipe version and choose “Log a brew day”.</p>
+        <p className="font-sans text-sm text-muted">
+          No brew days yet. Open a recipe version and choose “Log a brew day”.
+        </p>
       ) : (
         <BrewDayList days={days} show="brewer" />
       )}

@@ -38,10 +38,13 @@ export default async function FeedPage({ searchParams }: Props) {
   return (
     <div className="max-w-3xl">
       <h1 className="text-3xl font-semibold">Your feed</h1>
-      <p className="mt-1 font-sans text-sm text-muted">New versions, forks and brew days from the members and recipes you follow.</p>
+      <p className="mt-1 font-sans text-sm text-muted">
+        New versions, forks and brew days from the members and recipes you follow.
+      </p>
       {items.length === 0 ? (
         <p className="kf-card mt-6">
-          Nothing here yet. Follow members on their pages, or recipes on theirs, and what they brew shows up here. <Link href="/recipes">See recent recipes.</Link>
+          Nothing here yet. Follow members on their pages, or recipes on theirs, and what they brew shows up here.{' '}
+          <Link href="/recipes">See recent recipes.</Link>
         </p>
       ) : (
         <ul className="mt-6 divide-y divide-line">

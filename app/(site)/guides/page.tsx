@@ -2,14 +2,20 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { listGuides } from '@/components/guides/guides';
 
-export const metadata: Metadata = { title: 'Guides', description: 'How Kettlefork works out its numbers, and plain guides to water, hops, fermentation, carbonation and brewing safely.' };
+export const metadata: Metadata = {
+  title: 'Guides',
+  description:
+    'How Kettlefork works out its numbers, and plain guides to water, hops, fermentation, carbonation and brewing safely.',
+};
 
 export default async function GuidesPage() {
   const guides = await listGuides();
   return (
     <div className="max-w-3xl">
       <h1 className="text-3xl font-semibold">Guides</h1>
-      <p className="mt-2 font-sans text-sm text-muted">Short, practical reading for brew day, and the formulas behind every number Kettlefork shows.</p>
+      <p className="mt-2 font-sans text-sm text-muted">
+        Short, practical reading for brew day, and the formulas behind every number Kettlefork shows.
+      </p>
       <ul className="mt-8 space-y-4">
         {guides.map((g) => (
           <li key={g.slug} className="kf-card">

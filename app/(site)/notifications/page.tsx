@@ -20,13 +20,16 @@ export default async function NotificationsPage({ searchParams }: Props) {
         <div>
           <h1 className="text-3xl font-semibold">Notifications</h1>
           <p className="mt-1 font-sans text-sm text-muted">
-            Forks, comments, replies, stars and brews of your recipes, and new recipes from members you follow. <Link href="/settings">Choose what we e-mail you.</Link>
+            Forks, comments, replies, stars and brews of your recipes, and new recipes from members you follow.{' '}
+            <Link href="/settings">Choose what we e-mail you.</Link>
           </p>
         </div>
         {unread > 0 && <MarkReadButton />}
       </div>
       {items.length === 0 ? (
-        <p className="kf-card mt-6">Nothing yet. When someone stars, forks, brews or comments on your recipes, you will see it here.</p>
+        <p className="kf-card mt-6">
+          Nothing yet. When someone stars, forks, brews or comments on your recipes, you will see it here.
+        </p>
       ) : (
         <ul className="mt-6 divide-y divide-line">
           {items.map((n) => (
@@ -34,7 +37,9 @@ export default async function NotificationsPage({ searchParams }: Props) {
               {!n.read && <span className="sr-only">Unread: </span>}
               <Link href={n.url}>{n.text}</Link>
               {n.excerpt && <p className="mt-1 font-normal text-muted">“{n.excerpt}”</p>}
-              <p className="mt-1 font-sans text-xs font-normal text-muted">{formatDistanceToNow(n.createdAt, { addSuffix: true })}</p>
+              <p className="mt-1 font-sans text-xs font-normal text-muted">
+                {formatDistanceToNow(n.createdAt, { addSuffix: true })}
+              </p>
             </li>
           ))}
         </ul>

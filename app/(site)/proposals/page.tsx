@@ -11,7 +11,9 @@ export default async function ProposalsPage() {
   return (
     <div className="max-w-3xl">
       <h1 className="text-3xl font-semibold">Proposals</h1>
-      <p className="mt-1 font-sans text-sm text-muted">Changes brewers offered back to your recipes from their forks, and the ones you offered to others.</p>
+      <p className="mt-1 font-sans text-sm text-muted">
+        Changes brewers offered back to your recipes from their forks, and the ones you offered to others.
+      </p>
       <section aria-labelledby="incoming-title" className="mt-8">
         <h2 id="incoming-title" className="text-xl font-semibold">
           To your recipes ({incoming.length})
@@ -22,7 +24,10 @@ export default async function ProposalsPage() {
         <h2 id="outgoing-title" className="text-xl font-semibold">
           Yours to others ({outgoing.length})
         </h2>
-        <ProposalList items={outgoing} empty="You have not proposed anything yet. Fork a recipe, improve it, then use “Propose to the original” on your fork’s page." />
+        <ProposalList
+          items={outgoing}
+          empty="You have not proposed anything yet. Fork a recipe, improve it, then use “Propose to the original” on your fork’s page."
+        />
       </section>
     </div>
   );

@@ -27,7 +27,14 @@ export default async function RecipesPage({ searchParams }: Props) {
         )}
       </div>
       {cards.length === 0 ? (
-        <p className="kf-card mt-6">No recipes here yet. {viewer ? <Link href="/recipes/new">Write the first one.</Link> : <Link href="/sign-up">Join and write the first one.</Link>}</p>
+        <p className="kf-card mt-6">
+          No recipes here yet.{' '}
+          {viewer ? (
+            <Link href="/recipes/new">Write the first one.</Link>
+          ) : (
+            <Link href="/sign-up">Join and write the first one.</Link>
+          )}
+        </p>
       ) : (
         <ul className="mt-6 grid gap-4 md:grid-cols-2">
           {cards.map((card) => (

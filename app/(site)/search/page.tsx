@@ -40,7 +40,9 @@ export default async function SearchPage({ searchParams }: { searchParams: Promi
   return (
     <div>
       <h1 className="text-3xl font-semibold">Find recipes</h1>
-      <p className="mt-2 max-w-2xl text-muted">Search by name, style, hop, malt or yeast, then narrow by strength, bitterness and colour.</p>
+      <p className="mt-2 max-w-2xl text-muted">
+        Search by name, style, hop, malt or yeast, then narrow by strength, bitterness and colour.
+      </p>
       <HydrationBoundary state={dehydrate(queryClient)}>
         <RecipeSearch categories={categories} unavailableAtFirst={unavailable} />
       </HydrationBoundary>

@@ -3,4 +3,6 @@ import { createBrewDaySchema } from '@/lib/brew-days/schemas';
 import { route } from '@/lib/http/route';
 
 // POST /api/brew-days – log a brew of one exact recipe version
-export const POST = route({ access: 'user', body: createBrewDaySchema }, ({ viewer, body }) => createBrewDay(viewer, body));
+export const POST = route({ access: 'user', body: createBrewDaySchema }, ({ viewer, body }) =>
+  createBrewDay(viewer, body),
+);

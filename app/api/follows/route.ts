@@ -6,4 +6,6 @@ import { route } from '@/lib/http/route';
 export const POST = route({ access: 'user', body: followSchema }, ({ viewer, body }) => setFollow(viewer, body, true));
 
 // DELETE /api/follows – stop following
-export const DELETE = route({ access: 'user', body: followSchema }, async ({ viewer, body }) => Response.json(await setFollow(viewer, body, false)));
+export const DELETE = route({ access: 'user', body: followSchema }, async ({ viewer, body }) =>
+  Response.json(await setFollow(viewer, body, false)),
+);

@@ -38,15 +38,26 @@ export const POST = route({ access: 'user' }, async ({ req }) => {
     const { format, recipes } = parseRecipeFile(parsed.data.text, parsed.data.format);
     return NextResponse.json({
       format,
-      recipes: recipes.map((r) => ({ document: r.document, stats: computeStats(r.document), dropped: r.dropped, guessed: r.guessed })),
+      recipes: recipes.map((r) => ({
+        document: r.document,
+        stats: computeStats(r.document),
+        dropped: r.dropped,
+        guessed: r.guessed,
+      })),
     });
   } catch (err) {
     if (!(err instanceof InterchangeError)) throw err;
     if (err.kind === 'too_large') throw tooLarge();
-    throw new AppError('bad_request', 'file', `We could not import this file. ${err.message}`, [{ path: err.element || 'text', message: err.message }]);
+    throw new AppError('bad_request', 'file', `We could not import this file. ${err.message}`, [
+      { path: err.element || 'text', message: err.message },
+    ]);
   }
 });
 
 function tooLarge(): AppError {
-  return new AppError('too_large', 'file', `The file is too large; the largest we import is ${MAX_IMPORT_BYTES / (1024 * 1024)} MB.`);
+  return new AppError(
+    'too_large',
+    'file',
+    `The file is too large; the largest we import is ${MAX_IMPORT_BYTES / (1024 * 1024)} MB.`,
+  );
 }

@@ -12,6 +12,8 @@ export const GET = route({ access: 'user', query: listProposalsQuerySchema }, as
 });
 
 // POST /api/proposals – propose a version of one's fork to a recipe it descends from
-export const POST = route({ access: 'user', body: openProposalSchema, maxBodyBytes: 64 * 1024 }, ({ viewer, body }) => openProposal(viewer, body));
+export const POST = route({ access: 'user', body: openProposalSchema, maxBodyBytes: 64 * 1024 }, ({ viewer, body }) =>
+  openProposal(viewer, body),
+);
 
 export const dynamic = 'force-dynamic';

@@ -10,4 +10,6 @@ export const GET = route({ access: 'public', query: listRecipesQuerySchema }, as
 });
 
 // POST /api/recipes – create a recipe with its first version
-export const POST = route({ access: 'user', body: createRecipeSchema }, ({ viewer, body }) => createRecipe(viewer, body));
+export const POST = route({ access: 'user', body: createRecipeSchema }, ({ viewer, body }) =>
+  createRecipe(viewer, body),
+);

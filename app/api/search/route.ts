@@ -10,7 +10,9 @@ const UNAVAILABLE_MESSAGE = 'Search is unavailable right now; recipes and saving
 export const GET = route({ access: 'public' }, async ({ req, viewer }) => {
   const parsed = parseSearchParams(req.nextUrl.searchParams);
   if (!parsed.success) {
-    const fields = Object.entries(parsed.fieldErrors).flatMap(([path, messages]) => (messages ?? []).map((message) => ({ path, message })));
+    const fields = Object.entries(parsed.fieldErrors).flatMap(([path, messages]) =>
+      (messages ?? []).map((message) => ({ path, message })),
+    );
     const summary = fields.map((field) => field.message).join('; ');
     throw new AppError('bad_request', 'search', `Please check the search: ${summary}.`, fields);
   }

@@ -6,13 +6,22 @@ import { setEmailScope } from '@/lib/notifications/preferences';
 import { readUnsubscribeToken } from '@/lib/notifications/unsubscribe-token';
 
 const querySchema = z.object({
-  token: z.string({ error: 'The link has no token.' }).min(1, 'The link has no token.').max(300, 'The token is too long.'),
+  token: z
+    .string({ error: 'The link has no token.' })
+    .min(1, 'The link has no token.')
+    .max(300, 'The token is too long.'),
   resubscribe: z.enum(['1']).optional(),
 });
 
 function scopeOf(token: string) {
   const scope = readUnsubscribeToken(token);
-  if (!scope) throw new AppError('bad_request', 'unsubscribe link', 'This unsubscribe link is not valid. Change your e-mail choices on the settings page instead.', [{ path: 'token', message: 'Not a valid unsubscribe token.' }]);
+  if (!scope)
+    throw new AppError(
+      'bad_request',
+      'unsubscribe link',
+      'This unsubscribe link is not valid. Change your e-mail choices on the settings page instead.',
+      [{ path: 'token', message: 'Not a valid unsubscribe token.' }],
+    );
   return scope;
 }
 

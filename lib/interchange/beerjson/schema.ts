@@ -27,8 +27,25 @@ import water from '@beerjson/beerjson/json/water.json';
  * is registered before the root (`beer.json`) is compiled.
  */
 const PARTS: object[] = [
-  boil, boilStep, culture, equipment, fermentable, fermentation, fermentationStep, hop, mash, mashStep,
-  units, misc, packaging, packagingGraphic, packagingVessel, recipe, style, timing, water,
+  boil,
+  boilStep,
+  culture,
+  equipment,
+  fermentable,
+  fermentation,
+  fermentationStep,
+  hop,
+  mash,
+  mashStep,
+  units,
+  misc,
+  packaging,
+  packagingGraphic,
+  packagingVessel,
+  recipe,
+  style,
+  timing,
+  water,
 ];
 
 type Validator = ((data: unknown) => boolean) & { errors?: ErrorObject[] | null };
@@ -64,13 +81,19 @@ export function checkBeerJsonSchema(data: unknown): SchemaProblem | null {
       .filter((e) => e.keyword === 'enum' && e.instancePath === best.instancePath)
       .flatMap((e) => (e.params as { allowedValues: unknown[] }).allowedValues ?? []);
     const given = JSON.stringify(instanceAt(data, best.instancePath));
-    return { path: pointerToPath(best.instancePath, best), message: `${given ?? 'this value'} is not allowed; use one of: ${[...new Set(allowed)].join(', ')}` };
+    return {
+      path: pointerToPath(best.instancePath, best),
+      message: `${given ?? 'this value'} is not allowed; use one of: ${[...new Set(allowed)].join(', ')}`,
+    };
   }
   return { path: pointerToPath(best.instancePath, best), message: describeError(best) };
 }
 
 function depth(error: ErrorObject): number {
-  return error.instancePath.split('/').length + (error.keyword === 'additionalProperties' || error.keyword === 'required' ? 1 : 0);
+  return (
+    error.instancePath.split('/').length +
+    (error.keyword === 'additionalProperties' || error.keyword === 'required' ? 1 : 0)
+  );
 }
 
 function rank(error: ErrorObject): number {
@@ -78,10 +101,17 @@ function rank(error: ErrorObject): number {
 }
 
 function pointerToPath(pointer: string, error: ErrorObject): string {
-  const parts = pointer.split('/').slice(1).map((p) => p.replace(/~1/g, '/').replace(/~0/g, '~'));
+  const parts = pointer
+    .split('/')
+    .slice(1)
+    .map((p) => p.replace(/~1/g, '/').replace(/~0/g, '~'));
   if (error.keyword === 'required') parts.push(String((error.params as { missingProperty: string }).missingProperty));
-  if (error.keyword === 'additionalProperties') parts.push(String((error.params as { additionalProperty: string }).additionalProperty));
-  return parts.reduce((path, part) => (/^\d+$/.test(part) ? `${path}[${part}]` : path ? `${path}.${part}` : part), '') || '(root)';
+  if (error.keyword === 'additionalProperties')
+    parts.push(String((error.params as { additionalProperty: string }).additionalProperty));
+  return (
+    parts.reduce((path, part) => (/^\d+$/.test(part) ? `${path}[${part}]` : path ? `${path}.${part}` : part), '') ||
+    '(root)'
+  );
 }
 
 function describeError(error: ErrorObject): string {

@@ -26,7 +26,11 @@ const MAX_KEPT = 2_000;
  * A local SMTP server that accepts every message and keeps it in memory, with a small
  * JSON API beside it (GET /messages, DELETE /messages) for the admin outbox page and the tests.
  */
-export async function createFakeMailServer(opts: { smtpPort: number; httpPort: number; host?: string }): Promise<FakeMailServer> {
+export async function createFakeMailServer(opts: {
+  smtpPort: number;
+  httpPort: number;
+  host?: string;
+}): Promise<FakeMailServer> {
   const host = opts.host ?? '127.0.0.1';
   const messages: StoredMessage[] = [];
   let nextId = 1;

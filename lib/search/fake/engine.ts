@@ -16,12 +16,20 @@ export interface IndexView {
 }
 
 function indexView(index: FakeIndex): IndexView {
-  return { uid: index.uid, primaryKey: index.primaryKey, createdAt: index.createdAt.toISOString(), updatedAt: index.updatedAt.toISOString() };
+  return {
+    uid: index.uid,
+    primaryKey: index.primaryKey,
+    createdAt: index.createdAt.toISOString(),
+    updatedAt: index.updatedAt.toISOString(),
+  };
 }
 
 function checkIndexUid(uid: unknown): string {
   if (typeof uid !== 'string' || !INDEX_UID.test(uid)) {
-    throw badRequest('invalid_index_uid', `\`${String(uid)}\` is not a valid index uid. Index uid can be an integer or a string containing only alphanumeric characters, hyphens (-) and underscores (_), and can not be more than 400 bytes.`);
+    throw badRequest(
+      'invalid_index_uid',
+      `\`${String(uid)}\` is not a valid index uid. Index uid can be an integer or a string containing only alphanumeric characters, hyphens (-) and underscores (_), and can not be more than 400 bytes.`,
+    );
   }
   return uid;
 }
@@ -37,7 +45,11 @@ function asDocuments(body: unknown): Document[] {
 function pagingParam(params: URLSearchParams, name: string, fallback: number): number {
   const raw = params.get(name);
   const value = raw === null ? fallback : Number(raw);
-  if (!Number.isInteger(value) || value < 0) throw badRequest(`invalid_document_${name}`, `Invalid value in parameter \`${name}\`: expected a positive integer.`);
+  if (!Number.isInteger(value) || value < 0)
+    throw badRequest(
+      `invalid_document_${name}`,
+      `Invalid value in parameter \`${name}\`: expected a positive integer.`,
+    );
   return value;
 }
 
@@ -74,7 +86,8 @@ export class FakeEngine {
     const checked = checkIndexUid(uid);
     const key = typeof primaryKey === 'string' ? primaryKey : null;
     return this.tasks.enqueue(checked, 'indexCreation', { primaryKey: key }, () => {
-      if (this.indexes.has(checked)) throw new FakeApiError(409, 'index_already_exists', `Index \`${checked}\` already exists.`);
+      if (this.indexes.has(checked))
+        throw new FakeApiError(409, 'index_already_exists', `Index \`${checked}\` already exists.`);
       this.indexes.set(checked, new FakeIndex(checked, key));
       return {};
     });
@@ -86,7 +99,10 @@ export class FakeEngine {
       const index = this.getIndex(uid);
       if (typeof primaryKey === 'string' && primaryKey !== index.primaryKey) {
         if (index.documentCount > 0) {
-          throw badRequest('index_primary_key_already_exists', `Index \`${uid}\` already has a primary key: \`${index.primaryKey}\`.`);
+          throw badRequest(
+            'index_primary_key_already_exists',
+            `Index \`${uid}\` already has a primary key: \`${index.primaryKey}\`.`,
+          );
         }
         index.primaryKey = primaryKey;
       }
@@ -133,7 +149,10 @@ export class FakeEngine {
 
   private resolvePrimaryKey(index: FakeIndex, requested: string | null, docs: Document[]): string {
     if (requested && index.primaryKey && requested !== index.primaryKey) {
-      throw badRequest('index_primary_key_already_exists', `Index \`${index.uid}\` already has a primary key: \`${index.primaryKey}\`.`);
+      throw badRequest(
+        'index_primary_key_already_exists',
+        `Index \`${index.uid}\` already has a primary key: \`${index.primaryKey}\`.`,
+      );
     }
     if (!index.primaryKey && docs.length > 0) index.primaryKey = requested ?? inferPrimaryKey(docs[0]);
     return index.primaryKey ?? requested ?? '';
@@ -142,11 +161,17 @@ export class FakeEngine {
   private keyOf(doc: Document, primaryKey: string): string {
     const raw = doc[primaryKey];
     if (raw === undefined) {
-      throw badRequest('missing_document_id', `Document doesn't have a \`${primaryKey}\` attribute: \`${JSON.stringify(doc).slice(0, 200)}\`.`);
+      throw badRequest(
+        'missing_document_id',
+        `Document doesn't have a \`${primaryKey}\` attribute: \`${JSON.stringify(doc).slice(0, 200)}\`.`,
+      );
     }
     const key = documentKey(raw);
     if (key === null) {
-      throw badRequest('invalid_document_id', `Document identifier \`${JSON.stringify(raw)}\` is invalid. A document identifier can be of type integer or string, only composed of alphanumeric characters (a-z A-Z 0-9), hyphens (-) and underscores (_), and can not be more than 511 bytes.`);
+      throw badRequest(
+        'invalid_document_id',
+        `Document identifier \`${JSON.stringify(raw)}\` is invalid. A document identifier can be of type integer or string, only composed of alphanumeric characters (a-z A-Z 0-9), hyphens (-) and underscores (_), and can not be more than 511 bytes.`,
+      );
     }
     return key;
   }
@@ -164,16 +189,31 @@ export class FakeEngine {
     const limit = pagingParam(params, 'limit', 20);
     const fields = params.get('fields')?.split(',') ?? null;
     const all = index.allDocuments();
-    return { results: all.slice(offset, offset + limit).map((doc) => pickFields(doc, fields)), offset, limit, total: all.length };
+    return {
+      results: all.slice(offset, offset + limit).map((doc) => pickFields(doc, fields)),
+      offset,
+      limit,
+      total: all.length,
+    };
   }
 
   fetchDocuments(uid: string, body: unknown): Record<string, unknown> {
     const index = this.getIndex(uid);
-    const { filter, offset = 0, limit = 20, fields = null } = (body ?? {}) as { filter?: unknown; offset?: number; limit?: number; fields?: string[] | null };
+    const {
+      filter,
+      offset = 0,
+      limit = 20,
+      fields = null,
+    } = (body ?? {}) as { filter?: unknown; offset?: number; limit?: number; fields?: string[] | null };
     const selected = evaluateFilter(index, filter);
     const docs: Document[] = [];
     (selected ?? index.liveSlots()).forEach((slot) => docs.push(index.document(slot) as Document));
-    return { results: docs.slice(offset, offset + limit).map((doc) => pickFields(doc, fields)), offset, limit, total: docs.length };
+    return {
+      results: docs.slice(offset, offset + limit).map((doc) => pickFields(doc, fields)),
+      offset,
+      limit,
+      total: docs.length,
+    };
   }
 
   deleteDocument(uid: string, id: string): EnqueuedTaskView {
@@ -182,7 +222,10 @@ export class FakeEngine {
 
   deleteDocumentBatch(uid: string, body: unknown): EnqueuedTaskView {
     if (!Array.isArray(body)) throw badRequest('malformed_payload', 'Expected an array of document ids.');
-    return this.deleteByIds(uid, body.map((id) => String(id)));
+    return this.deleteByIds(
+      uid,
+      body.map((id) => String(id)),
+    );
   }
 
   private deleteByIds(uid: string, ids: string[]): EnqueuedTaskView {
@@ -195,19 +238,26 @@ export class FakeEngine {
   deleteDocumentsByFilter(uid: string, body: unknown): EnqueuedTaskView {
     const { filter } = (body ?? {}) as { filter?: unknown };
     if (filter === undefined) throw badRequest('missing_document_filter', 'Missing field `filter`.');
-    return this.tasks.enqueue(uid, 'documentDeletion', { originalFilter: JSON.stringify(filter), deletedDocuments: null }, () => {
-      const index = this.getIndex(uid);
-      const keys: string[] = [];
-      evaluateFilter(index, filter)?.forEach((slot) => {
-        const doc = index.document(slot);
-        if (doc && index.primaryKey) keys.push(String(doc[index.primaryKey]));
-      });
-      return { deletedDocuments: keys.filter((key) => index.delete(key)).length };
-    });
+    return this.tasks.enqueue(
+      uid,
+      'documentDeletion',
+      { originalFilter: JSON.stringify(filter), deletedDocuments: null },
+      () => {
+        const index = this.getIndex(uid);
+        const keys: string[] = [];
+        evaluateFilter(index, filter)?.forEach((slot) => {
+          const doc = index.document(slot);
+          if (doc && index.primaryKey) keys.push(String(doc[index.primaryKey]));
+        });
+        return { deletedDocuments: keys.filter((key) => index.delete(key)).length };
+      },
+    );
   }
 
   deleteAllDocuments(uid: string): EnqueuedTaskView {
-    return this.tasks.enqueue(uid, 'documentDeletion', { deletedDocuments: null }, () => ({ deletedDocuments: this.getIndex(uid).clear() }));
+    return this.tasks.enqueue(uid, 'documentDeletion', { deletedDocuments: null }, () => ({
+      deletedDocuments: this.getIndex(uid).clear(),
+    }));
   }
 
   // Settings

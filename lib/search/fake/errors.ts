@@ -21,7 +21,12 @@ export class FakeApiError extends Error {
   }
 
   toBody(): ErrorBody {
-    return { message: this.message, code: this.code, type: this.type, link: `https://docs.meilisearch.com/errors#${this.code}` };
+    return {
+      message: this.message,
+      code: this.code,
+      type: this.type,
+      link: `https://docs.meilisearch.com/errors#${this.code}`,
+    };
   }
 }
 
@@ -32,6 +37,11 @@ export const badRequest = (code: string, message: string) => new FakeApiError(40
 export const notFound = () => new FakeApiError(404, 'not_found', 'The requested route does not exist.');
 
 export const missingAuthorization = () =>
-  new FakeApiError(401, 'missing_authorization_header', 'The Authorization header is missing. It must use the bearer authorization method.', 'auth');
+  new FakeApiError(
+    401,
+    'missing_authorization_header',
+    'The Authorization header is missing. It must use the bearer authorization method.',
+    'auth',
+  );
 
 export const invalidApiKey = () => new FakeApiError(403, 'invalid_api_key', 'The provided API key is invalid.', 'auth');

@@ -10,7 +10,9 @@ const invalidFilter = (message: string) => badRequest('invalid_search_filter', m
 function numberOrFail(value: string, attribute: string): number {
   const n = parseNumber(value);
   if (n === null) {
-    throw invalidFilter(`The filter \`${attribute}\` compares with \`${value}\`, which is not a number; range operators compare numbers.`);
+    throw invalidFilter(
+      `The filter \`${attribute}\` compares with \`${value}\`, which is not a number; range operators compare numbers.`,
+    );
   }
   return n;
 }
@@ -33,7 +35,13 @@ function evaluateNode(index: FakeIndex, node: FilterNode, live: Bitset): Bitset 
     case 'compare':
       return compare(node, facet, size, live);
     case 'range':
-      return facet.range(numberOrFail(node.from, node.attribute), true, numberOrFail(node.to, node.attribute), true, size);
+      return facet.range(
+        numberOrFail(node.from, node.attribute),
+        true,
+        numberOrFail(node.to, node.attribute),
+        true,
+        size,
+      );
     case 'in':
       return facet.equals(node.values, size);
     case 'exists':
@@ -78,7 +86,9 @@ function isFilterInput(input: unknown): input is FilterInput {
   if (typeof input === 'string') return true;
   return (
     Array.isArray(input) &&
-    input.every((item) => typeof item === 'string' || (Array.isArray(item) && item.every((inner) => typeof inner === 'string')))
+    input.every(
+      (item) => typeof item === 'string' || (Array.isArray(item) && item.every((inner) => typeof inner === 'string')),
+    )
   );
 }
 
@@ -86,7 +96,9 @@ function isFilterInput(input: unknown): input is FilterInput {
 export function evaluateFilter(index: FakeIndex, input: unknown): Bitset | null {
   if (input === undefined || input === null) return null;
   if (!isFilterInput(input)) {
-    throw invalidFilter('Invalid value type at `.filter`: expected a string or an array of strings and arrays of strings');
+    throw invalidFilter(
+      'Invalid value type at `.filter`: expected a string or an array of strings and arrays of strings',
+    );
   }
   let node: FilterNode | null;
   try {

@@ -287,7 +287,10 @@ export function parseFilter(input: FilterInput): FilterNode | null {
     const nodes = inner.map(parseFilterString).filter((node): node is FilterNode => node !== null);
     return combine('or', nodes);
   });
-  return combine('and', parts.filter((node): node is FilterNode => node !== null));
+  return combine(
+    'and',
+    parts.filter((node): node is FilterNode => node !== null),
+  );
 }
 
 /** Every attribute a filter tree names, so the caller can check them against the filterable list. */

@@ -58,7 +58,10 @@ function requireNaturalNumber(body: Record<string, unknown>, key: string, min = 
   const value = body[key];
   if (value === undefined || value === null) return undefined;
   if (typeof value !== 'number' || !Number.isInteger(value) || value < min) {
-    throw badRequest(`invalid_search_${snake(key)}`, `Invalid value at \`.${key}\`: expected a positive integer${min > 0 ? ` from ${min}` : ''}, but found \`${JSON.stringify(value)}\`.`);
+    throw badRequest(
+      `invalid_search_${snake(key)}`,
+      `Invalid value at \`.${key}\`: expected a positive integer${min > 0 ? ` from ${min}` : ''}, but found \`${JSON.stringify(value)}\`.`,
+    );
   }
   return value;
 }
@@ -67,7 +70,10 @@ function requireStringList(body: Record<string, unknown>, key: string): string[]
   const value = body[key];
   if (value === undefined || value === null) return undefined;
   if (!Array.isArray(value) || !value.every((item) => typeof item === 'string')) {
-    throw badRequest(`invalid_search_${snake(key)}`, `Invalid value type at \`.${key}\`: expected an array of strings.`);
+    throw badRequest(
+      `invalid_search_${snake(key)}`,
+      `Invalid value type at \`.${key}\`: expected an array of strings.`,
+    );
   }
   return value;
 }
@@ -86,7 +92,10 @@ export function validateSearchRequest(body: unknown): SearchRequest {
     throw badRequest('invalid_search_q', 'Invalid value type at `.q`: expected a string.');
   }
   if (matchingStrategy !== undefined && !['last', 'all', 'frequency'].includes(matchingStrategy as string)) {
-    throw badRequest('invalid_search_matching_strategy', 'Unknown value at `.matchingStrategy`: expected one of `last`, `all`, `frequency`.');
+    throw badRequest(
+      'invalid_search_matching_strategy',
+      'Unknown value at `.matchingStrategy`: expected one of `last`, `all`, `frequency`.',
+    );
   }
   return {
     q: q as string | null | undefined,
@@ -111,12 +120,18 @@ function parseSort(index: FakeIndex, sort: string[] | undefined): SortRule[] {
   return (sort ?? []).map((expression) => {
     const match = /^(.+):(asc|desc)$/.exec(expression.trim());
     if (!match) {
-      throw badRequest('invalid_search_sort', `Invalid syntax for the sort parameter: expected expression ending by \`:asc\` or \`:desc\`, found \`${expression}\`.`);
+      throw badRequest(
+        'invalid_search_sort',
+        `Invalid syntax for the sort parameter: expected expression ending by \`:asc\` or \`:desc\`, found \`${expression}\`.`,
+      );
     }
     const [, attribute, direction] = match;
     if (!index.isSortable(attribute)) {
       const available = [...index.settings.sortableAttributes].sort().join(', ');
-      throw badRequest('invalid_search_sort', `Attribute \`${attribute}\` is not sortable. Available sortable attributes are: \`${available}\`.`);
+      throw badRequest(
+        'invalid_search_sort',
+        `Attribute \`${attribute}\` is not sortable. Available sortable attributes are: \`${available}\`.`,
+      );
     }
     return { attribute, direction: direction === 'asc' ? 1 : -1 };
   });
@@ -217,11 +232,18 @@ function facetResults(index: FakeIndex, facets: string[], matched: ArrayLike<num
   for (const name of names) {
     if (!index.isFilterable(name)) {
       const available = [...index.settings.filterableAttributes].sort().join(', ');
-      throw badRequest('invalid_search_facets', `Invalid facet distribution, attribute \`${name}\` is not filterable. The available filterable attributes are \`${available}\`.`);
+      throw badRequest(
+        'invalid_search_facets',
+        `Invalid facet distribution, attribute \`${name}\` is not filterable. The available filterable attributes are \`${available}\`.`,
+      );
     }
     const result = index.facet(name)?.distribution(matched);
     const entries = [...(result?.counts ?? new Map<string, number>())];
-    entries.sort(facetOrder(index, name) === 'count' ? (a, b) => b[1] - a[1] || compareText(a[0], b[0]) : (a, b) => compareText(a[0], b[0]));
+    entries.sort(
+      facetOrder(index, name) === 'count'
+        ? (a, b) => b[1] - a[1] || compareText(a[0], b[0])
+        : (a, b) => compareText(a[0], b[0]),
+    );
     distribution[name] = Object.fromEntries(entries.slice(0, index.settings.faceting.maxValuesPerFacet));
     if (result?.stats) stats[name] = result.stats;
   }
@@ -234,7 +256,10 @@ function compareText(a: string, b: string): number {
 
 function queryTerms(q: string | null | undefined): string[] {
   if (!q) return [];
-  return q.split(/[\s\p{P}]+/u).map(processTerm).filter((term) => term.length > 0);
+  return q
+    .split(/[\s\p{P}]+/u)
+    .map(processTerm)
+    .filter((term) => term.length > 0);
 }
 
 /** Matched slots in relevance order (or slot order without a query), with their scores. */
@@ -256,12 +281,23 @@ export function runSearch(index: FakeIndex, request: SearchRequest): Record<stri
   const reachable = Math.min(matched.slots.length, index.settings.pagination.maxTotalHits);
   const end = Math.min(window.start + window.size, reachable);
   const ordered =
-    rules.length === 0 ? matched.slots.slice(0, end) : topK(matched.slots, end, buildComparator(index, rules, matched.scores));
-  const hits = ordered.slice(window.start).map((slot) => project(index.document(slot) as Document, request.attributesToRetrieve, index.settings.displayedAttributes));
+    rules.length === 0
+      ? matched.slots.slice(0, end)
+      : topK(matched.slots, end, buildComparator(index, rules, matched.scores));
+  const hits = ordered
+    .slice(window.start)
+    .map((slot) =>
+      project(index.document(slot) as Document, request.attributesToRetrieve, index.settings.displayedAttributes),
+    );
   const facets = request.facets ? facetResults(index, request.facets, matched.slots) : {};
   const total = matched.slots.length;
   const paging = window.finite
-    ? { hitsPerPage: window.size, page: request.page ?? 1, totalPages: window.size === 0 ? 0 : Math.ceil(total / window.size), totalHits: total }
+    ? {
+        hitsPerPage: window.size,
+        page: request.page ?? 1,
+        totalPages: window.size === 0 ? 0 : Math.ceil(total / window.size),
+        totalHits: total,
+      }
     : { limit: window.size, offset: window.start, estimatedTotalHits: total };
   return {
     hits,

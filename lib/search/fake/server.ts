@@ -57,27 +57,95 @@ const ROUTES: Array<[string, RegExp, Handler]> = [
   ['GET', /^\/indexes$/, (engine, call) => ok(engine.listIndexes(call.params))],
   ['POST', /^\/indexes$/, (engine, call) => accepted(engine.createIndex(call.body()))],
   ['GET', new RegExp(`^/indexes/${segment}$`), (engine, call) => ok(engine.describeIndex(call.match[0]))],
-  ['PATCH', new RegExp(`^/indexes/${segment}$`), (engine, call) => accepted(engine.updateIndex(call.match[0], call.body()))],
+  [
+    'PATCH',
+    new RegExp(`^/indexes/${segment}$`),
+    (engine, call) => accepted(engine.updateIndex(call.match[0], call.body())),
+  ],
   ['DELETE', new RegExp(`^/indexes/${segment}$`), (engine, call) => accepted(engine.deleteIndex(call.match[0]))],
   ['GET', new RegExp(`^/indexes/${segment}/stats$`), (engine, call) => ok(engine.indexStats(call.match[0]))],
   ['POST', new RegExp(`^/indexes/${segment}/search$`), (engine, call) => ok(engine.search(call.match[0], call.body()))],
-  ['GET', new RegExp(`^/indexes/${segment}/search$`), (engine, call) => ok(engine.search(call.match[0], searchBodyFromQuery(call.params)))],
-  ['GET', new RegExp(`^/indexes/${segment}/documents$`), (engine, call) => ok(engine.listDocuments(call.match[0], call.params))],
-  ['POST', new RegExp(`^/indexes/${segment}/documents$`), (engine, call) => accepted(engine.writeDocuments(call.match[0], call.body(), call.params, 'replace'))],
-  ['PUT', new RegExp(`^/indexes/${segment}/documents$`), (engine, call) => accepted(engine.writeDocuments(call.match[0], call.body(), call.params, 'merge'))],
-  ['DELETE', new RegExp(`^/indexes/${segment}/documents$`), (engine, call) => accepted(engine.deleteAllDocuments(call.match[0]))],
-  ['POST', new RegExp(`^/indexes/${segment}/documents/fetch$`), (engine, call) => ok(engine.fetchDocuments(call.match[0], call.body()))],
-  ['POST', new RegExp(`^/indexes/${segment}/documents/delete-batch$`), (engine, call) => accepted(engine.deleteDocumentBatch(call.match[0], call.body()))],
-  ['POST', new RegExp(`^/indexes/${segment}/documents/delete$`), (engine, call) => accepted(engine.deleteDocumentsByFilter(call.match[0], call.body()))],
-  ['GET', new RegExp(`^/indexes/${segment}/documents/${segment}$`), (engine, call) => ok(engine.getDocument(call.match[0], call.match[1], call.params))],
-  ['DELETE', new RegExp(`^/indexes/${segment}/documents/${segment}$`), (engine, call) => accepted(engine.deleteDocument(call.match[0], call.match[1]))],
+  [
+    'GET',
+    new RegExp(`^/indexes/${segment}/search$`),
+    (engine, call) => ok(engine.search(call.match[0], searchBodyFromQuery(call.params))),
+  ],
+  [
+    'GET',
+    new RegExp(`^/indexes/${segment}/documents$`),
+    (engine, call) => ok(engine.listDocuments(call.match[0], call.params)),
+  ],
+  [
+    'POST',
+    new RegExp(`^/indexes/${segment}/documents$`),
+    (engine, call) => accepted(engine.writeDocuments(call.match[0], call.body(), call.params, 'replace')),
+  ],
+  [
+    'PUT',
+    new RegExp(`^/indexes/${segment}/documents$`),
+    (engine, call) => accepted(engine.writeDocuments(call.match[0], call.body(), call.params, 'merge')),
+  ],
+  [
+    'DELETE',
+    new RegExp(`^/indexes/${segment}/documents$`),
+    (engine, call) => accepted(engine.deleteAllDocuments(call.match[0])),
+  ],
+  [
+    'POST',
+    new RegExp(`^/indexes/${segment}/documents/fetch$`),
+    (engine, call) => ok(engine.fetchDocuments(call.match[0], call.body())),
+  ],
+  [
+    'POST',
+    new RegExp(`^/indexes/${segment}/documents/delete-batch$`),
+    (engine, call) => accepted(engine.deleteDocumentBatch(call.match[0], call.body())),
+  ],
+  [
+    'POST',
+    new RegExp(`^/indexes/${segment}/documents/delete$`),
+    (engine, call) => accepted(engine.deleteDocumentsByFilter(call.match[0], call.body())),
+  ],
+  [
+    'GET',
+    new RegExp(`^/indexes/${segment}/documents/${segment}$`),
+    (engine, call) => ok(engine.getDocument(call.match[0], call.match[1], call.params)),
+  ],
+  [
+    'DELETE',
+    new RegExp(`^/indexes/${segment}/documents/${segment}$`),
+    (engine, call) => accepted(engine.deleteDocument(call.match[0], call.match[1])),
+  ],
   ['GET', new RegExp(`^/indexes/${segment}/settings$`), (engine, call) => ok(engine.getSettings(call.match[0]))],
-  ['PATCH', new RegExp(`^/indexes/${segment}/settings$`), (engine, call) => accepted(engine.updateSettings(call.match[0], call.body()))],
-  ['DELETE', new RegExp(`^/indexes/${segment}/settings$`), (engine, call) => accepted(engine.resetSettings(call.match[0]))],
-  ['GET', new RegExp(`^/indexes/${segment}/settings/${segment}$`), (engine, call) => ok(engine.getSetting(call.match[0], call.match[1]))],
-  ['PUT', new RegExp(`^/indexes/${segment}/settings/${segment}$`), (engine, call) => accepted(engine.updateSetting(call.match[0], call.match[1], call.body()))],
-  ['PATCH', new RegExp(`^/indexes/${segment}/settings/${segment}$`), (engine, call) => accepted(engine.updateSetting(call.match[0], call.match[1], call.body()))],
-  ['DELETE', new RegExp(`^/indexes/${segment}/settings/${segment}$`), (engine, call) => accepted(engine.resetSetting(call.match[0], call.match[1]))],
+  [
+    'PATCH',
+    new RegExp(`^/indexes/${segment}/settings$`),
+    (engine, call) => accepted(engine.updateSettings(call.match[0], call.body())),
+  ],
+  [
+    'DELETE',
+    new RegExp(`^/indexes/${segment}/settings$`),
+    (engine, call) => accepted(engine.resetSettings(call.match[0])),
+  ],
+  [
+    'GET',
+    new RegExp(`^/indexes/${segment}/settings/${segment}$`),
+    (engine, call) => ok(engine.getSetting(call.match[0], call.match[1])),
+  ],
+  [
+    'PUT',
+    new RegExp(`^/indexes/${segment}/settings/${segment}$`),
+    (engine, call) => accepted(engine.updateSetting(call.match[0], call.match[1], call.body())),
+  ],
+  [
+    'PATCH',
+    new RegExp(`^/indexes/${segment}/settings/${segment}$`),
+    (engine, call) => accepted(engine.updateSetting(call.match[0], call.match[1], call.body())),
+  ],
+  [
+    'DELETE',
+    new RegExp(`^/indexes/${segment}/settings/${segment}$`),
+    (engine, call) => accepted(engine.resetSetting(call.match[0], call.match[1])),
+  ],
 ];
 
 function taskOrFail(engine: FakeEngine, uid: number) {
@@ -100,7 +168,13 @@ function readBody(request: IncomingMessage): Promise<string> {
     request.on('data', (chunk: Buffer) => {
       size += chunk.length;
       if (size > MAX_PAYLOAD_BYTES) {
-        reject(new FakeApiError(413, 'payload_too_large', `The provided payload reached the size limit of ${MAX_PAYLOAD_BYTES} bytes.`));
+        reject(
+          new FakeApiError(
+            413,
+            'payload_too_large',
+            `The provided payload reached the size limit of ${MAX_PAYLOAD_BYTES} bytes.`,
+          ),
+        );
         request.destroy();
       } else {
         chunks.push(chunk);
@@ -122,7 +196,10 @@ function parseJson(text: string): unknown {
 
 function send(response: ServerResponse, reply: Reply): void {
   const payload = JSON.stringify(reply.body);
-  response.writeHead(reply.status, { 'Content-Type': 'application/json', 'Content-Length': Buffer.byteLength(payload) });
+  response.writeHead(reply.status, {
+    'Content-Type': 'application/json',
+    'Content-Length': Buffer.byteLength(payload),
+  });
   response.end(payload);
 }
 
@@ -136,7 +213,11 @@ async function handle(engine: FakeEngine, apiKey: string | undefined, request: I
   for (const [routeMethod, pattern, handler] of ROUTES) {
     const match = routeMethod === method ? pattern.exec(path) : null;
     if (match) {
-      return handler(engine, { params: url.searchParams, body: () => parseJson(text), match: match.slice(1).map(decodeSegment) });
+      return handler(engine, {
+        params: url.searchParams,
+        body: () => parseJson(text),
+        match: match.slice(1).map(decodeSegment),
+      });
     }
   }
   throw notFound();
@@ -151,7 +232,10 @@ function decodeSegment(segmentText: string): string {
 }
 
 function toReply(error: unknown): Reply {
-  const apiError = error instanceof FakeApiError ? error : new FakeApiError(500, 'internal', 'An internal error occurred in the search fake.', 'internal');
+  const apiError =
+    error instanceof FakeApiError
+      ? error
+      : new FakeApiError(500, 'internal', 'An internal error occurred in the search fake.', 'internal');
   if (!(error instanceof FakeApiError)) console.error(error);
   return { status: apiError.status, body: apiError.toBody() };
 }

@@ -99,7 +99,11 @@ export function validateSettingsPatch(body: unknown): Partial<IndexSettings> {
   const patch: Record<string, unknown> = {};
   for (const [key, value] of Object.entries(body)) {
     const name = settingNameFromRoute(key) === key ? (key as keyof IndexSettings) : null;
-    if (name === null) throw badRequest('bad_request', `Unknown field \`${key}\`: the fake accepts ${Object.keys(defaultSettings()).join(', ')}`);
+    if (name === null)
+      throw badRequest(
+        'bad_request',
+        `Unknown field \`${key}\`: the fake accepts ${Object.keys(defaultSettings()).join(', ')}`,
+      );
     patch[name] = validateSetting(name, value);
   }
   return patch as Partial<IndexSettings>;

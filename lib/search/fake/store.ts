@@ -204,7 +204,13 @@ export function inferPrimaryKey(doc: Document): string {
   const candidates = Object.keys(doc).filter((key) => key.toLowerCase().endsWith('id'));
   if (candidates.length === 1) return candidates[0];
   if (candidates.length === 0) {
-    throw badRequest('index_primary_key_no_candidate_found', 'The primary key inference failed as the engine did not find any field ending with `id` in its name. Please specify the primary key manually using the `primaryKey` query parameter.');
+    throw badRequest(
+      'index_primary_key_no_candidate_found',
+      'The primary key inference failed as the engine did not find any field ending with `id` in its name. Please specify the primary key manually using the `primaryKey` query parameter.',
+    );
   }
-  throw badRequest('index_primary_key_multiple_candidates_found', `The primary key inference failed as the engine found ${candidates.length} fields ending with \`id\` in their names: '${candidates.join("' and '")}'. Please specify the primary key manually using the \`primaryKey\` query parameter.`);
+  throw badRequest(
+    'index_primary_key_multiple_candidates_found',
+    `The primary key inference failed as the engine found ${candidates.length} fields ending with \`id\` in their names: '${candidates.join("' and '")}'. Please specify the primary key manually using the \`primaryKey\` query parameter.`,
+  );
 }

@@ -94,7 +94,8 @@ export class TaskQueue {
   list(params: URLSearchParams): Record<string, unknown> {
     const limit = Number(params.get('limit') ?? 20);
     const from = params.has('from') ? Number(params.get('from')) : null;
-    if (!Number.isInteger(limit) || limit < 0) throw badRequest('invalid_task_limit', 'Invalid value in parameter `limit`: expected a positive integer.');
+    if (!Number.isInteger(limit) || limit < 0)
+      throw badRequest('invalid_task_limit', 'Invalid value in parameter `limit`: expected a positive integer.');
     const statuses = listParam(params, 'statuses');
     if (statuses?.some((status) => !TASK_STATUSES.has(status))) {
       throw badRequest('invalid_task_statuses', 'Invalid value in parameter `statuses`.');
@@ -146,7 +147,9 @@ export class TaskQueue {
       task.view.status = 'succeeded';
     } catch (error) {
       task.view.status = 'failed';
-      task.view.error = (error instanceof FakeApiError ? error : new FakeApiError(500, 'internal', String(error), 'internal')).toBody();
+      task.view.error = (
+        error instanceof FakeApiError ? error : new FakeApiError(500, 'internal', String(error), 'internal')
+      ).toBody();
     }
     task.work = null;
     task.view.finishedAt = new Date().toISOString();

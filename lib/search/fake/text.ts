@@ -50,7 +50,12 @@ function searchAll(index: FakeIndex, terms: string[], candidates: Bitset | null)
  * With the default `last` strategy, when no document holds every term the trailing
  * terms are dropped one at a time until something matches; `all` never drops terms.
  */
-export function matchText(index: FakeIndex, terms: string[], candidates: Bitset | null, strategy: MatchingStrategy): TextMatch {
+export function matchText(
+  index: FakeIndex,
+  terms: string[],
+  candidates: Bitset | null,
+  strategy: MatchingStrategy,
+): TextMatch {
   let match = searchAll(index, terms, candidates);
   for (let kept = terms.length - 1; match.slots.length === 0 && strategy !== 'all' && kept > 0; kept--) {
     match = searchAll(index, terms.slice(0, kept), candidates);

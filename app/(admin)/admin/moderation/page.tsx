@@ -18,12 +18,18 @@ function Context({ item }: { item: QueueItem }) {
         <p className="font-sans text-sm">
           {item.targetType === 'comment' || item.targetType === 'photo' ? 'On the recipe ' : 'Recipe '}
           <Link href={`/recipes/${item.recipe.slug}`}>{item.recipe.title}</Link>
-          {item.recipe.hidden && <span className="ml-2 text-danger">hidden{item.recipe.hiddenReason ? `: ${item.recipe.hiddenReason}` : ''}</span>}
+          {item.recipe.hidden && (
+            <span className="ml-2 text-danger">
+              hidden{item.recipe.hiddenReason ? `: ${item.recipe.hiddenReason}` : ''}
+            </span>
+          )}
         </p>
       )}
       {item.comment && (
         <>
-          <p className="mt-2 font-sans text-xs uppercase tracking-wide text-muted">The comment ({item.comment.state})</p>
+          <p className="mt-2 font-sans text-xs uppercase tracking-wide text-muted">
+            The comment ({item.comment.state})
+          </p>
           <Markdown source={item.comment.body || '(deleted by its author)'} />
         </>
       )}
@@ -39,7 +45,9 @@ function Context({ item }: { item: QueueItem }) {
           {item.bio ? <Markdown source={item.bio} /> : <p className="text-muted">(no bio)</p>}
         </>
       )}
-      {item.targetType === 'photo' && <p className="font-sans text-sm text-muted">Photo {item.targetId} on a brew day of this recipe.</p>}
+      {item.targetType === 'photo' && (
+        <p className="font-sans text-sm text-muted">Photo {item.targetId} on a brew day of this recipe.</p>
+      )}
       {item.targetType === 'proposal' && (
         <p className="font-sans text-sm">
           <Link href={`/proposals/${item.targetId}`}>Read the reported proposal</Link> to this recipe.
@@ -57,7 +65,9 @@ export default async function ModerationPage() {
       <div className="flex flex-wrap items-end justify-between gap-4">
         <div>
           <h1 className="text-3xl font-semibold">Moderation queue</h1>
-          <p className="mt-1 font-sans text-sm text-muted">Open reports, oldest first, and comments held for review. Every action is written to the moderation log.</p>
+          <p className="mt-1 font-sans text-sm text-muted">
+            Open reports, oldest first, and comments held for review. Every action is written to the moderation log.
+          </p>
         </div>
         {hasRole(viewer, 'admin') && (
           <Link href="/admin/moderation/log" className="kf-btn-quiet font-sans text-sm">
@@ -75,11 +85,13 @@ export default async function ModerationPage() {
           {items.map((item) => (
             <li key={`${item.targetType}-${item.targetId}`} className="kf-card" data-testid="report-item">
               <h3 className="text-lg font-semibold">
-                {item.reports.length} {item.reports.length === 1 ? 'report' : 'reports'} on a {TARGET_LABELS[item.targetType]}
+                {item.reports.length} {item.reports.length === 1 ? 'report' : 'reports'} on a{' '}
+                {TARGET_LABELS[item.targetType]}
                 {item.owner && (
                   <span className="font-sans text-sm font-normal text-muted">
                     {' '}
-                    by <Link href={`/members/${item.owner.handle}`}>{item.owner.name}</Link> (@{item.owner.handle}, {item.owner.role}
+                    by <Link href={`/members/${item.owner.handle}`}>{item.owner.name}</Link> (@{item.owner.handle},{' '}
+                    {item.owner.role}
                     {item.owner.suspended ? ', suspended' : ''})
                   </span>
                 )}
@@ -88,7 +100,8 @@ export default async function ModerationPage() {
               <ul className="mt-3 space-y-2 font-sans text-sm">
                 {item.reports.map((r) => (
                   <li key={r.id}>
-                    <strong>{REASON_LABELS[r.reason]}</strong> — reported by {r.reporterName} on {format(r.createdAt, 'd MMM yyyy, HH:mm')}
+                    <strong>{REASON_LABELS[r.reason]}</strong> — reported by {r.reporterName} on{' '}
+                    {format(r.createdAt, 'd MMM yyyy, HH:mm')}
                     {r.note && <p className="mt-1 whitespace-pre-wrap text-muted">“{r.note}”</p>}
                   </li>
                 ))}
@@ -96,7 +109,12 @@ export default async function ModerationPage() {
               <ReportActions
                 reportId={item.reports[0].id}
                 targetType={item.targetType}
-                canSuspend={Boolean(item.owner && !item.owner.suspended && item.owner.id !== viewer.id && (item.owner.role === 'member' || (item.owner.role === 'moderator' && viewer.role === 'admin')))}
+                canSuspend={Boolean(
+                  item.owner &&
+                  !item.owner.suspended &&
+                  item.owner.id !== viewer.id &&
+                  (item.owner.role === 'member' || (item.owner.role === 'moderator' && viewer.role === 'admin')),
+                )}
               />
             </li>
           ))}
@@ -107,14 +125,18 @@ export default async function ModerationPage() {
         <h2 id="held-heading" className="mt-10 text-2xl font-semibold">
           Comments held for review ({held.length})
         </h2>
-        <p className="mt-1 font-sans text-sm text-muted">A new member’s comments with links wait here until a moderator publishes them.</p>
+        <p className="mt-1 font-sans text-sm text-muted">
+          A new member’s comments with links wait here until a moderator publishes them.
+        </p>
         {held.length === 0 && <p className="kf-card mt-3">Nothing is waiting.</p>}
         <ul className="mt-3 space-y-4">
           {held.map((c) => (
             <li key={c.id} className="kf-card">
               <p className="font-sans text-sm text-muted">
-                <Link href={`/members/${c.author.handle}`}>{c.author.name}</Link> (joined {format(c.author.joinedAt, 'd MMM yyyy')}) on{' '}
-                <Link href={`/recipes/${c.recipe.slug}`}>{c.recipe.title}</Link>, {format(c.createdAt, 'd MMM yyyy, HH:mm')}
+                <Link href={`/members/${c.author.handle}`}>{c.author.name}</Link> (joined{' '}
+                {format(c.author.joinedAt, 'd MMM yyyy')}) on{' '}
+                <Link href={`/recipes/${c.recipe.slug}`}>{c.recipe.title}</Link>,{' '}
+                {format(c.createdAt, 'd MMM yyyy, HH:mm')}
               </p>
               <Markdown source={c.body} className="mt-2" />
               <HeldCommentActions commentId={c.id} />

@@ -12,7 +12,8 @@ export default async function OutboxPage() {
     <div>
       <h1 className="text-3xl font-semibold">Mail outbox</h1>
       <p className="mt-2 font-sans text-sm text-muted">
-        What the local mail server has received. In production, mail goes to the relay named by SMTP_URL and does not show here.
+        What the local mail server has received. In production, mail goes to the relay named by SMTP_URL and does not
+        show here.
       </p>
       {!available && (
         <p role="status" className="kf-card mt-6 font-sans text-sm">

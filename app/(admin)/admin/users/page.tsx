@@ -18,11 +18,21 @@ export default async function AdminUsersPage() {
           <caption className="sr-only">All members with their roles</caption>
           <thead>
             <tr className="border-b border-line text-left">
-              <th scope="col" className="py-2 pr-4">Name</th>
-              <th scope="col" className="py-2 pr-4">E-mail</th>
-              <th scope="col" className="py-2 pr-4">Joined</th>
-              <th scope="col" className="py-2 pr-4">Status</th>
-              <th scope="col" className="py-2">Role</th>
+              <th scope="col" className="py-2 pr-4">
+                Name
+              </th>
+              <th scope="col" className="py-2 pr-4">
+                E-mail
+              </th>
+              <th scope="col" className="py-2 pr-4">
+                Joined
+              </th>
+              <th scope="col" className="py-2 pr-4">
+                Status
+              </th>
+              <th scope="col" className="py-2">
+                Role
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -33,7 +43,9 @@ export default async function AdminUsersPage() {
                 </td>
                 <td className="py-2 pr-4">{m.email}</td>
                 <td className="kf-data py-2 pr-4">{format(m.createdAt, 'd MMM yyyy')}</td>
-                <td className="py-2 pr-4">{m.suspendedAt ? <span className="text-danger">suspended</span> : 'active'}</td>
+                <td className="py-2 pr-4">
+                  {m.suspendedAt ? <span className="text-danger">suspended</span> : 'active'}
+                </td>
                 <td className="py-2">
                   <RoleSelect userId={m.id} name={m.name ?? m.handle} role={m.role} disabled={m.id === viewer.id} />
                 </td>

@@ -25,7 +25,9 @@ export function PasswordSignInForm({ callbackUrl }: { callbackUrl: string }) {
     setFormError(undefined);
     const result = await signIn('credentials', { ...values, redirect: false });
     if (!result || result.error) {
-      setFormError('That e-mail and password do not match an account that can sign in, or there were too many attempts. Please check and try again.');
+      setFormError(
+        'That e-mail and password do not match an account that can sign in, or there were too many attempts. Please check and try again.',
+      );
       return;
     }
     await queryClient.invalidateQueries({ queryKey: meKeys.all });

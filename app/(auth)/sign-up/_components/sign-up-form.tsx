@@ -52,7 +52,13 @@ export function SignUpForm() {
     <form onSubmit={onSubmit} noValidate>
       {field('name', 'Name other brewers will see', 'text', 'nickname')}
       {field('email', 'E-mail', 'email', 'email')}
-      {field('password', 'Password', 'password', 'new-password', `At least ${PASSWORD_MIN_LENGTH} characters. A few unrelated words work well.`)}
+      {field(
+        'password',
+        'Password',
+        'password',
+        'new-password',
+        `At least ${PASSWORD_MIN_LENGTH} characters. A few unrelated words work well.`,
+      )}
       {formError && (
         <p role="alert" className="kf-field-error">
           {formError}

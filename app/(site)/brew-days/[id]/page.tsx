@@ -27,7 +27,9 @@ async function load(id: string) {
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
   const { view } = await load((await params).id);
-  return { title: `${view.recipe.title}: brewed ${format(parseISO(view.day.brewedOn), 'd MMM yyyy')} by ${view.brewer.name}` };
+  return {
+    title: `${view.recipe.title}: brewed ${format(parseISO(view.day.brewedOn), 'd MMM yyyy')} by ${view.brewer.name}`,
+  };
 }
 
 function pressureText(kPa: number, units: UnitSystem): string {
@@ -46,7 +48,9 @@ function shown(value: number | null, c: Comparison, units: UnitSystem, signed = 
       return `${sign}${value.toFixed(2)}`;
     case 'temperature':
       // A difference converts by scale only (no offset).
-      return signed ? `${sign}${(units === 'us' ? value * 1.8 : value).toFixed(1)} ${units === 'us' ? '°F' : '°C'}` : formatAmount(value, 'temperature', units);
+      return signed
+        ? `${sign}${(units === 'us' ? value * 1.8 : value).toFixed(1)} ${units === 'us' ? '°F' : '°C'}`
+        : formatAmount(value, 'temperature', units);
     case 'volume':
       return `${sign}${formatAmount(value, 'volume', units, 1)}`;
     case 'pressure':
@@ -55,7 +59,9 @@ function shown(value: number | null, c: Comparison, units: UnitSystem, signed = 
 }
 
 function ComparisonTable({ view, units }: { view: BrewDayView; units: UnitSystem }) {
-  const rows = view.outcome.comparisons.filter((c) => c.measured !== null || ['og', 'fg', 'efficiencyPct', 'abv'].includes(c.key));
+  const rows = view.outcome.comparisons.filter(
+    (c) => c.measured !== null || ['og', 'fg', 'efficiencyPct', 'abv'].includes(c.key),
+  );
   return (
     <table className="w-full font-sans text-sm">
       <caption className="sr-only">Measured numbers beside the version&apos;s prediction</caption>
@@ -83,7 +89,9 @@ function ComparisonTable({ view, units }: { view: BrewDayView; units: UnitSystem
             </th>
             <td className="kf-data py-1 pr-2 text-right">{shown(c.measured, c, units)}</td>
             <td className="kf-data py-1 pr-2 text-right text-muted">{shown(c.predicted, c, units)}</td>
-            <td className="kf-data py-1 text-right">{c.difference === null ? '—' : shown(c.difference, c, units, true)}</td>
+            <td className="kf-data py-1 text-right">
+              {c.difference === null ? '—' : shown(c.difference, c, units, true)}
+            </td>
           </tr>
         ))}
       </tbody>
@@ -96,14 +104,24 @@ function chartPoints(view: BrewDayView, units: UnitSystem): ChartPoint[] {
   const temp = (c: number | null) => (c === null ? null : toDisplayUnits(c, 'temperature', units));
   const points: ChartPoint[] = [];
   if (view.day.og !== null) points.push({ day: 0, gravity: view.day.og, temp: temp(view.day.pitchTempC) });
-  for (const r of view.readings) points.push({ day: differenceInCalendarDays(parseISO(r.takenOn), start), gravity: r.gravity, temp: temp(r.beerTempC) });
+  for (const r of view.readings)
+    points.push({
+      day: differenceInCalendarDays(parseISO(r.takenOn), start),
+      gravity: r.gravity,
+      temp: temp(r.beerTempC),
+    });
   return points;
 }
 
 function readingText(r: BrewDayView['readings'][number], units: UnitSystem): string {
   const parts: string[] = [];
   if (r.gravity !== null) {
-    const raw = r.method === 'refractometer' ? `${r.rawValue} °Brix` : r.sampleTempC !== null ? `read ${r.rawValue?.toFixed(3)} at ${formatAmount(r.sampleTempC, 'temperature', units)}` : null;
+    const raw =
+      r.method === 'refractometer'
+        ? `${r.rawValue} °Brix`
+        : r.sampleTempC !== null
+          ? `read ${r.rawValue?.toFixed(3)} at ${formatAmount(r.sampleTempC, 'temperature', units)}`
+          : null;
     parts.push(`${r.gravity.toFixed(3)}${raw ? ` (${raw})` : ''}`);
   }
   if (r.beerTempC !== null) parts.push(formatAmount(r.beerTempC, 'temperature', units));
@@ -130,9 +148,14 @@ export default async function BrewDayPage({ params }: Props) {
           {day.packagedOn && (
             <>
               {' '}
-              · packaged {format(parseISO(day.packagedOn), 'd MMM yyyy')} in {day.packaging === 'keg' ? 'a keg' : day.packaging === 'bottles' ? 'bottles' : '—'}
-              {day.packaging === 'keg' && day.kegPressureKPa !== null && <> at {pressureText(day.kegPressureKPa, units)}</>}
-              {day.packaging === 'bottles' && day.primingSugarG !== null && <> with {formatAmount(day.primingSugarG, 'hopMass', units, 1)} priming sugar</>}
+              · packaged {format(parseISO(day.packagedOn), 'd MMM yyyy')} in{' '}
+              {day.packaging === 'keg' ? 'a keg' : day.packaging === 'bottles' ? 'bottles' : '—'}
+              {day.packaging === 'keg' && day.kegPressureKPa !== null && (
+                <> at {pressureText(day.kegPressureKPa, units)}</>
+              )}
+              {day.packaging === 'bottles' && day.primingSugarG !== null && (
+                <> with {formatAmount(day.primingSugarG, 'hopMass', units, 1)} priming sugar</>
+              )}
             </>
           )}
         </p>
@@ -145,8 +168,9 @@ export default async function BrewDayPage({ params }: Props) {
 
       {kegHigh && (
         <p role="alert" className="rounded-md border border-danger/40 bg-danger/5 p-3 font-sans text-sm text-danger">
-          The keg pressure recorded is above a typical keg rating of {TYPICAL_KEG_RATING_KPA} kPa (30 psi), by common practice. Keep within the keg and regulator makers&apos; stated limits and
-          your local codes. <Link href="/guides/safety">Safety guide</Link>
+          The keg pressure recorded is above a typical keg rating of {TYPICAL_KEG_RATING_KPA} kPa (30 psi), by common
+          practice. Keep within the keg and regulator makers&apos; stated limits and your local codes.{' '}
+          <Link href="/guides/safety">Safety guide</Link>
         </p>
       )}
 
@@ -159,11 +183,15 @@ export default async function BrewDayPage({ params }: Props) {
           <dl className="mt-4 grid grid-cols-3 gap-3 font-sans text-sm">
             <div className="kf-card">
               <dt className="text-muted">Efficiency</dt>
-              <dd className="kf-data text-lg">{outcome.efficiencyPct === null ? '—' : `${outcome.efficiencyPct.toFixed(1)}%`}</dd>
+              <dd className="kf-data text-lg">
+                {outcome.efficiencyPct === null ? '—' : `${outcome.efficiencyPct.toFixed(1)}%`}
+              </dd>
             </div>
             <div className="kf-card">
               <dt className="text-muted">Attenuation</dt>
-              <dd className="kf-data text-lg">{outcome.attenuationPct === null ? '—' : `${outcome.attenuationPct.toFixed(1)}%`}</dd>
+              <dd className="kf-data text-lg">
+                {outcome.attenuationPct === null ? '—' : `${outcome.attenuationPct.toFixed(1)}%`}
+              </dd>
             </div>
             <div className="kf-card">
               <dt className="text-muted">ABV</dt>
@@ -171,16 +199,21 @@ export default async function BrewDayPage({ params }: Props) {
             </div>
           </dl>
           <p className="mt-2 font-sans text-xs text-muted">
-            Efficiency uses the measured OG and the volume into the fermenter{day.fermenterVolumeL === null ? ' (not recorded, so the recipe’s batch volume)' : ''}.
+            Efficiency uses the measured OG and the volume into the fermenter
+            {day.fermenterVolumeL === null ? ' (not recorded, so the recipe’s batch volume)' : ''}.
           </p>
         </section>
         <aside className="space-y-3">
           <h2 className="text-xl font-semibold">On the day</h2>
           <dl className="grid grid-cols-2 gap-x-4 gap-y-1 font-sans text-sm">
             <dt className="text-muted">Strike water</dt>
-            <dd className="kf-data">{day.strikeTempC === null ? '—' : formatAmount(day.strikeTempC, 'temperature', units)}</dd>
+            <dd className="kf-data">
+              {day.strikeTempC === null ? '—' : formatAmount(day.strikeTempC, 'temperature', units)}
+            </dd>
             <dt className="text-muted">Pitching</dt>
-            <dd className="kf-data">{day.pitchTempC === null ? '—' : formatAmount(day.pitchTempC, 'temperature', units)}</dd>
+            <dd className="kf-data">
+              {day.pitchTempC === null ? '—' : formatAmount(day.pitchTempC, 'temperature', units)}
+            </dd>
           </dl>
           <Caution>{CAUTIONS.hotLiquor}</Caution>
           <Caution>{day.packaging === 'bottles' ? CAUTIONS.bottles : CAUTIONS.pressure}</Caution>
@@ -200,7 +233,10 @@ export default async function BrewDayPage({ params }: Props) {
           <ol className="mt-3 space-y-1 font-sans text-sm">
             {view.readings.map((r) => (
               <li key={r.id}>
-                <span className="text-muted">Day {differenceInCalendarDays(parseISO(r.takenOn), parseISO(day.brewedOn))}:</span> {readingText(r, units)}
+                <span className="text-muted">
+                  Day {differenceInCalendarDays(parseISO(r.takenOn), parseISO(day.brewedOn))}:
+                </span>{' '}
+                {readingText(r, units)}
                 {r.note && <span className="text-muted"> · {r.note}</span>}
               </li>
             ))}
@@ -238,8 +274,8 @@ export default async function BrewDayPage({ params }: Props) {
         {view.tastings.map((t) => (
           <article key={t.id} className="kf-card">
             <p className="font-sans text-sm">
-              <Link href={`/members/${t.tasterHandle}`}>{t.tasterName}</Link> · {format(parseISO(t.tastedOn), 'd MMM yyyy')} ·{' '}
-              <span className="font-semibold">{t.rating} of 5</span>
+              <Link href={`/members/${t.tasterHandle}`}>{t.tasterName}</Link> ·{' '}
+              {format(parseISO(t.tastedOn), 'd MMM yyyy')} · <span className="font-semibold">{t.rating} of 5</span>
             </p>
             <dl className="mt-1 grid gap-x-4 font-sans text-sm sm:grid-cols-[8rem_1fr]">
               {(['appearance', 'aroma', 'flavour', 'mouthfeel', 'overall'] as const).map((k) =>
@@ -257,7 +293,8 @@ export default async function BrewDayPage({ params }: Props) {
           <TastingForm brewDayId={day.id} />
         ) : (
           <p className="font-sans text-sm">
-            <Link href={`/sign-in?callbackUrl=${encodeURIComponent(`/brew-days/${day.id}`)}`}>Sign in</Link> to add your tasting.
+            <Link href={`/sign-in?callbackUrl=${encodeURIComponent(`/brew-days/${day.id}`)}`}>Sign in</Link> to add your
+            tasting.
           </p>
         )}
       </section>

@@ -28,14 +28,26 @@ interface ApiError {
 const FORMAT_WORDS = { beerxml: 'BeerXML 1.0', beerjson: 'BeerJSON 1.0' } as const;
 
 async function postJson<T>(url: string, body: unknown): Promise<T> {
-  const res = await fetch(url, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) });
+  const res = await fetch(url, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify(body),
+  });
   const json = (await res.json().catch(() => ({}))) as T & ApiError;
   if (!res.ok) throw new Error(json.error?.message ?? `The request did not work (HTTP ${res.status}).`);
   return json;
 }
 
 /** Paste or upload, preview with our numbers, choose a recipe, save it. */
-export function ImportForm({ units, maxBytes, ownRecipes }: { units: UnitSystem; maxBytes: number; ownRecipes: { id: string; title: string; headNumber: number }[] }) {
+export function ImportForm({
+  units,
+  maxBytes,
+  ownRecipes,
+}: {
+  units: UnitSystem;
+  maxBytes: number;
+  ownRecipes: { id: string; title: string; headNumber: number }[];
+}) {
   const router = useRouter();
   const [text, setText] = useState('');
   const [format, setFormat] = useState<'' | 'beerxml' | 'beerjson'>('');
@@ -54,9 +66,16 @@ export function ImportForm({ units, maxBytes, ownRecipes }: { units: UnitSystem;
       const result = preview.data!;
       const document = result.recipes[chosen].document;
       const message = `Imported from ${FORMAT_WORDS[result.format]}`;
-      if (target === 'new') return postJson<{ recipe: { slug: string } }>('/api/recipes', { document, visibility, message });
-      const history = await fetch(`/api/recipes/${target}/versions`).then((r) => r.json() as Promise<{ versions: { id: string }[] }>);
-      return postJson<{ recipe: { slug: string } }>(`/api/recipes/${target}/versions`, { document, baseVersionId: history.versions[0].id, message });
+      if (target === 'new')
+        return postJson<{ recipe: { slug: string } }>('/api/recipes', { document, visibility, message });
+      const history = await fetch(`/api/recipes/${target}/versions`).then(
+        (r) => r.json() as Promise<{ versions: { id: string }[] }>,
+      );
+      return postJson<{ recipe: { slug: string } }>(`/api/recipes/${target}/versions`, {
+        document,
+        baseVersionId: history.versions[0].id,
+        message,
+      });
     },
     onSuccess: (saved) => {
       toast.success('Imported and saved.');
@@ -68,7 +87,9 @@ export function ImportForm({ units, maxBytes, ownRecipes }: { units: UnitSystem;
     setFileError(undefined);
     if (!file) return;
     if (file.size > maxBytes) {
-      setFileError(`This file is ${(file.size / (1024 * 1024)).toFixed(1)} MB; the largest we import is ${maxBytes / (1024 * 1024)} MB.`);
+      setFileError(
+        `This file is ${(file.size / (1024 * 1024)).toFixed(1)} MB; the largest we import is ${maxBytes / (1024 * 1024)} MB.`,
+      );
       return;
     }
     setText(await file.text());
@@ -120,14 +141,19 @@ export function ImportForm({ units, maxBytes, ownRecipes }: { units: UnitSystem;
             value={text}
             onChange={(e) => setText(e.target.value)}
             spellCheck={false}
-            placeholder="<RECIPES> … </RECIPES>  or  { &quot;beerjson&quot;: … }"
+            placeholder='<RECIPES> … </RECIPES>  or  { "beerjson": … }'
           />
         </div>
         <div className="max-w-xs">
           <label htmlFor="import-format" className="kf-label">
             Format
           </label>
-          <select id="import-format" className="kf-input" value={format} onChange={(e) => setFormat(e.target.value as typeof format)}>
+          <select
+            id="import-format"
+            className="kf-input"
+            value={format}
+            onChange={(e) => setFormat(e.target.value as typeof format)}
+          >
             <option value="">Work it out from the text</option>
             <option value="beerxml">BeerXML 1.0</option>
             <option value="beerjson">BeerJSON 1.0</option>
@@ -150,7 +176,9 @@ export function ImportForm({ units, maxBytes, ownRecipes }: { units: UnitSystem;
           </h2>
           {recipes.length > 1 && (
             <fieldset className="kf-card">
-              <legend className="font-sans text-sm font-semibold">This file holds {recipes.length} recipes. Choose one to save:</legend>
+              <legend className="font-sans text-sm font-semibold">
+                This file holds {recipes.length} recipes. Choose one to save:
+              </legend>
               <div className="mt-2 space-y-1 font-sans text-sm">
                 {recipes.map((r, i) => (
                   <label key={i} className="flex items-center gap-2">
@@ -162,7 +190,11 @@ export function ImportForm({ units, maxBytes, ownRecipes }: { units: UnitSystem;
             </fieldset>
           )}
           <div className="grid gap-8 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
-            <RecipeDocumentView doc={current.document} units={units} notes={<Markdown source={current.document.notes} className="mt-2 leading-relaxed" />} />
+            <RecipeDocumentView
+              doc={current.document}
+              units={units}
+              notes={<Markdown source={current.document.notes} className="mt-2 leading-relaxed" />}
+            />
             <aside className="space-y-6">
               <div className="kf-card">
                 <h3 className="text-lg font-semibold">Kettlefork&apos;s numbers</h3>
@@ -170,7 +202,11 @@ export function ImportForm({ units, maxBytes, ownRecipes }: { units: UnitSystem;
                   <StatsPanel stats={current.stats} units={units} />
                 </div>
               </div>
-              <ChangeList title="Left out" empty="Nothing: every part of the recipe was read." items={current.dropped} />
+              <ChangeList
+                title="Left out"
+                empty="Nothing: every part of the recipe was read."
+                items={current.dropped}
+              />
               <ChangeList title="Assumed" empty="Nothing: the file gave every value we need." items={current.guessed} />
               <form
                 className="kf-card space-y-3"
@@ -185,7 +221,12 @@ export function ImportForm({ units, maxBytes, ownRecipes }: { units: UnitSystem;
                   <label htmlFor="import-target" className="kf-label">
                     Save as
                   </label>
-                  <select id="import-target" className="kf-input" value={target} onChange={(e) => setTarget(e.target.value)}>
+                  <select
+                    id="import-target"
+                    className="kf-input"
+                    value={target}
+                    onChange={(e) => setTarget(e.target.value)}
+                  >
                     <option value="new">A new recipe</option>
                     {ownRecipes.map((r) => (
                       <option key={r.id} value={r.id}>
@@ -199,7 +240,12 @@ export function ImportForm({ units, maxBytes, ownRecipes }: { units: UnitSystem;
                     <label htmlFor="import-visibility" className="kf-label">
                       Who can see it
                     </label>
-                    <select id="import-visibility" className="kf-input" value={visibility} onChange={(e) => setVisibility(e.target.value as typeof visibility)}>
+                    <select
+                      id="import-visibility"
+                      className="kf-input"
+                      value={visibility}
+                      onChange={(e) => setVisibility(e.target.value as typeof visibility)}
+                    >
                       <option value="private">Only me (you can share it later)</option>
                       <option value="unlisted">Only people with the link</option>
                       <option value="public">Everyone</option>

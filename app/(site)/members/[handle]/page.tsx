@@ -15,7 +15,14 @@ type Props = { params: Promise<{ handle: string }> };
 
 async function loadMember(handle: string) {
   const [member] = await db
-    .select({ id: users.id, name: users.name, handle: users.handle, bio: users.bio, createdAt: users.createdAt, suspendedAt: users.suspendedAt })
+    .select({
+      id: users.id,
+      name: users.name,
+      handle: users.handle,
+      bio: users.bio,
+      createdAt: users.createdAt,
+      suspendedAt: users.suspendedAt,
+    })
     .from(users)
     .where(eq(users.handle, handle.slice(0, 40)));
   if (!member || member.suspendedAt) notFound();

@@ -18,7 +18,12 @@ export function MarkReadButton() {
     onError: (err) => toast.error(err.message),
   });
   return (
-    <button type="button" className="kf-btn-quiet font-sans text-sm" disabled={mark.isPending} onClick={() => mark.mutate()}>
+    <button
+      type="button"
+      className="kf-btn-quiet font-sans text-sm"
+      disabled={mark.isPending}
+      onClick={() => mark.mutate()}
+    >
       Mark all as read
     </button>
   );

@@ -17,7 +17,8 @@ export default async function UnsubscribedPage({ searchParams }: Props) {
       <div className="max-w-2xl">
         <h1 className="text-3xl font-semibold">This link does not work</h1>
         <p className="mt-3">
-          The unsubscribe link is incomplete or was changed. You can choose what we e-mail you on the <Link href="/settings">settings page</Link>.
+          The unsubscribe link is incomplete or was changed. You can choose what we e-mail you on the{' '}
+          <Link href="/settings">settings page</Link>.
         </p>
       </div>
     );
@@ -26,7 +27,9 @@ export default async function UnsubscribedPage({ searchParams }: Props) {
   return (
     <div className="max-w-2xl">
       <h1 className="text-3xl font-semibold">You are unsubscribed</h1>
-      <p className="mt-3">We will not e-mail you about {what} any more. You still see them under the bell when you sign in.</p>
+      <p className="mt-3">
+        We will not e-mail you about {what} any more. You still see them under the bell when you sign in.
+      </p>
       <ResubscribeButton token={token} />
       <p className="mt-6 font-sans text-sm text-muted">
         Every kind of notification e-mail can be turned on or off on the <Link href="/settings">settings page</Link>.

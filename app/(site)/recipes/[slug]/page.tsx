@@ -9,7 +9,11 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
   const { slug } = await params;
   const { version, recipe } = await loadRecipePage(slug);
   const description = `${statsLine(version.stats)} — a recipe by ${recipe.ownerName} on Kettlefork`;
-  return { title: version.document.title, description, openGraph: { title: version.document.title, description, type: 'article' } };
+  return {
+    title: version.document.title,
+    description,
+    openGraph: { title: version.document.title, description, type: 'article' },
+  };
 }
 
 export default async function RecipePage({ params }: Props) {

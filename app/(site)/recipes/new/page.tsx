@@ -19,7 +19,12 @@ export default async function NewRecipePage() {
       <h1 className="text-3xl font-semibold">New recipe</h1>
       <p className="mt-1 font-sans text-sm text-muted">The numbers update as you type. Saving makes version 1.</p>
       <div className="mt-6">
-        <RecipeEditor mode="create" units={viewer.units} initialDocument={starterDocument(settings)} initialVisibility="public" />
+        <RecipeEditor
+          mode="create"
+          units={viewer.units}
+          initialDocument={starterDocument(settings)}
+          initialVisibility="public"
+        />
       </div>
     </div>
   );

@@ -11,7 +11,10 @@ export interface FacetValue {
 }
 
 /** Values by count (most first), with every chosen value kept even when the results no longer count it. */
-export function facetValues(distribution: Record<string, number> | undefined, selected: readonly string[]): FacetValue[] {
+export function facetValues(
+  distribution: Record<string, number> | undefined,
+  selected: readonly string[],
+): FacetValue[] {
   const counts = new Map(Object.entries(distribution ?? {}).filter(([value]) => value !== ''));
   for (const value of selected) if (!counts.has(value)) counts.set(value, 0);
   return [...counts]

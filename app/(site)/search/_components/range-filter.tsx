@@ -39,7 +39,10 @@ const asText = (n: number | undefined) => (n === undefined ? '' : String(n));
 function readRange(spec: RangeSpec, minText: string, maxText: string): { value: RangeValue } | { error: string } {
   const bounds = RANGE_BOUNDS[spec.field];
   const value: RangeValue = {};
-  for (const [end, raw] of [['min', minText], ['max', maxText]] as const) {
+  for (const [end, raw] of [
+    ['min', minText],
+    ['max', maxText],
+  ] as const) {
     if (raw.trim() === '') continue;
     const n = Number(raw);
     if (!Number.isFinite(n)) return { error: `${spec.label} needs numbers.` };
@@ -109,11 +112,25 @@ export function RangeFilter({ spec, value, stats, onCommit }: RangeFilterProps) 
           {spec.label} <span className="font-normal text-muted">({spec.unit})</span>
         </legend>
         <div className="flex items-end gap-2">
-          <RangeEnd end="min" word="from" text={minText} onText={setMinText} placeholder={stats ? stats.min.toFixed(spec.decimals) : String(bounds.min)} {...shared} />
+          <RangeEnd
+            end="min"
+            word="from"
+            text={minText}
+            onText={setMinText}
+            placeholder={stats ? stats.min.toFixed(spec.decimals) : String(bounds.min)}
+            {...shared}
+          />
           <span aria-hidden="true" className="pb-1.5 text-muted">
             –
           </span>
-          <RangeEnd end="max" word="to" text={maxText} onText={setMaxText} placeholder={stats ? stats.max.toFixed(spec.decimals) : String(bounds.max)} {...shared} />
+          <RangeEnd
+            end="max"
+            word="to"
+            text={maxText}
+            onText={setMaxText}
+            placeholder={stats ? stats.max.toFixed(spec.decimals) : String(bounds.max)}
+            {...shared}
+          />
         </div>
         {error ? (
           <p id={errorId} className="kf-field-error">
@@ -122,7 +139,10 @@ export function RangeFilter({ spec, value, stats, onCommit }: RangeFilterProps) 
         ) : (
           stats && (
             <p id={hintId} className="mt-1 font-sans text-xs text-muted">
-              These results: <span className="kf-data">{stats.min.toFixed(spec.decimals)}–{stats.max.toFixed(spec.decimals)}</span>
+              These results:{' '}
+              <span className="kf-data">
+                {stats.min.toFixed(spec.decimals)}–{stats.max.toFixed(spec.decimals)}
+              </span>
             </p>
           )
         )}

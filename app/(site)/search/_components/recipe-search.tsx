@@ -4,7 +4,14 @@ import { useSearchParams } from 'next/navigation';
 import { useEffect, useMemo, useRef, useState, type FormEvent } from 'react';
 import { RecipeSearchError, useRecipeSearch } from '@/hooks/use-recipe-search';
 import type { StyleCategory } from '@/lib/brewing/styles';
-import { MAX_QUERY_LENGTH, parseSearchParamsLeniently, SEARCH_SORTS, serializeSearchQuery, type RecipeSearchQuery, type SearchSort } from '@/lib/search/schemas';
+import {
+  MAX_QUERY_LENGTH,
+  parseSearchParamsLeniently,
+  SEARCH_SORTS,
+  serializeSearchQuery,
+  type RecipeSearchQuery,
+  type SearchSort,
+} from '@/lib/search/schemas';
 import { SearchFilters } from './search-filters';
 import { ResultsSkeleton, SearchFailed, SearchResults, SearchUnavailable } from './search-results';
 import { activeFilterCount, FIELD_WORDS, readableMessage, withoutFilters, writeSearchToUrl } from './search-url';
@@ -27,13 +34,18 @@ interface RecipeSearchProps {
 /** The search page's working part: the words box, filters, results and paging, all held in the address. */
 export function RecipeSearch({ categories, unavailableAtFirst }: RecipeSearchProps) {
   const searchParams = useSearchParams();
-  const { query, ignored } = useMemo(() => parseSearchParamsLeniently(new URLSearchParams(searchParams.toString())), [searchParams]);
+  const { query, ignored } = useMemo(
+    () => parseSearchParamsLeniently(new URLSearchParams(searchParams.toString())),
+    [searchParams],
+  );
   const queryString = serializeSearchQuery(query);
 
   // Do not ask again straight away for what the server just found unreachable; "Try again" does.
   const [firstQueryString] = useState(queryString);
   const [retried, setRetried] = useState(false);
-  const search = useRecipeSearch(query, { enabled: !(unavailableAtFirst && !retried && queryString === firstQueryString) });
+  const search = useRecipeSearch(query, {
+    enabled: !(unavailableAtFirst && !retried && queryString === firstQueryString),
+  });
 
   const latestQuery = useRef(query);
   useEffect(() => {
@@ -76,9 +88,17 @@ export function RecipeSearch({ categories, unavailableAtFirst }: RecipeSearchPro
     document.getElementById('search-results')?.scrollIntoView({ block: 'start' });
   }
 
-  const styleNames = useMemo(() => Object.fromEntries(categories.flatMap((c) => c.styles.map((s) => [s.code, s.name]))), [categories]);
+  const styleNames = useMemo(
+    () => Object.fromEntries(categories.flatMap((c) => c.styles.map((s) => [s.code, s.name]))),
+    [categories],
+  );
   const filterCount = activeFilterCount(query);
-  const error = search.error instanceof RecipeSearchError ? search.error : search.error ? new RecipeSearchError(0, 'internal', search.error.message) : null;
+  const error =
+    search.error instanceof RecipeSearchError
+      ? search.error
+      : search.error
+        ? new RecipeSearchError(0, 'internal', search.error.message)
+        : null;
   const unavailable = !search.data && ((unavailableAtFirst && !retried) || error?.unavailable === true);
   const updating = search.isFetching && search.isPlaceholderData;
 
@@ -132,34 +152,55 @@ export function RecipeSearch({ categories, unavailableAtFirst }: RecipeSearchPro
       {ignoredFields.length > 0 && (
         <div className="mt-4 max-w-3xl rounded-md border border-line bg-card p-3 font-sans text-sm" role="status">
           <p>
-            Part of this search’s address could not be used, so it was left out: {ignoredFields.join(', ')}. The results below
-            use the rest.
+            Part of this search’s address could not be used, so it was left out: {ignoredFields.join(', ')}. The results
+            below use the rest.
           </p>
           <ul className="mt-1 list-disc pl-5 text-muted">
-            {ignored.flatMap((entry) => entry.messages.map((message) => <li key={`${entry.field}:${message}`}>{readableMessage(message)}</li>))}
+            {ignored.flatMap((entry) =>
+              entry.messages.map((message) => <li key={`${entry.field}:${message}`}>{readableMessage(message)}</li>),
+            )}
           </ul>
         </div>
       )}
 
       <div className="mt-6 lg:grid lg:grid-cols-[16rem_minmax(0,1fr)] lg:gap-8">
         <div className="mb-4 lg:hidden">
-          <button type="button" className="kf-btn-quiet w-full justify-between" aria-expanded={filtersOpen} aria-controls="search-filters" onClick={() => setFiltersOpen(!filtersOpen)}>
+          <button
+            type="button"
+            className="kf-btn-quiet w-full justify-between"
+            aria-expanded={filtersOpen}
+            aria-controls="search-filters"
+            onClick={() => setFiltersOpen(!filtersOpen)}
+          >
             <span>Filters{filterCount > 0 ? ` (${filterCount} on)` : ''}</span>
             <span aria-hidden="true">{filtersOpen ? '▴' : '▾'}</span>
           </button>
         </div>
-        <aside id="search-filters" aria-label="Filters" className={`${filtersOpen ? 'block' : 'hidden'} mb-6 lg:mb-0 lg:block`}>
+        <aside
+          id="search-filters"
+          aria-label="Filters"
+          className={`${filtersOpen ? 'block' : 'hidden'} mb-6 lg:mb-0 lg:block`}
+        >
           <div className="kf-card p-4">
             <div className="mb-3 flex items-baseline justify-between gap-2">
               {/* On a phone the disclosure button already says "Filters". */}
               <h2 className="font-sans text-base font-semibold max-lg:sr-only">Filters</h2>
               {filterCount > 0 && (
-                <button type="button" className="font-sans text-sm text-copper-strong underline underline-offset-2" onClick={() => navigate(withoutFilters(query))}>
+                <button
+                  type="button"
+                  className="font-sans text-sm text-copper-strong underline underline-offset-2"
+                  onClick={() => navigate(withoutFilters(query))}
+                >
                   Clear all
                 </button>
               )}
             </div>
-            <SearchFilters query={query} categories={categories} data={search.data} onChange={(next) => navigate(next)} />
+            <SearchFilters
+              query={query}
+              categories={categories}
+              data={search.data}
+              onChange={(next) => navigate(next)}
+            />
           </div>
         </aside>
 
@@ -167,7 +208,9 @@ export function RecipeSearch({ categories, unavailableAtFirst }: RecipeSearchPro
           <div className="mb-3 flex flex-wrap items-end justify-between gap-3">
             <div aria-live="polite">
               <h2 id="search-results-heading" className="text-xl font-semibold">
-                {search.data ? `${search.data.total.toLocaleString('en')} ${search.data.total === 1 ? 'recipe' : 'recipes'}` : 'Recipes'}
+                {search.data
+                  ? `${search.data.total.toLocaleString('en')} ${search.data.total === 1 ? 'recipe' : 'recipes'}`
+                  : 'Recipes'}
               </h2>
               <p className={`font-sans text-xs text-muted ${updating ? '' : 'invisible'}`}>Updating…</p>
             </div>
@@ -189,7 +232,10 @@ export function RecipeSearch({ categories, unavailableAtFirst }: RecipeSearchPro
               </select>
             </div>
           </div>
-          <div aria-busy={search.isFetching} className={updating ? 'opacity-60 transition-opacity' : 'transition-opacity'}>
+          <div
+            aria-busy={search.isFetching}
+            className={updating ? 'opacity-60 transition-opacity' : 'transition-opacity'}
+          >
             {body}
           </div>
         </section>

@@ -37,7 +37,10 @@ export function SearchFilters({ query, categories, data, onChange }: SearchFilte
   // The yeast filter takes a strain's name or a kind; a chosen value shows in the list it belongs to.
   const isKind = (value: string) => (YEAST_KINDS as readonly string[]).includes(value);
   const yeastKindValues = facetValues(facets?.yeastKinds, query.yeast.filter(isKind));
-  const yeastNameValues = facetValues(facets?.yeasts, query.yeast.filter((value) => !isKind(value)));
+  const yeastNameValues = facetValues(
+    facets?.yeasts,
+    query.yeast.filter((value) => !isKind(value)),
+  );
 
   return (
     <div className="space-y-5">
@@ -51,7 +54,12 @@ export function SearchFilters({ query, categories, data, onChange }: SearchFilte
         />
       </Group>
       <Group title="Hops">
-        <FacetChecklist noun="hops" values={facetValues(facets?.hops, query.hop)} selected={query.hop} onToggle={(v) => change({ hop: toggled(query.hop, v) })} />
+        <FacetChecklist
+          noun="hops"
+          values={facetValues(facets?.hops, query.hop)}
+          selected={query.hop}
+          onToggle={(v) => change({ hop: toggled(query.hop, v) })}
+        />
       </Group>
       <Group title="Malts and other fermentables">
         <FacetChecklist
@@ -63,9 +71,19 @@ export function SearchFilters({ query, categories, data, onChange }: SearchFilte
       </Group>
       <Group title="Yeast">
         <h4 className="mb-1 font-sans text-xs font-semibold uppercase tracking-wide text-muted">Kind</h4>
-        <FacetChecklist noun="yeast kinds" values={yeastKindValues} selected={query.yeast} onToggle={(v) => change({ yeast: toggled(query.yeast, v) })} />
+        <FacetChecklist
+          noun="yeast kinds"
+          values={yeastKindValues}
+          selected={query.yeast}
+          onToggle={(v) => change({ yeast: toggled(query.yeast, v) })}
+        />
         <h4 className="mb-1 mt-3 font-sans text-xs font-semibold uppercase tracking-wide text-muted">Strain</h4>
-        <FacetChecklist noun="yeasts" values={yeastNameValues} selected={query.yeast} onToggle={(v) => change({ yeast: toggled(query.yeast, v) })} />
+        <FacetChecklist
+          noun="yeasts"
+          values={yeastNameValues}
+          selected={query.yeast}
+          onToggle={(v) => change({ yeast: toggled(query.yeast, v) })}
+        />
       </Group>
       <Group title="Numbers">
         <div className="space-y-4">

@@ -28,7 +28,9 @@ function ResultCard({ hit }: { hit: RecipeSearchHit }) {
             <Link href={`/recipes/${hit.slug}`}>{hit.title}</Link>
           </h3>
           {hit.hidden && (
-            <span className="rounded border border-danger px-1.5 py-0.5 font-sans text-xs font-semibold text-danger">Hidden by moderators</span>
+            <span className="rounded border border-danger px-1.5 py-0.5 font-sans text-xs font-semibold text-danger">
+              Hidden by moderators
+            </span>
           )}
           {hit.visibility !== 'public' && (
             <span className="rounded border border-line px-1.5 py-0.5 font-sans text-xs text-muted">
@@ -62,7 +64,15 @@ export function pageWindow(page: number, pageCount: number): Array<number | null
   return out;
 }
 
-function Pager({ query, pageCount, onNavigate }: { query: RecipeSearchQuery; pageCount: number; onNavigate(next: RecipeSearchQuery): void }) {
+function Pager({
+  query,
+  pageCount,
+  onNavigate,
+}: {
+  query: RecipeSearchQuery;
+  pageCount: number;
+  onNavigate(next: RecipeSearchQuery): void;
+}) {
   if (pageCount <= 1) return null;
   const go = (page: number) => (event: MouseEvent<HTMLAnchorElement>) => {
     if (event.metaKey || event.ctrlKey || event.shiftKey || event.button !== 0) return;
@@ -73,7 +83,12 @@ function Pager({ query, pageCount, onNavigate }: { query: RecipeSearchQuery; pag
   return (
     <nav aria-label="Result pages" className="mt-6 flex flex-wrap items-center gap-2 font-sans text-sm">
       {query.page > 1 ? (
-        <a href={searchHref({ ...query, page: query.page - 1 })} onClick={go(query.page - 1)} className={linkClass} rel="prev">
+        <a
+          href={searchHref({ ...query, page: query.page - 1 })}
+          onClick={go(query.page - 1)}
+          className={linkClass}
+          rel="prev"
+        >
           Previous
         </a>
       ) : (
@@ -90,7 +105,10 @@ function Pager({ query, pageCount, onNavigate }: { query: RecipeSearchQuery; pag
           ) : (
             <li key={p}>
               {p === query.page ? (
-                <span aria-current="page" className="inline-flex min-w-10 justify-center rounded-md bg-copper px-3 py-1.5 font-semibold text-white">
+                <span
+                  aria-current="page"
+                  className="inline-flex min-w-10 justify-center rounded-md bg-copper px-3 py-1.5 font-semibold text-white"
+                >
                   <span className="sr-only">Page </span>
                   {p}
                 </span>
@@ -105,7 +123,12 @@ function Pager({ query, pageCount, onNavigate }: { query: RecipeSearchQuery; pag
         )}
       </ol>
       {query.page < pageCount ? (
-        <a href={searchHref({ ...query, page: query.page + 1 })} onClick={go(query.page + 1)} className={linkClass} rel="next">
+        <a
+          href={searchHref({ ...query, page: query.page + 1 })}
+          onClick={go(query.page + 1)}
+          className={linkClass}
+          rel="next"
+        >
           Next
         </a>
       ) : (
@@ -119,7 +142,11 @@ function Pager({ query, pageCount, onNavigate }: { query: RecipeSearchQuery; pag
 
 const RANGE_WORDS = { abv: 'ABV', ibu: 'IBU', srm: 'colour', og: 'OG' } as const;
 
-function suggestionText(suggestion: LooseningSuggestion, query: RecipeSearchQuery, styleNames: Record<string, string>): string {
+function suggestionText(
+  suggestion: LooseningSuggestion,
+  query: RecipeSearchQuery,
+  styleNames: Record<string, string>,
+): string {
   const count = plural(suggestion.total, 'recipe');
   switch (suggestion.field) {
     case 'q':
@@ -182,7 +209,11 @@ function NoResults({
           <ul className="mt-3 space-y-2">
             {data.suggestions.map((suggestion) => (
               <li key={`${suggestion.field}:${suggestion.value ?? ''}`}>
-                <button type="button" className="kf-btn-quiet text-left" onClick={() => onNavigate(loosened(query, suggestion))}>
+                <button
+                  type="button"
+                  className="kf-btn-quiet text-left"
+                  onClick={() => onNavigate(loosened(query, suggestion))}
+                >
                   {suggestionText(suggestion, query, styleNames)}
                 </button>
               </li>
@@ -190,10 +221,16 @@ function NoResults({
           </ul>
         </>
       ) : (
-        <p className="mt-2 text-muted">Nothing close either. Try other words{filtered ? ', or clear the filters' : ''}.</p>
+        <p className="mt-2 text-muted">
+          Nothing close either. Try other words{filtered ? ', or clear the filters' : ''}.
+        </p>
       )}
       {filtered && (
-        <button type="button" className="mt-4 font-sans text-sm text-copper-strong underline underline-offset-2" onClick={onClearFilters}>
+        <button
+          type="button"
+          className="mt-4 font-sans text-sm text-copper-strong underline underline-offset-2"
+          onClick={onClearFilters}
+        >
           Clear all filters
         </button>
       )}
@@ -222,7 +259,9 @@ export function SearchUnavailable({ onRetry, retrying }: { onRetry(): void; retr
   return (
     <div className="kf-card" role="status">
       <h3 className="text-lg font-semibold">Search is unavailable right now</h3>
-      <p className="mt-2 text-muted">Recipes and saving still work; only finding them by search is out for the moment.</p>
+      <p className="mt-2 text-muted">
+        Recipes and saving still work; only finding them by search is out for the moment.
+      </p>
       <div className="mt-4 flex flex-wrap gap-3">
         <Link href="/recipes" className="kf-btn">
           Browse recent recipes
@@ -258,7 +297,16 @@ interface SearchResultsProps {
 
 export function SearchResults({ data, query, styleNames, filtered, onNavigate, onClearFilters }: SearchResultsProps) {
   if (data.total === 0) {
-    return <NoResults data={data} query={query} styleNames={styleNames} filtered={filtered} onNavigate={onNavigate} onClearFilters={onClearFilters} />;
+    return (
+      <NoResults
+        data={data}
+        query={query}
+        styleNames={styleNames}
+        filtered={filtered}
+        onNavigate={onNavigate}
+        onClearFilters={onClearFilters}
+      />
+    );
   }
   if (data.hits.length === 0) {
     return (

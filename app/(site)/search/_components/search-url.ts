@@ -1,4 +1,9 @@
-import { serializeSearchQuery, type RecipeSearchQuery, type RecipeSearchQueryInput, type SearchQueryField } from '@/lib/search/schemas';
+import {
+  serializeSearchQuery,
+  type RecipeSearchQuery,
+  type RecipeSearchQueryInput,
+  type SearchQueryField,
+} from '@/lib/search/schemas';
 
 /** The search page's address for a query. */
 export function searchHref(query: RecipeSearchQueryInput): string {
@@ -21,7 +26,9 @@ export function writeSearchToUrl(query: RecipeSearchQueryInput, mode: 'push' | '
 /** How many filters narrow the search (the words and the sort are not filters). */
 export function activeFilterCount(query: RecipeSearchQuery): number {
   const lists = query.style.length + query.hop.length + query.malt.length + query.yeast.length;
-  const ranges = (['abv', 'ibu', 'srm', 'og'] as const).filter((field) => query[`${field}Min`] !== undefined || query[`${field}Max`] !== undefined).length;
+  const ranges = (['abv', 'ibu', 'srm', 'og'] as const).filter(
+    (field) => query[`${field}Min`] !== undefined || query[`${field}Max`] !== undefined,
+  ).length;
   return lists + ranges;
 }
 
@@ -69,7 +76,11 @@ const RANGE_NAMES = { abv: 'ABV', ibu: 'IBU', srm: 'colour', og: 'OG' } as const
 /** A schema message in a brewer's words: "abvMin must not be greater than abvMax" → "Lowest ABV must not be greater than highest ABV". */
 export function readableMessage(message: string): string {
   const text = message
-    .replace(/\b(abv|ibu|srm|og)(Min|Max)\b/g, (_, field: keyof typeof RANGE_NAMES, end: string) => `${end === 'Min' ? 'lowest' : 'highest'} ${RANGE_NAMES[field]}`)
+    .replace(
+      /\b(abv|ibu|srm|og)(Min|Max)\b/g,
+      (_, field: keyof typeof RANGE_NAMES, end: string) =>
+        `${end === 'Min' ? 'lowest' : 'highest'} ${RANGE_NAMES[field]}`,
+    )
     .replace(/^q\b/, 'the search words')
     .replace(/^(sort|page)\b/, (field) => (field === 'sort' ? 'the sort order' : 'the page number'))
     .replace(/^(style|hop|malt|yeast)\b/, (field) => `the ${field}`);

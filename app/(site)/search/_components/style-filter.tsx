@@ -26,7 +26,15 @@ function CategoryCheckbox({ checked, mixed, onChange }: { checked: boolean; mixe
   useEffect(() => {
     if (ref.current) ref.current.indeterminate = mixed;
   }, [mixed]);
-  return <input ref={ref} type="checkbox" className="mt-0.5 h-4 w-4 shrink-0 accent-copper" checked={checked} onChange={onChange} />;
+  return (
+    <input
+      ref={ref}
+      type="checkbox"
+      className="mt-0.5 h-4 w-4 shrink-0 accent-copper"
+      checked={checked}
+      onChange={onChange}
+    />
+  );
 }
 
 /**
@@ -89,7 +97,10 @@ export function StyleFilter({ categories, selected, categoryCounts, styleCounts,
                 <CountBadge count={row.count} />
               </label>
               {chosenHere > 0 && (
-                <ul className="ml-6 mt-1 space-y-1 border-l border-line pl-2" aria-label={`Styles in ${row.category.name}`}>
+                <ul
+                  className="ml-6 mt-1 space-y-1 border-l border-line pl-2"
+                  aria-label={`Styles in ${row.category.name}`}
+                >
                   {row.styles.map((style) => (
                     <li key={style.code}>
                       <label className="flex cursor-pointer items-start gap-2 rounded px-1 py-0.5 font-sans text-sm hover:bg-paper">

@@ -15,7 +15,9 @@ import { KIND_LABELS, NOTIFICATION_KINDS } from '@/lib/notifications/kinds';
 
 // The form shows the batch volume in the member's chosen units; the server keeps litres.
 const formSchema = settingsSchema.omit({ defaultBatchVolumeL: true }).extend({
-  batchVolume: z.number({ error: 'Give the batch volume as a number.' }).positive('The batch volume must be more than zero.'),
+  batchVolume: z
+    .number({ error: 'Give the batch volume as a number.' })
+    .positive('The batch volume must be more than zero.'),
 });
 type FormValues = z.infer<typeof formSchema>;
 
@@ -35,7 +37,9 @@ export function SettingsForm({ initial }: { initial: SettingsInput }) {
       name: initial.name,
       bio: initial.bio,
       units: initial.units,
-      batchVolume: round(initial.units === 'us' ? litresToGallons(initial.defaultBatchVolumeL) : initial.defaultBatchVolumeL),
+      batchVolume: round(
+        initial.units === 'us' ? litresToGallons(initial.defaultBatchVolumeL) : initial.defaultBatchVolumeL,
+      ),
       defaultEfficiencyPct: initial.defaultEfficiencyPct,
       emailChoices: initial.emailChoices,
     },
@@ -46,8 +50,15 @@ export function SettingsForm({ initial }: { initial: SettingsInput }) {
 
   const onSubmit = handleSubmit(async ({ batchVolume, ...values }) => {
     setFormError(undefined);
-    const body: SettingsInput = { ...values, defaultBatchVolumeL: round(values.units === 'us' ? gallonsToLitres(batchVolume) : batchVolume, 3) };
-    const res = await fetch('/api/me/settings', { method: 'PUT', headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) });
+    const body: SettingsInput = {
+      ...values,
+      defaultBatchVolumeL: round(values.units === 'us' ? gallonsToLitres(batchVolume) : batchVolume, 3),
+    };
+    const res = await fetch('/api/me/settings', {
+      method: 'PUT',
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify(body),
+    });
     if (!res.ok) {
       const data = (await res.json().catch(() => ({}))) as ApiError;
       const fields = data.error?.fields ?? [];
@@ -66,9 +77,23 @@ export function SettingsForm({ initial }: { initial: SettingsInput }) {
   const text = (name: 'name' | 'bio', label: string, hint?: string) => (
     <FormField id={`settings-${name}`} label={label} error={errors[name]?.message} hint={hint}>
       {name === 'bio' ? (
-        <textarea id="settings-bio" rows={5} className="kf-input" aria-invalid={Boolean(errors.bio)} aria-describedby={describedBy('settings-bio', errors.bio?.message, hint)} {...register('bio')} />
+        <textarea
+          id="settings-bio"
+          rows={5}
+          className="kf-input"
+          aria-invalid={Boolean(errors.bio)}
+          aria-describedby={describedBy('settings-bio', errors.bio?.message, hint)}
+          {...register('bio')}
+        />
       ) : (
-        <input id="settings-name" className="kf-input" autoComplete="nickname" aria-invalid={Boolean(errors.name)} aria-describedby={describedBy('settings-name', errors.name?.message, hint)} {...register('name')} />
+        <input
+          id="settings-name"
+          className="kf-input"
+          autoComplete="nickname"
+          aria-invalid={Boolean(errors.name)}
+          aria-describedby={describedBy('settings-name', errors.name?.message, hint)}
+          {...register('name')}
+        />
       )}
     </FormField>
   );
@@ -78,7 +103,11 @@ export function SettingsForm({ initial }: { initial: SettingsInput }) {
       <fieldset className="kf-card">
         <legend className="px-1 text-lg font-semibold">Profile</legend>
         {text('name', 'Display name')}
-        {text('bio', 'A few words about your brewing', 'Shown on your member page. Markdown works; pictures show as links.')}
+        {text(
+          'bio',
+          'A few words about your brewing',
+          'Shown on your member page. Markdown works; pictures show as links.',
+        )}
       </fieldset>
 
       <fieldset className="kf-card mt-6">
@@ -90,7 +119,8 @@ export function SettingsForm({ initial }: { initial: SettingsInput }) {
             {...register('units', {
               onChange: (e: { target: { value: string } }) => {
                 const v = getValues('batchVolume');
-                if (Number.isFinite(v)) setValue('batchVolume', round(e.target.value === 'us' ? litresToGallons(v) : gallonsToLitres(v)));
+                if (Number.isFinite(v))
+                  setValue('batchVolume', round(e.target.value === 'us' ? litresToGallons(v) : gallonsToLitres(v)));
               },
             })}
           >
@@ -98,7 +128,12 @@ export function SettingsForm({ initial }: { initial: SettingsInput }) {
             <option value="us">US (lb, gal, °F)</option>
           </select>
         </FormField>
-        <FormField id="settings-volume" label={`Usual batch volume (${volumeUnit})`} error={errors.batchVolume?.message} hint="New recipes start from this volume.">
+        <FormField
+          id="settings-volume"
+          label={`Usual batch volume (${volumeUnit})`}
+          error={errors.batchVolume?.message}
+          hint="New recipes start from this volume."
+        >
           <input
             id="settings-volume"
             type="number"
@@ -106,11 +141,19 @@ export function SettingsForm({ initial }: { initial: SettingsInput }) {
             inputMode="decimal"
             className="kf-input"
             aria-invalid={Boolean(errors.batchVolume)}
-            aria-describedby={describedBy('settings-volume', errors.batchVolume?.message, 'New recipes start from this volume.')}
+            aria-describedby={describedBy(
+              'settings-volume',
+              errors.batchVolume?.message,
+              'New recipes start from this volume.',
+            )}
             {...register('batchVolume', { valueAsNumber: true })}
           />
         </FormField>
-        <FormField id="settings-efficiency" label="Brewhouse efficiency (%)" error={errors.defaultEfficiencyPct?.message}>
+        <FormField
+          id="settings-efficiency"
+          label="Brewhouse efficiency (%)"
+          error={errors.defaultEfficiencyPct?.message}
+        >
           <input
             id="settings-efficiency"
             type="number"
@@ -126,7 +169,9 @@ export function SettingsForm({ initial }: { initial: SettingsInput }) {
 
       <fieldset className="kf-card mt-6">
         <legend className="px-1 text-lg font-semibold">E-mail me when…</legend>
-        <p className="font-sans text-sm text-muted">Several notices close together arrive as one e-mail. You always see them under the bell.</p>
+        <p className="font-sans text-sm text-muted">
+          Several notices close together arrive as one e-mail. You always see them under the bell.
+        </p>
         <ul className="mt-3 space-y-2 font-sans text-sm">
           {NOTIFICATION_KINDS.map((kind) => (
             <li key={kind}>

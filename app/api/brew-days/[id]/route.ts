@@ -11,7 +11,10 @@ export const GET = route<undefined, Params, 'public'>({ access: 'public' }, asyn
 });
 
 // PATCH /api/brew-days/[id] – the brewer corrects or completes the brew day
-export const PATCH = route<typeof brewDayFieldsSchema, Params, 'user'>({ access: 'user', body: brewDayFieldsSchema }, async ({ viewer, params, body }) => {
-  await updateBrewDay(viewer, params.id, body);
-  return { id: params.id };
-});
+export const PATCH = route<typeof brewDayFieldsSchema, Params, 'user'>(
+  { access: 'user', body: brewDayFieldsSchema },
+  async ({ viewer, params, body }) => {
+    await updateBrewDay(viewer, params.id, body);
+    return { id: params.id };
+  },
+);

@@ -5,8 +5,9 @@ import { route } from '@/lib/http/route';
 type Params = { id: string };
 
 // PATCH /api/comments/[id] – its author edits a comment (within the edit window)
-export const PATCH = route<typeof editCommentSchema, Params, 'user'>({ access: 'user', body: editCommentSchema, maxBodyBytes: 64 * 1024 }, ({ viewer, params, body }) =>
-  editComment(viewer, params.id, body.body),
+export const PATCH = route<typeof editCommentSchema, Params, 'user'>(
+  { access: 'user', body: editCommentSchema, maxBodyBytes: 64 * 1024 },
+  ({ viewer, params, body }) => editComment(viewer, params.id, body.body),
 );
 
 // DELETE /api/comments/[id] – its author or a moderator removes a comment

@@ -6,6 +6,8 @@ import { route } from '@/lib/http/route';
 export const GET = route({ access: 'user' }, async ({ viewer }) => ({ settings: await getSettings(viewer) }));
 
 // PUT /api/me/settings – change them all at once
-export const PUT = route({ access: 'user', body: settingsSchema }, async ({ viewer, body }) => ({ settings: await updateSettings(viewer, body) }));
+export const PUT = route({ access: 'user', body: settingsSchema }, async ({ viewer, body }) => ({
+  settings: await updateSettings(viewer, body),
+}));
 
 export const dynamic = 'force-dynamic';

@@ -13,10 +13,13 @@ export const GET = route<undefined, Params, 'public'>({ access: 'public' }, asyn
 });
 
 // PATCH /api/recipes/[id] – the owner changes visibility
-export const PATCH = route<typeof updateRecipeSchema, Params, 'user'>({ access: 'user', body: updateRecipeSchema }, async ({ viewer, params, body }) => {
-  await setVisibility(viewer, idParam(params.id, 'recipe'), body.visibility);
-  return Response.json({ ok: true, visibility: body.visibility });
-});
+export const PATCH = route<typeof updateRecipeSchema, Params, 'user'>(
+  { access: 'user', body: updateRecipeSchema },
+  async ({ viewer, params, body }) => {
+    await setVisibility(viewer, idParam(params.id, 'recipe'), body.visibility);
+    return Response.json({ ok: true, visibility: body.visibility });
+  },
+);
 
 function publicRecipe(r: Awaited<ReturnType<typeof getRecipe>>) {
   return {

@@ -8,8 +8,19 @@ export const GET = route<undefined, { id: string }, 'public'>({ access: 'public'
   const { recipe, version } = await getVersionById(viewer, idParam(params.id, 'version'));
   const cacheable = recipe.visibility === 'public' && !recipe.hiddenAt;
   return NextResponse.json(
-    { recipe: { id: recipe.id, slug: recipe.slug, title: recipe.title, ownerHandle: recipe.ownerHandle, ownerName: recipe.ownerName }, version },
+    {
+      recipe: {
+        id: recipe.id,
+        slug: recipe.slug,
+        title: recipe.title,
+        ownerHandle: recipe.ownerHandle,
+        ownerName: recipe.ownerName,
+      },
+      version,
+    },
     // A version never changes; only who may see it can, so shared caches keep public ones briefly.
-    { headers: { 'cache-control': cacheable ? 'public, max-age=60, stale-while-revalidate=600' : 'private, no-store' } },
+    {
+      headers: { 'cache-control': cacheable ? 'public, max-age=60, stale-while-revalidate=600' : 'private, no-store' },
+    },
   );
 });

@@ -12,7 +12,8 @@ export function HeldCommentActions({ commentId }: { commentId: string }) {
   const [reason, setReason] = useState('');
   const [error, setError] = useState<string>();
   const act = useMutation({
-    mutationFn: (action: 'approve' | 'hide') => sendJson(`/api/moderation/comments/${commentId}`, 'POST', { action, reason }).then(() => action),
+    mutationFn: (action: 'approve' | 'hide') =>
+      sendJson(`/api/moderation/comments/${commentId}`, 'POST', { action, reason }).then(() => action),
     onSuccess: (action) => {
       toast.success(action === 'approve' ? 'Published.' : 'Hidden.');
       router.refresh();
@@ -24,7 +25,13 @@ export function HeldCommentActions({ commentId }: { commentId: string }) {
       <label htmlFor={`${id}-reason`} className="kf-label">
         Reason (needed to hide; the author sees it)
       </label>
-      <input id={`${id}-reason`} className="kf-input" maxLength={500} value={reason} onChange={(e) => setReason(e.target.value)} />
+      <input
+        id={`${id}-reason`}
+        className="kf-input"
+        maxLength={500}
+        value={reason}
+        onChange={(e) => setReason(e.target.value)}
+      />
       {error && (
         <p role="alert" className="kf-field-error">
           {error}

@@ -9,15 +9,28 @@ import type { ReportTarget } from '@/lib/moderation/words';
 
 type Action = 'hide' | 'dismiss' | 'suspend';
 
-const DONE: Record<Action, string> = { hide: 'Hidden.', dismiss: 'Report dismissed.', suspend: 'Member suspended and content hidden.' };
+const DONE: Record<Action, string> = {
+  hide: 'Hidden.',
+  dismiss: 'Report dismissed.',
+  suspend: 'Member suspended and content hidden.',
+};
 
-export function ReportActions({ reportId, targetType, canSuspend }: { reportId: string; targetType: ReportTarget; canSuspend: boolean }) {
+export function ReportActions({
+  reportId,
+  targetType,
+  canSuspend,
+}: {
+  reportId: string;
+  targetType: ReportTarget;
+  canSuspend: boolean;
+}) {
   const id = useId();
   const router = useRouter();
   const [reason, setReason] = useState('');
   const [error, setError] = useState<string>();
   const act = useMutation({
-    mutationFn: (action: Action) => sendJson(`/api/moderation/reports/${reportId}`, 'POST', { action, reason }).then(() => action),
+    mutationFn: (action: Action) =>
+      sendJson(`/api/moderation/reports/${reportId}`, 'POST', { action, reason }).then(() => action),
     onSuccess: (action) => {
       toast.success(DONE[action]);
       router.refresh();
@@ -32,7 +45,14 @@ export function ReportActions({ reportId, targetType, canSuspend }: { reportId: 
       <label htmlFor={`${id}-reason`} className="kf-label">
         Reason (shown to the owner when you hide or suspend)
       </label>
-      <input id={`${id}-reason`} className="kf-input" maxLength={500} value={reason} onChange={(e) => setReason(e.target.value)} placeholder="e.g. Advertising unrelated to brewing" />
+      <input
+        id={`${id}-reason`}
+        className="kf-input"
+        maxLength={500}
+        value={reason}
+        onChange={(e) => setReason(e.target.value)}
+        placeholder="e.g. Advertising unrelated to brewing"
+      />
       {error && (
         <p role="alert" className="kf-field-error">
           {error}
@@ -48,7 +68,12 @@ export function ReportActions({ reportId, targetType, canSuspend }: { reportId: 
           Dismiss report
         </button>
         {canSuspend && (
-          <button type="button" className="kf-btn-quiet text-danger" disabled={act.isPending} onClick={() => act.mutate('suspend')}>
+          <button
+            type="button"
+            className="kf-btn-quiet text-danger"
+            disabled={act.isPending}
+            onClick={() => act.mutate('suspend')}
+          >
             {targetType === 'member' ? 'Suspend member' : 'Hide and suspend its owner'}
           </button>
         )}

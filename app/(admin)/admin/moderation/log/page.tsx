@@ -13,15 +13,22 @@ const TARGET_TYPES = ['recipe', 'comment', 'photo', 'user', 'version', 'member']
 
 export default async function ModerationLogPage({ searchParams }: Props) {
   await requirePageViewer('/admin/moderation/log', 'admin');
-  const raw = Object.fromEntries(Object.entries(await searchParams).map(([k, v]) => [k, Array.isArray(v) ? v[0] : v]).filter(([, v]) => v !== ''));
+  const raw = Object.fromEntries(
+    Object.entries(await searchParams)
+      .map(([k, v]) => [k, Array.isArray(v) ? v[0] : v])
+      .filter(([, v]) => v !== ''),
+  );
   const parsed = actionLogQuerySchema.safeParse(raw);
   const query = parsed.success ? parsed.data : { page: 1 };
   const { actions, hasMore } = await listModerationActions(query);
-  const pageLink = (page: number) => `/admin/moderation/log?${new URLSearchParams({ ...(query.action ? { action: query.action } : {}), ...(query.actor ? { actor: query.actor } : {}), ...(query.targetType ? { targetType: query.targetType } : {}), page: String(page) })}`;
+  const pageLink = (page: number) =>
+    `/admin/moderation/log?${new URLSearchParams({ ...(query.action ? { action: query.action } : {}), ...(query.actor ? { actor: query.actor } : {}), ...(query.targetType ? { targetType: query.targetType } : {}), page: String(page) })}`;
   return (
     <div>
       <h1 className="text-3xl font-semibold">Moderation log</h1>
-      <p className="mt-1 font-sans text-sm text-muted">Every action by a moderator or admin, newest first. Entries can be added, never changed or removed.</p>
+      <p className="mt-1 font-sans text-sm text-muted">
+        Every action by a moderator or admin, newest first. Entries can be added, never changed or removed.
+      </p>
       {!parsed.success && (
         <p role="alert" className="kf-field-error">
           Some filters were not valid and were left out.
@@ -72,11 +79,21 @@ export default async function ModerationLogPage({ searchParams }: Props) {
             <caption className="sr-only">Moderation actions</caption>
             <thead>
               <tr className="border-b border-line text-left">
-                <th scope="col" className="py-2 pr-4">When</th>
-                <th scope="col" className="py-2 pr-4">Who</th>
-                <th scope="col" className="py-2 pr-4">Action</th>
-                <th scope="col" className="py-2 pr-4">On</th>
-                <th scope="col" className="py-2">Reason</th>
+                <th scope="col" className="py-2 pr-4">
+                  When
+                </th>
+                <th scope="col" className="py-2 pr-4">
+                  Who
+                </th>
+                <th scope="col" className="py-2 pr-4">
+                  Action
+                </th>
+                <th scope="col" className="py-2 pr-4">
+                  On
+                </th>
+                <th scope="col" className="py-2">
+                  Reason
+                </th>
               </tr>
             </thead>
             <tbody>

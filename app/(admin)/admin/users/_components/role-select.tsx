@@ -7,7 +7,17 @@ import { toast } from 'sonner';
 import { ROLES, type Role } from '@/lib/auth/roles';
 import { sendJson } from '@/lib/http/client';
 
-export function RoleSelect({ userId, name, role, disabled }: { userId: string; name: string; role: Role; disabled: boolean }) {
+export function RoleSelect({
+  userId,
+  name,
+  role,
+  disabled,
+}: {
+  userId: string;
+  name: string;
+  role: Role;
+  disabled: boolean;
+}) {
   const router = useRouter();
   const [value, setValue] = useState<Role>(role);
   const mutation = useMutation({

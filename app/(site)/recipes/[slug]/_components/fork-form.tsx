@@ -10,7 +10,15 @@ interface Saved {
   recipe: { slug: string };
 }
 
-export function ForkForm({ versionId, defaultTitle, number }: { versionId: string; defaultTitle: string; number: number }) {
+export function ForkForm({
+  versionId,
+  defaultTitle,
+  number,
+}: {
+  versionId: string;
+  defaultTitle: string;
+  number: number;
+}) {
   const router = useRouter();
   const [title, setTitle] = useState(defaultTitle);
   const [visibility, setVisibility] = useState<'public' | 'unlisted' | 'private'>('public');
@@ -33,15 +41,29 @@ export function ForkForm({ versionId, defaultTitle, number }: { versionId: strin
       }}
     >
       <h2 className="text-lg font-semibold">Brew it your way</h2>
-      <p className="mt-1 font-sans text-sm text-muted">Forking copies version {number} into a recipe of your own that remembers where it came from.</p>
+      <p className="mt-1 font-sans text-sm text-muted">
+        Forking copies version {number} into a recipe of your own that remembers where it came from.
+      </p>
       <label htmlFor="fork-title" className="kf-label mt-3">
         Title of your fork
       </label>
-      <input id="fork-title" className="kf-input" value={title} onChange={(e) => setTitle(e.target.value)} maxLength={120} required />
+      <input
+        id="fork-title"
+        className="kf-input"
+        value={title}
+        onChange={(e) => setTitle(e.target.value)}
+        maxLength={120}
+        required
+      />
       <label htmlFor="fork-visibility" className="kf-label mt-3">
         Who can see it
       </label>
-      <select id="fork-visibility" className="kf-input" value={visibility} onChange={(e) => setVisibility(e.target.value as typeof visibility)}>
+      <select
+        id="fork-visibility"
+        className="kf-input"
+        value={visibility}
+        onChange={(e) => setVisibility(e.target.value as typeof visibility)}
+      >
         <option value="public">Everyone</option>
         <option value="unlisted">Only people with the link</option>
         <option value="private">Only me</option>

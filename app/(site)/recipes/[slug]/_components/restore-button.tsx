@@ -5,11 +5,24 @@ import { useRouter } from 'next/navigation';
 import { toast } from 'sonner';
 import { sendJson } from '@/lib/http/client';
 
-export function RestoreButton({ recipeId, versionId, number, headVersionId }: { recipeId: string; versionId: string; number: number; headVersionId: string }) {
+export function RestoreButton({
+  recipeId,
+  versionId,
+  number,
+  headVersionId,
+}: {
+  recipeId: string;
+  versionId: string;
+  number: number;
+  headVersionId: string;
+}) {
   const router = useRouter();
   const restore = useMutation({
     mutationFn: () =>
-      sendJson<{ recipe: { slug: string }; version: { number: number } }>(`/api/recipes/${recipeId}/restore`, 'POST', { versionId, baseVersionId: headVersionId }),
+      sendJson<{ recipe: { slug: string }; version: { number: number } }>(`/api/recipes/${recipeId}/restore`, 'POST', {
+        versionId,
+        baseVersionId: headVersionId,
+      }),
     onSuccess: (saved) => {
       toast.success(`Version ${number} restored as version ${saved.version.number}.`);
       router.push(`/recipes/${saved.recipe.slug}`);

@@ -16,10 +16,19 @@ import { ForkForm } from './fork-form';
 import { RestoreButton } from './restore-button';
 import { VisibilitySelect } from './visibility-select';
 
-const VISIBILITY_WORDS = { public: 'Public', unlisted: 'Unlisted: only people with the link', private: 'Private: only you' } as const;
+const VISIBILITY_WORDS = {
+  public: 'Public',
+  unlisted: 'Unlisted: only people with the link',
+  private: 'Private: only you',
+} as const;
 
 /** A recipe version, read-only, with what its owner and readers can do from here. */
-export async function VersionPage({ viewer, recipe, version, activity }: { viewer: Viewer | null; activity: RecipeActivity } & VersionView) {
+export async function VersionPage({
+  viewer,
+  recipe,
+  version,
+  activity,
+}: { viewer: Viewer | null; activity: RecipeActivity } & VersionView) {
   const units = viewer?.units ?? 'metric';
   const owner = isOwner(recipe, viewer);
   const isHead = version.id === recipe.headVersionId;
@@ -36,14 +45,17 @@ export async function VersionPage({ viewer, recipe, version, activity }: { viewe
   return (
     <article>
       {recipe.hiddenAt && (
-        <p role="status" className="mb-6 rounded-md border border-danger/40 bg-danger/5 p-3 font-sans text-sm text-danger">
-          Moderators hid this recipe{recipe.hiddenReason ? `: ${recipe.hiddenReason}` : '.'} {owner ? 'Only you and the moderators can see it.' : ''}
+        <p
+          role="status"
+          className="mb-6 rounded-md border border-danger/40 bg-danger/5 p-3 font-sans text-sm text-danger"
+        >
+          Moderators hid this recipe{recipe.hiddenReason ? `: ${recipe.hiddenReason}` : '.'}{' '}
+          {owner ? 'Only you and the moderators can see it.' : ''}
         </p>
       )}
       {!isHead && (
         <p role="status" className="mb-6 rounded-md border border-caution/40 bg-caution/5 p-3 font-sans text-sm">
-          You are reading version {version.number}. The latest is{' '}
-          <Link href={base}>version {recipe.headNumber}</Link>.{' '}
+          You are reading version {version.number}. The latest is <Link href={base}>version {recipe.headNumber}</Link>.{' '}
           <Link href={`/compare?a=${version.id}&b=${recipe.headVersionId}`}>Compare with the latest</Link>
         </p>
       )}
@@ -54,7 +66,8 @@ export async function VersionPage({ viewer, recipe, version, activity }: { viewe
             by <Link href={`/members/${recipe.ownerHandle}`}>{recipe.ownerName}</Link>
             {version.document.style && (
               <>
-                {' '}· {version.document.style.code} {version.document.style.name}
+                {' '}
+                · {version.document.style.code} {version.document.style.name}
               </>
             )}{' '}
             · version {version.number} of {recipe.headNumber} · {VISIBILITY_WORDS[recipe.visibility]}
@@ -71,7 +84,11 @@ export async function VersionPage({ viewer, recipe, version, activity }: { viewe
               )}
               {source.slug && (
                 <>
-                  {' '}· <Link href={`/compare?a=${recipe.forkedFromVersionId}&b=${recipe.headVersionId}`}>What changed since the fork</Link>
+                  {' '}
+                  ·{' '}
+                  <Link href={`/compare?a=${recipe.forkedFromVersionId}&b=${recipe.headVersionId}`}>
+                    What changed since the fork
+                  </Link>
                 </>
               )}
             </p>
@@ -87,7 +104,14 @@ export async function VersionPage({ viewer, recipe, version, activity }: { viewe
               Edit
             </Link>
           )}
-          {owner && !isHead && <RestoreButton recipeId={recipe.id} versionId={version.id} number={version.number} headVersionId={recipe.headVersionId!} />}
+          {owner && !isHead && (
+            <RestoreButton
+              recipeId={recipe.id}
+              versionId={version.id}
+              number={version.number}
+              headVersionId={recipe.headVersionId!}
+            />
+          )}
           <Link href={`${base}/history`} className="kf-btn-quiet">
             History ({recipe.headNumber})
           </Link>
@@ -115,16 +139,24 @@ export async function VersionPage({ viewer, recipe, version, activity }: { viewe
       </header>
 
       <div className="mt-8 grid gap-8 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
-        <VersionDocument doc={version.document} units={units} notes={<Markdown source={version.document.notes} className="mt-2 leading-relaxed" />} />
+        <VersionDocument
+          doc={version.document}
+          units={units}
+          notes={<Markdown source={version.document.notes} className="mt-2 leading-relaxed" />}
+        />
         <aside className="space-y-6">
           <VersionStats stats={version.stats} units={units} />
           {viewer && !recipe.hiddenAt && (
-            <ForkForm versionId={version.id} defaultTitle={`${version.document.title} (my take)`} number={version.number} />
+            <ForkForm
+              versionId={version.id}
+              defaultTitle={`${version.document.title} (my take)`}
+              number={version.number}
+            />
           )}
           {!viewer && (
             <p className="kf-card font-sans text-sm">
-              <Link href={`/sign-in?callbackUrl=${encodeURIComponent(`${base}/v/${version.number}`)}`}>Sign in</Link> to fork this recipe and brew
-              it your way.
+              <Link href={`/sign-in?callbackUrl=${encodeURIComponent(`${base}/v/${version.number}`)}`}>Sign in</Link> to
+              fork this recipe and brew it your way.
             </p>
           )}
           {owner && <VisibilitySelect recipeId={recipe.id} visibility={recipe.visibility} />}

@@ -22,7 +22,8 @@ export default async function EditRecipePage({ params }: Props) {
       </p>
       <h1 className="mt-2 text-3xl font-semibold">Edit {recipe.title}</h1>
       <p className="mt-1 font-sans text-sm text-muted">
-        You are editing version {version.number}. Saving makes version {version.number + 1}; version {version.number} stays as it is.
+        You are editing version {version.number}. Saving makes version {version.number + 1}; version {version.number}{' '}
+        stays as it is.
       </p>
       <div className="mt-6">
         <RecipeEditor

@@ -71,7 +71,9 @@ export const POST = route<undefined, { id: string }, 'user'>({ access: 'user' },
   }
   if (file.size > MAX_PHOTO_BYTES) throw tooLarge();
   if (file.size === 0) {
-    throw new AppError('bad_request', 'photo', 'The photo file is empty.', [{ path: 'photo', message: 'The photo file is empty.' }]);
+    throw new AppError('bad_request', 'photo', 'The photo file is empty.', [
+      { path: 'photo', message: 'The photo file is empty.' },
+    ]);
   }
   const caption = photoCaptionSchema.safeParse(typeof form.get('caption') === 'string' ? form.get('caption') : '');
   if (!caption.success) throw invalidInput(caption.error, 'caption');

@@ -3,6 +3,7 @@ import { tastingSchema } from '@/lib/brew-days/schemas';
 import { route } from '@/lib/http/route';
 
 // POST /api/brew-days/[id]/tastings – any member who can see the brew day adds their tasting notes
-export const POST = route<typeof tastingSchema, { id: string }, 'user'>({ access: 'user', body: tastingSchema }, ({ viewer, params, body }) =>
-  addTasting(viewer, params.id, body),
+export const POST = route<typeof tastingSchema, { id: string }, 'user'>(
+  { access: 'user', body: tastingSchema },
+  ({ viewer, params, body }) => addTasting(viewer, params.id, body),
 );

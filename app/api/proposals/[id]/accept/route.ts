@@ -5,6 +5,7 @@ import { acceptProposalSchema } from '@/lib/proposals/schemas';
 type Params = { id: string };
 
 // POST /api/proposals/[id]/accept – the source's owner accepts: a new version crediting the proposer
-export const POST = route<typeof acceptProposalSchema, Params, 'user'>({ access: 'user', body: acceptProposalSchema, maxBodyBytes: 128 * 1024 }, ({ viewer, params, body }) =>
-  acceptProposal(viewer, params.id, body),
+export const POST = route<typeof acceptProposalSchema, Params, 'user'>(
+  { access: 'user', body: acceptProposalSchema, maxBodyBytes: 128 * 1024 },
+  ({ viewer, params, body }) => acceptProposal(viewer, params.id, body),
 );

@@ -5,6 +5,7 @@ import { proposalCommentSchema } from '@/lib/proposals/schemas';
 type Params = { id: string };
 
 // POST /api/proposals/[id]/comments – add a message to a proposal's discussion
-export const POST = route<typeof proposalCommentSchema, Params, 'user'>({ access: 'user', body: proposalCommentSchema, maxBodyBytes: 64 * 1024 }, ({ viewer, params, body }) =>
-  addProposalComment(viewer, params.id, body.body),
+export const POST = route<typeof proposalCommentSchema, Params, 'user'>(
+  { access: 'user', body: proposalCommentSchema, maxBodyBytes: 64 * 1024 },
+  ({ viewer, params, body }) => addProposalComment(viewer, params.id, body.body),
 );

@@ -11,8 +11,9 @@ export const GET = route<undefined, Params, 'public'>({ access: 'public' }, asyn
 }));
 
 // POST /api/recipes/[id]/comments – comment on a recipe, or reply to a comment
-export const POST = route<typeof newCommentSchema, Params, 'user'>({ access: 'user', body: newCommentSchema, maxBodyBytes: 64 * 1024 }, ({ viewer, params, body }) =>
-  addComment(viewer, idParam(params.id, 'recipe'), body),
+export const POST = route<typeof newCommentSchema, Params, 'user'>(
+  { access: 'user', body: newCommentSchema, maxBodyBytes: 64 * 1024 },
+  ({ viewer, params, body }) => addComment(viewer, idParam(params.id, 'recipe'), body),
 );
 
 export const dynamic = 'force-dynamic';

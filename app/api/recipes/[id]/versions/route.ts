@@ -12,6 +12,7 @@ export const GET = route<undefined, Params, 'public'>({ access: 'public' }, asyn
 });
 
 // POST /api/recipes/[id]/versions – save a new version (409 when the head moved since baseVersionId)
-export const POST = route<typeof saveVersionSchema, Params, 'user'>({ access: 'user', body: saveVersionSchema }, ({ viewer, params, body }) =>
-  saveVersion(viewer, idParam(params.id, 'recipe'), body),
+export const POST = route<typeof saveVersionSchema, Params, 'user'>(
+  { access: 'user', body: saveVersionSchema },
+  ({ viewer, params, body }) => saveVersion(viewer, idParam(params.id, 'recipe'), body),
 );

@@ -5,7 +5,9 @@ import { idParam } from '@/lib/recipes/http';
 import { getVersionById } from '@/lib/recipes/versions';
 
 const exportQuerySchema = z.object({
-  format: z.enum(['beerxml', 'beerjson', 'kettlefork'], { error: 'Format must be beerxml, beerjson or kettlefork.' }).default('beerxml'),
+  format: z
+    .enum(['beerxml', 'beerjson', 'kettlefork'], { error: 'Format must be beerxml, beerjson or kettlefork.' })
+    .default('beerxml'),
 });
 
 /** A file name from the title: plain letters, digits and dashes, with the version number. */
@@ -29,10 +31,22 @@ export const GET = route<undefined, { id: string }, 'public', typeof exportQuery
     const doc = version.document;
     const file =
       query.format === 'beerxml'
-        ? { body: toBeerXml(doc, { brewer: recipe.ownerName }), type: 'application/xml; charset=utf-8', extension: 'xml' }
+        ? {
+            body: toBeerXml(doc, { brewer: recipe.ownerName }),
+            type: 'application/xml; charset=utf-8',
+            extension: 'xml',
+          }
         : query.format === 'beerjson'
-          ? { body: `${JSON.stringify(toBeerJson(doc, { author: recipe.ownerName }), null, 2)}\n`, type: 'application/json; charset=utf-8', extension: 'beer.json' }
-          : { body: `${JSON.stringify(doc, null, 2)}\n`, type: 'application/json; charset=utf-8', extension: 'kettlefork.json' };
+          ? {
+              body: `${JSON.stringify(toBeerJson(doc, { author: recipe.ownerName }), null, 2)}\n`,
+              type: 'application/json; charset=utf-8',
+              extension: 'beer.json',
+            }
+          : {
+              body: `${JSON.stringify(doc, null, 2)}\n`,
+              type: 'application/json; charset=utf-8',
+              extension: 'kettlefork.json',
+            };
     const cacheable = recipe.visibility === 'public' && !recipe.hiddenAt;
     return new Response(file.body, {
       headers: {

@@ -22,7 +22,15 @@ function changedStats(item: HistoryItem, previous: HistoryItem | undefined): str
   );
 }
 
-export function HistoryTimeline({ recipeId, slug, initial }: { recipeId: string; slug: string; initial: HistoryItem[] }) {
+export function HistoryTimeline({
+  recipeId,
+  slug,
+  initial,
+}: {
+  recipeId: string;
+  slug: string;
+  initial: HistoryItem[];
+}) {
   const router = useRouter();
   const { data: versions = [], isError, refetch } = useRecipeHistory(recipeId, initial);
   const [picked, setPicked] = useState<string[]>([]);
@@ -57,7 +65,11 @@ export function HistoryTimeline({ recipeId, slug, initial }: { recipeId: string;
       }}
     >
       <div className="sticky top-0 z-10 flex flex-wrap items-center gap-3 border-b border-line bg-paper/95 py-3 font-sans text-sm">
-        <span aria-live="polite">{picked.length === 2 ? 'Two versions picked.' : `Pick ${2 - picked.length} more version${picked.length === 1 ? '' : 's'}.`}</span>
+        <span aria-live="polite">
+          {picked.length === 2
+            ? 'Two versions picked.'
+            : `Pick ${2 - picked.length} more version${picked.length === 1 ? '' : 's'}.`}
+        </span>
         <button type="submit" className="kf-btn" disabled={picked.length !== 2}>
           Compare side by side
         </button>
@@ -78,7 +90,9 @@ export function HistoryTimeline({ recipeId, slug, initial }: { recipeId: string;
               <div className="min-w-0 flex-1">
                 <label htmlFor={checkboxId} className="font-serif text-lg font-semibold">
                   Version {v.number}
-                  {i === 0 && <span className="ml-2 rounded bg-bine/15 px-1.5 py-0.5 font-sans text-xs text-bine">latest</span>}
+                  {i === 0 && (
+                    <span className="ml-2 rounded bg-bine/15 px-1.5 py-0.5 font-sans text-xs text-bine">latest</span>
+                  )}
                 </label>
                 <p className="font-sans text-sm text-muted">
                   {format(new Date(v.createdAt), 'd MMM yyyy, HH:mm')} by {v.authorName}

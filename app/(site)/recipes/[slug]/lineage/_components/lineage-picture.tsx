@@ -79,13 +79,30 @@ export function LineagePicture({ recipes, currentId }: { recipes: LineageRecipe[
             {recipe.versions.map((v) => {
               const p = versionAt.get(v.id)!;
               const dot = (
-                <circle cx={p.x} cy={y} r={current ? 11 : 9} fill={current ? ink : 'rgb(var(--kf-card))'} stroke={ink} strokeWidth="3" />
+                <circle
+                  cx={p.x}
+                  cy={y}
+                  r={current ? 11 : 9}
+                  fill={current ? ink : 'rgb(var(--kf-card))'}
+                  stroke={ink}
+                  strokeWidth="3"
+                />
               );
               return recipe.slug ? (
-                <a key={v.id} href={`/recipes/${recipe.slug}/v/${v.number}`} aria-label={`${recipe.title}, version ${v.number}${v.message ? `: ${v.message}` : ''}`}>
+                <a
+                  key={v.id}
+                  href={`/recipes/${recipe.slug}/v/${v.number}`}
+                  aria-label={`${recipe.title}, version ${v.number}${v.message ? `: ${v.message}` : ''}`}
+                >
                   <title>{`${recipe.title}, version ${v.number}${v.message ? ` — ${v.message}` : ''}`}</title>
                   {dot}
-                  <text x={p.x} y={y + 4} textAnchor="middle" fontSize="10" fill={current ? 'rgb(var(--kf-paper))' : 'rgb(var(--kf-ink))'}>
+                  <text
+                    x={p.x}
+                    y={y + 4}
+                    textAnchor="middle"
+                    fontSize="10"
+                    fill={current ? 'rgb(var(--kf-paper))' : 'rgb(var(--kf-ink))'}
+                  >
                     {v.number}
                   </text>
                 </a>
@@ -93,7 +110,13 @@ export function LineagePicture({ recipes, currentId }: { recipes: LineageRecipe[
                 <g key={v.id}>{dot}</g>
               );
             })}
-            <text x={(last?.x ?? startX) + 20} y={y + 5} fontSize="13" fill="rgb(var(--kf-ink))" fontWeight={current ? 700 : 400}>
+            <text
+              x={(last?.x ?? startX) + 20}
+              y={y + 5}
+              fontSize="13"
+              fill="rgb(var(--kf-ink))"
+              fontWeight={current ? 700 : 400}
+            >
               {recipe.hidden && !recipe.slug ? 'Hidden by moderators' : recipe.title}
               {recipe.ownerName && <tspan fill="rgb(var(--kf-muted))"> · {recipe.ownerName}</tspan>}
             </text>

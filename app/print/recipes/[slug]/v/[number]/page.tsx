@@ -28,7 +28,13 @@ export default async function BrewSheetPage({ params }: Props) {
         <PrintButton />
         <Link href={`/recipes/${recipe.slug}/v/${version.number}`}>Back to the recipe</Link>
       </nav>
-      <BrewSheet doc={version.document} stats={version.stats} units={viewer?.units ?? 'metric'} owner={recipe.ownerName} number={version.number} />
+      <BrewSheet
+        doc={version.document}
+        stats={version.stats}
+        units={viewer?.units ?? 'metric'}
+        owner={recipe.ownerName}
+        number={version.number}
+      />
     </>
   );
 }

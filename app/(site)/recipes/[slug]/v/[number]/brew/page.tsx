@@ -26,8 +26,9 @@ export default async function LogBrewDayPage({ params }: Props) {
       </p>
       <h1 className="text-3xl font-semibold">Log a brew day</h1>
       <p className="mb-6 mt-1 font-sans text-sm text-muted">
-        Record what you measured; the brew-day page lays it beside this version&apos;s prediction (OG {formatGravity(version.stats.og)}, FG {formatGravity(version.stats.fg)}). Leave
-        blank what you did not measure; you can add the FG, packaging and readings later.
+        Record what you measured; the brew-day page lays it beside this version&apos;s prediction (OG{' '}
+        {formatGravity(version.stats.og)}, FG {formatGravity(version.stats.fg)}). Leave blank what you did not measure;
+        you can add the FG, packaging and readings later.
       </p>
       <BrewDayForm units={viewer.units} mode={{ kind: 'create', versionId: version.id }} defaults={{}} />
     </div>
