@@ -104,14 +104,11 @@ export async function bulkLoadRecipes(
         };
       }),
     );
-    const inserted = await db
-      .insert(schema.recipeVersions)
-      .values(versionRows)
-      .returning({
-        id: schema.recipeVersions.id,
-        recipeId: schema.recipeVersions.recipeId,
-        number: schema.recipeVersions.number,
-      });
+    const inserted = await db.insert(schema.recipeVersions).values(versionRows).returning({
+      id: schema.recipeVersions.id,
+      recipeId: schema.recipeVersions.recipeId,
+      number: schema.recipeVersions.number,
+    });
     for (const r of recipeRows) {
       const head = inserted.find((v) => v.recipeId === r.id && v.number === versionsPerRecipe)!;
       heads.push({ recipeId: r.id, headId: head.id, slug: r.slug });

@@ -75,13 +75,11 @@ export async function listRecipes(
     .orderBy(desc(recipes.updatedAt))
     .limit(PAGE_SIZE + 1)
     .offset((page - 1) * PAGE_SIZE);
-  const cards = rows
-    .slice(0, PAGE_SIZE)
-    .map(({ hiddenAt, ownerName, ...r }) => ({
-      ...r,
-      ownerName: ownerName ?? r.ownerHandle,
-      hidden: Boolean(hiddenAt),
-    }));
+  const cards = rows.slice(0, PAGE_SIZE).map(({ hiddenAt, ownerName, ...r }) => ({
+    ...r,
+    ownerName: ownerName ?? r.ownerHandle,
+    hidden: Boolean(hiddenAt),
+  }));
   return { cards, hasMore: rows.length > PAGE_SIZE };
 }
 

@@ -73,14 +73,12 @@ describe('follows and the feed', () => {
     const fresh = await createRecipeVia(brewer, { document: paleAle({ title: 'Followed Pale' }) });
     await createRecipeVia(brewer, { visibility: 'private', document: paleAle({ title: 'Secret Pale' }) });
     await saveVia(other, watched.recipe.id, watched.version.id, paleAle({ title: 'Watched Bitter' }), 'More hops');
-    await db
-      .insert(brewDays)
-      .values({
-        recipeId: fresh.recipe.id,
-        versionId: fresh.version.id,
-        brewerId: brewerUser.id,
-        brewedOn: '2026-03-01',
-      });
+    await db.insert(brewDays).values({
+      recipeId: fresh.recipe.id,
+      versionId: fresh.version.id,
+      brewerId: brewerUser.id,
+      brewedOn: '2026-03-01',
+    });
 
     const feed = textOf(await (await reader.fetch('/feed')).text());
     expect(feed).toContain('Followed Pale');
