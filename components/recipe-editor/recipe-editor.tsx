@@ -3,7 +3,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
-import { useEffect, useRef, useState } from 'react';
+import { useEffect, useRef, useState, useSyncExternalStore } from 'react';
 import { FormProvider, useForm, useFormContext, useFormState, useWatch, type Resolver } from 'react-hook-form';
 import { toast } from 'sonner';
 import { describedBy } from '@/components/form-field';
@@ -78,6 +78,11 @@ function alertFor(error: SaveError): FormAlert | null {
   }
 }
 
+// false in the server's HTML and while hydrating, true once React runs in the browser.
+const noSubscription = () => () => {};
+const hydratedOnClient = () => true;
+const notHydratedOnServer = () => false;
+
 export function RecipeEditor({
   mode,
   recipeId,
@@ -111,8 +116,7 @@ export function RecipeEditor({
   const alertBox = useRef<HTMLDivElement>(null);
   const leaving = useRef(false);
   // Until the editor has hydrated, typing could be lost and Save would post the raw form: it stays off.
-  const [ready, setReady] = useState(false);
-  useEffect(() => setReady(true), []);
+  const ready = useSyncExternalStore(noSubscription, hydratedOnClient, notHydratedOnServer);
 
   useEffect(() => {
     if (!isDirty) return;

@@ -1,6 +1,6 @@
 'use client';
 
-import { useEffect, useId, useState, type FocusEvent, type FormEvent } from 'react';
+import { useId, useState, type FocusEvent, type FormEvent } from 'react';
 import { RANGE_BOUNDS, type RangeField } from '@/lib/search/schemas';
 
 export interface RangeSpec {
@@ -66,11 +66,13 @@ export function RangeFilter({ spec, value, stats, onCommit }: RangeFilterProps) 
   const [error, setError] = useState<string | null>(null);
 
   // The address changed (Back, a suggestion, "Clear"): show what it says.
-  useEffect(() => {
+  const [shown, setShown] = useState(value);
+  if (shown.min !== value.min || shown.max !== value.max) {
+    setShown(value);
     setMinText(asText(value.min));
     setMaxText(asText(value.max));
     setError(null);
-  }, [value.min, value.max]);
+  }
 
   function commit() {
     const read = readRange(spec, minText, maxText);

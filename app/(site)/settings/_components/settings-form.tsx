@@ -4,7 +4,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useQueryClient } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
-import { useForm } from 'react-hook-form';
+import { useForm, useWatch } from 'react-hook-form';
 import { toast } from 'sonner';
 import { z } from 'zod';
 import { describedBy, FormField } from '@/components/form-field';
@@ -31,7 +31,7 @@ export function SettingsForm({ initial }: { initial: SettingsInput }) {
   const router = useRouter();
   const queryClient = useQueryClient();
   const [formError, setFormError] = useState<string>();
-  const { register, handleSubmit, setError, watch, getValues, setValue, formState } = useForm<FormValues>({
+  const { register, handleSubmit, setError, control, getValues, setValue, formState } = useForm<FormValues>({
     resolver: zodResolver(formSchema),
     defaultValues: {
       name: initial.name,
@@ -45,7 +45,7 @@ export function SettingsForm({ initial }: { initial: SettingsInput }) {
     },
   });
   const { errors, isSubmitting } = formState;
-  const units = watch('units');
+  const units = useWatch({ control, name: 'units' });
   const volumeUnit = units === 'us' ? 'gal' : 'L';
 
   const onSubmit = handleSubmit(async ({ batchVolume, ...values }) => {
