@@ -29,5 +29,3 @@ export function getPool(): Pool {
 
 // Cached on globalThis so hot reloads in development reuse one pool.
 export const db: Database = (globalForDb.kfDb ??= drizzle(getPool(), { schema }));
-
-export { schema };

@@ -17,7 +17,7 @@ export interface HistoryItem {
   srm: number;
 }
 
-export const recipeHistoryKeys = {
+const recipeHistoryKeys = {
   all: ['recipe-history'] as const,
   byRecipe: (recipeId: string) => [...recipeHistoryKeys.all, recipeId] as const,
 };

@@ -27,7 +27,7 @@ export class RecipeSearchError extends Error {
   }
 }
 
-export async function fetchRecipeSearch(queryString: string, signal?: AbortSignal): Promise<RecipeSearchData> {
+async function fetchRecipeSearch(queryString: string, signal?: AbortSignal): Promise<RecipeSearchData> {
   let res: Response;
   try {
     res = await fetch(`/api/search${queryString ? `?${queryString}` : ''}`, {

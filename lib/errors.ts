@@ -54,7 +54,7 @@ export class AppError extends Error {
 }
 
 /** Every issue of a zod error, with dotted paths (`hops.2.alphaPct`). */
-export function zodFieldIssues(error: z.ZodError): FieldIssue[] {
+function zodFieldIssues(error: z.ZodError): FieldIssue[] {
   return error.issues.map((i) => ({ path: i.path.map(String).join('.') || '(root)', message: i.message }));
 }
 

@@ -17,7 +17,7 @@ const GRAIN_TEMP_C = 20;
 /** Order of a brew day: mash hops, first wort, the boil from its longest addition down, the hop stand, then dry hops. */
 const USE_ORDER: Record<Hop['use'], number> = { mash: 0, first_wort: 1, boil: 2, whirlpool: 3, dry_hop: 4 };
 
-export function hopChecklist(hops: readonly Hop[]): Hop[] {
+function hopChecklist(hops: readonly Hop[]): Hop[] {
   return [...hops].sort(
     (a, b) =>
       USE_ORDER[a.use] - USE_ORDER[b.use] || (a.use === 'dry_hop' ? a.timeMin - b.timeMin : b.timeMin - a.timeMin),

@@ -27,7 +27,7 @@ export function useErrorAt(path: string): string | undefined {
   return errorMessageAt(errors, path);
 }
 
-export function labelWithUnit(label: string, unit?: FieldUnit): string {
+function labelWithUnit(label: string, unit?: FieldUnit): string {
   return unit?.label ? `${label} (${unit.label})` : label;
 }
 

@@ -7,7 +7,7 @@ import { createRecipeSchema, saveVersionSchema, type Visibility } from '@/lib/re
  * version id (the editor keeps that itself), so a server error's path such as
  * `document.hops.2.alphaPct` names a form field as it is.
  */
-export const editVersionFormSchema = saveVersionSchema.omit({ baseVersionId: true });
+const editVersionFormSchema = saveVersionSchema.omit({ baseVersionId: true });
 
 export function editorFormSchema(mode: 'create' | 'edit') {
   return mode === 'create' ? createRecipeSchema : editVersionFormSchema;

@@ -9,13 +9,13 @@ import {
 // The demo club's recipes: invented titles and notes, generic ingredients from our catalogue.
 type HopUse = 'boil' | 'whirlpool' | 'dry_hop' | 'first_wort';
 
-export function malt(id: string, amountKg: number) {
+function malt(id: string, amountKg: number) {
   const f = findCatalogueFermentable(id);
   if (!f) throw new Error(`unknown malt ${id}`);
   return { name: f.name, amountKg, potentialPpg: f.potentialPpg, colorLovibond: f.colorLovibond, kind: f.kind };
 }
 
-export function hop(id: string, amountG: number, use: HopUse, timeMin: number) {
+function hop(id: string, amountG: number, use: HopUse, timeMin: number) {
   const h = findCatalogueHop(id);
   if (!h) throw new Error(`unknown hop ${id}`);
   return {
@@ -28,7 +28,7 @@ export function hop(id: string, amountG: number, use: HopUse, timeMin: number) {
   };
 }
 
-export function yeast(id: string) {
+function yeast(id: string) {
   const y = findCatalogueYeastKind(id);
   if (!y) throw new Error(`unknown yeast ${id}`);
   return {

@@ -19,8 +19,8 @@ import { emailSchema } from './schemas';
 import { verifyPassword } from './password';
 import { sendMagicLink } from './magic-link';
 
-export const SESSION_MAX_AGE_SEC = 30 * 24 * 60 * 60;
-export const MAGIC_LINK_MAX_AGE_SEC = 15 * 60;
+const SESSION_MAX_AGE_SEC = 30 * 24 * 60 * 60;
+const MAGIC_LINK_MAX_AGE_SEC = 15 * 60;
 
 // next-auth's own tables through the Drizzle adapter. Accounts are created by sign-up only:
 // a magic link is sent to existing members, so the adapter never has to invent a user.
@@ -119,9 +119,4 @@ export function authOptions(): NextAuthOptions {
       },
     },
   };
-}
-
-/** Ends every session of a member on the server (used on suspension). */
-export async function endSessionsOfUser(userId: string): Promise<void> {
-  await db.delete(sessions).where(eq(sessions.userId, userId));
 }

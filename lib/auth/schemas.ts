@@ -11,13 +11,13 @@ export const emailSchema = z
   .pipe(z.email({ error: 'Enter a valid e-mail address, like name@example.com.' }))
   .transform((e) => e.toLowerCase());
 
-export const newPasswordSchema = z
+const newPasswordSchema = z
   .string({ error: 'Choose a password.' })
   .min(PASSWORD_MIN_LENGTH, `Use at least ${PASSWORD_MIN_LENGTH} characters; a few unrelated words work well.`)
   .max(200, 'Use at most 200 characters.')
   .refine((p) => !isCommonPassword(p), 'That password is one of the most common ones; please choose another.');
 
-export const displayNameSchema = z
+const displayNameSchema = z
   .string({ error: 'Enter the name other brewers will see.' })
   .trim()
   .min(2, 'Use at least 2 characters for your name.')

@@ -5,9 +5,8 @@ import { cookies } from 'next/headers';
 import { cache } from 'react';
 import { db } from '@/db';
 import { sessions, users } from '@/db/schema';
-import { AppError } from '@/lib/errors';
 import { authOptions } from './options';
-import { hasRole, type Role } from './roles';
+import type { Role } from './roles';
 
 export interface Viewer {
   id: string;
@@ -43,15 +42,3 @@ export const getViewer = cache(async (): Promise<Viewer | null> => {
     .limit(1);
   return row ? { ...row, name: row.name ?? row.handle } : null;
 });
-
-export async function requireUser(): Promise<Viewer> {
-  const viewer = await getViewer();
-  if (!viewer) throw new AppError('unauthenticated');
-  return viewer;
-}
-
-export async function requireRole(role: Role): Promise<Viewer> {
-  const viewer = await requireUser();
-  if (!hasRole(viewer, role)) throw new AppError('forbidden', 'resource', 'Your role does not allow this.');
-  return viewer;
-}

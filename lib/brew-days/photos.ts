@@ -15,8 +15,8 @@ import { photoVisibleTo } from './photo-visibility';
  * (display and thumbnail together) across all of a member's brew days, and a cap per brew day.
  */
 export const PHOTO_QUOTA_COUNT = 300;
-export const PHOTO_QUOTA_BYTES = 300 * 1024 * 1024;
-export const PHOTOS_PER_BREW_DAY = 30;
+const PHOTO_QUOTA_BYTES = 300 * 1024 * 1024;
+const PHOTOS_PER_BREW_DAY = 30;
 
 type Executor = Pick<typeof db, 'select'>;
 

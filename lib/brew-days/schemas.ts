@@ -6,10 +6,10 @@ import { z } from 'zod';
 /** Hydrometer and corrected gravities outside this are not beer or wort (common practice). */
 export const GRAVITY_MIN = 0.98;
 export const GRAVITY_MAX = 1.2;
-export const BRIX_MAX = 40;
+const BRIX_MAX = 40;
 /** Liquid water at ordinary pressure: 0–100 °C. */
-export const WATER_TEMP_MIN_C = 0;
-export const WATER_TEMP_MAX_C = 100;
+const WATER_TEMP_MIN_C = 0;
+const WATER_TEMP_MAX_C = 100;
 /** A typical keg's working pressure (common practice); above it the page defers to the maker's limits. */
 export const TYPICAL_KEG_RATING_KPA = 200;
 
@@ -33,7 +33,7 @@ function optional<T extends z.ZodType>(schema: T) {
   return z.preprocess(blankToNull, schema.nullish()).transform((v) => (v ?? null) as z.output<T> | null);
 }
 
-export function temperatureField(label: string) {
+function temperatureField(label: string) {
   return num(label)
     .min(WATER_TEMP_MIN_C, `${label} must be between 0 and 100 °C (32–212 °F): water is not liquid outside that`)
     .max(WATER_TEMP_MAX_C, `${label} must be between 0 and 100 °C (32–212 °F): water is not liquid outside that`);
@@ -52,10 +52,10 @@ const isoDate = (label: string) =>
       `${label} is not a real date`,
     );
 
-export const gravityMethods = ['hydrometer', 'refractometer'] as const;
+const gravityMethods = ['hydrometer', 'refractometer'] as const;
 
 /** One gravity as measured: SG from a hydrometer (with its sample temperature) or °Brix from a refractometer. */
-export const gravityEntrySchema = z
+const gravityEntrySchema = z
   .object({
     method: z.enum(gravityMethods, { error: 'Choose hydrometer or refractometer' }),
     value: num('Reading'),
@@ -74,7 +74,6 @@ export const gravityEntrySchema = z
       });
     }
   });
-export type GravityEntryInput = z.input<typeof gravityEntrySchema>;
 
 const measuredFields = {
   brewedOn: isoDate('Brew date'),
@@ -125,7 +124,6 @@ function checkDatesAndPackaging(
 /** What a brewer records about a brew day (also what an edit sends). */
 export const brewDayFieldsSchema = z.object(measuredFields).superRefine(checkDatesAndPackaging);
 export type BrewDayFields = z.output<typeof brewDayFieldsSchema>;
-export type BrewDayFieldsInput = z.input<typeof brewDayFieldsSchema>;
 
 /** A new brew day names the exact recipe version brewed. */
 export const createBrewDaySchema = z
@@ -158,7 +156,6 @@ export const readingSchema = z
     }
   });
 export type ReadingInput = z.output<typeof readingSchema>;
-export type ReadingFormInput = z.input<typeof readingSchema>;
 
 const tastingText = (label: string) =>
   z.string().trim().max(2000, `${label} must be at most 2000 characters`).default('');
@@ -182,7 +179,6 @@ export const tastingSchema = z
     message: 'Write at least one note about the beer',
   });
 export type TastingInput = z.output<typeof tastingSchema>;
-export type TastingFormInput = z.input<typeof tastingSchema>;
 
 export const photoCaptionSchema = z.string().trim().max(200, 'Caption must be at most 200 characters');
 export const photoSizeSchema = z.enum(['display', 'thumb']);

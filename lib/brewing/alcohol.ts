@@ -7,7 +7,7 @@ export function abvSimple(og: number, fg: number): number {
 }
 
 /** Alcohol by weight (%): Michael Hall, "Brew by the Numbers", Zymurgy (summer 1995). */
-export function abwHall(og: number, fg: number): number {
+function abwHall(og: number, fg: number): number {
   return (76.08 * (og - fg)) / (1.775 - og);
 }
 
@@ -48,9 +48,9 @@ export function caloriesPer355mL(og: number, fg: number): number {
  * unfermentable dextrins, cooler ones fewer (common practice; the size of the
  * step, 1 percentage point per °C up to ±5, is a rule of thumb).
  */
-export const NEUTRAL_MASH_TEMP_C = { min: 65, max: 67 } as const;
-export const ATTENUATION_PCT_PER_MASH_C = 1;
-export const SACCHARIFICATION_TEMP_C = { min: 60, max: 72 } as const;
+const NEUTRAL_MASH_TEMP_C = { min: 65, max: 67 } as const;
+const ATTENUATION_PCT_PER_MASH_C = 1;
+const SACCHARIFICATION_TEMP_C = { min: 60, max: 72 } as const;
 
 /** Attenuation (%) after the mash-temperature adjustment; `mainMashTempC` null means no mash (no adjustment). */
 export function adjustedAttenuationPct(yeastAttenuationPct: number, mainMashTempC: number | null): number {

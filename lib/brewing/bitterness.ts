@@ -60,7 +60,7 @@ export function hopStandTemperatureFactor(tempC: number): number {
  * - dry hop: 0 (no isomerisation in cold beer).
  * Pellets and leaf count alike.
  */
-export function hopUtilisation(hop: Hop, gravity: number, boilTimeMin: number): number {
+function hopUtilisation(hop: Hop, gravity: number, boilTimeMin: number): number {
   switch (hop.use) {
     case 'boil':
     case 'first_wort':

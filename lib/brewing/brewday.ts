@@ -9,7 +9,7 @@ import type { Fermentable, RecipeDocument } from './schema';
  */
 
 /** Heat capacity of grain relative to water, per kg of grain and litre of water (Palmer, How to Brew: 0.41 metric, 0.2 in qt/lb). */
-export const GRAIN_HEAT_CAPACITY_L_PER_KG = 0.41;
+const GRAIN_HEAT_CAPACITY_L_PER_KG = 0.41;
 
 /** Wort shrinks about 4% cooling from boiling to pitching temperature (common practice). */
 export const COOLING_SHRINKAGE_FRACTION = 0.04;

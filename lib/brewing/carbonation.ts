@@ -1,7 +1,7 @@
 import { KPA_PER_PSI, celsiusToFahrenheit } from './constants';
 
 /** Grams of CO2 in one litre of gas at 0 °C and 1 atm: "volumes of CO2" are counted in these litres. */
-export const CO2_G_PER_L_AT_STP = 1.977;
+const CO2_G_PER_L_AT_STP = 1.977;
 
 /**
  * Gauge pressure (psi) that holds `volumesCO2` in beer at `tempC`: the

@@ -14,4 +14,3 @@ export * from './scale';
 export * from './styles';
 export * from './catalogue';
 export * from './units';
-export { KG_PER_LB, L_PER_US_GALLON, G_PER_OZ, KPA_PER_PSI, POINTS_L_PER_KG_PER_PPG } from './constants';

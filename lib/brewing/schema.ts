@@ -44,11 +44,11 @@ function objectError(label: string) {
 }
 
 /** Heaviest grist we accept per litre of batch: about twice a very strong barley wine's (common practice). */
-export const MAX_GRIST_KG_PER_L = 1;
+const MAX_GRIST_KG_PER_L = 1;
 /** Heaviest total hop load we accept per litre of batch (a heavy dry-hopped beer uses about 20 g/L; common practice). */
-export const MAX_HOPS_G_PER_L = 100;
+const MAX_HOPS_G_PER_L = 100;
 /** Most salt we accept per litre of brewing water. */
-export const MAX_SALTS_G_PER_L = 5;
+const MAX_SALTS_G_PER_L = 5;
 
 export const FERMENTABLE_KINDS = ['grain', 'extract', 'sugar', 'adjunct'] as const;
 export const HOP_USES = ['mash', 'first_wort', 'boil', 'whirlpool', 'dry_hop'] as const;
@@ -186,7 +186,7 @@ function ionField(label: string) {
   return numberField(label).min(0, `${label} cannot be negative`).max(2000, `${label} must be at most 2000 mg/L`);
 }
 
-export const waterProfileSchema = z.object(
+const waterProfileSchema = z.object(
   {
     calcium: ionField('Calcium'),
     magnesium: ionField('Magnesium'),
@@ -324,8 +324,6 @@ export type RecipeDocumentInput = z.input<typeof recipeDocumentSchema>;
 export type Fermentable = RecipeDocument['fermentables'][number];
 export type Hop = RecipeDocument['hops'][number];
 export type Yeast = RecipeDocument['yeasts'][number];
-export type MashStep = RecipeDocument['mash']['steps'][number];
-export type FermentationStep = RecipeDocument['fermentation']['steps'][number];
 export type WaterProfile = z.infer<typeof waterProfileSchema>;
 export type SaltAddition = z.infer<typeof saltAdditionSchema>;
 

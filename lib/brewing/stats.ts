@@ -19,19 +19,19 @@ import { residualAlkalinity, sulfateToChlorideRatio, waterAfterSalts } from './w
 /** Version of the formulas behind computeStats; stored beside each recipe version's stats. */
 export const ENGINE_VERSION = '1.0.0';
 
-export interface HopStats {
+interface HopStats {
   name: string;
   use: HopUse;
   ibu: number;
 }
 
-export interface WaterStats extends WaterProfile {
+interface WaterStats extends WaterProfile {
   sulfateToChloride: number;
   /** mg/L as CaCO3 (Kolbach). */
   residualAlkalinity: number;
 }
 
-export interface CarbonationStats {
+interface CarbonationStats {
   volumesCO2: number;
   servingTempC: number;
   kegPressureKPa: number;

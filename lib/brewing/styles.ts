@@ -8,10 +8,10 @@ import guidelines from './data/style-vitals-2021.json';
 export const STYLE_GUIDELINES_EDITION = 'BJCP 2021 Beer Style Guidelines';
 export const STYLE_GUIDELINES_SOURCE: string = guidelines.source;
 
-export const STYLE_VITALS = ['og', 'fg', 'abv', 'ibu', 'srm'] as const;
+const STYLE_VITALS = ['og', 'fg', 'abv', 'ibu', 'srm'] as const;
 export type StyleVital = (typeof STYLE_VITALS)[number];
 
-export interface StyleRange {
+interface StyleRange {
   min: number;
   max: number;
 }
@@ -71,7 +71,7 @@ export function styleCategories(): StyleCategory[] {
   return [...categories.values()];
 }
 
-export type RangePosition = 'below' | 'within' | 'above';
+type RangePosition = 'below' | 'within' | 'above';
 
 export interface RangeFit extends StyleRange {
   value: number;

@@ -7,11 +7,11 @@ import convert from 'convert-units';
  * solution, density 1 kg/L — common practice).
  */
 
-export type MassUnit = 'kg' | 'g' | 'lb' | 'oz';
-export type VolumeUnit = 'l' | 'ml' | 'gal' | 'qt';
-export type TemperatureUnit = 'C' | 'F';
-export type PressureUnit = 'kPa' | 'psi' | 'bar';
-export type ConcentrationUnit = 'mg/L' | 'ppm';
+type MassUnit = 'kg' | 'g' | 'lb' | 'oz';
+type VolumeUnit = 'l' | 'ml' | 'gal' | 'qt';
+type TemperatureUnit = 'C' | 'F';
+type PressureUnit = 'kPa' | 'psi' | 'bar';
+type ConcentrationUnit = 'mg/L' | 'ppm';
 export type UnitName = MassUnit | VolumeUnit | TemperatureUnit | PressureUnit | ConcentrationUnit;
 
 export type Quantity = 'mass' | 'hopMass' | 'volume' | 'temperature' | 'pressure' | 'concentration';

@@ -12,7 +12,7 @@ const SULFATE = ATOMIC_WEIGHT.S + 4 * ATOMIC_WEIGHT.O;
 const BICARBONATE = ATOMIC_WEIGHT.H + ATOMIC_WEIGHT.C + 3 * ATOMIC_WEIGHT.O;
 
 /** Molar mass (g/mol) of each salt as sold for brewing; calcium chloride as the dihydrate. */
-export const SALT_MOLAR_MASS: Record<SaltName, number> = {
+const SALT_MOLAR_MASS: Record<SaltName, number> = {
   gypsum: ATOMIC_WEIGHT.Ca + SULFATE + 2 * WATER,
   epsom: ATOMIC_WEIGHT.Mg + SULFATE + 7 * WATER,
   table_salt: ATOMIC_WEIGHT.Na + ATOMIC_WEIGHT.Cl,
@@ -49,7 +49,7 @@ export function waterAfterSalts(source: WaterProfile, salts: readonly SaltAdditi
 }
 
 /** Alkalinity as CaCO3 from bicarbonate: × 50.04 / 61.02 (equivalent weights). */
-export function bicarbonateToAlkalinity(bicarbonateMgPerL: number): number {
+function bicarbonateToAlkalinity(bicarbonateMgPerL: number): number {
   return bicarbonateMgPerL * (50.04 / 61.02);
 }
 

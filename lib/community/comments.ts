@@ -18,7 +18,7 @@ const MAX_COMMENTS_SHOWN = 500;
 
 type MaybeViewer = Pick<Viewer, 'id' | 'role'> | null;
 
-export type CommentState = 'published' | 'held' | 'hidden' | 'deleted';
+type CommentState = 'published' | 'held' | 'hidden' | 'deleted';
 
 export interface CommentView {
   id: string;
@@ -45,7 +45,7 @@ function isModerator(viewer: MaybeViewer): boolean {
 }
 
 /** Whether someone may read a comment (its recipe being visible to them is checked separately). */
-export function canViewComment(
+function canViewComment(
   comment: Pick<Comment, 'authorId' | 'status' | 'hiddenAt' | 'deletedAt'>,
   viewer: MaybeViewer,
 ): boolean {
@@ -155,7 +155,7 @@ async function holdFor(tx: Transaction, viewer: Viewer, body: string): Promise<b
   });
 }
 
-export function commentUrl(recipe: Pick<Recipe, 'slug'>, commentId: string): string {
+function commentUrl(recipe: Pick<Recipe, 'slug'>, commentId: string): string {
   return `/recipes/${recipe.slug}#comment-${commentId}`;
 }
 

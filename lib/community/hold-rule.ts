@@ -1,9 +1,9 @@
 // Pure: the rule that holds a new member's link comments for a moderator.
 
 /** Accounts younger than this are new. */
-export const NEW_ACCOUNT_DAYS = 7;
+const NEW_ACCOUNT_DAYS = 7;
 /** A new member's link comments are held until moderators have approved this many of them. */
-export const APPROVALS_BEFORE_TRUSTED = 3;
+const APPROVALS_BEFORE_TRUSTED = 3;
 
 /**
  * A comment containing a link, from a member (not a moderator) whose account is younger than

@@ -2,7 +2,7 @@ import 'server-only';
 import { and, desc, eq, isNotNull, isNull, sql } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 import { db } from '@/db';
-import { recipeVersions, recipes, users } from '@/db/schema';
+import { recipeVersions, recipes } from '@/db/schema';
 import type { Viewer } from '@/lib/auth/session';
 import { countFollowers } from './follows';
 
@@ -64,13 +64,4 @@ export async function getMemberCommunity(
       };
     }),
   };
-}
-
-/** A member by handle for the pages, or null when there is none (or they are suspended). */
-export async function getMemberIdByHandle(handle: string): Promise<string | null> {
-  const [row] = await db
-    .select({ id: users.id })
-    .from(users)
-    .where(and(eq(users.handle, handle.slice(0, 40)), isNull(users.suspendedAt)));
-  return row?.id ?? null;
 }

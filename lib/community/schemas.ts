@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { NOTIFICATION_KINDS } from '@/lib/notifications/kinds';
 
-export const COMMENT_MAX_CHARS = 5_000;
+const COMMENT_MAX_CHARS = 5_000;
 
 const commentBody = z
   .string({ error: 'Write your comment.' })
@@ -18,7 +18,7 @@ export type NewCommentInput = z.infer<typeof newCommentSchema>;
 
 export const editCommentSchema = z.object({ body: commentBody });
 
-export const FOLLOW_TYPES = ['member', 'recipe'] as const;
+const FOLLOW_TYPES = ['member', 'recipe'] as const;
 export const followSchema = z.object({
   type: z.enum(FOLLOW_TYPES, { error: 'Follow a member or a recipe.' }),
   id: z
@@ -28,7 +28,7 @@ export const followSchema = z.object({
 });
 export type FollowInput = z.infer<typeof followSchema>;
 
-export const emailChoicesSchema = z.object(
+const emailChoicesSchema = z.object(
   Object.fromEntries(NOTIFICATION_KINDS.map((k) => [k, z.boolean({ error: 'Choose on or off.' })])) as Record<
     (typeof NOTIFICATION_KINDS)[number],
     z.ZodBoolean

@@ -1,6 +1,6 @@
 // JSON requests from the browser to our own API, with the server's refusals in a form a page can show.
 
-export interface FieldMessage {
+interface FieldMessage {
   path: string;
   message: string;
 }

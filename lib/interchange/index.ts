@@ -2,13 +2,13 @@ import { parseBeerJson } from './beerjson';
 import { parseBeerXml } from './beerxml';
 import { InterchangeError, type ImportResult, type InterchangeFormat } from './types';
 
-export { parseBeerJson, toBeerJson } from './beerjson';
-export { parseBeerXml, toBeerXml } from './beerxml';
+export { toBeerJson } from './beerjson';
+export { toBeerXml } from './beerxml';
 export { MAX_IMPORT_BYTES, readLimitedText } from './limits';
-export { InterchangeError, type ImportResult, type ImportedRecipe, type InterchangeFormat } from './types';
+export { InterchangeError, type ImportResult, type InterchangeFormat } from './types';
 
 /** Which format a text is in, by its first meaningful character: `<` for XML, `{` for JSON. */
-export function detectFormat(text: string): InterchangeFormat {
+function detectFormat(text: string): InterchangeFormat {
   const start = text.replace(/^\uFEFF/, '').trimStart()[0];
   if (start === '<') return 'beerxml';
   if (start === '{') return 'beerjson';

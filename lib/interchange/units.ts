@@ -8,7 +8,7 @@ import { InterchangeError } from './types';
  */
 
 /** Extract of sucrose: 46.214 gravity points per pound per US gallon (common practice). */
-export const SUCROSE_PPG = 46.214;
+const SUCROSE_PPG = 46.214;
 
 /** BeerXML and BeerJSON give a fermentable's yield as % of sucrose's extract; we keep points per pound per gallon. */
 export function yieldPctToPpg(yieldPct: number): number {
@@ -69,7 +69,6 @@ function pick(table: Record<string, number>, m: Measured, what: string, element:
 }
 
 export const isMassUnit = (unit: string): boolean => Object.hasOwn(MASS_TO_KG, unit);
-export const isVolumeUnit = (unit: string): boolean => Object.hasOwn(VOLUME_TO_L, unit);
 
 export const toKg = (m: Measured, element: string): number => pick(MASS_TO_KG, m, 'mass', element);
 export const toLitres = (m: Measured, element: string): number => pick(VOLUME_TO_L, m, 'volume', element);

@@ -44,7 +44,7 @@ export async function createReport(viewer: Viewer, input: ReportInput): Promise<
   }
 }
 
-export interface QueueReport {
+interface QueueReport {
   id: string;
   reporterName: string;
   reporterHandle: string;

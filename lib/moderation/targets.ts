@@ -22,15 +22,6 @@ export interface ResolvedTarget {
   recipeId: string | null;
 }
 
-/** Whether a photo is hidden from everyone but its uploader and the moderators. */
-export async function isPhotoHidden(photoId: string): Promise<boolean> {
-  const [row] = await db
-    .select({ id: hiddenPhotos.photoId })
-    .from(hiddenPhotos)
-    .where(eq(hiddenPhotos.photoId, photoId));
-  return Boolean(row);
-}
-
 /**
  * What a report points at, if the viewer may see it. Anything they cannot see is "not found",
  * exactly as if it did not exist.

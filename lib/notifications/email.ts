@@ -15,7 +15,7 @@ import { unsubscribeToken, type UnsubscribeScope } from './unsubscribe-token';
  */
 export const EMAIL_DIGEST_INTERVAL_MIN = 10;
 /** How often the sender loop looks for e-mails that are due. */
-export const EMAIL_LOOP_INTERVAL_SEC = 30;
+const EMAIL_LOOP_INTERVAL_SEC = 30;
 /** Members handled per run, so one run stays short. */
 const MEMBERS_PER_RUN = 50;
 /** Notices listed in one message; the rest are summed up with a link to the site. */
@@ -172,7 +172,7 @@ interface DigestItem {
   recipe: { title: string } | null;
 }
 
-export function unsubscribeUrl(userId: string, scope: UnsubscribeScope): string {
+function unsubscribeUrl(userId: string, scope: UnsubscribeScope): string {
   return new URL(
     `/api/unsubscribe?token=${encodeURIComponent(unsubscribeToken(userId, scope))}`,
     env().NEXTAUTH_URL,
@@ -180,7 +180,7 @@ export function unsubscribeUrl(userId: string, scope: UnsubscribeScope): string 
 }
 
 /** One plain-text message listing the notices, with a one-click unsubscribe link per kind. */
-export function digestMessage(
+function digestMessage(
   member: { id: string; email: string; name: string | null; handle: string },
   items: DigestItem[],
 ): OutgoingMail {
@@ -231,7 +231,7 @@ const globalForLoop = globalThis as unknown as { kfEmailLoop?: NodeJS.Timeout };
  * The loop's period in milliseconds: EMAIL_LOOP_INTERVAL_SEC, or KF_EMAIL_INTERVAL_MS when set to a
  * positive whole number (the fault run shortens it so an SMTP outage and its recovery fit in seconds).
  */
-export function emailLoopIntervalMs(raw = process.env.KF_EMAIL_INTERVAL_MS): number {
+function emailLoopIntervalMs(raw = process.env.KF_EMAIL_INTERVAL_MS): number {
   const ms = Number(raw);
   return raw && Number.isInteger(ms) && ms > 0 ? ms : EMAIL_LOOP_INTERVAL_SEC * 1000;
 }

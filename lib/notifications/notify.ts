@@ -69,7 +69,7 @@ export async function notify(tx: Transaction, input: NotifyInput): Promise<strin
 }
 
 /** Markdown reduced to a short line of plain text. */
-export function plainExcerpt(text: string, max = 200): string {
+function plainExcerpt(text: string, max = 200): string {
   const plain = text
     .replace(/!?\[([^\]]*)\]\([^)]*\)/g, '$1')
     .replace(/[#>*_`~]/g, '')

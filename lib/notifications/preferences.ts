@@ -1,5 +1,5 @@
 import 'server-only';
-import { and, eq } from 'drizzle-orm';
+import { eq } from 'drizzle-orm';
 import { db, type Transaction } from '@/db';
 import { notificationPreferences } from '@/db/schema';
 import { NOTIFICATION_KINDS, type NotificationKind } from './kinds';
@@ -33,12 +33,4 @@ export async function setEmailChoices(tx: Transaction, userId: string, choices: 
 export async function setEmailScope(userId: string, scope: UnsubscribeScope, email: boolean): Promise<void> {
   const kinds = scope === 'all' ? NOTIFICATION_KINDS : [scope];
   await db.transaction((tx) => setEmailChoices(tx, userId, Object.fromEntries(kinds.map((k) => [k, email]))));
-}
-
-export async function isEmailOn(userId: string, kind: NotificationKind): Promise<boolean> {
-  const [row] = await db
-    .select({ email: notificationPreferences.email })
-    .from(notificationPreferences)
-    .where(and(eq(notificationPreferences.userId, userId), eq(notificationPreferences.kind, kind)));
-  return row?.email !== false;
 }

@@ -6,7 +6,7 @@ import { canView } from '@/lib/recipes/access';
 type MaybeViewer = Pick<Viewer, 'id' | 'role'> | null;
 type Gate = Pick<Recipe, 'ownerId' | 'visibility' | 'hiddenAt'>;
 
-export const LIVE_STATUSES = ['open', 'changes_requested'] as const;
+const LIVE_STATUSES = ['open', 'changes_requested'] as const;
 
 export function isLive(proposal: Pick<Proposal, 'status'>): boolean {
   return (LIVE_STATUSES as readonly string[]).includes(proposal.status);

@@ -17,7 +17,7 @@ import type { RecipeDocument } from '@/lib/brewing';
  * Pure: no I/O. `resolveMerge` applies the owner's pick for every conflict.
  */
 
-export type MergeSide = 'ours' | 'theirs';
+type MergeSide = 'ours' | 'theirs';
 
 export interface MergeConflict {
   /** Where in the document, e.g. `batch.volumeL`, `hops[cascade|boil].amountG`, `mash.steps[0].tempC`, `notes`. */

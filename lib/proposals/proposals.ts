@@ -44,7 +44,7 @@ export interface Ancestor {
 }
 
 /** Every recipe a fork descends from (walking fork links upward), nearest first. */
-export async function getAncestorsByRecipeId(tx: Db, { recipeId }: { recipeId: string }): Promise<Ancestor[]> {
+async function getAncestorsByRecipeId(tx: Db, { recipeId }: { recipeId: string }): Promise<Ancestor[]> {
   const result = await tx.execute<{
     recipe_id: string;
     slug: string;
@@ -555,7 +555,7 @@ export async function getProposalsByMember(
   };
 }
 
-export interface ProposalCommentView {
+interface ProposalCommentView {
   id: string;
   body: string;
   authorName: string;

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 
-export const PROPOSAL_TITLE_MAX = 120;
-export const PROPOSAL_TEXT_MAX = 5_000;
+const PROPOSAL_TITLE_MAX = 120;
+const PROPOSAL_TEXT_MAX = 5_000;
 
 const title = z
   .string({ error: 'Give the proposal a title.' })

@@ -4,7 +4,7 @@ import type { RecipeDocument, RecipeStats } from '@/lib/brewing';
 export type ChangeStatus = 'added' | 'removed' | 'changed' | 'same';
 type Scalar = string | number | boolean | null;
 
-export interface FieldChange {
+interface FieldChange {
   field: string;
   before: Scalar;
   after: Scalar;
@@ -32,7 +32,7 @@ export interface StatDelta {
   delta: number | null;
 }
 
-export interface NotesPart {
+interface NotesPart {
   value: string;
   added: boolean;
   removed: boolean;

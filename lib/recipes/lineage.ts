@@ -5,7 +5,7 @@ import type { Viewer } from '@/lib/auth/session';
 import { canView, isListed } from './access';
 import { getRecipe } from './versions';
 
-export interface LineageVersion {
+interface LineageVersion {
   id: string;
   number: number;
   parentVersionId: string | null;

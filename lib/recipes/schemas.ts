@@ -1,10 +1,10 @@
 import { z } from 'zod';
 import { recipeDocumentSchema } from '@/lib/brewing';
 
-export const VISIBILITIES = ['public', 'unlisted', 'private'] as const;
+const VISIBILITIES = ['public', 'unlisted', 'private'] as const;
 export type Visibility = (typeof VISIBILITIES)[number];
 
-export const visibilitySchema = z.enum(VISIBILITIES, { error: 'Visibility must be public, unlisted or private.' });
+const visibilitySchema = z.enum(VISIBILITIES, { error: 'Visibility must be public, unlisted or private.' });
 
 const versionMessage = z
   .string({ error: 'Say in a few words what changed.' })
@@ -18,14 +18,12 @@ export const createRecipeSchema = z.object({
   visibility: visibilitySchema.default('public'),
   message: versionMessage.default(''),
 });
-export type CreateRecipeInput = z.input<typeof createRecipeSchema>;
 
 export const saveVersionSchema = z.object({
   document: recipeDocumentSchema,
   baseVersionId: idSchema('The version you started from'),
   message: versionMessage.min(1, 'Say in a few words what changed.'),
 });
-export type SaveVersionInput = z.input<typeof saveVersionSchema>;
 
 export const restoreVersionSchema = z.object({
   versionId: idSchema('The version to restore'),
@@ -41,7 +39,6 @@ export const forkSchema = z.object({
     .max(120, 'Keep the title under 120 characters.'),
   visibility: visibilitySchema.default('public'),
 });
-export type ForkInput = z.input<typeof forkSchema>;
 
 export const updateRecipeSchema = z.object({ visibility: visibilitySchema });
 

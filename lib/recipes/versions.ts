@@ -113,7 +113,7 @@ export async function createRecipe(
   return saved;
 }
 
-export interface HeadSummary {
+interface HeadSummary {
   id: string;
   number: number;
   message: string;
@@ -313,16 +313,7 @@ export function getVersionByNumber(
   return loadVersionView(viewer, { recipeId, number });
 }
 
-/** A recipe's version by the recipe's slug: the head when no number is given. */
-export function getVersionBySlug(
-  viewer: Pick<Viewer, 'id' | 'role'> | null,
-  slug: string,
-  number?: number,
-): Promise<VersionView> {
-  return loadVersionView(viewer, { slug, number });
-}
-
-/** As getVersionBySlug, in the same single query, plus whether the recipe has any brew days, proposals or comments. */
+/** A recipe's version by the recipe's slug (the head when no number is given), in one query, plus whether the recipe has any brew days, proposals or comments. */
 export async function getVersionWithActivityBySlug(
   viewer: Pick<Viewer, 'id' | 'role'> | null,
   slug: string,

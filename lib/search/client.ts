@@ -13,7 +13,6 @@ import {
 import { buildRecipeFilter, sortFor, type SearchViewer } from './filters';
 import { SEARCH_PAGE_SIZE, type RecipeSearchQuery } from './schemas';
 
-export { RECIPES_INDEX } from './document';
 export type { SearchViewer } from './filters';
 
 let cachedClient: Meilisearch | null = null;
@@ -28,7 +27,7 @@ export function getSearchClient(): Meilisearch {
 
 const WRITE_WAIT = { timeout: 30_000, interval: 25 };
 
-export class SearchTaskError extends Error {
+class SearchTaskError extends Error {
   constructor(readonly task: Task) {
     super(`Search task ${task.uid} (${task.type}) ${task.status}: ${task.error?.message ?? 'no error message'}`);
     this.name = 'SearchTaskError';
@@ -93,7 +92,7 @@ export async function deleteRecipeDocuments(ids: string[], client: Meilisearch =
   assertSucceeded(await client.index(RECIPES_INDEX).deleteDocuments(ids).waitTask(WRITE_WAIT));
 }
 
-export const RECIPE_HIT_FIELDS = [
+const RECIPE_HIT_FIELDS = [
   'id',
   'slug',
   'title',
@@ -117,15 +116,8 @@ export const RECIPE_HIT_FIELDS = [
 export type RecipeSearchHit = Pick<RecipeSearchDocument, (typeof RECIPE_HIT_FIELDS)[number]>;
 
 /** Facets that come back as value → count; the numeric ones come back as min/max only. */
-export const DISTRIBUTION_FACETS = [
-  'styleCategory',
-  'styleCode',
-  'hops',
-  'fermentables',
-  'yeasts',
-  'yeastKinds',
-] as const;
-export type DistributionFacet = (typeof DISTRIBUTION_FACETS)[number];
+const DISTRIBUTION_FACETS = ['styleCategory', 'styleCode', 'hops', 'fermentables', 'yeasts', 'yeastKinds'] as const;
+type DistributionFacet = (typeof DISTRIBUTION_FACETS)[number];
 
 export interface RecipeSearchResult {
   hits: RecipeSearchHit[];

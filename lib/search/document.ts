@@ -39,7 +39,7 @@ export const RECIPES_INDEX = 'recipes';
 export const RECIPES_PRIMARY_KEY = 'id';
 
 /** Earlier attributes weigh more in relevance. */
-export const SEARCHABLE_ATTRIBUTES = [
+const SEARCHABLE_ATTRIBUTES = [
   'title',
   'styleName',
   'hops',
@@ -69,7 +69,7 @@ export const FILTERABLE_ATTRIBUTES = [
   'ownerId',
 ] as const satisfies ReadonlyArray<keyof RecipeSearchDocument>;
 
-export const SORTABLE_ATTRIBUTES = [
+const SORTABLE_ATTRIBUTES = [
   'createdAt',
   'updatedAt',
   'stars',

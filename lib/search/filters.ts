@@ -10,7 +10,7 @@ import type { RecipeSearchQuery, SearchSort } from './schemas';
 export type SearchViewer = { id: string; role: Role } | null;
 
 /** A double-quoted filter literal with backslashes and double quotes escaped. */
-export function quoteFilterValue(value: string): string {
+function quoteFilterValue(value: string): string {
   return `"${value.replace(/\\/g, '\\\\').replace(/"/g, '\\"')}"`;
 }
 
@@ -23,7 +23,7 @@ function canModerate(viewer: SearchViewer): boolean {
  * a signed-in member also sees their own recipes whatever their visibility.
  * Unlisted and private recipes never show to anyone but their owner.
  */
-export function viewerFilter(viewer: SearchViewer): string {
+function viewerFilter(viewer: SearchViewer): string {
   const publicClause = canModerate(viewer) ? 'visibility = "public"' : '(visibility = "public" AND hidden = false)';
   if (!viewer) return publicClause;
   return `(${publicClause} OR ownerId = ${quoteFilterValue(viewer.id)})`;

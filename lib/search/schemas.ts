@@ -8,10 +8,10 @@ export const SEARCH_SORTS = ['relevance', 'newest', 'stars', 'forks'] as const;
 export type SearchSort = (typeof SEARCH_SORTS)[number];
 
 export const SEARCH_PAGE_SIZE = 20;
-export const MAX_SEARCH_PAGE = 1000;
+const MAX_SEARCH_PAGE = 1000;
 export const MAX_QUERY_LENGTH = 200;
 export const MAX_FILTER_VALUES = 20;
-export const MAX_FILTER_VALUE_LENGTH = 100;
+const MAX_FILTER_VALUE_LENGTH = 100;
 
 /** Sane bounds for each range filter, in the units the index stores (%, IBU, SRM, specific gravity). */
 export const RANGE_BOUNDS = {
@@ -22,10 +22,10 @@ export const RANGE_BOUNDS = {
 } as const;
 
 export type RangeField = keyof typeof RANGE_BOUNDS;
-export const RANGE_FIELDS = Object.keys(RANGE_BOUNDS) as RangeField[];
+const RANGE_FIELDS = Object.keys(RANGE_BOUNDS) as RangeField[];
 
-export const LIST_FIELDS = ['style', 'hop', 'malt', 'yeast'] as const;
-export type ListField = (typeof LIST_FIELDS)[number];
+const LIST_FIELDS = ['style', 'hop', 'malt', 'yeast'] as const;
+type ListField = (typeof LIST_FIELDS)[number];
 
 const STYLE_CODE = /^[0-9A-Za-z][0-9A-Za-z.-]{0,15}$/;
 

@@ -13,18 +13,18 @@ import { AppError } from '@/lib/errors';
  * refused before it is decoded (a small file can claim a bitmap of gigabytes).
  */
 export const MAX_PHOTO_BYTES = 10 * 1024 * 1024;
-export const MAX_PHOTO_SIDE_PX = 12_000;
-export const MAX_PHOTO_PIXELS = 40_000_000;
+const MAX_PHOTO_SIDE_PX = 12_000;
+const MAX_PHOTO_PIXELS = 40_000_000;
 /** Long side of the size shown in the larger view, and of the gallery thumbnail. */
-export const DISPLAY_LONG_SIDE_PX = 1600;
-export const THUMB_LONG_SIDE_PX = 400;
+const DISPLAY_LONG_SIDE_PX = 1600;
+const THUMB_LONG_SIDE_PX = 400;
 const DISPLAY_QUALITY = 82;
 const THUMB_QUALITY = 78;
 
-export type ImageType = 'jpeg' | 'png' | 'webp';
+type ImageType = 'jpeg' | 'png' | 'webp';
 
 /** The type by its magic bytes; the name and the client's content type are never asked. */
-export function sniffImageType(bytes: Uint8Array): ImageType | null {
+function sniffImageType(bytes: Uint8Array): ImageType | null {
   if (bytes.length >= 3 && bytes[0] === 0xff && bytes[1] === 0xd8 && bytes[2] === 0xff) return 'jpeg';
   const png = [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a];
   if (bytes.length >= 8 && png.every((b, i) => bytes[i] === b)) return 'png';
@@ -36,7 +36,7 @@ export function sniffImageType(bytes: Uint8Array): ImageType | null {
 const NOT_AN_IMAGE = 'The photo must be a JPEG, PNG or WebP image; this file is not one we can read.';
 
 /** Type and dimensions from the header alone, refusing what is too big to decode safely. */
-export function probeImage(bytes: Uint8Array): { type: ImageType; width: number; height: number } {
+function probeImage(bytes: Uint8Array): { type: ImageType; width: number; height: number } {
   const type = sniffImageType(bytes);
   if (!type) throw new AppError('bad_request', 'photo', NOT_AN_IMAGE, [{ path: 'photo', message: NOT_AN_IMAGE }]);
   let size: { width?: number; height?: number; type?: string };
@@ -97,7 +97,7 @@ async function decodeWithWasm(decoder: (b: ArrayBuffer) => Promise<ImageData>, b
  * True when the JPEG's segments run from SOI to an EOI marker (ITU-T T.81, annex B). libjpeg
  * fills a cut-off file with grey instead of failing, so a cut-off upload is caught here.
  */
-export function jpegIsComplete(bytes: Uint8Array): boolean {
+function jpegIsComplete(bytes: Uint8Array): boolean {
   let i = 2;
   while (i + 1 < bytes.length) {
     if (bytes[i] !== 0xff) return false;

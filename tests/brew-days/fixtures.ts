@@ -8,7 +8,7 @@ import { eq, sql } from 'drizzle-orm';
 import type { TestClient } from '../helpers/http';
 import { createRecipeVia, paleAle } from '../helpers/recipes';
 
-export const S3_ENDPOINT = process.env.S3_ENDPOINT ?? 'http://127.0.0.1:4570';
+const S3_ENDPOINT = process.env.S3_ENDPOINT ?? 'http://127.0.0.1:4570';
 const bucket = process.env.S3_BUCKET ?? 'kettlefork-photos';
 const s3 = new S3Client({
   endpoint: S3_ENDPOINT,
@@ -38,7 +38,7 @@ export async function photoRowCount(brewDayId: string): Promise<number> {
 }
 
 /** A picture with some structure (so encoders have work to do) in the given colour. */
-export function picture(width: number, height: number, rgb = 0xc8891e): InstanceType<typeof Jimp> {
+function picture(width: number, height: number, rgb = 0xc8891e): InstanceType<typeof Jimp> {
   const image = new Jimp({ width, height, color: ((rgb << 8) | 0xff) >>> 0 });
   const data = image.bitmap.data;
   for (let y = 0; y < height; y += 1) {

@@ -23,7 +23,7 @@ export function facetValues(
 }
 
 /** The first `limit` values, plus any chosen ones further down, so a ticked box never hides. */
-export function visibleValues(values: FacetValue[], selected: readonly string[], limit: number): FacetValue[] {
+function visibleValues(values: FacetValue[], selected: readonly string[], limit: number): FacetValue[] {
   return values.filter((item, i) => i < limit || selected.includes(item.value));
 }
 

@@ -53,7 +53,7 @@ function ResultCard({ hit }: { hit: RecipeSearchHit }) {
 }
 
 /** Page numbers around the current one, with the first and last; null marks a gap. */
-export function pageWindow(page: number, pageCount: number): Array<number | null> {
+function pageWindow(page: number, pageCount: number): Array<number | null> {
   const pages = new Set([1, pageCount, page - 1, page, page + 1].filter((p) => p >= 1 && p <= pageCount));
   const sorted = [...pages].sort((a, b) => a - b);
   const out: Array<number | null> = [];
