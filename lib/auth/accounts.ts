@@ -2,7 +2,10 @@ import 'server-only';
 import { count, eq, sql } from 'drizzle-orm';
 import { db } from '@/db';
 import { moderationActions, sessions, users, type User } from '@/db/schema';
+import { uniqueViolation } from '@/lib/db-errors';
+import { env } from '@/lib/env';
 import { AppError, invalidInput } from '@/lib/errors';
+import { sendMail } from '@/lib/mail';
 import { hashPassword } from './password';
 import { hasRole, type Role } from './roles';
 import { signUpSchema, type SignUpInput } from './schemas';
@@ -34,34 +37,56 @@ async function freeHandle(name: string, email: string): Promise<string> {
 
 export type PublicUser = Pick<User, 'id' | 'name' | 'email' | 'handle' | 'role'>;
 
-/** Creates a member account; a taken e-mail is refused with a field message and nothing is written. */
-export async function createAccount(input: SignUpInput): Promise<PublicUser> {
+/**
+ * Signs up with an e-mail address. A new address gets an account; a taken one gets nothing here, and
+ * its owner is e-mailed instead. The caller answers both the same way, so sign-up never tells
+ * whether an address has an account. Returns the new account, or null when the address was taken.
+ */
+export async function createAccount(input: SignUpInput): Promise<PublicUser | null> {
   const parsed = signUpSchema.safeParse(input);
   if (!parsed.success) throw invalidInput(parsed.error, 'sign-up');
   const { name, email, password } = parsed.data;
-  const taken = await db.select({ id: users.id }).from(users).where(eq(users.email, email)).limit(1);
-  if (taken.length) throw emailTaken();
+  // Hash before looking, so a taken address costs the same time as a new one.
   const passwordHash = await hashPassword(password);
-  try {
-    const [user] = await db
-      .insert(users)
-      .values({ name, email, passwordHash, handle: await freeHandle(name, email) })
-      .returning({ id: users.id, name: users.name, email: users.email, handle: users.handle, role: users.role });
-    return user;
-  } catch (err) {
-    // Two sign-ups racing for one address: the unique index decides.
-    if ((err as { code?: string }).code === '23505') throw emailTaken();
-    throw err;
+  const taken = await db.select({ id: users.id }).from(users).where(eq(users.email, email)).limit(1);
+  if (taken.length) return addressTaken(email);
+  // Two sign-ups can race for one address or for one handle; the unique indexes decide. A lost
+  // handle race picks the next free handle; a lost address race is a taken address.
+  for (let attempt = 0; ; attempt++) {
+    try {
+      const [user] = await db
+        .insert(users)
+        .values({ name, email, passwordHash, handle: await freeHandle(name, email) })
+        .returning({ id: users.id, name: users.name, email: users.email, handle: users.handle, role: users.role });
+      return user;
+    } catch (err) {
+      const violation = uniqueViolation(err);
+      if (violation?.constraint === 'users_email_key') return addressTaken(email);
+      if (violation?.constraint === 'users_handle_key' && attempt < 4) continue;
+      if (violation)
+        throw new AppError('conflict', 'account', 'Someone signed up at the same moment. Please try again.');
+      throw err;
+    }
   }
 }
 
-function emailTaken(): AppError {
-  return new AppError(
-    'conflict',
-    'account',
-    'An account with this e-mail already exists. Sign in instead, or use another address.',
-    [{ path: 'email', message: 'An account with this e-mail already exists.' }],
-  );
+/** Tells the owner of a taken address that someone tried to sign up with it; the answer waits for nothing. */
+function addressTaken(email: string): null {
+  const site = env().NEXTAUTH_URL.replace(/\/$/, '');
+  sendMail({
+    to: email,
+    subject: 'Someone tried to sign up to Kettlefork with your address',
+    text: [
+      'Someone (perhaps you) just tried to create a Kettlefork account with this e-mail address.',
+      'You already have an account, so nothing was changed.',
+      '',
+      `Sign in: ${site}/sign-in`,
+      'Forgotten your password? On that page, ask for a sign-in link by e-mail instead.',
+      '',
+      'If this was not you, you can ignore this message: nobody can use your account without your password or your inbox.',
+    ].join('\n'),
+  }).catch((err: unknown) => console.error('sign-up notice to an existing member not sent:', (err as Error).message));
+  return null;
 }
 
 async function loadTarget(userId: string): Promise<User> {

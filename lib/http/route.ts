@@ -4,7 +4,7 @@ import type { z } from 'zod';
 import { AppError, invalidInput } from '@/lib/errors';
 import { getViewer, type Viewer } from '@/lib/auth/session';
 import { hasRole, type Role } from '@/lib/auth/roles';
-import { isDatabaseUnavailable } from '@/lib/db-errors';
+import { isDatabaseUnavailable, loggableError } from '@/lib/db-errors';
 
 type Access = 'public' | 'user' | Role;
 
@@ -79,7 +79,7 @@ export function errorResponse(err: unknown, requestId: string = crypto.randomUUI
     );
   }
   if (isDatabaseUnavailable(err)) {
-    console.error(`[${requestId}] database unavailable:`, (err as Error).message);
+    console.error(`[${requestId}] database unavailable:`, loggableError(err).split('\n')[0]);
     return NextResponse.json(
       {
         error: {
@@ -91,7 +91,7 @@ export function errorResponse(err: unknown, requestId: string = crypto.randomUUI
       { status: 503, headers: { 'Retry-After': '5' } },
     );
   }
-  console.error(`[${requestId}]`, err);
+  console.error(`[${requestId}]`, loggableError(err));
   return NextResponse.json(
     { error: { code: 'internal', message: 'Something went wrong on our side. Please try again.', requestId } },
     { status: 500 },

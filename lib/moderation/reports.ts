@@ -12,6 +12,7 @@ import { afterRecipeCommit } from '@/lib/recipes/events';
 import { hideTarget, log, resolveTarget, unhideTarget } from './targets';
 import type { ReportInput, ResolveReportInput } from './schemas';
 import type { ReportReason, ReportTarget } from './words';
+import { uniqueViolation } from '@/lib/db-errors';
 
 /** A member reports something they can see; one open report per member and target. */
 export async function createReport(viewer: Viewer, input: ReportInput): Promise<{ id: string }> {
@@ -37,7 +38,7 @@ export async function createReport(viewer: Viewer, input: ReportInput): Promise<
       .returning({ id: reports.id });
     return row;
   } catch (err) {
-    if (isUniqueViolation(err)) {
+    if (uniqueViolation(err)) {
       throw new AppError('conflict', 'report', 'You have already reported this; a moderator will look at it soon.');
     }
     throw err;
@@ -236,12 +237,6 @@ export async function resolveReport(
   });
   if (recipeChanged) afterRecipeCommit();
   return result;
-}
-
-/** Drizzle wraps the driver's error; the SQLSTATE is on it or on its cause. */
-function isUniqueViolation(err: unknown): boolean {
-  const e = err as { code?: string; cause?: { code?: string } };
-  return e.code === '23505' || e.cause?.code === '23505';
 }
 
 async function checkSuspendable(actor: Viewer, ownerId: string | null): Promise<void> {

@@ -17,6 +17,7 @@ import { getVersionById, saveVersionInTransaction } from '@/lib/recipes/versions
 import { canViewProposal, isLive } from './access';
 import { MergePickError, mergeDocuments, resolveMerge, type MergeConflict } from './merge';
 import type { AcceptProposalInput, DecideProposalInput, OpenProposalInput, UpdateProposalInput } from './schemas';
+import { uniqueViolation } from '@/lib/db-errors';
 
 type MaybeViewer = Pick<Viewer, 'id' | 'role'> | null;
 type Db = Transaction | typeof db;
@@ -166,7 +167,7 @@ export async function openProposal(viewer: Viewer, input: OpenProposalInput): Pr
     });
     return { id };
   } catch (err) {
-    if (isUniqueViolation(err)) {
+    if (uniqueViolation(err)) {
       throw new AppError(
         'conflict',
         'proposal',
@@ -725,10 +726,4 @@ export async function getProposalView(viewer: MaybeViewer, id: string): Promise<
     },
     blocked: owner ? blocked : null,
   };
-}
-
-/** Drizzle wraps the driver's error; the SQLSTATE is on it or on its cause. */
-function isUniqueViolation(err: unknown): boolean {
-  const e = err as { code?: string; cause?: { code?: string } };
-  return e.code === '23505' || e.cause?.code === '23505';
 }

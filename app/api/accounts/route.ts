@@ -6,6 +6,10 @@ import { SIGN_UP_PER_ADDRESS, clientAddress, consumeOrThrow } from '@/lib/rate-l
 // POST /api/accounts – sign up with e-mail and password
 export const POST = route({ access: 'public', body: signUpSchema }, async ({ req, body }) => {
   await consumeOrThrow(SIGN_UP_PER_ADDRESS, clientAddress(req.headers));
-  const user = await createAccount(body);
-  return { user: { id: user.id, name: user.name, handle: user.handle } };
+  // A new and a taken address get the same answer; the owner of a taken one is e-mailed instead.
+  await createAccount(body);
+  return {
+    message:
+      'Thanks. If this address is new, your account is ready and you can sign in; if it already has an account, we have e-mailed its owner.',
+  };
 });

@@ -29,8 +29,15 @@ export function SignUpForm() {
       return;
     }
     const signedIn = await signIn('credentials', { email: values.email, password: values.password, redirect: false });
+    if (!signedIn?.ok) {
+      // The address already had an account (its owner has been e-mailed), or signing in failed.
+      setFormError(
+        'We could not sign you in with these details. If this address already has an account, we have e-mailed its owner: sign in, or ask for a sign-in link by e-mail.',
+      );
+      return;
+    }
     await queryClient.invalidateQueries({ queryKey: meKeys.all });
-    router.push(signedIn?.ok ? '/' : '/sign-in');
+    router.push('/');
     router.refresh();
   });
 
