@@ -18,6 +18,7 @@ import {
 import { emailSchema } from './schemas';
 import { verifyPassword } from './password';
 import { sendMagicLink } from './magic-link';
+import { safeCallbackPath } from './callback';
 
 const SESSION_MAX_AGE_SEC = 30 * 24 * 60 * 60;
 const MAGIC_LINK_MAX_AGE_SEC = 15 * 60;
@@ -85,6 +86,11 @@ export function authOptions(): NextAuthOptions {
       }),
     ],
     callbacks: {
+      // Links in sign-in e-mails and next-auth's own redirects stay on our site.
+      async redirect({ url, baseUrl }) {
+        const path = url.startsWith(baseUrl) ? url.slice(baseUrl.length) || '/' : url;
+        return `${baseUrl}${safeCallbackPath(path)}`;
+      },
       async signIn({ user, email }) {
         // Asking for a link always looks the same, whether or not the address has an account.
         if (email?.verificationRequest) return true;

@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SCREENSHOT_DIR, openBrowser, type BrowserSession } from '../helpers/browser';
+import { BASE_URL } from '../helpers/env';
 import { TEST_PASSWORD, createUser } from '../helpers/users';
 
 describe('home and sign-in in a real browser', { timeout: 120_000 }, () => {
@@ -52,4 +53,24 @@ describe('home and sign-in in a real browser', { timeout: 120_000 }, () => {
       await fresh.close();
     }
   });
+
+  it.each(['/%5Cevil.example/phish', '/%09/evil.example/phish', '/%0A/evil.example/phish', '//evil.example/phish'])(
+    'stays on our own site after signing in with callbackUrl=%s',
+    async (callback) => {
+      const user = await createUser();
+      const fresh = await openBrowser();
+      try {
+        await fresh.page.goto(`/sign-in?callbackUrl=${callback}`);
+        await fresh.page.locator('#signin-email').fill(user.email);
+        await fresh.page.getByLabel('Password', { exact: true }).fill(TEST_PASSWORD);
+        await fresh.page.getByRole('button', { name: 'Sign in' }).click();
+        await fresh.page.getByText('Signed in as').waitFor();
+        expect(new URL(fresh.page.url()).origin).toBe(new URL(BASE_URL).origin);
+        expect(new URL(fresh.page.url()).pathname).toBe('/');
+        expect(fresh.problems).toEqual([]);
+      } finally {
+        await fresh.close();
+      }
+    },
+  );
 });

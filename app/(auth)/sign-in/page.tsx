@@ -2,6 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { MagicLinkForm } from './_components/magic-link-form';
 import { PasswordSignInForm } from './_components/password-sign-in-form';
+import { safeCallbackPath } from '@/lib/auth/callback';
 
 export const metadata: Metadata = { title: 'Sign in' };
 
@@ -17,7 +18,7 @@ export default async function SignInPage({
   searchParams: Promise<{ error?: string; callbackUrl?: string }>;
 }) {
   const { error, callbackUrl } = await searchParams;
-  const safeCallback = callbackUrl?.startsWith('/') && !callbackUrl.startsWith('//') ? callbackUrl : '/';
+  const safeCallback = safeCallbackPath(callbackUrl);
   const message =
     error && error !== 'CredentialsSignin'
       ? (linkErrors[error] ?? 'Signing in did not work. Please try again.')

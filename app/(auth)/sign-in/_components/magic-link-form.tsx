@@ -8,6 +8,7 @@ import { useForm } from 'react-hook-form';
 import { z } from 'zod';
 import { FormField, describedBy } from '@/components/form-field';
 import { emailSchema } from '@/lib/auth/schemas';
+import { safeCallbackPath } from '@/lib/auth/callback';
 
 const schema = z.object({ email: emailSchema });
 type Values = z.input<typeof schema>;
@@ -20,7 +21,7 @@ export function MagicLinkForm({ callbackUrl }: { callbackUrl: string }) {
 
   const onSubmit = handleSubmit(async ({ email }) => {
     setFormError(undefined);
-    const result = await signIn('email', { email, callbackUrl, redirect: false });
+    const result = await signIn('email', { email, callbackUrl: safeCallbackPath(callbackUrl), redirect: false });
     if (!result || result.error) {
       setFormError('We could not send the link just now. Please try again in a moment.');
       return;

@@ -10,6 +10,7 @@ import { z } from 'zod';
 import { FormField, describedBy } from '@/components/form-field';
 import { emailSchema } from '@/lib/auth/schemas';
 import { meKeys } from '@/hooks/use-me';
+import { safeCallbackPath } from '@/lib/auth/callback';
 
 const schema = z.object({ email: emailSchema, password: z.string().min(1, 'Enter your password.') });
 type Values = z.input<typeof schema>;
@@ -31,7 +32,7 @@ export function PasswordSignInForm({ callbackUrl }: { callbackUrl: string }) {
       return;
     }
     await queryClient.invalidateQueries({ queryKey: meKeys.all });
-    router.push(callbackUrl);
+    router.push(safeCallbackPath(callbackUrl));
     router.refresh();
   });
 
