@@ -31,10 +31,9 @@ import {
 import { measuredEfficiencyPct } from '@/lib/brewing';
 import { photoVisibleTo } from './photo-visibility';
 import type { BrewDayFields, CreateBrewDayInput, ReadingInput, TastingInput } from './schemas';
+import { requireId } from '@/lib/validation/ids';
 
 type MaybeViewer = Pick<Viewer, 'id' | 'role'> | null;
-
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 function fieldError(path: string, message: string): AppError {
   return new AppError('bad_request', 'brew day', `Please check these fields: ${path}: ${message}`, [{ path, message }]);
@@ -111,7 +110,7 @@ export async function createBrewDay(viewer: Viewer, input: CreateBrewDayInput): 
 
 /** The brew day and its recipe, if the viewer may see the recipe (404 otherwise). */
 async function loadVisible(viewer: MaybeViewer, id: string): Promise<{ day: BrewDay; recipe: Recipe }> {
-  if (!UUID.test(id)) throw new AppError('not_found', 'brew day');
+  requireId(id, 'brew day');
   const [row] = await db
     .select({ day: brewDays, recipe: recipes })
     .from(brewDays)

@@ -9,6 +9,7 @@ import { deleteObjects, getObject, putObject } from '@/lib/storage';
 import { processPhoto } from '@/lib/storage/images';
 import { loadOwnBrewDay, loadVisibleBrewDay } from './brew-days';
 import { photoVisibleTo } from './photo-visibility';
+import { requireId } from '@/lib/validation/ids';
 
 /**
  * Per-member photo quota (ASVS 12.1.3): at most this many photos and this many stored bytes
@@ -113,7 +114,7 @@ export async function getPhotoBytes(
   photoId: string,
   size: 'display' | 'thumb',
 ): Promise<Buffer> {
-  if (!/^[0-9a-f-]{36}$/i.test(photoId)) throw new AppError('not_found', 'photo');
+  requireId(photoId, 'photo');
   const [photo] = await db
     .select()
     .from(photos)
@@ -129,7 +130,7 @@ export async function getPhotoBytes(
 
 /** The brewer or a moderator deletes a photo: its row and both stored objects. */
 export async function deletePhoto(viewer: Viewer, photoId: string, reason = ''): Promise<void> {
-  if (!/^[0-9a-f-]{36}$/i.test(photoId)) throw new AppError('not_found', 'photo');
+  requireId(photoId, 'photo');
   const [photo] = await db.select().from(photos).where(eq(photos.id, photoId));
   if (!photo) throw new AppError('not_found', 'photo');
   const { day } = await loadVisibleBrewDay(viewer, photo.brewDayId).catch(() => {

@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { idOf } from '@/lib/validation/ids';
+import { textSchema } from '@/lib/validation/text';
 
 // Stored metric (°C, litres, kPa, grams); forms convert the member's units at the edge, and each
 // message names both units so it reads right in either.
@@ -127,7 +129,7 @@ export type BrewDayFields = z.output<typeof brewDayFieldsSchema>;
 
 /** A new brew day names the exact recipe version brewed. */
 export const createBrewDaySchema = z
-  .object({ versionId: z.uuid('Version must be a version id'), ...measuredFields })
+  .object({ versionId: idOf('Version must be a version id'), ...measuredFields })
   .superRefine(checkDatesAndPackaging);
 export type CreateBrewDayInput = z.output<typeof createBrewDaySchema>;
 
@@ -180,5 +182,5 @@ export const tastingSchema = z
   });
 export type TastingInput = z.output<typeof tastingSchema>;
 
-export const photoCaptionSchema = z.string().trim().max(200, 'Caption must be at most 200 characters');
-export const photoSizeSchema = z.enum(['display', 'thumb']);
+export const photoCaptionSchema = textSchema('Caption').trim().max(200, 'Caption must be at most 200 characters');
+export const photoSizeSchema = z.enum(['display', 'thumb'], { error: 'No such photo size.' });

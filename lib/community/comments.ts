@@ -11,6 +11,7 @@ import { canView } from '@/lib/recipes/access';
 import { getRecipe } from '@/lib/recipes/versions';
 import { containsLink, shouldHoldComment } from './hold-rule';
 import type { NewCommentInput } from './schemas';
+import { requireId } from '@/lib/validation/ids';
 
 /** How long after posting its author may still change a comment. */
 export const COMMENT_EDIT_WINDOW_MIN = 15;
@@ -115,7 +116,7 @@ async function loadComment(
   commentId: string,
   opts: { lock?: boolean } = {},
 ) {
-  if (!/^[0-9a-f-]{36}$/i.test(commentId)) throw new AppError('not_found', 'comment');
+  requireId(commentId, 'comment');
   const query = tx
     .select({ comment: comments, recipe: recipes })
     .from(comments)

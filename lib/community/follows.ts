@@ -7,6 +7,7 @@ import { AppError } from '@/lib/errors';
 import { consumeOrThrow, REACTION_PER_MEMBER } from '@/lib/rate-limit';
 import { getRecipe } from '@/lib/recipes/versions';
 import type { FollowInput } from './schemas';
+import { requireId } from '@/lib/validation/ids';
 
 async function activeMember(id: string) {
   const [member] = await db
@@ -39,7 +40,7 @@ export async function setFollow(
         .where(and(eq(memberFollows.followerId, viewer.id), eq(memberFollows.followeeId, input.id)));
     return { following };
   }
-  if (!/^[0-9a-f-]{36}$/i.test(input.id)) throw new AppError('not_found', 'recipe');
+  requireId(input.id, 'recipe');
   if (following) await getRecipe(viewer, { id: input.id });
   await consumeOrThrow(REACTION_PER_MEMBER, viewer.id);
   if (following)

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { NOTIFICATION_KINDS } from '@/lib/notifications/kinds';
+import { idOf } from '@/lib/validation/ids';
 
 const COMMENT_MAX_CHARS = 5_000;
 
@@ -11,7 +12,7 @@ const commentBody = z
 
 export const newCommentSchema = z.object({
   body: commentBody,
-  parentId: z.uuid({ error: 'The comment you reply to must be a comment id.' }).optional(),
+  parentId: idOf('The comment you reply to must be a comment id.').optional(),
   versionNumber: z.number({ error: 'The version number must be a number.' }).int().positive().optional(),
 });
 export type NewCommentInput = z.infer<typeof newCommentSchema>;

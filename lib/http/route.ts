@@ -5,14 +5,25 @@ import { AppError, invalidInput } from '@/lib/errors';
 import { getViewer, type Viewer } from '@/lib/auth/session';
 import { hasRole, type Role } from '@/lib/auth/roles';
 import { isDatabaseUnavailable, loggableError } from '@/lib/db-errors';
+import { assertStorableText } from '@/lib/validation/text';
 
 type Access = 'public' | 'user' | Role;
 
-interface RouteOptions<B extends z.ZodType | undefined, Q extends z.ZodType | undefined> {
-  access: Access;
+interface RouteOptions<
+  A extends Access,
+  B extends z.ZodType | undefined,
+  Q extends z.ZodType | undefined,
+  P extends z.ZodType | undefined,
+> {
+  access: A;
   body?: B;
   /** Schema for the query string (each key's first value). */
   query?: Q;
+  /**
+   * Schema for the path's [segments], e.g. `z.object({ id: idSchema })`. A path that does not
+   * parse names nothing, so it is a 404, before the session is loaded or any query runs.
+   */
+  params?: P;
   /** Largest accepted body in bytes; checked before the body is read. */
   maxBodyBytes?: number;
 }
@@ -32,23 +43,27 @@ type Handler<B, P, Q, A extends Access> = (
 ) => Promise<unknown> | unknown;
 
 type Parsed<S> = S extends z.ZodType ? z.infer<S> : undefined;
+/** Without a params schema a handler gets no path parameters to use unchecked. */
+type ParsedParams<S> = S extends z.ZodType ? z.infer<S> : Record<string, never>;
 
 const MUTATING = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
 
 /**
- * Builds a route handler: checks the origin of state-changing requests, loads the session,
- * enforces the access level, parses the JSON body with zod and maps errors to plain JSON.
- * Ownership is checked inside the handler, next to the query that loads the row.
+ * Builds a route handler: parses the path's parameters, checks the origin of state-changing
+ * requests, loads the session, enforces the access level, parses the JSON body and the query with
+ * zod and maps errors to plain JSON. Ownership is checked inside the handler, next to the query
+ * that loads the row.
  */
 export function route<
+  A extends Access,
   B extends z.ZodType | undefined = undefined,
-  P = Record<string, string>,
-  A extends Access = Access,
   Q extends z.ZodType | undefined = undefined,
->(options: RouteOptions<B, Q> & { access: A }, handler: Handler<Parsed<B>, P, Parsed<Q>, A>) {
-  return async (req: NextRequest, context: { params: Promise<P> }) => {
+  P extends z.ZodType | undefined = undefined,
+>(options: RouteOptions<A, B, Q, P>, handler: Handler<Parsed<B>, ParsedParams<P>, Parsed<Q>, A>) {
+  return async (req: NextRequest, context: { params: Promise<Record<string, string | string[]>> }) => {
     const requestId = crypto.randomUUID();
     try {
+      const params = options.params ? await parseParams(context, options.params) : {};
       if (MUTATING.has(req.method)) assertSameOrigin(req);
       const viewer = await getViewer();
       if (options.access !== 'public') {
@@ -61,7 +76,6 @@ export function route<
         ? await parseJsonBody(req, options.body, options.maxBodyBytes ?? 512 * 1024)
         : undefined;
       const query = options.query ? parseQuery(req, options.query) : undefined;
-      const params = context?.params ? await context.params : ({} as P);
       const result = await handler({ req, body, query, params, viewer } as never);
       if (result instanceof Response) return result;
       return NextResponse.json(result ?? { ok: true }, { status: req.method === 'POST' ? 201 : 200 });
@@ -112,13 +126,25 @@ async function parseJsonBody<S extends z.ZodType>(req: NextRequest, schema: S, m
   } catch {
     throw new AppError('bad_request', 'request body', 'The request body is not valid JSON.');
   }
+  assertStorableText(json);
   const parsed = schema.safeParse(json);
   if (!parsed.success) throw invalidInput(parsed.error);
   return parsed.data;
 }
 
+async function parseParams<S extends z.ZodType>(
+  context: { params?: Promise<Record<string, string | string[]>> },
+  schema: S,
+): Promise<z.infer<S>> {
+  const parsed = schema.safeParse((await context?.params) ?? {});
+  if (!parsed.success) throw new AppError('not_found', 'page', parsed.error.issues[0]?.message ?? 'No such page.');
+  return parsed.data;
+}
+
 function parseQuery<S extends z.ZodType>(req: NextRequest, schema: S): z.infer<S> {
-  const parsed = schema.safeParse(Object.fromEntries(req.nextUrl.searchParams));
+  const raw = Object.fromEntries(req.nextUrl.searchParams);
+  assertStorableText(raw, 'query');
+  const parsed = schema.safeParse(raw);
   if (!parsed.success) throw invalidInput(parsed.error, 'query');
   return parsed.data;
 }

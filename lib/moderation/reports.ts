@@ -13,6 +13,7 @@ import { hideTarget, log, resolveTarget, unhideTarget } from './targets';
 import type { ReportInput, ResolveReportInput } from './schemas';
 import type { ReportReason, ReportTarget } from './words';
 import { uniqueViolation } from '@/lib/db-errors';
+import { requireId } from '@/lib/validation/ids';
 
 /** A member reports something they can see; one open report per member and target. */
 export async function createReport(viewer: Viewer, input: ReportInput): Promise<{ id: string }> {
@@ -175,7 +176,7 @@ export async function resolveReport(
   reportId: string,
   input: ResolveReportInput,
 ): Promise<{ status: Report['status']; settled: number }> {
-  if (!/^[0-9a-f-]{36}$/i.test(reportId)) throw new AppError('not_found', 'report');
+  requireId(reportId, 'report');
   const [first] = await db.select().from(reports).where(eq(reports.id, reportId));
   if (!first) throw new AppError('not_found', 'report');
   if (input.action === 'suspend') await checkSuspendable(actor, first.targetOwnerId);
@@ -295,7 +296,7 @@ export async function reviewHeldComment(
   commentId: string,
   input: { action: 'approve' | 'hide'; reason: string },
 ): Promise<{ state: 'published' | 'hidden' }> {
-  if (!/^[0-9a-f-]{36}$/i.test(commentId)) throw new AppError('not_found', 'comment');
+  requireId(commentId, 'comment');
   return db.transaction(async (tx) => {
     const [row] = await tx
       .select({ comment: comments, recipe: recipes })

@@ -1,5 +1,7 @@
 import { z } from 'zod';
 import { REPORT_REASONS, REPORT_TARGETS } from './words';
+import { idOf } from '@/lib/validation/ids';
+import { textSchema } from '@/lib/validation/text';
 
 export const reportSchema = z.object({
   targetType: z.enum(REPORT_TARGETS, { error: 'Say what you report: a recipe, version, comment, photo or member.' }),
@@ -42,7 +44,7 @@ export const reviewCommentSchema = z
 
 export const restoreSchema = z.object({
   targetType: z.enum(['recipe', 'comment', 'photo'], { error: 'Restore a recipe, comment or photo.' }),
-  targetId: z.uuid({ error: 'Name what to restore by its id.' }),
+  targetId: idOf('Name what to restore by its id.'),
   reason: moderatorReason.default(''),
 });
 
@@ -53,7 +55,7 @@ export const actionLogQuerySchema = z.object({
     .max(40, 'That is not an action.')
     .regex(/^[a-z_]*$/, 'That is not an action.')
     .optional(),
-  actor: z.string().trim().max(40, 'That is not a handle.').optional(),
+  actor: textSchema('Member').trim().max(40, 'That is not a handle.').optional(),
   targetType: z
     .string()
     .trim()

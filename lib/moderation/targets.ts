@@ -8,10 +8,10 @@ import { getVisibleComment } from '@/lib/community/comments';
 import { getVisibleProposal, hideProposal } from '@/lib/proposals/proposals';
 import { AppError } from '@/lib/errors';
 import { canView } from '@/lib/recipes/access';
-import { idParam } from '@/lib/recipes/http';
 import { recordRecipeChange } from '@/lib/recipes/events';
 import { getRecipe, getVersionById } from '@/lib/recipes/versions';
 import type { ReportTarget } from './words';
+import { requireId } from '@/lib/validation/ids';
 
 type MaybeViewer = Pick<Viewer, 'id' | 'role'> | null;
 
@@ -29,11 +29,11 @@ export interface ResolvedTarget {
 export async function resolveTarget(viewer: MaybeViewer, type: ReportTarget, id: string): Promise<ResolvedTarget> {
   switch (type) {
     case 'recipe': {
-      const recipe = await getRecipe(viewer, { id: idParam(id, 'recipe') });
+      const recipe = await getRecipe(viewer, { id: requireId(id, 'recipe') });
       return { ownerId: recipe.ownerId, recipeId: recipe.id };
     }
     case 'version': {
-      const { recipe } = await getVersionById(viewer, idParam(id, 'version'));
+      const { recipe } = await getVersionById(viewer, requireId(id, 'version'));
       return { ownerId: recipe.ownerId, recipeId: recipe.id };
     }
     case 'comment': {
@@ -47,7 +47,7 @@ export async function resolveTarget(viewer: MaybeViewer, type: ReportTarget, id:
         .innerJoin(brewDays, eq(brewDays.id, photos.brewDayId))
         .innerJoin(recipes, eq(recipes.id, brewDays.recipeId))
         .leftJoin(hiddenPhotos, eq(hiddenPhotos.photoId, photos.id))
-        .where(eq(photos.id, idParam(id, 'photo')));
+        .where(eq(photos.id, requireId(id, 'photo')));
       const maySee =
         row &&
         canView(row.recipe, viewer) &&

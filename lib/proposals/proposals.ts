@@ -12,12 +12,12 @@ import { COMMENT_PER_MEMBER, consumeOrThrow } from '@/lib/rate-limit';
 import { canView, isOwner } from '@/lib/recipes/access';
 import { compareDocuments, type DocumentComparison } from '@/lib/recipes/compare';
 import { afterRecipeCommit } from '@/lib/recipes/events';
-import { idParam } from '@/lib/recipes/http';
 import { getVersionById, saveVersionInTransaction } from '@/lib/recipes/versions';
 import { canViewProposal, isLive } from './access';
 import { MergePickError, mergeDocuments, resolveMerge, type MergeConflict } from './merge';
 import type { AcceptProposalInput, DecideProposalInput, OpenProposalInput, UpdateProposalInput } from './schemas';
 import { uniqueViolation } from '@/lib/db-errors';
+import { requireId } from '@/lib/validation/ids';
 
 type MaybeViewer = Pick<Viewer, 'id' | 'role'> | null;
 type Db = Transaction | typeof db;
@@ -192,7 +192,7 @@ async function loadProposal(
   id: string,
   opts: { lock?: boolean } = {},
 ): Promise<LoadedProposal> {
-  idParam(id, 'proposal');
+  requireId(id, 'proposal');
   const query = tx
     .select({ proposal: proposals, source: recipes, fork: forks })
     .from(proposals)

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { idOf } from '@/lib/validation/ids';
 
 const PROPOSAL_TITLE_MAX = 120;
 const PROPOSAL_TEXT_MAX = 5_000;
@@ -15,9 +16,9 @@ const description = z
 
 /** POST /api/proposals: a version of the member's fork offered to one of its ancestors. */
 export const openProposalSchema = z.object({
-  versionId: z.uuid({ error: 'Name the version you propose by its id.' }),
+  versionId: idOf('Name the version you propose by its id.'),
   /** Which ancestor to propose to; the recipe the fork came from directly when left out. */
-  sourceRecipeId: z.uuid({ error: 'Name the recipe you propose to by its id.' }).optional(),
+  sourceRecipeId: idOf('Name the recipe you propose to by its id.').optional(),
   title,
   description: description.default(''),
 });
@@ -26,7 +27,7 @@ export type OpenProposalInput = z.infer<typeof openProposalSchema>;
 /** PATCH /api/proposals/[id]: the proposer moves it to a newer version of the fork, or rewords it. */
 export const updateProposalSchema = z
   .object({
-    versionId: z.uuid({ error: 'Name the newer version by its id.' }).optional(),
+    versionId: idOf('Name the newer version by its id.').optional(),
     title: title.optional(),
     description: description.optional(),
   })
@@ -38,7 +39,7 @@ export type UpdateProposalInput = z.infer<typeof updateProposalSchema>;
 
 /** POST /api/proposals/[id]/accept: the owner accepts, naming the head they reviewed against. */
 export const acceptProposalSchema = z.object({
-  sourceHeadVersionId: z.uuid({ error: 'Name the version of your recipe you reviewed against.' }),
+  sourceHeadVersionId: idOf('Name the version of your recipe you reviewed against.'),
   /** One choice per conflicting field: keep the recipe's own value (`ours`) or the proposal's (`theirs`). */
   picks: z
     .record(

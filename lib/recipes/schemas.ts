@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { recipeDocumentSchema } from '@/lib/brewing';
+import { idOf } from '@/lib/validation/ids';
 
 const VISIBILITIES = ['public', 'unlisted', 'private'] as const;
 export type Visibility = (typeof VISIBILITIES)[number];
@@ -11,7 +12,7 @@ const versionMessage = z
   .trim()
   .max(200, 'Keep the message under 200 characters.');
 
-const idSchema = (label: string) => z.uuid({ error: `${label} must be a version id.` });
+const versionIdOf = (label: string) => idOf(`${label} must be a version id.`);
 
 export const createRecipeSchema = z.object({
   document: recipeDocumentSchema,
@@ -21,13 +22,13 @@ export const createRecipeSchema = z.object({
 
 export const saveVersionSchema = z.object({
   document: recipeDocumentSchema,
-  baseVersionId: idSchema('The version you started from'),
+  baseVersionId: versionIdOf('The version you started from'),
   message: versionMessage.min(1, 'Say in a few words what changed.'),
 });
 
 export const restoreVersionSchema = z.object({
-  versionId: idSchema('The version to restore'),
-  baseVersionId: idSchema('The version you started from'),
+  versionId: versionIdOf('The version to restore'),
+  baseVersionId: versionIdOf('The version you started from'),
   message: versionMessage.optional(),
 });
 
@@ -45,8 +46,8 @@ export const updateRecipeSchema = z.object({ visibility: visibilitySchema });
 export const computeStatsSchema = z.object({ document: recipeDocumentSchema });
 
 export const compareQuerySchema = z.object({
-  a: idSchema('Version a'),
-  b: idSchema('Version b'),
+  a: versionIdOf('Version a'),
+  b: versionIdOf('Version b'),
 });
 
 export const listRecipesQuerySchema = z.object({

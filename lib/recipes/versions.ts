@@ -17,6 +17,7 @@ import { canView, isOwner } from './access';
 import type { Visibility } from './schemas';
 import { slugFor } from './slug';
 import { afterRecipeCommit, recordRecipeChange } from './events';
+import { requireId } from '@/lib/validation/ids';
 
 export interface SavedVersion {
   recipe: { id: string; slug: string };
@@ -368,7 +369,7 @@ export async function getRecipe(
   key: { slug?: string; id?: string },
 ): Promise<Recipe> {
   const where = key.id ? eq(recipes.id, key.id) : eq(recipes.slug, key.slug ?? '');
-  if (key.id && !/^[0-9a-f-]{36}$/i.test(key.id)) throw new AppError('not_found', 'recipe');
+  if (key.id) requireId(key.id, 'recipe');
   const [recipe] = await db.select().from(recipes).where(where);
   if (!recipe || !canView(recipe, viewer)) throw new AppError('not_found', 'recipe');
   return recipe;

@@ -1,10 +1,11 @@
 import { z } from 'zod';
 import { route } from '@/lib/http/route';
 import { markRead } from '@/lib/notifications/list';
+import { idOf } from '@/lib/validation/ids';
 
 const bodySchema = z.object({
   ids: z
-    .array(z.uuid({ error: 'Each id must be a notification id.' }), { error: 'Give a list of notification ids.' })
+    .array(idOf('Each id must be a notification id.'), { error: 'Give a list of notification ids.' })
     .max(200, 'Mark at most 200 at once.')
     .optional(),
 });

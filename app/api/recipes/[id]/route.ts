@@ -1,22 +1,20 @@
 import { route } from '@/lib/http/route';
-import { idParam } from '@/lib/recipes/http';
+import { idParams } from '@/lib/validation/ids';
 import { updateRecipeSchema } from '@/lib/recipes/schemas';
 import { getRecipe, getVersionById, setVisibility } from '@/lib/recipes/versions';
 
-type Params = { id: string };
-
 // GET /api/recipes/[id] – the recipe with its head version
-export const GET = route<undefined, Params, 'public'>({ access: 'public' }, async ({ viewer, params }) => {
-  const recipe = await getRecipe(viewer, { id: idParam(params.id, 'recipe') });
+export const GET = route({ access: 'public', params: idParams('recipe') }, async ({ viewer, params }) => {
+  const recipe = await getRecipe(viewer, { id: params.id });
   const { version } = await getVersionById(viewer, recipe.headVersionId!);
   return { recipe: publicRecipe(recipe), head: version };
 });
 
 // PATCH /api/recipes/[id] – the owner changes visibility
-export const PATCH = route<typeof updateRecipeSchema, Params, 'user'>(
-  { access: 'user', body: updateRecipeSchema },
+export const PATCH = route(
+  { access: 'user', params: idParams('recipe'), body: updateRecipeSchema },
   async ({ viewer, params, body }) => {
-    await setVisibility(viewer, idParam(params.id, 'recipe'), body.visibility);
+    await setVisibility(viewer, params.id, body.visibility);
     return Response.json({ ok: true, visibility: body.visibility });
   },
 );

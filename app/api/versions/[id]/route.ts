@@ -1,11 +1,11 @@
 import { NextResponse } from 'next/server';
 import { route } from '@/lib/http/route';
-import { idParam } from '@/lib/recipes/http';
+import { idParams } from '@/lib/validation/ids';
 import { getVersionById } from '@/lib/recipes/versions';
 
 // GET /api/versions/[id] – one immutable version with its document and numbers
-export const GET = route<undefined, { id: string }, 'public'>({ access: 'public' }, async ({ viewer, params }) => {
-  const { recipe, version } = await getVersionById(viewer, idParam(params.id, 'version'));
+export const GET = route({ access: 'public', params: idParams('version') }, async ({ viewer, params }) => {
+  const { recipe, version } = await getVersionById(viewer, params.id);
   const cacheable = recipe.visibility === 'public' && !recipe.hiddenAt;
   return NextResponse.json(
     {

@@ -4,6 +4,7 @@ import { uploadPhoto } from '@/lib/brew-days/photos';
 import { photoCaptionSchema } from '@/lib/brew-days/schemas';
 import { AppError, invalidInput } from '@/lib/errors';
 import { errorResponse, route } from '@/lib/http/route';
+import { idParams } from '@/lib/validation/ids';
 import { MAX_PHOTO_BYTES } from '@/lib/storage/images';
 
 /** Room for the multipart boundaries, part headers and a caption around the file itself. */
@@ -42,7 +43,7 @@ function closing(err: unknown): Response {
 }
 
 // POST /api/brew-days/[id]/photos – the brewer uploads a photo (multipart field "photo", optional "caption")
-export const POST = route<undefined, { id: string }, 'user'>({ access: 'user' }, async ({ req, viewer, params }) => {
+export const POST = route({ access: 'user', params: idParams('brew day') }, async ({ req, viewer, params }) => {
   const declared = Number(req.headers.get('content-length'));
   // Refused before reading; the server discards the declared body so the connection stays usable.
   if (Number.isFinite(declared) && declared > MAX_PHOTO_BYTES + ENVELOPE_BYTES) throw tooLarge();

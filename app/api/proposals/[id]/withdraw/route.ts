@@ -1,9 +1,8 @@
 import { route } from '@/lib/http/route';
+import { idParams } from '@/lib/validation/ids';
 import { withdrawProposal } from '@/lib/proposals/proposals';
 
-type Params = { id: string };
-
 // POST /api/proposals/[id]/withdraw – the proposer takes the proposal back
-export const POST = route<undefined, Params, 'user'>({ access: 'user' }, ({ viewer, params }) =>
+export const POST = route({ access: 'user', params: idParams('proposal') }, ({ viewer, params }) =>
   withdrawProposal(viewer, params.id),
 );

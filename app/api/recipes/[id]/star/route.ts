@@ -1,15 +1,13 @@
 import { setStar } from '@/lib/community/stars';
 import { route } from '@/lib/http/route';
-import { idParam } from '@/lib/recipes/http';
-
-type Params = { id: string };
+import { idParams } from '@/lib/validation/ids';
 
 // PUT /api/recipes/[id]/star – star a recipe (again: no change)
-export const PUT = route<undefined, Params, 'user'>({ access: 'user' }, ({ viewer, params }) =>
-  setStar(viewer, idParam(params.id, 'recipe'), true),
+export const PUT = route({ access: 'user', params: idParams('recipe') }, ({ viewer, params }) =>
+  setStar(viewer, params.id, true),
 );
 
 // DELETE /api/recipes/[id]/star – take the star back
-export const DELETE = route<undefined, Params, 'user'>({ access: 'user' }, ({ viewer, params }) =>
-  setStar(viewer, idParam(params.id, 'recipe'), false),
+export const DELETE = route({ access: 'user', params: idParams('recipe') }, ({ viewer, params }) =>
+  setStar(viewer, params.id, false),
 );

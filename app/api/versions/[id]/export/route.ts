@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { route } from '@/lib/http/route';
+import { idParams } from '@/lib/validation/ids';
 import { toBeerJson, toBeerXml } from '@/lib/interchange';
-import { idParam } from '@/lib/recipes/http';
 import { getVersionById } from '@/lib/recipes/versions';
 
 const exportQuerySchema = z.object({
@@ -24,10 +24,10 @@ function fileName(title: string, number: number, extension: string): string {
 }
 
 // GET /api/versions/[id]/export – download a version as BeerXML 1.0, BeerJSON 1.0 or Kettlefork's own JSON document
-export const GET = route<undefined, { id: string }, 'public', typeof exportQuerySchema>(
-  { access: 'public', query: exportQuerySchema },
+export const GET = route(
+  { access: 'public', params: idParams('version'), query: exportQuerySchema },
   async ({ viewer, params, query }) => {
-    const { recipe, version } = await getVersionById(viewer, idParam(params.id, 'version'));
+    const { recipe, version } = await getVersionById(viewer, params.id);
     const doc = version.document;
     const file =
       query.format === 'beerxml'
