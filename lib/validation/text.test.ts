@@ -22,4 +22,10 @@ describe('storable text', () => {
     );
     expect(findUnstorableText({ ok: 'yes', n: 3, list: [null, true] })).toBeNull();
   });
+
+  it('walks very deep values without recursion and reports them as too deep', () => {
+    const deep = JSON.parse('['.repeat(50_000) + ']'.repeat(50_000));
+    expect(findUnstorableText(deep)).toEqual({ tooDeep: true });
+    expect(findUnstorableText(JSON.parse('{"a":'.repeat(20) + '"ok"' + '}'.repeat(20)))).toBeNull();
+  });
 });

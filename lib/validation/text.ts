@@ -16,7 +16,7 @@ export function isStorableText(value: string): boolean {
   return !value.includes('\u0000') && !LONE_SURROGATE.test(value);
 }
 
-export function unstorableTextMessage(label: string): string {
+function unstorableTextMessage(label: string): string {
   return `${label} contains a character we cannot store (a NUL byte or a broken character); please remove it.`;
 }
 
@@ -30,26 +30,39 @@ export function textSchema(label: string, params?: Parameters<typeof z.string>[0
     .refine(isStorableText, { error: unstorableTextMessage(label), abort: true });
 }
 
+/** Deeper than any of our documents goes (a recipe is about five levels); deeper is refused. */
+const MAX_DEPTH = 32;
+
 /**
  * The path (`fermentables.0.name`) of the first string or key in a parsed value that cannot be
  * stored, or null. route() runs it on every JSON body and query string before the schema, so
- * every field of every route is covered by the same rule.
+ * every field of every route is covered by the same rule. Walks without recursion, and reports
+ * a value nested deeper than MAX_DEPTH as `tooDeep`.
  */
-export function findUnstorableText(value: unknown, path: string[] = []): string | null {
-  if (typeof value === 'string') return isStorableText(value) ? null : path.join('.') || '(root)';
-  if (value === null || typeof value !== 'object') return null;
-  for (const [key, item] of Object.entries(value)) {
-    if (!isStorableText(key)) return [...path, key].join('.');
-    const found = findUnstorableText(item, [...path, key]);
-    if (found) return found;
+export function findUnstorableText(value: unknown): string | { tooDeep: true } | null {
+  const stack: { value: unknown; path: string[] }[] = [{ value, path: [] }];
+  while (stack.length) {
+    const { value: item, path } = stack.pop()!;
+    if (typeof item === 'string') {
+      if (!isStorableText(item)) return path.join('.') || '(root)';
+      continue;
+    }
+    if (item === null || typeof item !== 'object') continue;
+    if (path.length >= MAX_DEPTH) return { tooDeep: true };
+    const entries = Object.entries(item);
+    for (const [key] of entries) if (!isStorableText(key)) return [...path, key].join('.');
+    for (let k = entries.length - 1; k >= 0; k--) stack.push({ value: entries[k][1], path: [...path, entries[k][0]] });
   }
   return null;
 }
 
-/** Refuses a parsed value holding unstorable text with a 400 naming the field. */
+/** Refuses a parsed value holding unstorable text (a 400 naming the field) or nested too deeply. */
 export function assertStorableText(value: unknown, subject = 'request'): void {
-  const path = findUnstorableText(value);
-  if (!path) return;
-  const message = unstorableTextMessage(`This field`);
-  throw new AppError('bad_request', subject, `${path}: ${message}`, [{ path, message }]);
+  const found = findUnstorableText(value);
+  if (!found) return;
+  if (typeof found === 'object') {
+    throw new AppError('bad_request', subject, `The ${subject} is nested more than ${MAX_DEPTH} levels deep.`);
+  }
+  const message = unstorableTextMessage('This field');
+  throw new AppError('bad_request', subject, `${found}: ${message}`, [{ path: found, message }]);
 }

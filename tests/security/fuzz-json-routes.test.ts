@@ -71,6 +71,13 @@ const malformedBody = fc.oneof(
     '""',
     '{"__proto__":{"admin":true}}',
     '{"document":{"title":1e309}}',
+    // Text PostgreSQL cannot store: a NUL byte, a lone surrogate, in values and in keys.
+    '{"title":"a\\u0000b","body":"a\\u0000b","message":"a\\u0000b","text":"a\\u0000b"}',
+    '{"title":"\\ud800","body":"\\udc00 tail","message":"\\ud83c"}',
+    '{"a\\u0000":1}',
+    // Deep nesting.
+    '['.repeat(5_000) + ']'.repeat(5_000),
+    '{"document":' + '{"a":'.repeat(2_000) + '1' + '}'.repeat(2_001),
   ),
   fc
     .dictionary(
