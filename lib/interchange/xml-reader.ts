@@ -28,19 +28,57 @@ export function parseXmlSafely(text: string): Record<string, unknown> {
     const { msg, line, col } = valid.err;
     throw new InterchangeError(`the XML is malformed: ${msg}`, `line ${line}, column ${col}`, 'malformed');
   }
+  assertShallow(text);
   const parser = new XMLParser({
     ignoreAttributes: true,
     parseTagValue: false,
     trimValues: true,
     ignoreDeclaration: true,
     ignorePiTags: true,
-    // Only the five built-in XML entities and numeric references remain possible here.
-    processEntities: true,
+    // Entities are decoded below in one pass (the parser's own pass would run before ours and
+    // decode `&amp;#39;` twice). Declared entities never get this far: they are refused above.
+    processEntities: false,
     htmlEntities: false,
     transformTagName: (name) => name.toUpperCase(),
     isArray: (name) => REPEATED.has(name.toUpperCase()),
+    tagValueProcessor: (_name, value) => decodeReferences(value),
   });
   return parser.parse(text) as Record<string, unknown>;
+}
+
+/** BeerXML nests about five elements deep; a file nested deeper than this is not a recipe. */
+const MAX_XML_DEPTH = 32;
+
+/** Refuses a well-formed document nested deeper than MAX_XML_DEPTH, before the parser walks it. */
+function assertShallow(text: string): void {
+  const body = text.replace(/<!--[\s\S]*?-->|<!\[CDATA\[[\s\S]*?\]\]>|<\?[\s\S]*?\?>/g, '');
+  let depth = 0;
+  for (const tag of body.matchAll(/<(\/?)[^>]*?(\/?)>/g)) {
+    if (tag[1]) depth--;
+    else if (!tag[2]) depth++;
+    if (depth > MAX_XML_DEPTH) {
+      throw new InterchangeError(`the XML is nested more than ${MAX_XML_DEPTH} elements deep`, 'nesting', 'malformed');
+    }
+  }
+}
+
+const PREDEFINED: Record<string, string> = { amp: '&', lt: '<', gt: '>', quot: '"', apos: "'" };
+
+/**
+ * Decodes XML's five predefined entities and its decimal and hexadecimal character references
+ * (XML 1.0, §4.1 and §4.6) in one pass, so `&amp;#39;` stays the text `&#39;`.
+ */
+function decodeReferences(value: string): string {
+  return value.replace(
+    /&(?:(amp|lt|gt|quot|apos)|#x([0-9a-fA-F]{1,6})|#([0-9]{1,7}));/g,
+    (ref, name: string | undefined, hex: string | undefined, dec: string | undefined) => {
+      if (name) return PREDEFINED[name];
+      const code = hex ? Number.parseInt(hex, 16) : Number(dec);
+      // NUL, surrogates and values past Unicode's range name no character: keep the text as written.
+      if (code === 0 || (code >= 0xd800 && code <= 0xdfff) || code > 0x10ffff) return ref;
+      return String.fromCodePoint(code);
+    },
+  );
 }
 
 /** BeerXML record tags that may repeat inside their plural group. */

@@ -181,4 +181,14 @@ describe('GET /api/versions/[id]/export and the round trip back in', () => {
     expect(res.status).toBe(400);
     expect(res.body.error.fields?.[0].path).toBe('format');
   });
+
+  it('answers a file nested 200 elements deep with a 400 naming the problem, never a 500', async () => {
+    const { client } = await signedInClient();
+    for (const depth of [100, 200, 2_000]) {
+      const text = '<RECIPES>' + '<RECIPE>'.repeat(depth) + '</RECIPE>'.repeat(depth) + '</RECIPES>';
+      const res = await client.post<ErrorBody>('/api/import', { text });
+      expect(res.status, `${depth} deep`).toBe(400);
+      expect(res.body.error.message).toMatch(/nested more than 32 elements deep/);
+    }
+  });
 });
