@@ -7,7 +7,7 @@ import { env } from '@/lib/env';
 import { AppError, invalidInput } from '@/lib/errors';
 import { sendMail } from '@/lib/mail';
 import { hashPassword } from './password';
-import { hasRole, type Role } from './roles';
+import { hasRole, suspensionRefusal, type Role } from './roles';
 import { signUpSchema, type SignUpInput } from './schemas';
 import type { Viewer } from './session';
 
@@ -123,16 +123,13 @@ export async function changeRole(actor: Viewer, userId: string, role: Role): Pro
 }
 
 /**
- * Suspends or reinstates a member. Moderators may suspend members only; admins anyone but
- * themselves. Suspension ends every session on the server at once.
+ * Suspends or reinstates a member, as suspensionRefusal() allows. Suspension ends every session on the server at once.
  */
 export async function setSuspended(actor: Viewer, userId: string, suspended: boolean, reason = ''): Promise<void> {
   if (!hasRole(actor, 'moderator')) throw new AppError('forbidden', 'member', 'Only moderators can suspend members.');
-  if (actor.id === userId) throw new AppError('forbidden', 'member', 'You cannot suspend yourself.');
   const target = await loadTarget(userId);
-  if (target.role !== 'member' && !hasRole(actor, 'admin')) {
-    throw new AppError('forbidden', 'member', 'Only an admin can suspend a moderator or an admin.');
-  }
+  const refusal = suspensionRefusal(actor, target);
+  if (refusal) throw new AppError('forbidden', 'member', refusal);
   await db.transaction(async (tx) => {
     await tx
       .update(users)

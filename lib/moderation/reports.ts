@@ -14,6 +14,7 @@ import type { ReportInput, ResolveReportInput } from './schemas';
 import type { ReportReason, ReportTarget } from './words';
 import { uniqueViolation } from '@/lib/db-errors';
 import { requireId } from '@/lib/validation/ids';
+import { suspensionRefusal } from '@/lib/auth/roles';
 
 /** A member reports something they can see; one open report per member and target. */
 export async function createReport(viewer: Viewer, input: ReportInput): Promise<{ id: string }> {
@@ -244,11 +245,8 @@ async function checkSuspendable(actor: Viewer, ownerId: string | null): Promise<
   if (!ownerId) throw new AppError('bad_request', 'report', 'This report names nobody who could be suspended.');
   const [owner] = await db.select({ role: users.role }).from(users).where(eq(users.id, ownerId));
   if (!owner) throw new AppError('not_found', 'member');
-  if (ownerId === actor.id) throw new AppError('forbidden', 'member', 'You cannot suspend yourself.');
-  if (owner.role === 'admin')
-    throw new AppError('forbidden', 'member', 'An admin cannot be suspended from the moderation queue.');
-  if (owner.role === 'moderator' && actor.role !== 'admin')
-    throw new AppError('forbidden', 'member', 'Only an admin can suspend a moderator.');
+  const refusal = suspensionRefusal(actor, { id: ownerId, role: owner.role });
+  if (refusal) throw new AppError('forbidden', 'member', refusal);
 }
 
 export interface HeldComment {

@@ -1,6 +1,7 @@
 import 'server-only';
 import { sql } from 'drizzle-orm';
 import { db } from '@/db';
+import { hasRole } from '@/lib/auth/roles';
 import type { Viewer } from '@/lib/auth/session';
 import { canView, isListed } from './access';
 import { getRecipe } from './versions';
@@ -85,7 +86,7 @@ export async function getLineageByRecipeId(
       (isListed(gate) ||
         r.id === recipeId ||
         viewer?.id === r.owner_id ||
-        (viewer !== null && viewer.role !== 'member'));
+        (viewer !== null && hasRole(viewer, 'moderator')));
     if (visible) {
       out.push({
         id: r.id,

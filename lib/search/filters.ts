@@ -3,7 +3,7 @@
  * `quoteFilterValue`; numbers come from the schema; nothing the reader typed is
  * spliced into the expression as is.
  */
-import type { Role } from '../auth/roles';
+import { hasRole, type Role } from '../auth/roles';
 import type { RecipeSearchQuery, SearchSort } from './schemas';
 
 /** Who is searching (the signed-in viewer's id and role), or null for an anonymous reader. */
@@ -15,7 +15,7 @@ function quoteFilterValue(value: string): string {
 }
 
 function canModerate(viewer: SearchViewer): boolean {
-  return viewer?.role === 'moderator' || viewer?.role === 'admin';
+  return viewer !== null && hasRole(viewer, 'moderator');
 }
 
 /**

@@ -8,6 +8,7 @@ import { listHeldComments, listOpenReports, type QueueItem } from '@/lib/moderat
 import { REASON_LABELS, TARGET_LABELS } from '@/lib/moderation/words';
 import { HeldCommentActions } from './_components/held-comment-actions';
 import { ReportActions } from './_components/report-actions';
+import { canSuspend } from '@/lib/auth/roles';
 
 export const metadata: Metadata = { title: 'Moderation queue' };
 
@@ -109,12 +110,7 @@ export default async function ModerationPage() {
               <ReportActions
                 reportId={item.reports[0].id}
                 targetType={item.targetType}
-                canSuspend={Boolean(
-                  item.owner &&
-                  !item.owner.suspended &&
-                  item.owner.id !== viewer.id &&
-                  (item.owner.role === 'member' || (item.owner.role === 'moderator' && viewer.role === 'admin')),
-                )}
+                canSuspend={Boolean(item.owner && !item.owner.suspended && canSuspend(viewer, item.owner))}
               />
             </li>
           ))}
