@@ -1,7 +1,7 @@
 import { readFileSync, readdirSync, statSync } from 'node:fs';
 import path from 'node:path';
 
-export const MUTATING_METHODS = ['POST', 'PUT', 'PATCH', 'DELETE'] as const;
+const MUTATING_METHODS = ['POST', 'PUT', 'PATCH', 'DELETE'] as const;
 export const ALL_METHODS = ['GET', ...MUTATING_METHODS] as const;
 
 export interface ApiRoute {
