@@ -1,7 +1,13 @@
 import 'server-only';
 import { sql } from 'drizzle-orm';
+import { alias } from 'drizzle-orm/pg-core';
 import { db } from '@/db';
+import { recipes } from '@/db/schema';
 import type { Viewer } from '@/lib/auth/session';
+import { listedRecipeSql } from '@/lib/recipes/access';
+
+/** The feed's recipes go by `r` in its query. */
+const r = alias(recipes, 'r');
 
 export interface FeedItem {
   kind: 'version' | 'fork' | 'recipe' | 'brew_day';
@@ -50,7 +56,7 @@ export async function getFeed(
       from recipe_versions v
       join recipes r on r.id = v.recipe_id
       join users u on u.id = v.author_id
-      where r.visibility = 'public' and r.hidden_at is null and u.suspended_at is null
+      where ${listedRecipeSql(null, r)} and u.suspended_at is null
         and v.author_id <> ${viewer.id} and v.created_at < ${before}::timestamptz
         and (v.author_id in (select id from followed_members) or r.id in (select id from followed_recipes))
       union all
@@ -60,7 +66,7 @@ export async function getFeed(
       join recipes r on r.id = b.recipe_id
       join recipe_versions v on v.id = b.version_id
       join users u on u.id = b.brewer_id
-      where r.visibility = 'public' and r.hidden_at is null and u.suspended_at is null
+      where ${listedRecipeSql(null, r)} and u.suspended_at is null
         and b.brewer_id <> ${viewer.id} and b.created_at < ${before}::timestamptz
         and (b.brewer_id in (select id from followed_members) or r.id in (select id from followed_recipes))
     ) items

@@ -1,9 +1,10 @@
 import 'server-only';
-import { and, desc, eq, isNotNull, isNull, sql } from 'drizzle-orm';
+import { and, desc, eq, isNotNull, sql } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 import { db } from '@/db';
 import { recipeVersions, recipes } from '@/db/schema';
 import type { Viewer } from '@/lib/auth/session';
+import { listedRecipeSql } from '@/lib/recipes/access';
 import { countFollowers } from './follows';
 
 export interface MemberCommunity {
@@ -24,7 +25,7 @@ export async function getMemberCommunity(
   viewer: Pick<Viewer, 'id'> | null,
 ): Promise<MemberCommunity> {
   const own = viewer?.id === memberId;
-  const listed = own ? undefined : and(eq(recipes.visibility, 'public'), isNull(recipes.hiddenAt));
+  const listed = listedRecipeSql(own ? viewer : null);
   const [[stars], follow, forks] = await Promise.all([
     db
       .select({ n: sql<number>`coalesce(sum(${recipes.starCount}), 0)::int` })
@@ -39,8 +40,7 @@ export async function getMemberCommunity(
         hiddenAt: recipes.hiddenAt,
         sourceTitle: sources.title,
         sourceSlug: sources.slug,
-        sourceListed: sql<boolean>`${sources.visibility} = 'public' and ${sources.hiddenAt} is null`,
-        sourceOwnerId: sources.ownerId,
+        sourceListed: sql<boolean>`${listedRecipeSql(viewer, sources)}`,
       })
       .from(recipes)
       .innerJoin(recipeVersions, eq(recipeVersions.id, recipes.forkedFromVersionId))
@@ -53,7 +53,7 @@ export async function getMemberCommunity(
     starsReceived: stars.n,
     ...follow,
     forks: forks.map((f) => {
-      const sourceVisible = f.sourceListed || (viewer !== null && f.sourceOwnerId === viewer.id);
+      const sourceVisible = f.sourceListed;
       return {
         id: f.id,
         slug: f.slug,

@@ -6,6 +6,7 @@ import { getViewer, type Viewer } from '@/lib/auth/session';
 import { hasRole, type Role } from '@/lib/auth/roles';
 import { isDatabaseUnavailable, loggableError } from '@/lib/db-errors';
 import { assertStorableText } from '@/lib/validation/text';
+import { crossSiteReason } from './origin';
 
 type Access = 'public' | 'user' | Role;
 
@@ -151,14 +152,6 @@ function parseQuery<S extends z.ZodType>(req: NextRequest, schema: S): z.infer<S
 
 // State changes must come from our own pages (a cross-site form or fetch is refused).
 function assertSameOrigin(req: NextRequest): void {
-  const origin = req.headers.get('origin');
-  if (!origin) return;
-  const host = req.headers.get('x-forwarded-host') ?? req.headers.get('host');
-  let originHost: string;
-  try {
-    originHost = new URL(origin).host;
-  } catch {
-    throw new AppError('forbidden', 'request', 'Cross-site request refused.');
-  }
-  if (originHost !== host) throw new AppError('forbidden', 'request', 'Cross-site request refused.');
+  const reason = crossSiteReason(req.headers, { trustProxy: process.env.TRUST_PROXY === '1' });
+  if (reason) throw new AppError('forbidden', 'request', `Cross-site request refused: ${reason}.`);
 }

@@ -1,8 +1,9 @@
 import 'server-only';
-import { and, desc, eq, isNull, sql } from 'drizzle-orm';
+import { and, desc, eq, sql } from 'drizzle-orm';
 import { db } from '@/db';
 import { recipeVersions, recipes, users } from '@/db/schema';
 import type { Viewer } from '@/lib/auth/session';
+import { listedForkCountSql, listedRecipeSql } from './access';
 import { compareDocuments, type DocumentComparison } from './compare';
 import { getVersionById, type VersionView } from './versions';
 
@@ -45,7 +46,7 @@ export async function listRecipes(
   const ownListing = Boolean(viewer && owner[0]?.id === viewer.id);
   const conditions = [
     owner[0] ? eq(recipes.ownerId, owner[0].id) : undefined,
-    ownListing ? undefined : and(eq(recipes.visibility, 'public'), isNull(recipes.hiddenAt)),
+    listedRecipeSql(ownListing ? viewer : null),
   ].filter(Boolean);
   const rows = await db
     .select({
@@ -63,7 +64,7 @@ export async function listRecipes(
       abv: recipeVersions.abv,
       ibu: recipeVersions.ibu,
       srm: recipeVersions.srm,
-      forkCount: recipes.forkCount,
+      forkCount: listedForkCountSql(viewer),
       starCount: recipes.starCount,
       headNumber: recipes.headNumber,
       updatedAt: recipes.updatedAt,

@@ -1,5 +1,5 @@
 import 'server-only';
-import { and, desc, eq, sql } from 'drizzle-orm';
+import { and, desc, eq, getTableColumns, sql } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 import { db, type Transaction } from '@/db';
 import { recipeVersions, recipes, users, type Recipe, type RecipeVersion } from '@/db/schema';
@@ -13,7 +13,7 @@ import {
 import type { Viewer } from '@/lib/auth/session';
 import { AppError } from '@/lib/errors';
 import { notifyRecipeCreated } from '@/lib/notifications/recipe-events';
-import { canView, isOwner } from './access';
+import { canView, isOwner, listedForkCountSql } from './access';
 import type { Visibility } from './schemas';
 import { slugFor } from './slug';
 import { afterRecipeCommit, recordRecipeChange } from './events';
@@ -266,7 +266,7 @@ async function loadVersionRow(
   const [row] = await db
     .select({
       version: recipeVersions,
-      recipe: recipes,
+      recipe: { ...getTableColumns(recipes), forkCount: listedForkCountSql(viewer) },
       authorName: users.name,
       authorHandle: users.handle,
       ownerName: owners.name,
@@ -370,7 +370,10 @@ export async function getRecipe(
 ): Promise<Recipe> {
   const where = key.id ? eq(recipes.id, key.id) : eq(recipes.slug, key.slug ?? '');
   if (key.id) requireId(key.id, 'recipe');
-  const [recipe] = await db.select().from(recipes).where(where);
+  const [recipe] = await db
+    .select({ ...getTableColumns(recipes), forkCount: listedForkCountSql(viewer) })
+    .from(recipes)
+    .where(where);
   if (!recipe || !canView(recipe, viewer)) throw new AppError('not_found', 'recipe');
   return recipe;
 }
@@ -452,6 +455,14 @@ export async function setVisibility(viewer: Viewer, recipeId: string, visibility
   await db.transaction(async (tx) => {
     await tx.update(recipes).set({ visibility, updatedAt: new Date() }).where(eq(recipes.id, recipeId));
     await recordRecipeChange(tx, recipeId);
+    // The source's listed fork count (in its search document) follows its forks' visibility.
+    if (recipe.forkedFromVersionId) {
+      const [source] = await tx
+        .select({ id: recipeVersions.recipeId })
+        .from(recipeVersions)
+        .where(eq(recipeVersions.id, recipe.forkedFromVersionId));
+      if (source) await recordRecipeChange(tx, source.id);
+    }
   });
   afterRecipeCommit();
 }

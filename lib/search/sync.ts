@@ -25,6 +25,7 @@ import {
   waitForRecipeTasks,
 } from './client';
 import { FILTERABLE_ATTRIBUTES, RECIPES_INDEX } from './document';
+import { listedForkCountSql } from '@/lib/recipes/access';
 
 type Executor = Database | Transaction;
 
@@ -55,7 +56,7 @@ function selectIndexRows(executor: Executor, where: SQL | undefined, limit?: num
       visibility: recipes.visibility,
       hiddenAt: recipes.hiddenAt,
       starCount: recipes.starCount,
-      forkCount: recipes.forkCount,
+      forkCount: listedForkCountSql(null),
       headNumber: recipes.headNumber,
       createdAt: recipes.createdAt,
       updatedAt: recipes.updatedAt,

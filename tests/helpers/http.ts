@@ -61,7 +61,9 @@ export class TestClient {
     const headers = new Headers(init.headers);
     headers.set('x-forwarded-for', this.address);
     if (this.cookies.size) headers.set('cookie', this.cookieHeader());
+    // Like a browser, every write names its origin; an empty Origin means "send none" (a mail client, a forged form).
     if (init.method && init.method !== 'GET' && !headers.has('origin')) headers.set('origin', BASE_URL);
+    if (headers.get('origin') === '') headers.delete('origin');
     const res = await fetchOnce(new URL(path, BASE_URL), { ...init, headers, redirect: 'manual' });
     this.remember(res);
     return res;

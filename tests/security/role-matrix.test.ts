@@ -1,5 +1,3 @@
-import { readdirSync, readFileSync, statSync } from 'node:fs';
-import path from 'node:path';
 import { eq } from 'drizzle-orm';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { db } from '@/db';
@@ -7,6 +5,7 @@ import { comments, photos, recipes, reports, type User } from '@/db/schema';
 import { unsubscribeToken } from '@/lib/notifications/unsubscribe-token';
 import { TestClient } from '../helpers/http';
 import { createRecipeVia, paleAle, type Saved } from '../helpers/recipes';
+import { mutatingRouteKeys } from '../helpers/routes';
 import { createUser, signedInClient, uniqueEmail } from '../helpers/users';
 import { forkVia, proposalFrom, proposalTo } from '../proposals/helpers';
 
@@ -361,32 +360,6 @@ const ROWS: Record<string, Row> = {
   },
 };
 
-const MUTATING = ['POST', 'PUT', 'PATCH', 'DELETE'];
-
-/** `METHOD /api/...` for every mutating handler exported by a route file under app/api. */
-function mutatingRoutes(): string[] {
-  const root = path.resolve('app/api');
-  const found: string[] = [];
-  const walk = (dir: string) => {
-    for (const name of readdirSync(dir)) {
-      const full = path.join(dir, name);
-      if (statSync(full).isDirectory()) walk(full);
-      else if (name === 'route.ts') {
-        const source = readFileSync(full, 'utf8');
-        const routePath = `/api/${path.relative(root, dir).split(path.sep).join('/')}`;
-        for (const method of MUTATING) {
-          const exported = new RegExp(
-            `export\\s+(const|async\\s+function|function)\\s+${method}\\b|export\\s*\\{[^}]*\\bas\\s+${method}\\b[^}]*\\}|export\\s*\\{[^}]*\\b${method}\\b[^}]*\\}`,
-          ).test(source);
-          if (exported) found.push(`${method} ${routePath}`);
-        }
-      }
-    }
-  };
-  walk(root);
-  return found.sort();
-}
-
 describe('role matrix of every mutating route', () => {
   const world = {} as World;
 
@@ -406,7 +379,7 @@ describe('role matrix of every mutating route', () => {
   });
 
   it('has a row for every mutating route in app/api, and no row for a route that is gone', () => {
-    const routes = mutatingRoutes();
+    const routes = mutatingRouteKeys();
     expect(routes.length).toBeGreaterThan(20);
     expect(
       routes.filter((r) => !(r in ROWS)),
