@@ -197,13 +197,11 @@ function total(t: Timing): number {
 
 /**
  * Lay out the calendar of one recipe version from brew day to pour. Throws `PlanDateError`
- * for a pour date in the past or before the brew date.
+ * for a pour date in the past or before the brew date (a brew date already past is a brew under way).
  */
 export function planBrew(doc: RecipeDocument, input: PlanOptions, today: string): BrewPlan {
   const options = planOptionsSchema.parse(input);
   if (options.pourOn < today) throw new PlanDateError('pourOn', `Pour date ${options.pourOn} is in the past`);
-  if (options.brewOn && options.brewOn < today)
-    throw new PlanDateError('brewOn', `Brew date ${options.brewOn} is in the past: plan from today or later`);
   if (options.brewOn && options.pourOn < options.brewOn)
     throw new PlanDateError('pourOn', 'Pour date cannot be before the brew date');
 
