@@ -11,7 +11,7 @@ import { planToIcs } from './plan-ics';
 import { PlanDateError, planBrew, type BrewPlan, type PlanOptions } from './schedule';
 
 /** Today's date where the server stands; the schedule itself never reads a clock. */
-export function todayIso(): string {
+function todayIso(): string {
   return format(new Date(), 'yyyy-MM-dd');
 }
 

@@ -10,9 +10,9 @@ import type { RecipeDocument, YeastKind } from '@/lib/brewing/schema';
  * gives it, it is marked "common practice".
  */
 
-export const CARBONATION_METHODS = ['set_and_forget', 'burst', 'spunding', 'bottle'] as const;
+const CARBONATION_METHODS = ['set_and_forget', 'burst', 'spunding', 'bottle'] as const;
 export type CarbonationMethod = (typeof CARBONATION_METHODS)[number];
-export const DRY_HOP_PLACES = ['fermenter', 'keg'] as const;
+const DRY_HOP_PLACES = ['fermenter', 'keg'] as const;
 export type DryHopPlace = (typeof DRY_HOP_PLACES)[number];
 
 export interface DayRange {
@@ -64,11 +64,11 @@ export function carbonationDays(method: CarbonationMethod): DayRange {
 }
 
 /** A cold crash before packaging: 1–3 days near 0–4 °C (common practice). */
-export const CRASH_DAYS: DayRange = { min: 1, typical: 2, max: 3, source: `${COMMON} (0–4 °C)` };
+const CRASH_DAYS: DayRange = { min: 1, typical: 2, max: 3, source: `${COMMON} (0–4 °C)` };
 /** Spunding valve goes on with a few gravity points left: about the last day of primary (common practice). */
-export const SPUNDING_WINDOW_DAYS = 1;
+const SPUNDING_WINDOW_DAYS = 1;
 /** Dry-hop contact when the recipe gives none (common practice: 2–4 days). */
-export const DEFAULT_DRY_HOP_DAYS = 3;
+const DEFAULT_DRY_HOP_DAYS = 3;
 
 const isoDay = (label: string) =>
   z
@@ -94,11 +94,10 @@ export const planOptionsSchema = z.object({
   crash: z.boolean({ error: 'Cold crash must be yes or no' }).default(true),
 });
 export type PlanOptions = z.output<typeof planOptionsSchema>;
-export type PlanOptionsInput = z.input<typeof planOptionsSchema>;
 
 export type PlanEventKind = 'brew' | 'ferment' | 'dry_hop' | 'spunding' | 'crash' | 'package' | 'carbonate' | 'pour';
 
-export interface PlanEvent {
+interface PlanEvent {
   kind: PlanEventKind;
   title: string;
   /** First day (ISO). */
@@ -111,7 +110,7 @@ export interface PlanEvent {
   caution: string | null;
 }
 
-export interface PlanSuggestion {
+interface PlanSuggestion {
   change: string;
   savesDays: number;
 }
@@ -170,7 +169,7 @@ function fermentTemp(doc: RecipeDocument, options: PlanOptions): number {
   return y?.kind === 'kveik' ? 32 : y?.kind === 'lager' ? 10 : 18;
 }
 
-export function dryHopContactDays(doc: RecipeDocument): number {
+function dryHopContactDays(doc: RecipeDocument): number {
   const dry = doc.hops.filter((h) => h.use === 'dry_hop');
   if (dry.length === 0) return 0;
   const longest = Math.max(...dry.map((h) => h.timeMin));

@@ -221,6 +221,10 @@ export default async function BrewDayPage({ params }: Props) {
         </aside>
       </div>
 
+      {view.canEdit && (
+        <PlanPanel brewDayId={day.id} brewedOn={day.brewedOn} document={view.version.document} saved={day.plan} />
+      )}
+
       <section aria-labelledby="fermentation-title">
         <h2 id="fermentation-title" className="text-xl font-semibold">
           Fermentation

@@ -1,9 +1,10 @@
 import { getBrewDayPlanIcs } from '@/lib/brew-days/plans';
 import { env } from '@/lib/env';
 import { route } from '@/lib/http/route';
+import { idParams } from '@/lib/validation/ids';
 
 // GET /api/brew-days/[id]/calendar – the brew day's saved plan as an iCalendar (.ics) file
-export const GET = route<undefined, { id: string }, 'public'>({ access: 'public' }, async ({ viewer, params }) => {
+export const GET = route({ access: 'public', params: idParams('brew day') }, async ({ viewer, params }) => {
   const { ics, filename } = await getBrewDayPlanIcs(viewer, params.id, env().NEXTAUTH_URL);
   return new Response(ics, {
     headers: {
