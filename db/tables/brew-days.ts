@@ -12,6 +12,7 @@ import {
   uuid,
   varchar,
 } from 'drizzle-orm/pg-core';
+import type { BrewPlan } from '@/lib/brew-days/schedule';
 import { recipeVersions, recipes, users } from '../schema';
 
 export const gravityMethod = pgEnum('gravity_method', ['hydrometer', 'refractometer']);
@@ -61,6 +62,8 @@ export const brewDays = pgTable(
     kegPressureKPa: real('keg_pressure_kpa'),
     primingSugarG: real('priming_sugar_g'),
     notes: text('notes').notNull().default(''),
+    /** The calendar from this brew day to the day it must pour (lib/brew-days/schedule.ts), when planned. */
+    plan: jsonb('plan').$type<BrewPlan>(),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
   },

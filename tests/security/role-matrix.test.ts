@@ -174,6 +174,13 @@ const ROWS: Record<string, Row> = {
     }),
     expect: ownerOnly(201),
   },
+  'PUT /api/brew-days/[id]/plan': {
+    prepare: async (w) => ({
+      path: `/api/brew-days/${(await brewDayOf(w)).brewDayId}/plan`,
+      body: { pourOn: '2099-03-01', carbonation: 'burst' },
+    }),
+    expect: ownerOnly(200),
+  },
   'POST /api/brew-days/[id]/tastings': {
     prepare: async (w) => ({
       path: `/api/brew-days/${(await brewDayOf(w)).brewDayId}/tastings`,

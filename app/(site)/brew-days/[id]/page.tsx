@@ -4,6 +4,7 @@ import Link from 'next/link';
 import { Markdown } from '@/components/markdown';
 import { Caution, CAUTIONS } from '@/components/brew-days/caution';
 import { FermentationChart, type ChartPoint } from '@/components/brew-days/fermentation-chart';
+import { PlanPanel } from '@/components/brew-days/plan-panel';
 import { PhotoGallery } from '@/components/brew-days/photo-gallery';
 import { PhotoUploader } from '@/components/brew-days/photo-uploader';
 import { ReadingForm } from '@/components/brew-days/reading-form';
@@ -219,6 +220,10 @@ export default async function BrewDayPage({ params }: Props) {
           <Caution>{day.packaging === 'bottles' ? CAUTIONS.bottles : CAUTIONS.pressure}</Caution>
         </aside>
       </div>
+
+      {view.canEdit && (
+        <PlanPanel brewDayId={day.id} brewedOn={day.brewedOn} document={view.version.document} saved={day.plan} />
+      )}
 
       <section aria-labelledby="fermentation-title">
         <h2 id="fermentation-title" className="text-xl font-semibold">

@@ -1,0 +1,1 @@
+ALTER TABLE "brew_days" ADD COLUMN "plan" jsonb;
