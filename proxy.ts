@@ -45,11 +45,7 @@ function unavailable(policy: string): NextResponse {
 }
 
 export const config = {
-  // Pages only: API answers, built assets and icons carry the static headers from next.config.ts.
-  matcher: [
-    {
-      source: '/((?!api/|_next/static|_next/image|icon.svg|favicon.ico).*)',
-      missing: [{ type: 'header', key: 'next-router-prefetch' }],
-    },
-  ],
+  // Every page, router prefetches and error pages (a missing /favicon.ico) included: any HTML answer
+  // must carry the policy. API answers, built assets and the icon carry the static headers from next.config.ts.
+  matcher: ['/((?!api/|_next/static|_next/image|icon.svg).*)'],
 };

@@ -36,6 +36,35 @@ describe('security headers', () => {
     }
   });
 
+  it('gives every HTML answer the policy: router prefetches that ask for a whole page, and the missing favicon', async () => {
+    const { client } = await signedInClient();
+    const recipe = await createRecipeVia(client);
+    const anon = new TestClient();
+    const requests: [string, Record<string, string>][] = [
+      ['/', { 'next-router-prefetch': '1' }],
+      [`/recipes/${recipe.recipe.slug}`, { 'next-router-prefetch': '1' }],
+      ['/about', { 'next-router-prefetch': '1', purpose: 'prefetch' }],
+      ['/favicon.ico', {}],
+      ['/favicon.ico', { 'next-router-prefetch': '1' }],
+    ];
+    for (const [path, headers] of requests) {
+      const res = await anon.fetch(path, { headers });
+      const label = `${path} ${JSON.stringify(headers)}`;
+      const type = res.headers.get('content-type') ?? '';
+      expect(type, label).toContain('text/html');
+      const policy = res.headers.get('content-security-policy') ?? '';
+      const src = scriptSrc(policy);
+      const nonce = src.match(/'nonce-([^']+)'/)?.[1];
+      expect(nonce, label).toBeTruthy();
+      expect(src, label).not.toContain("'unsafe-inline'");
+      expect(policy, label).toContain("frame-ancestors 'none'");
+      const html = await res.text();
+      const scripts = [...html.matchAll(/<script\b[^>]*>/g)].map((m) => m[0]);
+      expect(scripts.length, label).toBeGreaterThan(0);
+      for (const tag of scripts) expect(tag, `${label}: ${tag}`).toContain(`nonce="${nonce}"`);
+    }
+  });
+
   it('sends nosniff, the referrer policy and frame refusal on pages and on JSON', async () => {
     const anon = new TestClient();
     for (const path of ['/', '/api/me', '/api/recipes']) {
