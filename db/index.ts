@@ -56,4 +56,3 @@ export function readDatabase(): Database {
   }
   return globalForDb.kfReadDb.db;
 }
-

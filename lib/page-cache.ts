@@ -93,7 +93,7 @@ async function recipeState(slug: string): Promise<{ visibility: string; hidden: 
 }
 
 /** Drops the nonce attributes a normal render put in, and hashes every inline script that is left. */
-export function prepare(html: string): Entry {
+function prepare(html: string): Entry {
   const clean = html.replace(/(<(?:script|link)\b[^>]*?)\s+nonce="[^"]*"/g, '$1');
   const hashes = new Set<string>();
   for (const m of clean.matchAll(/<script\b([^>]*)>([\s\S]*?)<\/script>/g)) {

@@ -7,15 +7,15 @@ export interface CacheableRecipe {
 }
 
 /** Public and unlisted versions that no moderator hid may be kept by any cache; private ones never. */
-export function sharedCacheable(recipe: CacheableRecipe): boolean {
+function sharedCacheable(recipe: CacheableRecipe): boolean {
   return recipe.visibility !== 'private' && !recipe.hiddenAt;
 }
 
-export const IMMUTABLE = 'public, max-age=31536000, immutable';
-export const PRIVATE = 'private, no-store';
+const IMMUTABLE = 'public, max-age=31536000, immutable';
+const PRIVATE = 'private, no-store';
 
 /** A strong validator from the exact bytes, so a changed byte (an owner's new display name) is a new tag. */
-export function etagOf(body: string): string {
+function etagOf(body: string): string {
   return `"${createHash('sha256').update(body).digest('base64url').slice(0, 27)}"`;
 }
 
