@@ -1,17 +1,13 @@
 import { NextResponse, type NextRequest } from 'next/server';
 import { databaseReachable } from '@/lib/db-health';
+import { PAGE_CACHE_CONTROL, cacheablePage, keptPage, renderToken } from '@/lib/page-cache';
 
-/**
- * A fresh nonce and Content-Security-Policy for every page request: Next.js puts the nonce on
- * its own scripts, so no inline script runs without it. Styles may be inline (React style
- * attributes and chart libraries set them); scripts may not.
- */
-export async function proxy(request: NextRequest) {
-  const nonce = Buffer.from(crypto.getRandomValues(new Uint8Array(16))).toString('base64');
+/** The page policy; `scripts` are the sources that let the framework's own inline scripts run. */
+function pagePolicy(scripts: string): string {
   const dev = process.env.NODE_ENV === 'development';
-  const policy = [
+  return [
     "default-src 'self'",
-    `script-src 'self' 'nonce-${nonce}' 'strict-dynamic'${dev ? " 'unsafe-eval'" : ''}`,
+    `script-src 'self' ${scripts}${dev ? " 'unsafe-eval'" : ''}`,
     "style-src 'self' 'unsafe-inline'",
     "img-src 'self' blob: data:",
     "font-src 'self' data:",
@@ -21,8 +17,33 @@ export async function proxy(request: NextRequest) {
     "form-action 'self'",
     "frame-ancestors 'none'",
   ].join('; ');
+}
+
+/**
+ * Every page gets a Content-Security-Policy that lets no inline script run unless the framework
+ * wrote it. Signed-out readers of a public recipe page get a kept copy (lib/page-cache.ts) whose
+ * policy lists the hash of each of its inline scripts; every other page is rendered per request with
+ * a fresh nonce that Next.js puts on its own scripts. Styles may be inline (React style attributes
+ * and chart libraries set them); scripts may not.
+ */
+export async function proxy(request: NextRequest) {
+  const nonce = Buffer.from(crypto.getRandomValues(new Uint8Array(16))).toString('base64');
+  const policy = pagePolicy(`'nonce-${nonce}' 'strict-dynamic'`);
   if (!(await databaseReachable())) return unavailable(policy);
+  const page = request.headers.get('x-kf-page-render') === renderToken() ? null : cacheablePage(request);
+  const kept = page && (await keptPage(page).catch(() => null));
+  if (kept) {
+    const headers = {
+      'cache-control': PAGE_CACHE_CONTROL,
+      etag: kept.etag,
+      vary: 'Cookie, Accept-Encoding',
+      'content-security-policy': pagePolicy(kept.hashes.join(' ')),
+    };
+    if (request.headers.get('if-none-match') === kept.etag) return new NextResponse(null, { status: 304, headers });
+    return new NextResponse(kept.html, { headers: { ...headers, 'content-type': 'text/html; charset=utf-8' } });
+  }
   const requestHeaders = new Headers(request.headers);
+  requestHeaders.delete('x-kf-page-render');
   requestHeaders.set('x-nonce', nonce);
   requestHeaders.set('Content-Security-Policy', policy);
   const response = NextResponse.next({ request: { headers: requestHeaders } });
@@ -45,11 +66,7 @@ function unavailable(policy: string): NextResponse {
 }
 
 export const config = {
-  // Pages only: API answers, built assets and icons carry the static headers from next.config.ts.
-  matcher: [
-    {
-      source: '/((?!api/|_next/static|_next/image|icon.svg|favicon.ico).*)',
-      missing: [{ type: 'header', key: 'next-router-prefetch' }],
-    },
-  ],
+  // Every page, router prefetches and error pages (a missing /favicon.ico) included: any HTML answer
+  // must carry the policy. API answers, built assets and the icon carry the static headers from next.config.ts.
+  matcher: ['/((?!api/|_next/static|_next/image|icon.svg).*)'],
 };

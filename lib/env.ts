@@ -4,6 +4,13 @@ import { z } from 'zod';
 const envSchema = z.object({
   NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
   DATABASE_URL: z.string().url().default('postgres://postgres@127.0.0.1:54329/kettlefork'),
+  /** Read replicas of DATABASE_URL, comma-separated; reads that may lag go there (db/index.ts). */
+  DATABASE_REPLICA_URLS: z
+    .string()
+    .default('')
+    .refine((v) => v.split(',').every((u) => !u.trim() || URL.canParse(u.trim())), {
+      message: 'DATABASE_REPLICA_URLS must be comma-separated postgres:// addresses',
+    }),
   NEXTAUTH_URL: z.string().url().default('http://127.0.0.1:3000'),
   NEXTAUTH_SECRET: z.string().min(32, 'NEXTAUTH_SECRET must be at least 32 characters').optional(),
   SMTP_URL: z.string().default('smtp://127.0.0.1:2525'),

@@ -1,6 +1,6 @@
 import 'server-only';
 import { and, desc, eq, sql } from 'drizzle-orm';
-import { db } from '@/db';
+import { db, readDatabase } from '@/db';
 import { recipeVersions, recipes, users } from '@/db/schema';
 import type { Viewer } from '@/lib/auth/session';
 import { listedForkCountSql, listedRecipeSql } from './access';
@@ -39,16 +39,19 @@ export async function listRecipes(
   opts: { ownerHandle?: string; page?: number } = {},
 ): Promise<{ cards: RecipeCard[]; hasMore: boolean }> {
   const page = opts.page ?? 1;
+  const replica = readDatabase();
   const owner = opts.ownerHandle
-    ? await db.select({ id: users.id }).from(users).where(eq(users.handle, opts.ownerHandle))
+    ? await replica.select({ id: users.id }).from(users).where(eq(users.handle, opts.ownerHandle))
     : [];
   if (opts.ownerHandle && !owner.length) return { cards: [], hasMore: false };
   const ownListing = Boolean(viewer && owner[0]?.id === viewer.id);
+  // Members see their own list straight after a save, so it comes from the primary; others' may lag.
+  const source = ownListing ? db : replica;
   const conditions = [
     owner[0] ? eq(recipes.ownerId, owner[0].id) : undefined,
     listedRecipeSql(ownListing ? viewer : null),
   ].filter(Boolean);
-  const rows = await db
+  const rows = await source
     .select({
       id: recipes.id,
       slug: recipes.slug,

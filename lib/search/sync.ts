@@ -7,7 +7,7 @@
 import 'server-only';
 import { asc, count, eq, gt, inArray, isNotNull, sql, type SQL } from 'drizzle-orm';
 import type { EnqueuedTask, Meilisearch } from 'meilisearch';
-import { db, type Database, type Transaction } from '@/db';
+import { db, readDatabase, type Database, type Transaction } from '@/db';
 import { recipes, recipeVersions, searchOutbox, users } from '@/db/schema';
 import {
   toSearchDocument,
@@ -181,7 +181,8 @@ export function processSearchOutbox(client: Meilisearch = getSearchClient(), dat
  */
 export async function rebuildSearchIndex(
   client: Meilisearch = getSearchClient(),
-  database: Executor = db,
+  // A whole-index rebuild may lag the primary by a moment, so it reads from a replica when there is one.
+  database: Executor = readDatabase(),
 ): Promise<{ count: number; ms: number }> {
   const started = performance.now();
   const tasks: EnqueuedTask[] = [];

@@ -13,6 +13,7 @@ import http from 'node:http';
 import { readFileSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import { pathToFileURL } from 'node:url';
+import autocannon from 'autocannon';
 import { drizzle } from 'drizzle-orm/node-postgres';
 import { Client, Pool } from 'pg';
 import { bulkLoadRecipes } from '../../bench/generate';
@@ -119,7 +120,67 @@ export interface LoadResult {
   cpu: { seconds: number; cores: number; byProcess: Record<string, number> };
   /** Broken promises: 5xx answers, requests left unanswered, lost saves. Empty when all were kept. */
   problems: string[];
+  /** Throughput of single pages under 20 signed-out clients, one after another, before the mixed run. */
+  speed: SpeedResult;
   markdown: string;
+}
+
+export interface SpeedResult {
+  busiest: { slug: string; activity: number };
+  seconds: number;
+  /** Requests per second and p97.5 latency for each target, by name. */
+  targets: Record<
+    'static asset' | '/about' | 'busiest head page' | 'busiest version 1 page',
+    { rps: number; p975: number; non2xx: number }
+  >;
+  versionToStatic: number;
+  headToAbout: number;
+}
+
+/**
+ * Side-by-side throughput on the same build: a built script file, /about, and the head and version 1
+ * pages of the demo recipe with the most brew days, comments and proposals, each for `seconds` under
+ * 20 signed-out clients with gzip, one after another.
+ */
+async function measureSpeed(sql: Client, seconds: number): Promise<SpeedResult> {
+  const busiest = (
+    await sql.query(`
+      select r.slug, (select count(*) from brew_days b where b.recipe_id = r.id)
+        + (select count(*) from comments c where c.recipe_id = r.id)
+        + (select count(*) from proposals p where p.source_recipe_id = r.id) as activity
+      from recipes r join users u on u.id = r.owner_id
+      where r.visibility = 'public' and r.hidden_at is null and u.handle <> 'loadbrewer'
+      order by activity desc, r.slug limit 1`)
+  ).rows[0] as { slug: string; activity: string };
+  const about = await (await fetch(`${BASE}/about`)).text();
+  const asset = about.match(/<script[^>]*src="(\/_next\/static\/[^"]+\.js)"/)?.[1];
+  if (!asset) throw new Error('no built script on /about to measure against');
+  const paths = {
+    'static asset': asset,
+    '/about': '/about',
+    'busiest head page': `/recipes/${busiest.slug}`,
+    'busiest version 1 page': `/recipes/${busiest.slug}/v/1`,
+  } as const;
+  const targets = {} as SpeedResult['targets'];
+  for (const [name, path] of Object.entries(paths) as [keyof typeof paths, string][]) {
+    const warm = await fetch(`${BASE}${path}`);
+    await warm.arrayBuffer();
+    if (!warm.ok) throw new Error(`${name} (${path}) answered ${warm.status}`);
+    const result = await autocannon({
+      url: `${BASE}${path}`,
+      connections: 20,
+      duration: seconds,
+      headers: { 'accept-encoding': 'gzip' },
+    });
+    targets[name] = { rps: round(result.requests.average, 0), p975: result.latency.p97_5, non2xx: result.non2xx };
+  }
+  return {
+    busiest: { slug: busiest.slug, activity: Number(busiest.activity) },
+    seconds,
+    targets,
+    versionToStatic: round(targets['busiest version 1 page'].rps / targets['static asset'].rps, 2),
+    headToAbout: round(targets['busiest head page'].rps / targets['/about'].rps, 2),
+  };
 }
 
 interface RecipeTarget {
@@ -346,6 +407,11 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
     if (indexed < generated)
       throw new Error(`search reports ${indexed} of ${generated} generated recipes after 2 minutes`);
     log(`load: search holds the ${generated} generated recipes`);
+
+    const speed = await measureSpeed(sql, Number(process.env.KF_SPEED_SECONDS ?? 10));
+    log(
+      `load: version page ${speed.targets['busiest version 1 page'].rps} req/s against static ${speed.targets['static asset'].rps} (×${speed.versionToStatic}); head page ${speed.targets['busiest head page'].rps} against /about ${speed.targets['/about'].rps} (×${speed.headToAbout})`,
+    );
 
     // Savers: each signs in as a demo member, from an address of its own, and saves to their own recipe.
     const saverHandles = SAVER_HANDLES.filter((h) => demoRecipes.some((r) => r.ownerHandle === h)).slice(0, savers);
@@ -629,6 +695,7 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
       saves: { answered2xx: saved.length, found },
       cpu: { seconds: round(elapsed, 1), cores: os.cpus().length, byProcess: cpu },
       problems,
+      speed,
     };
     return { ...result, markdown: renderLoadReport(result) };
   } finally {
@@ -661,6 +728,16 @@ export function renderLoadReport(result: Omit<LoadResult, 'markdown'>): string {
     `- Saves: ${fmt(result.saves.answered2xx)} answered 2xx (warm-up included), ${fmt(result.saves.found)} of them found in the database`,
     '',
     'Latency is from sending a request to reading the last byte of its body, in milliseconds; percentiles are exact (nearest rank) over every request of the route. "No answer" counts requests that failed or got nothing within 30 s.',
+    '',
+    `Before the mixed run, each page alone under 20 signed-out clients with gzip for ${result.speed.seconds} s (busiest demo recipe: \`${result.speed.busiest.slug}\`, ${result.speed.busiest.activity} brew days, comments and proposals):`,
+    '',
+    '| target | req/s | p97.5 ms | non-2xx |',
+    '|---|---:|---:|---:|',
+    ...Object.entries(result.speed.targets).map(
+      ([name, t]) => `| ${name} | ${fmt(t.rps)} | ${fmt(t.p975)} | ${t.non2xx} |`,
+    ),
+    '',
+    `Version page against the static file: ×${result.speed.versionToStatic}; head page against /about: ×${result.speed.headToAbout}.`,
     '',
     '| route | requests | req/s | p50 ms | p95 ms | p99 ms | 5xx | other non-2xx | no answer | target | |',
     '|---|---:|---:|---:|---:|---:|---:|---:|---:|---|---|',

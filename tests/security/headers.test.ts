@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
 import { TestClient } from '../helpers/http';
 import { createRecipeVia } from '../helpers/recipes';
@@ -17,8 +18,16 @@ describe('security headers', () => {
     const { client } = await signedInClient();
     const recipe = await createRecipeVia(client);
     const anon = new TestClient();
-    for (const path of ['/', '/sign-in', `/recipes/${recipe.recipe.slug}`, '/no-such-page']) {
-      const res = await anon.fetch(path);
+    // Signed-out readers of a public recipe get a kept copy allowed by script hashes instead
+    // (tests/recipes/page-cache.test.ts); its owner's own view is rendered per request.
+    const pages: [TestClient, string][] = [
+      [anon, '/'],
+      [anon, '/sign-in'],
+      [client, `/recipes/${recipe.recipe.slug}`],
+      [anon, '/no-such-page'],
+    ];
+    for (const [reader, path] of pages) {
+      const res = await reader.fetch(path);
       const policy = res.headers.get('content-security-policy') ?? '';
       const src = scriptSrc(policy);
       const nonce = src.match(/'nonce-([^']+)'/)?.[1];
@@ -31,8 +40,44 @@ describe('security headers', () => {
       const scripts = [...html.matchAll(/<script\b[^>]*>/g)].map((m) => m[0]);
       expect(scripts.length, path).toBeGreaterThan(0);
       for (const tag of scripts) expect(tag, `${path}: ${tag}`).toContain(`nonce="${nonce}"`);
-      const again = (await anon.fetch(path)).headers.get('content-security-policy');
+      const again = (await reader.fetch(path)).headers.get('content-security-policy');
       expect(again).not.toBe(policy);
+    }
+  });
+
+  it('gives every HTML answer the policy: router prefetches that ask for a whole page, and the missing favicon', async () => {
+    const { client } = await signedInClient();
+    const recipe = await createRecipeVia(client);
+    const anon = new TestClient();
+    const requests: [string, Record<string, string>][] = [
+      ['/', { 'next-router-prefetch': '1' }],
+      [`/recipes/${recipe.recipe.slug}`, { 'next-router-prefetch': '1' }],
+      ['/about', { 'next-router-prefetch': '1', purpose: 'prefetch' }],
+      ['/favicon.ico', {}],
+      ['/favicon.ico', { 'next-router-prefetch': '1' }],
+    ];
+    for (const [path, headers] of requests) {
+      const res = await anon.fetch(path, { headers });
+      const label = `${path} ${JSON.stringify(headers)}`;
+      const type = res.headers.get('content-type') ?? '';
+      expect(type, label).toContain('text/html');
+      const policy = res.headers.get('content-security-policy') ?? '';
+      const src = scriptSrc(policy);
+      expect(src, label).not.toContain("'unsafe-inline'");
+      expect(policy, label).toContain("frame-ancestors 'none'");
+      const html = await res.text();
+      const scripts = [...html.matchAll(/<script\b([^>]*)>([\s\S]*?)<\/script>/g)];
+      expect(scripts.length, label).toBeGreaterThan(0);
+      const nonce = src.match(/'nonce-([^']+)'/)?.[1];
+      if (nonce) {
+        for (const [whole] of scripts)
+          expect(whole.slice(0, whole.indexOf('>') + 1), label).toContain(`nonce="${nonce}"`);
+      } else {
+        expect(src, label).toContain("'sha256-");
+        // A signed-out reader's kept recipe page: each inline script is allowed by its hash.
+        for (const [, attrs, body] of scripts.filter((m) => !/\bsrc=/.test(m[1])))
+          expect(src, `${label}: ${attrs}`).toContain(`'sha256-${createHash('sha256').update(body).digest('base64')}'`);
+      }
     }
   });
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { versionResponse } from '@/lib/http/cache';
 import { route } from '@/lib/http/route';
 import { idParams } from '@/lib/validation/ids';
 import { toBeerJson, toBeerXml } from '@/lib/interchange';
@@ -26,7 +27,7 @@ function fileName(title: string, number: number, extension: string): string {
 // GET /api/versions/[id]/export – download a version as BeerXML 1.0, BeerJSON 1.0 or Kettlefork's own JSON document
 export const GET = route(
   { access: 'public', params: idParams('version'), query: exportQuerySchema },
-  async ({ viewer, params, query }) => {
+  async ({ req, viewer, params, query }) => {
     const { recipe, version } = await getVersionById(viewer, params.id);
     const doc = version.document;
     const file =
@@ -47,13 +48,9 @@ export const GET = route(
               type: 'application/json; charset=utf-8',
               extension: 'kettlefork.json',
             };
-    const cacheable = recipe.visibility === 'public' && !recipe.hiddenAt;
-    return new Response(file.body, {
-      headers: {
-        'content-type': file.type,
-        'content-disposition': `attachment; filename="${fileName(doc.title, version.number, file.extension)}"`,
-        'cache-control': cacheable ? 'public, max-age=60, stale-while-revalidate=600' : 'private, no-store',
-      },
+    return versionResponse(req, recipe, file.body, {
+      'content-type': file.type,
+      'content-disposition': `attachment; filename="${fileName(doc.title, version.number, file.extension)}"`,
     });
   },
 );

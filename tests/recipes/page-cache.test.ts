@@ -1,0 +1,153 @@
+import { createHash } from 'node:crypto';
+import { describe, expect, it } from 'vitest';
+import { commentVia } from '../community/helpers';
+import { openBrowser } from '../helpers/browser';
+import { TestClient } from '../helpers/http';
+import { createRecipeVia, paleAle } from '../helpers/recipes';
+import { signedInClient } from '../helpers/users';
+
+function scriptSrc(policy: string): string {
+  return (
+    policy
+      .split(';')
+      .map((d) => d.trim())
+      .find((d) => d.startsWith('script-src')) ?? ''
+  );
+}
+
+/** Checks a kept page's policy: no nonce, no unsafe-inline, and a hash for exactly its inline scripts. */
+async function expectKept(res: Response, label: string): Promise<string> {
+  expect(res.status, label).toBe(200);
+  expect(res.headers.get('cache-control'), label).toBe('public, max-age=0, s-maxage=10, must-revalidate');
+  const src = scriptSrc(res.headers.get('content-security-policy') ?? '');
+  expect(src, label).not.toContain("'nonce-");
+  expect(src, label).not.toContain("'unsafe-inline'");
+  expect(src, label).not.toContain("'strict-dynamic'");
+  const html = await res.text();
+  expect(html, label).not.toMatch(/\snonce="/);
+  const inline = [...html.matchAll(/<script\b([^>]*)>([\s\S]*?)<\/script>/g)].filter((m) => !/\bsrc=/.test(m[1]));
+  expect(inline.length, label).toBeGreaterThan(0);
+  const listed = new Set(src.match(/'sha256-[^']+'/g));
+  const needed = new Set(inline.map((m) => `'sha256-${createHash('sha256').update(m[2]).digest('base64')}'`));
+  expect(listed, label).toEqual(needed);
+  return html;
+}
+
+describe('recipe pages kept for signed-out readers', () => {
+  it('answers every signed-out reader with the same kept copy, its inline scripts allowed by hash alone', async () => {
+    const { client: owner } = await signedInClient();
+    const saved = await createRecipeVia(owner, { document: paleAle({ title: 'Kept Copy Pale' }) });
+    const anon = new TestClient();
+    for (const path of [`/recipes/${saved.recipe.slug}`, `/recipes/${saved.recipe.slug}/v/1`]) {
+      const first = await anon.fetch(path);
+      const etag = first.headers.get('etag');
+      const html = await expectKept(first, path);
+      expect(html).toContain('Kept Copy Pale');
+      const second = await new TestClient().fetch(path);
+      expect(second.headers.get('etag'), path).toBe(etag);
+      expect(await second.text(), path).toBe(html);
+      expect((await anon.fetch(path, { headers: { 'if-none-match': etag! } })).status, path).toBe(304);
+      // Signed-in readers still get their own render with a fresh nonce, never the shared copy.
+      const mine = await owner.fetch(path);
+      expect(scriptSrc(mine.headers.get('content-security-policy') ?? ''), path).toMatch(/'nonce-[^']+'/);
+      expect(mine.headers.get('cache-control'), path).not.toContain('public');
+    }
+  });
+
+  it('shows a new comment, star and version on the next request after each one', async () => {
+    const { client: owner } = await signedInClient();
+    const { client: reader } = await signedInClient();
+    const saved = await createRecipeVia(owner, { document: paleAle({ title: 'Changing Pale' }) });
+    const anon = new TestClient();
+    const head = `/recipes/${saved.recipe.slug}`;
+    const before = await expectKept(await anon.fetch(head), head);
+    expect(before).not.toContain('Lovely late hop aroma');
+    expect((await commentVia(reader, saved.recipe.id, 'Lovely late hop aroma')).status).toBe(201);
+    expect(await expectKept(await anon.fetch(head), head)).toContain('Lovely late hop aroma');
+
+    const version1 = await anon.fetch(`${head}/v/1`);
+    const etag1 = version1.headers.get('etag');
+    expect((await reader.put(`/api/recipes/${saved.recipe.id}/star`, {})).status).toBeLessThan(300);
+    const starred = await anon.fetch(`${head}/v/1`);
+    expect(starred.headers.get('etag')).not.toBe(etag1);
+
+    const next = await owner.post(`/api/recipes/${saved.recipe.id}/versions`, {
+      document: paleAle({ title: 'Changing Pale' }),
+      baseVersionId: saved.version.id,
+      message: 'More late hops',
+    });
+    expect(next.status).toBe(201);
+    expect(await expectKept(await anon.fetch(head), head)).toContain('More late hops');
+  });
+
+  it('stops serving a kept page at once when moderators hide the recipe or its owner makes it private', async () => {
+    const { client: owner } = await signedInClient();
+    const { client: reader } = await signedInClient();
+    const { client: moderator } = await signedInClient('moderator');
+    const anon = new TestClient();
+
+    const spam = await createRecipeVia(owner, { document: paleAle({ title: 'Soon Hidden Pale' }) });
+    const paths = [`/recipes/${spam.recipe.slug}`, `/recipes/${spam.recipe.slug}/v/1`];
+    for (const path of paths) await expectKept(await anon.fetch(path), path);
+    const report = await reader.post<{ id: string }>('/api/reports', {
+      targetType: 'recipe',
+      targetId: spam.recipe.id,
+      reason: 'spam',
+      note: '',
+    });
+    expect(report.status).toBe(201);
+    const hide = await moderator.post(`/api/moderation/reports/${report.body.id}`, {
+      action: 'hide',
+      reason: 'Advertising',
+    });
+    expect(hide.status).toBe(200);
+    for (const path of paths) {
+      const res = await anon.fetch(path);
+      expect(res.status, path).toBe(404);
+      expect(await res.text(), path).not.toContain('Soon Hidden Pale');
+    }
+
+    const secret = await createRecipeVia(owner, { document: paleAle({ title: 'Soon Private Pale' }) });
+    const secretPaths = [`/recipes/${secret.recipe.slug}`, `/recipes/${secret.recipe.slug}/v/1`];
+    for (const path of secretPaths) await expectKept(await anon.fetch(path), path);
+    expect((await owner.patch(`/api/recipes/${secret.recipe.id}`, { visibility: 'private' })).status).toBe(200);
+    for (const path of secretPaths) expect((await anon.fetch(path)).status, path).toBe(404);
+    const mine = await owner.fetch(secretPaths[1]);
+    expect(mine.status).toBe(200);
+    expect(mine.headers.get('cache-control')).toContain('no-store');
+  });
+
+  it('hides a comment from the kept page as soon as moderators hide it', async () => {
+    const { client: owner } = await signedInClient();
+    const { client: author } = await signedInClient();
+    const { client: moderator } = await signedInClient('moderator');
+    const saved = await createRecipeVia(owner);
+    const c = await commentVia(author, saved.recipe.id, 'Rude words about the bittering');
+    const head = `/recipes/${saved.recipe.slug}`;
+    const anon = new TestClient();
+    expect(await expectKept(await anon.fetch(head), head)).toContain('Rude words about the bittering');
+    const report = await owner.post<{ id: string }>('/api/reports', {
+      targetType: 'comment',
+      targetId: c.body.comment.id,
+      reason: 'spam',
+      note: '',
+    });
+    await moderator.post(`/api/moderation/reports/${report.body.id}`, { action: 'hide', reason: 'Be kind' });
+    expect(await expectKept(await anon.fetch(head), head)).not.toContain('Rude words about the bittering');
+  });
+
+  it('runs the kept page in a browser under its hash-only policy, with no script refused', async () => {
+    const { client: owner } = await signedInClient();
+    const saved = await createRecipeVia(owner, { document: paleAle({ title: 'Browser Kept Pale' }) });
+    const s = await openBrowser();
+    try {
+      const res = await s.page.goto(`/recipes/${saved.recipe.slug}/v/1`);
+      expect(scriptSrc((await res!.allHeaders())['content-security-policy'] ?? '')).toContain("'sha256-");
+      await s.page.locator('html[data-hydrated]').waitFor({ state: 'attached', timeout: 15_000 });
+      await s.page.getByRole('heading', { name: 'Browser Kept Pale' }).waitFor();
+      expect(s.problems).toEqual([]);
+    } finally {
+      await s.close();
+    }
+  });
+});
