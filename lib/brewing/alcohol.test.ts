@@ -9,6 +9,8 @@ import {
   mainSaccharificationTempC,
   realAttenuationPct,
   realExtractPlato,
+  REFERENCE_MASH_TEMP_C,
+  restTempForFg,
 } from './alcohol';
 import { sgToPlato } from './gravity';
 
@@ -63,14 +65,33 @@ describe('final gravity from yeast and mash', () => {
     expect(finalGravity(1.05, 75)).toBeCloseTo(1.0125, 10);
   });
 
-  // Common practice: a single rest at 65–67 °C leaves the yeast's attenuation as stated;
-  // hotter mashes leave more dextrins (higher FG), cooler ones fewer.
-  it('keeps the attenuation for a 65–67 °C rest and moves it outside', () => {
-    expect(adjustedAttenuationPct(75, 65)).toBe(75);
-    expect(adjustedAttenuationPct(75, 67)).toBe(75);
+  // The flat 65–67 °C band is replaced by a continuous line: the yeast's stated attenuation at a 66 °C
+  // rest, one point per °C (common practice, the middle of the 0.5–1.5 points per °C rule of thumb);
+  // beta-amylase gives way to alpha-amylase as the rest gets hotter (Briggs et al., Brewing: Science
+  // and Practice, 2004; from memory), so a hotter rest always leaves more dextrin.
+  it('moves attenuation continuously with the main rest, hotter rest lower attenuation', () => {
+    expect(adjustedAttenuationPct(75, REFERENCE_MASH_TEMP_C)).toBe(75);
+    expect(adjustedAttenuationPct(75, 65)).toBeCloseTo(76, 10);
+    expect(adjustedAttenuationPct(75, 67)).toBeCloseTo(74, 10);
+    expect(adjustedAttenuationPct(75, 65.5)).toBeGreaterThan(adjustedAttenuationPct(75, 66));
     expect(adjustedAttenuationPct(75, 69)).toBeLessThan(75);
     expect(adjustedAttenuationPct(75, 63)).toBeGreaterThan(75);
     expect(adjustedAttenuationPct(75, null)).toBe(75);
+    for (let t = 60; t < 72; t += 0.5) {
+      expect(adjustedAttenuationPct(75, t + 0.5)).toBeLessThan(adjustedAttenuationPct(75, t));
+    }
+  });
+
+  // The inverse of the same line: the rest that gives a target FG, and none when 62–72 °C cannot.
+  it('finds the rest temperature for a target FG and says when none in 62–72 °C reaches it', () => {
+    const og = 1.05;
+    const wanted = finalGravity(og, adjustedAttenuationPct(78, 68.4));
+    const found = restTempForFg(og, 78, wanted);
+    expect(found.ok && found.tempC).toBeCloseTo(68.4, 6);
+    const tooDry = restTempForFg(og, 78, 1.002);
+    expect(tooDry).toMatchObject({ ok: false, reason: 'too_low', closestTempC: 62 });
+    const tooSweet = restTempForFg(og, 78, 1.03);
+    expect(tooSweet).toMatchObject({ ok: false, reason: 'too_high', closestTempC: 72 });
   });
 
   it('clamps the adjustment and the attenuation', () => {

@@ -43,23 +43,64 @@ export function caloriesPer355mL(og: number, fg: number): number {
 }
 
 /**
- * Mash temperature band where a yeast's stated attenuation applies unchanged,
- * and how far each °C outside it moves attenuation: hotter mashes leave more
- * unfermentable dextrins, cooler ones fewer (common practice; the size of the
- * step, 1 percentage point per °C up to ±5, is a rule of thumb).
+ * Main saccharification rest and apparent attenuation, as one continuous
+ * straight line: a yeast's stated attenuation holds at a 66 °C rest, and each
+ * °C hotter leaves about one percentage point more unfermentable dextrin (each
+ * °C cooler, one point less), clamped to the 60–72 °C amylase range.
+ * Beta-amylase is most active near 60–65 °C and denatures quickly above it,
+ * alpha-amylase works on to about 70–72 °C (Briggs, Boulton, Brookes & Stevens,
+ * Brewing: Science and Practice, 2004, ch. 4; from memory). The slope of 1
+ * point per °C is the middle of the 0.5–1.5 points per °C rule of thumb
+ * (common practice); the 66 °C reference is where yeast makers usually state
+ * attenuation (common practice). Replaces the earlier flat 65–67 °C band, so a
+ * rest 1 °C cooler now gives a drier beer, as brewers expect.
  */
-const NEUTRAL_MASH_TEMP_C = { min: 65, max: 67 } as const;
-const ATTENUATION_PCT_PER_MASH_C = 1;
-const SACCHARIFICATION_TEMP_C = { min: 60, max: 72 } as const;
+export const REFERENCE_MASH_TEMP_C = 66;
+export const ATTENUATION_PCT_PER_MASH_C = 1;
+export const SACCHARIFICATION_TEMP_C = { min: 60, max: 72 } as const;
+/** Rest temperatures offered when solving for a target FG (common practice). */
+export const DESIGN_REST_TEMP_C = { min: 62, max: 72 } as const;
 
 /** Attenuation (%) after the mash-temperature adjustment; `mainMashTempC` null means no mash (no adjustment). */
 export function adjustedAttenuationPct(yeastAttenuationPct: number, mainMashTempC: number | null): number {
   if (mainMashTempC === null) return clamp(yeastAttenuationPct, 0, 100);
   const tempC = clamp(mainMashTempC, SACCHARIFICATION_TEMP_C.min, SACCHARIFICATION_TEMP_C.max);
-  let shiftPct = 0;
-  if (tempC > NEUTRAL_MASH_TEMP_C.max) shiftPct = -(tempC - NEUTRAL_MASH_TEMP_C.max) * ATTENUATION_PCT_PER_MASH_C;
-  else if (tempC < NEUTRAL_MASH_TEMP_C.min) shiftPct = (NEUTRAL_MASH_TEMP_C.min - tempC) * ATTENUATION_PCT_PER_MASH_C;
+  const shiftPct = (REFERENCE_MASH_TEMP_C - tempC) * ATTENUATION_PCT_PER_MASH_C;
   return clamp(yeastAttenuationPct + shiftPct, 0, 100);
+}
+
+export type RestForFg =
+  { ok: true; tempC: number } | { ok: false; reason: 'too_low' | 'too_high'; closestTempC: number; closestFg: number };
+
+/**
+ * The main rest temperature (62–72 °C) whose attenuation, by the line above,
+ * ferments `og` down to `targetFg`: the inverse of adjustedAttenuationPct.
+ * When no rest in that range gets there, says whether the target is below
+ * what the coolest rest reaches ('too_low') or above the hottest ('too_high').
+ */
+export function restTempForFg(og: number, yeastAttenuationPct: number, targetFg: number): RestForFg {
+  const points = og - 1;
+  const wantedPct = points > 0 ? (1 - (targetFg - 1) / points) * 100 : yeastAttenuationPct;
+  const tempC = REFERENCE_MASH_TEMP_C - (wantedPct - yeastAttenuationPct) / ATTENUATION_PCT_PER_MASH_C;
+  if (tempC < DESIGN_REST_TEMP_C.min) {
+    const closest = DESIGN_REST_TEMP_C.min;
+    return {
+      ok: false,
+      reason: 'too_low',
+      closestTempC: closest,
+      closestFg: finalGravity(og, adjustedAttenuationPct(yeastAttenuationPct, closest)),
+    };
+  }
+  if (tempC > DESIGN_REST_TEMP_C.max) {
+    const closest = DESIGN_REST_TEMP_C.max;
+    return {
+      ok: false,
+      reason: 'too_high',
+      closestTempC: closest,
+      closestFg: finalGravity(og, adjustedAttenuationPct(yeastAttenuationPct, closest)),
+    };
+  }
+  return { ok: true, tempC };
 }
 
 /**

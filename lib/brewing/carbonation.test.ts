@@ -5,6 +5,8 @@ import {
   kegPressurePsi,
   primingSugarGrams,
   residualCO2Volumes,
+  volumesAtPressureKPa,
+  volumesAtPressurePsi,
 } from './carbonation';
 import { KPA_PER_PSI, fahrenheitToCelsius } from './constants';
 
@@ -51,5 +53,37 @@ describe('priming', () => {
     expect(Math.abs(primingSugarGrams(2.5, 20, 19, 'dextrose_monohydrate') - 139)).toBeLessThan(1.5);
     expect(Math.abs(primingSugarGrams(2.5, 20, 19, 'sucrose') - 120)).toBeLessThan(1.5);
     expect(primingSugarGrams(1, 0, 19, 'sucrose')).toBe(0);
+  });
+});
+
+describe('spunding', () => {
+  // The keg relation of the force-carbonation tables solved for volumes (our reference notes, from
+  // memory of the printed tables): 15 psi at 85 °F holds about 1.3 volumes, the same 15 psi at 2 °C about 3.0.
+  it('reads the volumes held at a valve setting from the carbonation tables', () => {
+    expect(Math.abs(volumesAtPressurePsi(15, fahrenheitToCelsius(85)) - 1.3)).toBeLessThan(0.05);
+    expect(Math.abs(volumesAtPressurePsi(15, 2) - 3.0)).toBeLessThan(0.05);
+    expect(volumesAtPressureKPa(15 * KPA_PER_PSI, 2)).toBeCloseTo(volumesAtPressurePsi(15, 2), 10);
+  });
+
+  // Same printed table points as the keg check, read the other way round.
+  it.each([
+    [40, 12.3, 2.5],
+    [50, 18.8, 2.6],
+    [60, 30.2, 3.0],
+  ])('at %s °F, %s psi holds about %s volumes', (tempF, psi, volumes) => {
+    expect(Math.abs(volumesAtPressurePsi(psi, fahrenheitToCelsius(tempF)) - volumes)).toBeLessThan(0.03);
+  });
+
+  it('inverts the keg pressure exactly and holds more CO2 at higher pressure or colder beer', () => {
+    for (const [v, t] of [
+      [2.4, 4],
+      [1.6, 20],
+      [2.8, 12],
+    ]) {
+      expect(volumesAtPressurePsi(kegPressurePsi(v, t), t)).toBeCloseTo(v, 8);
+    }
+    expect(volumesAtPressurePsi(20, 18)).toBeGreaterThan(volumesAtPressurePsi(10, 18));
+    expect(volumesAtPressurePsi(10, 5)).toBeGreaterThan(volumesAtPressurePsi(10, 20));
+    expect(volumesAtPressurePsi(0, 20)).toBeCloseTo(residualCO2Volumes(20), 10);
   });
 });

@@ -61,3 +61,25 @@ export function primingSugarGrams(
   const missingVolumes = Math.max(targetVolumesCO2 - residualCO2Volumes(highestBeerTempC), 0);
   return missingVolumes * CO2_G_PER_L_AT_STP * SUGAR_G_PER_G_CO2[sugar] * volumeL;
 }
+
+/**
+ * CO2 (volumes) a beer holds under a head pressure of `psi` at `tempC`: the
+ * force-carbonation regression of kegPressurePsi solved for V (the smaller
+ * root of its quadratic in V), which is what a spunding valve set to that
+ * pressure leaves in the beer. At or below 0 psi, the 1 atm residual CO2.
+ */
+export function volumesAtPressurePsi(psi: number, tempC: number): number {
+  if (psi <= 0) return residualCO2Volumes(tempC);
+  const t = celsiusToFahrenheit(tempC);
+  const a = 0.0684226;
+  const b = 0.173354 * t + 4.24267;
+  const c = psi - (-16.6999 - 0.0101059 * t + 0.00116512 * t * t);
+  const discriminant = b * b - 4 * a * c;
+  // Past the top of the parabola (about 30 volumes) the regression has no answer; hold the top.
+  if (discriminant <= 0) return b / (2 * a);
+  return (b - Math.sqrt(discriminant)) / (2 * a);
+}
+
+export function volumesAtPressureKPa(kPa: number, tempC: number): number {
+  return volumesAtPressurePsi(kPa / KPA_PER_PSI, tempC);
+}

@@ -8,6 +8,7 @@ export * from './colour';
 export * from './alcohol';
 export * from './gravity';
 export * from './water';
+export * from './mash-ph';
 export * from './carbonation';
 export * from './brewday';
 export * from './scale';

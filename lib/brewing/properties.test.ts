@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { scaleRecipe } from './scale';
 import { recipeDocumentSchema, type RecipeDocument } from './schema';
 import { computeStats } from './stats';
-import { collectNumbers, recipeInputArb } from './test-fixtures';
+import { collectNumbers, examplePaleAle, recipeInputArb } from './test-fixtures';
 
 /** Generated documents, parsed: the generator stays inside the schema's bounds, so every one must pass. */
 function validRecipeArb(options?: Parameters<typeof recipeInputArb>[0]): fc.Arbitrary<RecipeDocument> {
@@ -78,8 +78,9 @@ describe('engine properties', () => {
         const back = scaleRecipe(there, { volumeL: doc.batch.volumeL, efficiencyPct: doc.batch.efficiencyPct });
         const grainRatio = volumeRatio * (doc.batch.efficiencyPct / efficiencyPct);
         back.fermentables.forEach((fermentable, i) => {
-          // Two roundings to 1 g: the first is magnified on the way back by 1 / ratio.
-          const tolerance = 0.0005 / Math.min(grainRatio, volumeRatio) + 0.0005 + 1e-9;
+          // Two roundings to 1 g: the first is magnified on the way back by 1 / ratio (base and specialty
+          // malt ratios of a colour-keeping fit stay within half the smaller and twice the larger ratio).
+          const tolerance = 0.0005 / (0.5 * Math.min(grainRatio, volumeRatio)) + 0.0005 + 1e-9;
           expect(Math.abs(fermentable.amountKg - doc.fermentables[i].amountKg)).toBeLessThanOrEqual(tolerance);
         });
         back.hops.forEach((hop, i) => {
@@ -92,6 +93,26 @@ describe('engine properties', () => {
         const statsAfter = computeStats(back);
         expect(Math.abs(statsAfter.og - statsBefore.og)).toBeLessThan(0.001);
       }),
+      RUNS,
+    );
+  });
+
+  // Fitting a recipe to another brewhouse keeps what the recipe page shows: OG to 0.001, IBU to a
+  // whole unit, colour to 0.5 SRM (display precision); grain weighed to 1 g, hops to 0.1 g.
+  it('keeps OG, IBU and colour within display precision when fitted to another brewhouse', () => {
+    const doc = examplePaleAle();
+    const before = computeStats(doc);
+    fc.assert(
+      fc.property(
+        fc.double({ min: 5, max: 200, noNaN: true }),
+        fc.double({ min: 50, max: 95, noNaN: true }),
+        (volumeL, efficiencyPct) => {
+          const after = computeStats(scaleRecipe(doc, { volumeL, efficiencyPct }));
+          expect(Math.abs(after.og - before.og)).toBeLessThan(0.0005);
+          expect(Math.abs(after.ibu - before.ibu)).toBeLessThan(0.5);
+          expect(Math.abs(after.srm - before.srm)).toBeLessThan(0.25);
+        },
+      ),
       RUNS,
     );
   });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { scaleRecipe } from './scale';
+import { describeFit, scaleRecipe } from './scale';
 import { computeStats } from './stats';
 import { examplePaleAle } from './test-fixtures';
 
@@ -19,12 +19,31 @@ describe('scaleRecipe', () => {
     expect(scaled.water?.volumeL).toBeCloseTo(doc.water!.volumeL * 2.25, 10);
   });
 
-  it('adds grain for a lower efficiency and keeps OG and IBU', () => {
+  // Morey's colour counts grain weight, extract counts weight × efficiency: a brewhouse that extracts
+  // less adds base malt (more than the efficiency ratio) and holds the specialty malts near the volume
+  // ratio, so OG, IBU and colour all stay (Morey, as printed by Palmer, How to Brew).
+  it('adds base malt for a lower efficiency and keeps OG, IBU and colour', () => {
     const scaled = scaleRecipe(doc, { volumeL: 20, efficiencyPct: 60 });
     const after = computeStats(scaled);
-    expect(scaled.fermentables[0].amountKg).toBeCloseTo((doc.fermentables[0].amountKg * 72) / 60, 3);
-    expect(after.og).toBeCloseTo(before.og, 4);
+    expect(scaled.fermentables[0].amountKg).toBeGreaterThan((doc.fermentables[0].amountKg * 72) / 60);
+    expect(scaled.fermentables[2].amountKg).toBeLessThan((doc.fermentables[2].amountKg * 72) / 60);
+    expect(after.og).toBeCloseTo(before.og, 3);
     expect(after.ibu).toBeCloseTo(before.ibu, 1);
+    expect(after.srm).toBeCloseTo(before.srm, 1);
+  });
+
+  it('takes the new brewhouse losses and lists what it changes', () => {
+    const scaled = scaleRecipe(doc, { volumeL: 40, efficiencyPct: 65, trubLossL: 2.5, boilOffLPerHour: 6 });
+    expect(scaled.batch).toMatchObject({ volumeL: 40, efficiencyPct: 65, trubLossL: 2.5, boilOffLPerHour: 6 });
+    const changes = describeFit(doc, scaled);
+    expect(changes.find((c) => c.what === 'Batch volume')).toEqual({
+      what: 'Batch volume',
+      from: 20,
+      to: 40,
+      unit: 'L',
+    });
+    expect(changes.find((c) => c.what === doc.fermentables[0].name)?.to).toBe(scaled.fermentables[0].amountKg);
+    expect(changes.some((c) => c.what === 'Mash thickness')).toBe(false);
   });
 
   it('scales extracts and sugars by volume only', () => {

@@ -55,6 +55,9 @@ export const HOP_USES = ['mash', 'first_wort', 'boil', 'whirlpool', 'dry_hop'] a
 export const HOP_FORMS = ['pellet', 'leaf'] as const;
 export const YEAST_KINDS = ['ale', 'lager', 'kveik', 'wheat', 'wild', 'other'] as const;
 export const SALT_NAMES = ['gypsum', 'epsom', 'table_salt', 'calcium_chloride', 'baking_soda'] as const;
+export const ACID_KINDS = ['lactic_88', 'phosphoric_10'] as const;
+/** Highest spunding pressure accepted: past what homebrew pressure fermenters and kegs are rated for. */
+export const MAX_SPUNDING_KPA = 400;
 // Kept with the constants so display code can list the ions without loading the validators.
 export { ION_NAMES };
 
@@ -63,6 +66,7 @@ export type HopUse = (typeof HOP_USES)[number];
 export type HopForm = (typeof HOP_FORMS)[number];
 export type YeastKind = (typeof YEAST_KINDS)[number];
 export type SaltName = (typeof SALT_NAMES)[number];
+export type AcidKindName = (typeof ACID_KINDS)[number];
 export type IonName = (typeof ION_NAMES)[number];
 
 const batchSchema = z.object(
@@ -216,6 +220,19 @@ const waterSchema = z
         .max(10000, 'Water volume must be at most 10000 L'),
       source: waterProfileSchema,
       salts: listField('Salts', saltAdditionSchema, 20).default([]),
+      /** The profile the brewer aims for; the engine proposes salts towards it. */
+      target: waterProfileSchema.optional(),
+      acid: z
+        .object(
+          {
+            kind: choiceField('Acid', ACID_KINDS),
+            mL: numberField('Acid amount')
+              .min(0, 'Acid amount cannot be negative')
+              .max(1000, 'Acid amount must be at most 1000 mL'),
+          },
+          objectError('Acid'),
+        )
+        .optional(),
     },
     objectError('Water'),
   )
@@ -234,6 +251,21 @@ const carbonationSchema = z.object(
       .max(25, 'Serving temperature must be at most 25 °C'),
   },
   objectError('Carbonation'),
+);
+
+const spundingSchema = z.object(
+  {
+    pressureKPa: numberField('Spunding pressure')
+      .min(0, 'Spunding pressure cannot be negative')
+      .max(
+        MAX_SPUNDING_KPA,
+        `Spunding pressure must be at most ${MAX_SPUNDING_KPA} kPa (about 58 psi), past what homebrew vessels are rated for`,
+      ),
+    tempC: numberField('Spunding temperature')
+      .min(0, 'Spunding temperature cannot be below 0 °C')
+      .max(40, 'Spunding temperature must be at most 40 °C'),
+  },
+  objectError('Spunding'),
 );
 
 const styleSchema = z.object(
@@ -259,7 +291,7 @@ const documentShape = z.object(
     yeasts: listField('Yeasts', yeastSchema, 10).min(1, 'Yeasts need at least one entry'),
     mash: z.object({ steps: listField('Mash steps', mashStepSchema, 20) }, objectError('Mash')),
     fermentation: z.object(
-      { steps: listField('Fermentation steps', fermentationStepSchema, 20) },
+      { steps: listField('Fermentation steps', fermentationStepSchema, 20), spunding: spundingSchema.optional() },
       objectError('Fermentation'),
     ),
     water: waterSchema.optional(),

@@ -127,4 +127,42 @@ describe('salt planning', () => {
       }
     }
   });
+
+  // The seed brewer's water (fact of the trade): 8 US gal of soft water with 5 g gypsum, 3 g Epsom salt,
+  // 3 g table salt and 10 g calcium chloride dihydrate gives about 128 Ca / 10 Mg / 39 Na / 219 Cl /
+  // 130 SO4 / 0 HCO3 mg/L. Solved backwards from the printed profile, the plan finds those salts.
+  it('solves the seed pale ale water backwards from its printed profile', () => {
+    const target = { calcium: 128, magnesium: 10, sodium: 39, chloride: 219, sulfate: 130, bicarbonate: 0 };
+    const plan = planWaterSalts(DISTILLED, target, 8 * L_PER_US_GALLON);
+    const grams = Object.fromEntries(plan.salts.map((s) => [s.salt, s.grams]));
+    expect(grams.gypsum).toBeCloseTo(5, 0);
+    expect(grams.epsom).toBeCloseTo(3, 0);
+    expect(grams.table_salt).toBeCloseTo(3, 0);
+    expect(grams.calcium_chloride).toBeCloseTo(10, 0);
+    expect(grams.baking_soda).toBeUndefined();
+    expect(plan.misses).toEqual([]);
+    expect(plan.rmsErrorMgPerL).toBeLessThan(2);
+  });
+
+  // Salts only add ions (common practice): sodium already above target in the source is named, with how far off.
+  it('names an ion the source already overshoots', () => {
+    const source = { calcium: 5, magnesium: 2, sodium: 60, chloride: 10, sulfate: 10, bicarbonate: 20 };
+    const target = { calcium: 128, magnesium: 10, sodium: 39, chloride: 219, sulfate: 130, bicarbonate: 0 };
+    const plan = planWaterSalts(source, target, 30);
+    const sodium = plan.misses.find((m) => m.ion === 'sodium');
+    expect(sodium?.fromSource).toBe(true);
+    expect(sodium!.offMgPerL).toBeGreaterThanOrEqual(21 - 1e-9);
+    expect(plan.misses.find((m) => m.ion === 'bicarbonate')).toMatchObject({ fromSource: true, offMgPerL: 20 });
+  });
+
+  it('scales the grams with the volume treated and solves in well under 5 ms', () => {
+    const target = { calcium: 90, magnesium: 8, sodium: 20, chloride: 120, sulfate: 180, bicarbonate: 10 };
+    const source = { calcium: 4, magnesium: 1, sodium: 3, chloride: 4, sulfate: 3, bicarbonate: 15 };
+    const started = performance.now();
+    const small = planWaterSalts(source, target, 10);
+    const elapsed = performance.now() - started;
+    const large = planWaterSalts(source, target, 40);
+    expect(elapsed).toBeLessThan(5);
+    small.salts.forEach((s, i) => expect(large.salts[i].grams).toBeCloseTo(s.grams * 4, 1));
+  });
 });

@@ -82,7 +82,15 @@ export interface SaltPlan {
   water: WaterProfile;
   /** Root-mean-square distance (mg/L) of the six ions from the target. */
   rmsErrorMgPerL: number;
+  /** Ions the plan leaves off target by more than PLAN_TOLERANCE; `fromSource` when the source alone is already above. */
+  misses: { ion: IonName; offMgPerL: number; fromSource: boolean }[];
 }
+
+/** An ion counts as reached within 5 mg/L or 5 % of its target, whichever is larger (common practice for a salt plan). */
+export const PLAN_TOLERANCE = { mgPerL: 5, share: 0.05 } as const;
+
+let lastPlanKey = '';
+let lastPlanGramsPerL: number[] = [];
 
 /**
  * Proposes salt additions (never negative) for `volumeL` of `source` water
@@ -93,8 +101,33 @@ export interface SaltPlan {
  * them, so trying each set and keeping the best feasible one is exact.
  */
 export function planWaterSalts(source: WaterProfile, target: WaterProfile, volumeL: number): SaltPlan {
+  // The plan in g/L depends on the two profiles only; the last one is kept, since the live
+  // panel recomputes on every keystroke and the water rarely changes between them.
+  const key = ION_NAMES.map((ion) => `${source[ion]},${target[ion]}`).join(';');
+  if (key !== lastPlanKey) {
+    lastPlanGramsPerL = solveGramsPerL(source, target);
+    lastPlanKey = key;
+  }
+  const salts = SALT_NAMES.map((salt, j) => ({
+    salt,
+    grams: Math.round(lastPlanGramsPerL[j] * volumeL * 100) / 100,
+  })).filter((addition) => addition.grams > 0);
+  const water = waterAfterSalts(source, salts, volumeL);
+  const rmsErrorMgPerL = Math.sqrt(sumOfSquares(ION_NAMES.map((ion) => water[ion] - target[ion])) / ION_NAMES.length);
+  const misses: SaltPlan['misses'] = [];
+  for (const ion of ION_NAMES) {
+    const off = water[ion] - target[ion];
+    if (Math.abs(off) > Math.max(PLAN_TOLERANCE.mgPerL, PLAN_TOLERANCE.share * target[ion])) {
+      misses.push({ ion, offMgPerL: off, fromSource: source[ion] > target[ion] });
+    }
+  }
+  return { salts, water, rmsErrorMgPerL, misses };
+}
+
+/** Grams of each salt per litre (SALT_NAMES order) by exact non-negative least squares over the 31 salt sets. */
+function solveGramsPerL(source: WaterProfile, target: WaterProfile): number[] {
   const shortfall = ION_NAMES.map((ion) => target[ion] - source[ion]);
-  const columns = SALT_NAMES.map((salt) => ION_NAMES.map((ion) => SALT_ION_MG_PER_G[salt][ion] / volumeL));
+  const columns = SALT_NAMES.map((salt) => ION_NAMES.map((ion) => SALT_ION_MG_PER_G[salt][ion]));
   let bestGrams: number[] = SALT_NAMES.map(() => 0);
   let bestError = sumOfSquares(shortfall);
   for (let mask = 1; mask < 1 << SALT_NAMES.length; mask++) {
@@ -112,12 +145,7 @@ export function planWaterSalts(source: WaterProfile, target: WaterProfile, volum
       bestGrams = grams;
     }
   }
-  const salts = SALT_NAMES.map((salt, j) => ({ salt, grams: Math.round(bestGrams[j] * 100) / 100 })).filter(
-    (addition) => addition.grams > 0,
-  );
-  const water = waterAfterSalts(source, salts, volumeL);
-  const rmsErrorMgPerL = Math.sqrt(sumOfSquares(ION_NAMES.map((ion) => water[ion] - target[ion])) / ION_NAMES.length);
-  return { salts, water, rmsErrorMgPerL };
+  return bestGrams;
 }
 
 function sumOfSquares(values: readonly number[]): number {
