@@ -1,11 +1,14 @@
 // Throughput of the brewing engine: full computeStats calls per second on one core.
-import { computeStats, recipeDocumentSchema, type RecipeDocument } from '../lib/brewing';
+import { computeStats, planWaterSalts, recipeDocumentSchema, type RecipeDocument } from '../lib/brewing';
 import type { BenchRow } from './types';
 
 const RUNS = 7;
 const CALLS_PER_RUN = 50_000;
 
-/** An invented 12-ingredient recipe (5 fermentables, 6 hops, 1 yeast) with water, carbonation and a style. */
+/**
+ * An invented 12-ingredient recipe (5 fermentables, 6 hops, 1 yeast) with water and a target profile
+ * (so the salt plan and predicted mash pH are in every call), spunding, carbonation and a style.
+ */
 function benchRecipe(): RecipeDocument {
   return recipeDocumentSchema.parse({
     title: 'Benchmark amber',
@@ -32,7 +35,7 @@ function benchRecipe(): RecipeDocument {
         { tempC: 76, timeMin: 10 },
       ],
     },
-    fermentation: { steps: [{ tempC: 19, days: 12 }] },
+    fermentation: { steps: [{ tempC: 19, days: 12 }], spunding: { pressureKPa: 100, tempC: 19 } },
     water: {
       volumeL: 35,
       source: { calcium: 30, magnesium: 5, sodium: 12, chloride: 20, sulfate: 25, bicarbonate: 90 },
@@ -40,6 +43,7 @@ function benchRecipe(): RecipeDocument {
         { salt: 'gypsum', grams: 5 },
         { salt: 'calcium_chloride', grams: 4 },
       ],
+      target: { calcium: 110, magnesium: 10, sodium: 20, chloride: 90, sulfate: 200, bicarbonate: 60 },
     },
     carbonation: { volumesCO2: 2.4, servingTempC: 4 },
     style: { code: '19A', name: 'American Amber Ale' },
@@ -61,6 +65,16 @@ function timeRun(doc: RecipeDocument): { callsPerSecond: number; checksum: numbe
   return { callsPerSecond: (CALLS_PER_RUN / elapsedMs) * 1000, checksum };
 }
 
+/** Milliseconds per salt plan solved from scratch: each call has a new target, so nothing is reused. */
+function timeSaltPlans(doc: RecipeDocument, plans: number): number {
+  const water = doc.water!;
+  const started = performance.now();
+  for (let i = 0; i < plans; i++) {
+    planWaterSalts(water.source, { ...water.target!, calcium: 100 + (i % 1000) * 0.01 }, water.volumeL);
+  }
+  return (performance.now() - started) / plans;
+}
+
 export async function benchEngine(): Promise<BenchRow[]> {
   const doc = benchRecipe();
   timeRun(doc);
@@ -79,6 +93,14 @@ export async function benchEngine(): Promise<BenchRow[]> {
       unit: 'calls/s',
       target: { op: '>', value: 50000 },
       note: `median of ${RUNS} runs of ${CALLS_PER_RUN} calls after a warm-up run (checksum ${checksum.toFixed(0)})`,
+    },
+    {
+      area: 'brewing',
+      metric: 'salt plan solved from scratch (five salts, six ions)',
+      value: Number(median(Array.from({ length: RUNS }, () => timeSaltPlans(doc, 2000))).toFixed(4)),
+      unit: 'ms',
+      target: { op: '<', value: 5 },
+      note: `median of ${RUNS} runs of 2000 plans, each for a different target`,
     },
   ];
 }

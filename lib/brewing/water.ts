@@ -89,8 +89,17 @@ export interface SaltPlan {
 /** An ion counts as reached within 5 mg/L or 5 % of its target, whichever is larger (common practice for a salt plan). */
 export const PLAN_TOLERANCE = { mgPerL: 5, share: 0.05 } as const;
 
-let lastPlanKey = '';
-let lastPlanGramsPerL: number[] = [];
+/** The last plan and what it was for: 6 source ions, 6 target ions, the volume. */
+const lastPlanInput = new Float64Array(13).fill(Number.NaN);
+let lastPlan: SaltPlan | null = null;
+
+function sameAsLastPlan(source: WaterProfile, target: WaterProfile, volumeL: number): boolean {
+  if (lastPlanInput[12] !== volumeL) return false;
+  for (let i = 0; i < ION_NAMES.length; i++) {
+    if (lastPlanInput[i] !== source[ION_NAMES[i]] || lastPlanInput[6 + i] !== target[ION_NAMES[i]]) return false;
+  }
+  return true;
+}
 
 /**
  * Proposes salt additions (never negative) for `volumeL` of `source` water
@@ -101,16 +110,24 @@ let lastPlanGramsPerL: number[] = [];
  * them, so trying each set and keeping the best feasible one is exact.
  */
 export function planWaterSalts(source: WaterProfile, target: WaterProfile, volumeL: number): SaltPlan {
-  // The plan in g/L depends on the two profiles only; the last one is kept, since the live
-  // panel recomputes on every keystroke and the water rarely changes between them.
-  const key = ION_NAMES.map((ion) => `${source[ion]},${target[ion]}`).join(';');
-  if (key !== lastPlanKey) {
-    lastPlanGramsPerL = solveGramsPerL(source, target);
-    lastPlanKey = key;
-  }
+  // The last plan is kept: the live panel recomputes on every keystroke and the water rarely
+  // changes between them. Callers must not change the plan they are given.
+  if (lastPlan && sameAsLastPlan(source, target, volumeL)) return lastPlan;
+  const plan = solvePlan(source, target, volumeL);
+  ION_NAMES.forEach((ion, i) => {
+    lastPlanInput[i] = source[ion];
+    lastPlanInput[6 + i] = target[ion];
+  });
+  lastPlanInput[12] = volumeL;
+  lastPlan = plan;
+  return plan;
+}
+
+function solvePlan(source: WaterProfile, target: WaterProfile, volumeL: number): SaltPlan {
+  const gramsPerL = solveGramsPerL(source, target);
   const salts = SALT_NAMES.map((salt, j) => ({
     salt,
-    grams: Math.round(lastPlanGramsPerL[j] * volumeL * 100) / 100,
+    grams: Math.round(gramsPerL[j] * volumeL * 100) / 100,
   })).filter((addition) => addition.grams > 0);
   const water = waterAfterSalts(source, salts, volumeL);
   const rmsErrorMgPerL = Math.sqrt(sumOfSquares(ION_NAMES.map((ion) => water[ion] - target[ion])) / ION_NAMES.length);
