@@ -56,10 +56,10 @@ export function caloriesPer355mL(og: number, fg: number): number {
  * rest 1 °C cooler now gives a drier beer, as brewers expect.
  */
 export const REFERENCE_MASH_TEMP_C = 66;
-export const ATTENUATION_PCT_PER_MASH_C = 1;
-export const SACCHARIFICATION_TEMP_C = { min: 60, max: 72 } as const;
+const ATTENUATION_PCT_PER_MASH_C = 1;
+const SACCHARIFICATION_TEMP_C = { min: 60, max: 72 } as const;
 /** Rest temperatures offered when solving for a target FG (common practice). */
-export const DESIGN_REST_TEMP_C = { min: 62, max: 72 } as const;
+const DESIGN_REST_TEMP_C = { min: 62, max: 72 } as const;
 
 /** Attenuation (%) after the mash-temperature adjustment; `mainMashTempC` null means no mash (no adjustment). */
 export function adjustedAttenuationPct(yeastAttenuationPct: number, mainMashTempC: number | null): number {

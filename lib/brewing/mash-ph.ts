@@ -20,7 +20,7 @@ import { residualAlkalinity } from './water';
 export type MaltClass = 'base' | 'crystal' | 'roasted' | 'acidulated';
 
 /** Buffering capacity of malt, mEq per kg per pH unit (roughly 30–50 for base malt; from memory, Troester 2009). */
-export const MALT_BUFFER_MEQ_PER_KG_PH = 33;
+const MALT_BUFFER_MEQ_PER_KG_PH = 33;
 /** Distilled-water pH of base malt at 2 °L and its fall per °L of colour (from memory, Troester 2009). */
 const BASE_PH_AT_2L = 5.72;
 const BASE_PH_PER_LOVIBOND = -0.02;

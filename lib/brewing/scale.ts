@@ -17,7 +17,7 @@ export interface ScaleTarget {
 }
 
 /** Malts at or below this colour count as base malt when the fit keeps colour (common practice: base malts are 1.5–4 °L). */
-export const BASE_MALT_MAX_LOVIBOND = 5;
+const BASE_MALT_MAX_LOVIBOND = 5;
 
 /** Rounds to a number of decimals; amounts are rounded to what a brewer weighs. */
 function roundTo(value: number, decimals: number): number {

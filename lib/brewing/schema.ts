@@ -55,9 +55,9 @@ export const HOP_USES = ['mash', 'first_wort', 'boil', 'whirlpool', 'dry_hop'] a
 export const HOP_FORMS = ['pellet', 'leaf'] as const;
 export const YEAST_KINDS = ['ale', 'lager', 'kveik', 'wheat', 'wild', 'other'] as const;
 export const SALT_NAMES = ['gypsum', 'epsom', 'table_salt', 'calcium_chloride', 'baking_soda'] as const;
-export const ACID_KINDS = ['lactic_88', 'phosphoric_10'] as const;
+const ACID_KINDS = ['lactic_88', 'phosphoric_10'] as const;
 /** Highest spunding pressure accepted: past what homebrew pressure fermenters and kegs are rated for. */
-export const MAX_SPUNDING_KPA = 400;
+const MAX_SPUNDING_KPA = 400;
 // Kept with the constants so display code can list the ions without loading the validators.
 export { ION_NAMES };
 
@@ -66,7 +66,6 @@ export type HopUse = (typeof HOP_USES)[number];
 export type HopForm = (typeof HOP_FORMS)[number];
 export type YeastKind = (typeof YEAST_KINDS)[number];
 export type SaltName = (typeof SALT_NAMES)[number];
-export type AcidKindName = (typeof ACID_KINDS)[number];
 export type IonName = (typeof ION_NAMES)[number];
 
 const batchSchema = z.object(

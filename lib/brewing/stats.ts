@@ -37,14 +37,14 @@ interface WaterStats extends WaterProfile {
   plan?: SaltPlan;
 }
 
-export interface MashStats {
+interface MashStats {
   /** Predicted room-temperature mash pH (Troester 2009 model, see mash-ph.ts); null when nothing is mashed. */
   predictedPh: number | null;
   /** Time-weighted main saccharification rest (°C); null without one. */
   mainRestTempC: number | null;
 }
 
-export interface SpundingStats {
+interface SpundingStats {
   pressureKPa: number;
   tempC: number;
   /** CO2 the beer holds at the valve setting. */

@@ -87,7 +87,7 @@ export interface SaltPlan {
 }
 
 /** An ion counts as reached within 5 mg/L or 5 % of its target, whichever is larger (common practice for a salt plan). */
-export const PLAN_TOLERANCE = { mgPerL: 5, share: 0.05 } as const;
+const PLAN_TOLERANCE = { mgPerL: 5, share: 0.05 } as const;
 
 /** The last plan and what it was for: 6 source ions, 6 target ions, the volume. */
 const lastPlanInput = new Float64Array(13).fill(Number.NaN);
