@@ -12,7 +12,10 @@ import { signedInClient } from '../helpers/users';
 const primaryUrl = new URL(process.env.DATABASE_URL!);
 const primaryPort = Number(primaryUrl.port);
 const replicaPort = primaryPort + 40;
-const replicaDir = path.resolve(`.data/pg-replica-${primaryPort}`);
+// Beside the primary's cluster, which scripts/db.sh keeps where the postgres user can reach it
+// (outside the checkout when the checkout sits in a private folder).
+const primaryDir = execFileSync('bash', ['scripts/db.sh', 'where']).toString().trim();
+const replicaDir = path.join(path.dirname(primaryDir), `pg-replica-${primaryPort}`);
 const replicaUrl = Object.assign(new URL(primaryUrl), { port: String(replicaPort) }).toString();
 
 function bindir(): string {
@@ -26,8 +29,10 @@ function bindir(): string {
 /** Runs a PostgreSQL program as the postgres OS user when we are root, as scripts/db.sh does. */
 function asPostgres(program: string, args: string[]) {
   const bin = path.join(bindir(), program);
-  if (process.getuid?.() === 0) execFileSync('runuser', ['-u', 'postgres', '--', bin, ...args], { stdio: 'pipe' });
-  else execFileSync(bin, args, { stdio: 'pipe' });
+  // From / so a working folder the postgres user cannot enter does not matter.
+  if (process.getuid?.() === 0)
+    execFileSync('runuser', ['-u', 'postgres', '--', bin, ...args], { stdio: 'pipe', cwd: '/' });
+  else execFileSync(bin, args, { stdio: 'pipe', cwd: '/' });
 }
 
 function stopReplica() {
