@@ -116,7 +116,7 @@ const MALTS = [
   'Rye malt',
   'Smoked malt',
   'Table sugar',
-  'Maris-style pale malt',
+  'floor-malted English pale malt',
 ];
 const HOPS = [
   'Cascade',

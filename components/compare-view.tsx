@@ -4,20 +4,12 @@ import type {
   DocumentComparison,
   ItemComparison,
   SectionComparison,
+  StatAttribution,
   StatDelta,
 } from '@/lib/recipes/compare';
+import { SECTION_TITLE as FIELD_SECTION_TITLE } from '@/lib/recipes/fields';
 
-const SECTION_TITLE: Record<SectionComparison['section'], string> = {
-  settings: 'Batch and style',
-  fermentables: 'Fermentables',
-  hops: 'Hops',
-  yeasts: 'Yeast',
-  mash: 'Mash',
-  fermentation: 'Fermentation',
-  water: 'Water',
-  salts: 'Water salts',
-  carbonation: 'Carbonation',
-};
+const SECTION_TITLE: Record<SectionComparison['section'], string> = FIELD_SECTION_TITLE;
 
 const STATUS_STYLE: Record<ChangeStatus, string> = {
   added: 'border-l-4 border-bine bg-bine/10',
@@ -33,34 +25,11 @@ const STATUS_WORD: Record<ChangeStatus, string> = {
   same: 'same',
 };
 
-const STAT_LABEL: Record<string, { label: string; digits: number }> = {
-  og: { label: 'OG', digits: 3 },
-  fg: { label: 'FG', digits: 3 },
-  abv: { label: 'ABV %', digits: 2 },
-  ibu: { label: 'IBU', digits: 1 },
-  srm: { label: 'Colour (SRM)', digits: 1 },
-  ebc: { label: 'Colour (EBC)', digits: 1 },
-  buGu: { label: 'BU:GU', digits: 2 },
-  caloriesPer355mL: { label: 'kcal per 355 mL', digits: 0 },
-  attenuationPct: { label: 'Attenuation %', digits: 1 },
-  sulfateToChloride: { label: 'Sulfate : chloride', digits: 2 },
-  residualAlkalinity: { label: 'Residual alkalinity', digits: 0 },
-  kegPressureKPa: { label: 'Keg pressure (kPa)', digits: 0 },
-};
-
-function describe(values: Record<string, unknown> | null): string {
-  if (!values) return '';
-  return Object.entries(values)
-    .filter(([k]) => k !== 'name')
-    .map(([k, v]) => `${k} ${v}`)
-    .join(' · ');
-}
-
 function Item({ item }: { item: ItemComparison }) {
   return (
     <li className={`rounded-sm px-3 py-2 ${STATUS_STYLE[item.status]}`}>
       <p className="font-semibold">
-        {item.label}{' '}
+        {item.kind === 'swap' || item.kind === 'moved' ? item.summary : item.label}{' '}
         <span className="ml-1 font-sans text-xs font-normal uppercase tracking-wide text-muted">
           {STATUS_WORD[item.status]}
         </span>
@@ -69,36 +38,45 @@ function Item({ item }: { item: ItemComparison }) {
         <ul className="kf-data mt-1 text-sm">
           {item.changes.map((c) => (
             <li key={c.field}>
-              {c.field}: <del className="text-danger">{String(c.before ?? '—')}</del> →{' '}
-              <ins className="text-bine no-underline">{String(c.after ?? '—')}</ins>
+              {c.label}: <del className="text-danger">{c.before}</del> →{' '}
+              <ins className="text-bine no-underline">{c.after}</ins>
+              {c.delta && <span className="ml-1 text-muted">({c.delta})</span>}
             </li>
           ))}
         </ul>
       )}
       {(item.status === 'added' || item.status === 'removed') && (
-        <p className="kf-data mt-1 text-sm text-muted">
-          {describe(item.status === 'added' ? item.after : item.before)}
-        </p>
+        <p className="kf-data mt-1 text-sm text-muted">{item.details}</p>
       )}
     </li>
   );
 }
 
 function StatRow({ row }: { row: StatDelta }) {
-  const meta = STAT_LABEL[row.stat] ?? { label: row.stat, digits: 2 };
-  const fmt = (n: number | null) => (n === null ? '—' : n.toFixed(meta.digits));
-  const moved = row.delta !== null && Number(row.delta.toFixed(meta.digits)) !== 0;
   return (
-    <tr className={`border-b border-line/50 ${moved ? 'font-semibold' : ''}`}>
+    <tr className={`border-b border-line/50 ${row.moved ? 'font-semibold' : ''}`}>
       <th scope="row" className="py-1.5 pr-3 text-left font-normal">
-        {meta.label}
+        {row.label}
       </th>
-      <td className="py-1.5 pr-3">{fmt(row.before)}</td>
-      <td className="py-1.5 pr-3">{fmt(row.after)}</td>
-      <td className={`py-1.5 ${moved ? 'text-copper-strong' : 'text-muted'}`}>
-        {row.delta === null ? '—' : `${row.delta > 0 ? '+' : ''}${row.delta.toFixed(meta.digits)}`}
-      </td>
+      <td className="py-1.5 pr-3">{row.beforeText}</td>
+      <td className="py-1.5 pr-3">{row.afterText}</td>
+      <td className={`py-1.5 ${row.moved ? 'text-copper-strong' : 'text-muted'}`}>{row.deltaText}</td>
     </tr>
+  );
+}
+
+/** Why the numbers moved: each changed number with the changes that moved it. */
+function AttributionList({ attribution, lead }: { attribution: StatAttribution[]; lead?: string }) {
+  if (!attribution.length) return <p className="mt-3 font-sans text-sm text-muted">No number changed.</p>;
+  return (
+    <div className="mt-3">
+      {lead && <p className="font-sans text-sm">{lead}</p>}
+      <ul className="mt-1 list-disc space-y-1 pl-5 font-sans text-sm">
+        {attribution.map((a) => (
+          <li key={a.stat}>{a.sentence}</li>
+        ))}
+      </ul>
+    </div>
   );
 }
 
@@ -166,6 +144,12 @@ export function CompareView({
             </tbody>
           </table>
         </div>
+        <h3 className="mt-6 text-lg font-semibold">Why the numbers moved</h3>
+        {comparison.identical ? (
+          <p className="mt-3 font-sans text-sm text-muted">The two versions are identical.</p>
+        ) : (
+          <AttributionList attribution={comparison.attribution} />
+        )}
       </section>
       <section aria-labelledby="ingredients-heading">
         <h2 id="ingredients-heading" className="text-xl font-semibold">

@@ -1,4 +1,5 @@
 import type { BrewerAverages } from '@/lib/brew-days/brew-days';
+import { plural } from '@/lib/recipes/fields';
 
 const YEAST_WORDS: Record<string, string> = {
   ale: 'Ale yeast',
@@ -27,7 +28,7 @@ export function BrewerAveragesPanel({ averages }: { averages: BrewerAverages }) 
               <dt className="text-muted">Brewhouse efficiency</dt>
               <dd className="kf-data">
                 {averages.efficiency.meanPct.toFixed(1)}%{' '}
-                <span className="text-muted">over {averages.efficiency.count} brews</span>
+                <span className="text-muted">over {plural(averages.efficiency.count, 'brew')}</span>
               </dd>
             </>
           )}
@@ -35,7 +36,7 @@ export function BrewerAveragesPanel({ averages }: { averages: BrewerAverages }) 
             <div key={a.yeastKind} className="contents">
               <dt className="text-muted">Attenuation, {YEAST_WORDS[a.yeastKind] ?? a.yeastKind}</dt>
               <dd className="kf-data">
-                {a.meanPct.toFixed(1)}% <span className="text-muted">over {a.count} brews</span>
+                {a.meanPct.toFixed(1)}% <span className="text-muted">over {plural(a.count, 'brew')}</span>
               </dd>
             </div>
           ))}

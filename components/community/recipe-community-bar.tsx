@@ -5,6 +5,7 @@ import { hasStarred } from '@/lib/community/stars';
 import { FollowButton } from './follow-button';
 import { ReportButton } from './report-button';
 import { StarButton } from './star-button';
+import { plural } from '@/lib/recipes/fields';
 
 /** Star, follow and report for a recipe page; signed-out readers see the star count. */
 export async function loadCommunityState(
@@ -33,7 +34,7 @@ export function RecipeCommunityBar({
       <Link
         href={`/sign-in?callbackUrl=${encodeURIComponent(`/recipes/${recipe.slug}`)}`}
         className="kf-btn-quiet"
-        aria-label={`${recipe.starCount} stars. Sign in to star this recipe.`}
+        aria-label={`${plural(recipe.starCount, 'star')}. Sign in to star this recipe.`}
       >
         <span aria-hidden="true">☆</span> Star <span className="kf-data">({recipe.starCount})</span>
       </Link>
@@ -43,7 +44,7 @@ export function RecipeCommunityBar({
   return (
     <>
       {recipe.hiddenAt ? (
-        <span className="kf-btn-quiet" aria-label={`${recipe.starCount} stars`}>
+        <span className="kf-btn-quiet" aria-label={plural(recipe.starCount, 'star')}>
           ★ <span className="kf-data">{recipe.starCount}</span>
         </span>
       ) : (

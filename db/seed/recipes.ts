@@ -418,7 +418,7 @@ export const demoRecipes: DemoRecipe[] = [
         hop('fuggle', 30, 'boil', 5),
         hop('east-kent-golding', 30, 'dry_hop', 4320),
       ],
-      yeasts: [{ ...yeast('english-ale'), name: 'Dry English ale yeast', attenuationPct: 74 }],
+      yeasts: [{ ...yeast('english-ale'), name: 'English ale yeast, drier strain', attenuationPct: 74 }],
       mash: singleInfusion(64),
       fermentation: ferment(19),
       water: softWater(30, [{ salt: 'gypsum', grams: 9 }]),

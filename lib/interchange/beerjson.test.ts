@@ -81,10 +81,10 @@ describe('BeerJSON 1.0 specification — example recipe', () => {
   });
 
   it('keeps the unmodelled parts in the notes and lists them', () => {
-    expect(doc.notes).toContain('Whirlfloc tablet (fining): 1 each');
+    expect(doc.notes).toContain('Kettle fining tablet (fining): 1 each');
     expect(doc.notes).toContain('dry hop added 3 days into fermentation');
     expect(recipe.dropped.join('\n')).toMatch(
-      /miscellaneous_additions\[1\] \(Whirlfloc tablet\): fining ingredients are not modelled/,
+      /miscellaneous_additions\[1\] \(Kettle fining tablet\): fining ingredients are not modelled/,
     );
     expect(recipe.guessed.join('\n')).toMatch(/Serving temperature/);
   });

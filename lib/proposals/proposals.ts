@@ -630,8 +630,7 @@ export async function getProposalView(viewer: MaybeViewer, id: string): Promise<
     comparison = compareDocuments(
       compareFrom.document,
       { ...proposedDoc.document, title: compareFrom.document.title },
-      compareFrom.stats,
-      proposedDoc.stats,
+      { units: (viewer as { units?: 'metric' | 'us' } | null)?.units ?? 'metric' },
     );
     if (live && headMoved)
       ({ conflicts, fromTheirs } = mergeDocuments(baseDoc.document, headDoc.document, proposedDoc.document));

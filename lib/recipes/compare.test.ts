@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { computeStats, recipeDocumentSchema, type RecipeDocumentInput } from '@/lib/brewing';
+import { recipeDocumentSchema, type RecipeDocumentInput } from '@/lib/brewing';
 import example from '@/lib/brewing/examples/pale-ale.json';
-import { compareDocuments } from './compare';
+import type { UnitSystem } from '@/lib/brewing/units';
+import { changeLines, compareDocuments } from './compare';
 
 function doc(change: (d: RecipeDocumentInput) => void = () => {}) {
   const d = structuredClone(example) as RecipeDocumentInput;
@@ -9,75 +10,111 @@ function doc(change: (d: RecipeDocumentInput) => void = () => {}) {
   return recipeDocumentSchema.parse(d);
 }
 
-function compare(a: ReturnType<typeof doc>, b: ReturnType<typeof doc>) {
-  return compareDocuments(a, b, computeStats(a), computeStats(b));
-}
+const compare = (a: ReturnType<typeof doc>, b: ReturnType<typeof doc>, units: UnitSystem = 'metric') =>
+  compareDocuments(a, b, { units });
+const section = (c: ReturnType<typeof compare>, name: string) => c.sections.find((s) => s.section === name)!.items;
+const KVEIK = { name: 'Kveik', kind: 'kveik' as const, attenuationPct: 80, tempMinC: 25, tempMaxC: 37 };
 
 describe('compareDocuments', () => {
-  it('finds nothing to report between a document and itself', () => {
-    const a = doc();
-    const result = compare(a, a);
+  it('calls a version compared with itself identical, with no number moved', () => {
+    const result = compare(doc(), doc());
+    expect(result.identical).toBe(true);
     expect(result.changeCount).toBe(0);
-    expect(result.stats.every((s) => s.delta === 0 || s.delta === null)).toBe(true);
-    expect(result.notes.every((p) => !p.added && !p.removed)).toBe(true);
+    expect(result.attribution).toEqual([]);
   });
 
-  it('pairs hops by name and use, so a dry hop and a boil addition of one variety stay apart', () => {
-    const a = doc();
-    const b = doc((d) => {
-      d.hops[3].amountG = 80;
-    });
-    const hops = compare(a, b).sections.find((s) => s.section === 'hops')!.items;
-    const changed = hops.filter((h) => h.status === 'changed');
+  it('reads a yeast swap as one change', () => {
+    const result = compare(
+      doc(),
+      doc((d) => {
+        d.yeasts[0] = KVEIK;
+      }),
+    );
+    const changed = section(result, 'yeasts').filter((i) => i.status !== 'same');
     expect(changed).toHaveLength(1);
-    expect(changed[0].label).toBe('Cascade (dry hop)');
-    expect(changed[0].changes).toEqual([{ field: 'amountG', before: 50, after: 80 }]);
+    expect(changed[0].kind).toBe('swap');
+    expect(changed[0].summary).toMatch(/^Yeast: Clean ale yeast → Kveik/);
+    expect(changed[0].changes.find((c) => c.field === 'attenuationPct')).toMatchObject({
+      label: 'Attenuation',
+      before: '77%',
+      after: '80%',
+    });
   });
 
-  it('reports an ingredient renamed as one removed and one added', () => {
+  it('reads a hop addition moved from 10 to 5 minutes as moved, not removed and added', () => {
+    const result = compare(
+      doc(),
+      doc((d) => {
+        d.hops[1].timeMin = 5;
+      }),
+    );
+    const changed = section(result, 'hops').filter((i) => i.status !== 'same');
+    expect(changed).toHaveLength(1);
+    expect(changed[0].kind).toBe('moved');
+    expect(changed[0].summary).toContain('moved from 10 min to 5 min');
+  });
+
+  it('reads an amount change as a signed amount in the member’s units', () => {
     const b = doc((d) => {
-      d.fermentables[1].name = 'Vienna malt';
+      d.fermentables[0].amountKg = 4.5;
     });
-    const items = compare(doc(), b).sections.find((s) => s.section === 'fermentables')!.items;
-    expect(items.filter((i) => i.status === 'removed').map((i) => i.label)).toEqual(['Munich malt']);
-    expect(items.filter((i) => i.status === 'added').map((i) => i.label)).toEqual(['Vienna malt']);
+    const metric = section(compare(doc(), b), 'fermentables').find((i) => i.status === 'changed')!;
+    expect(metric.changes[0]).toMatchObject({ label: 'Amount', before: '4.2 kg', after: '4.5 kg', delta: '+0.3 kg' });
+    const us = section(compare(doc(), b, 'us'), 'fermentables').find((i) => i.status === 'changed')!;
+    expect(us.changes[0]).toMatchObject({ before: '9.26 lb', after: '9.92 lb', delta: '+0.66 lb' });
   });
 
-  it('pairs two additions of the same hop and use in order', () => {
-    const a = doc((d) => {
-      d.hops.push({ name: 'Cascade', amountG: 10, alphaPct: 6, use: 'boil', timeMin: 5, form: 'pellet' });
-    });
-    const b = doc((d) => {
-      d.hops.push({ name: 'Cascade', amountG: 10, alphaPct: 6, use: 'boil', timeMin: 0, form: 'pellet' });
-    });
-    const hops = compare(a, b).sections.find((s) => s.section === 'hops')!.items;
-    const cascadeBoil = hops.filter((h) => h.label === 'Cascade (boil)');
-    expect(cascadeBoil.map((h) => h.status)).toEqual(['same', 'changed']);
-    expect(cascadeBoil[1].changes).toEqual([{ field: 'timeMin', before: 5, after: 0 }]);
+  it('reports an ingredient of another kind as removed and added', () => {
+    const result = compare(
+      doc(),
+      doc((d) => {
+        d.hops.splice(2, 1);
+        d.hops.push({ name: 'Cascade', amountG: 15, alphaPct: 6, use: 'boil', timeMin: 30, form: 'pellet' });
+      }),
+    );
+    const statuses = changeLines(result).map((i) => i.status);
+    expect(statuses.sort()).toEqual(['added', 'removed']);
   });
 
-  it('gives each number its delta and the notes as a word diff', () => {
-    const a = doc();
-    const b = doc((d) => {
-      d.fermentables[0].amountKg = 5;
-      d.notes = 'A bright, bitter pale ale for summer drinking.';
-    });
-    const result = compare(a, b);
-    const og = result.stats.find((s) => s.stat === 'og')!;
-    expect(og.after! - og.before!).toBeCloseTo(og.delta!, 12);
-    expect(og.delta).toBeGreaterThan(0);
-    expect(result.notes.filter((p) => p.added).map((p) => p.value.trim())).toContain('summer');
-    expect(result.notes.filter((p) => p.removed).map((p) => p.value.trim())).toContain('everyday');
+  it('shows temperatures, volumes and dry-hop times in US units without document keys', () => {
+    const result = compare(
+      doc(),
+      doc((d) => {
+        d.mash.steps[0].tempC = 68;
+        d.batch.boilOffLPerHour = 5;
+        d.hops[3].timeMin = 5760;
+      }),
+      'us',
+    );
+    const text = JSON.stringify(changeLines(result).map((i) => [i.summary, i.cause, i.details]));
+    expect(text).toContain('3.6 °F hotter');
+    expect(text).toContain('gal/h');
+    expect(text).toContain('from 3 days to 4 days');
+    expect(text).not.toMatch(/\b[a-z]+[A-Z][a-z]+/);
   });
 
-  it('shows water and carbonation appearing in the newer version', () => {
-    const a = doc((d) => {
-      delete d.water;
-      delete d.carbonation;
-    });
-    const result = compare(a, doc());
-    expect(result.sections.find((s) => s.section === 'water')!.items[0].status).toBe('added');
-    expect(result.sections.find((s) => s.section === 'carbonation')!.items[0].status).toBe('added');
-    expect(result.stats.find((s) => s.stat === 'kegPressureKPa')!.before).toBeNull();
+  it('traces each changed number to the changes that moved it, summing to the total within rounding', () => {
+    const result = compare(
+      doc(),
+      doc((d) => {
+        d.yeasts[0] = KVEIK;
+        d.mash.steps[0].tempC = 68;
+        d.fermentables[0].amountKg = 4.5;
+        d.hops.push({ name: 'Cascade', amountG: 20, alphaPct: 6, use: 'boil', timeMin: 10, form: 'pellet' });
+        d.batch.volumeL = 23;
+      }),
+    );
+    const fg = result.attribution.find((a) => a.stat === 'fg')!;
+    expect(fg.parts.map((p) => p.cause)).toEqual(expect.arrayContaining(['the yeast swap', 'the 2 °C hotter mash']));
+    for (const a of result.attribution) {
+      const sum = a.parts.reduce((n, p) => n + p.delta, 0) + (a.together?.delta ?? 0);
+      expect(Math.abs(sum - a.delta)).toBeLessThan(1e-3 * Math.max(1, Math.abs(a.delta)) + 0.2);
+    }
+    const ibu = result.attribution.find((a) => a.stat === 'ibu')!;
+    expect(ibu.sentence).toContain('the new 10-minute Cascade addition');
+    // A different batch size is a change of its own, named beside the others.
+    expect(result.attribution.find((a) => a.stat === 'og')!.parts.map((p) => p.cause)).toContain(
+      'batch volume 20 L → 23 L',
+    );
   });
 });

@@ -3,6 +3,7 @@ import { and, desc, eq, sql } from 'drizzle-orm';
 import { db, readDatabase } from '@/db';
 import { recipeVersions, recipes, users } from '@/db/schema';
 import type { Viewer } from '@/lib/auth/session';
+import type { UnitSystem } from '@/lib/brewing/units';
 import { listedForkCountSql, listedRecipeSql } from './access';
 import { compareDocuments, type DocumentComparison } from './compare';
 import { getVersionById, type VersionView } from './versions';
@@ -98,11 +99,12 @@ export async function compareVersions(
   viewer: Pick<Viewer, 'id' | 'role'> | null,
   aId: string,
   bId: string,
+  units: UnitSystem = 'metric',
 ): Promise<VersionComparison> {
   const [a, b] = await Promise.all([getVersionById(viewer, aId), getVersionById(viewer, bId)]);
   return {
     a,
     b,
-    comparison: compareDocuments(a.version.document, b.version.document, a.version.stats, b.version.stats),
+    comparison: compareDocuments(a.version.document, b.version.document, { units }),
   };
 }

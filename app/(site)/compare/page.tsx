@@ -28,7 +28,9 @@ export default async function ComparePage({ searchParams }: Props) {
     );
   }
   const viewer = await getViewer();
-  const { a, b, comparison } = await orNotFound(() => compareVersions(viewer, parsed.data.a, parsed.data.b));
+  const { a, b, comparison } = await orNotFound(() =>
+    compareVersions(viewer, parsed.data.a, parsed.data.b, viewer?.units ?? 'metric'),
+  );
   const side = (v: typeof a) => ({
     title: v.version.document.title,
     slug: v.recipe.slug,
