@@ -45,7 +45,8 @@ describe('suggesting a change upstream in a real browser', { timeout: 120_000 },
     await b.page.getByRole('heading', { name: 'Kveik gives it a fruitier finish' }).waitFor();
     const brewerView = await b.page.locator('main').textContent();
     expect(brewerView).toContain('Kveik, farmhouse');
-    expect(brewerView).toMatch(/Kveik, farmhouse\s*added/);
+    // A yeast swap reads as one change.
+    expect(brewerView).toMatch(/Yeast: .+ → Kveik, farmhouse/);
     expect(brewerView).toContain('Withdraw the proposal');
     expect(brewerView).not.toContain('Accept and save a new version');
 

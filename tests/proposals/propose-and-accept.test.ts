@@ -64,10 +64,9 @@ describe('proposing a fork’s version back to its source', () => {
     expect(view.conflicts).toEqual([]);
     expect(view.can).toMatchObject({ accept: true, decide: true, update: false, withdraw: false });
     const yeasts = view.comparison!.sections.find((s) => s.section === 'yeasts')!;
-    expect(yeasts.items.map((i) => [i.label, i.status])).toEqual([
-      ['Clean ale yeast', 'removed'],
-      ['Kveik', 'added'],
-    ]);
+    // The yeast swap reads as one change.
+    expect(yeasts.items.map((i) => [i.status, i.kind])).toEqual([['changed', 'swap']]);
+    expect(yeasts.items[0].summary).toMatch(/^Yeast: Clean ale yeast → Kveik/);
     // The fork's own title is not part of what is proposed.
     expect(view.comparison!.sections[0].items[0].changes.map((c) => c.field)).not.toContain('title');
     expect(view.comparison!.stats.find((s) => s.stat === 'fg')!.delta).toBeLessThan(0);

@@ -67,17 +67,23 @@ describe('forks, lineage and compare', () => {
       `/api/compare?a=${source.version.id}&b=${v2.body.version.id}`,
     );
     expect(res.status).toBe(200);
-    const { sections, stats, notes } = res.body.comparison;
+    const { sections, stats, notes, attribution } = res.body.comparison;
     const yeasts = sections.find((s) => s.section === 'yeasts')!.items;
-    expect(yeasts.map((y) => [y.label, y.status]).sort()).toEqual([
-      ['Clean ale yeast', 'removed'],
-      ['Kveik, farmhouse', 'added'],
+    // The swap reads as one change, in brewers' words.
+    expect(yeasts.map((y) => [y.summary.split(' (')[0], y.status, y.kind])).toEqual([
+      ['Yeast: Clean ale yeast → Kveik, farmhouse', 'changed', 'swap'],
     ]);
     const mash = sections.find((s) => s.section === 'mash')!.items[0];
     expect(mash.status).toBe('changed');
-    expect(mash.changes).toEqual([{ field: 'tempC', before: 66, after: 68 }]);
+    expect(mash.changes).toEqual([
+      { field: 'tempC', label: 'Temperature', before: '66 °C', after: '68 °C', delta: '+2 °C' },
+    ]);
     const hops = sections.find((s) => s.section === 'hops')!.items;
-    expect(hops.filter((h) => h.status === 'added').map((h) => h.label)).toEqual(['Cascade, late (boil)']);
+    expect(hops.filter((h) => h.status === 'added').map((h) => h.label)).toEqual(['Cascade, late (boil, 5 min)']);
+    // Why FG moved: the yeast swap and the hotter mash, each named.
+    const fgWhy = attribution.find((x) => x.stat === 'fg')!;
+    expect(fgWhy.parts.map((p) => p.cause)).toEqual(expect.arrayContaining(['the yeast swap', 'the 2 °C hotter mash']));
+    expect(fgWhy.sentence).toMatch(/^FG 1\.\d{3} → 1\.\d{3}: /);
     expect(hops.filter((h) => h.status === 'same')).toHaveLength(4);
     const fg = stats.find((s) => s.stat === 'fg')!;
     expect(fg.delta).toBeCloseTo(fg.after! - fg.before!, 10);
