@@ -218,7 +218,8 @@ beforeAll(async () => {
     ).status,
   ).toBe(201);
 
-  await waitForSearchHit(owner, 'pale', created.recipe.id);
+  // By its own title: a common word such as "pale" matches more recipes than one page shows.
+  await waitForSearchHit(owner, `Axe Check Pale Ale ${stamp}`, created.recipe.id);
 
   fixture = {
     slug: created.recipe.slug,
