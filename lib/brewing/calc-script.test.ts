@@ -45,7 +45,7 @@ describe('scripts/calc.ts', () => {
     expect(lines).toHaveLength(2);
   });
 
-  // The seed brewer's water solved backwards (see water.test.ts), the measured 5.33 (fact of the trade),
+  // A homebrewer's built water solved backwards (see water.test.ts), the measured 5.33 (fact of the trade),
   // 15 psi at 85 °F → about 1.3 volumes (force-carbonation tables solved for volumes).
   it('prints the salt plan, predicted mash pH and spunding volumes for a document that carries them', () => {
     const doc = JSON.parse(readFileSync(EXAMPLE_PATH, 'utf8'));

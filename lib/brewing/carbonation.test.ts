@@ -57,7 +57,7 @@ describe('priming', () => {
 });
 
 describe('spunding', () => {
-  // The keg relation of the force-carbonation tables solved for volumes (our reference notes, from
+  // The regression behind the widely printed force-carbonation tables, solved for volumes (from
   // memory of the printed tables): 15 psi at 85 °F holds about 1.3 volumes, the same 15 psi at 2 °C about 3.0.
   it('reads the volumes held at a valve setting from the carbonation tables', () => {
     expect(Math.abs(volumesAtPressurePsi(15, fahrenheitToCelsius(85)) - 1.3)).toBeLessThan(0.05);

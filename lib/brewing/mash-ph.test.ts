@@ -35,7 +35,7 @@ describe('predicted mash pH', () => {
     expect(maltClass(malt('Acidulated malt', 1, 2))).toBe('acidulated');
   });
 
-  // Fact of the trade (the seed brewer's measurement): a single pale ale malt mashed with all of
+  // Fact of the trade (a homebrewer's measurement): a single pale ale malt mashed with all of
   // 128 Ca / 10 Mg / 39 Na / 219 Cl / 130 SO4 / 0 HCO3 water, about 5.5 L/kg, measured 5.33 at room
   // temperature. A pH meter and the model each carry about ±0.05–0.1, so the check allows 0.1.
   it('predicts the seed pale ale mash within 0.1 of the measured 5.33', () => {
@@ -57,7 +57,7 @@ describe('predicted mash pH', () => {
     expect(at(DISTILLED) - withAcidMalt).toBeCloseTo(0.2, 1);
   });
 
-  // Kolbach's rule of thumb (as in our reference notes): about 0.03 pH per °dH (17.8 mg/L as CaCO3) of RA
+  // Kolbach's rule of thumb (P. Kolbach, 1953, as given in Palmer & Kaminski, Water, 2013; from memory): about 0.03 pH per °dH (17.8 mg/L as CaCO3) of RA
   // at an ordinary mash thickness; bicarbonate of 61 mg/L is 50 mg/L as CaCO3 = 2.8 °dH.
   it('shifts by about Kolbach’s 0.03 pH per °dH of residual alkalinity at an ordinary thickness', () => {
     const shift =

@@ -14,7 +14,7 @@ import { residualAlkalinity } from './water';
  *  - acidulated malt lowers the mash about 0.1 pH per 1 % of the grist
  *    (common practice); an acid addition removes its mEq like negative RA.
  * The per-kind values below are from memory of those sources, not copied from
- * a printed table; the seed brewer's measured 5.33 is the check (fact of the trade).
+ * a printed table; a homebrewer's measured 5.33 is the check (fact of the trade).
  */
 
 export type MaltClass = 'base' | 'crystal' | 'roasted' | 'acidulated';

@@ -90,9 +90,9 @@ describe('computeStats', () => {
     expect(JSON.stringify(doc)).toBe(before);
   });
 
-  // The seed brewer's pale ale: one pale malt, 128/10/39/219/130/0 water as the target, all the water in
+  // A homebrewer's single-malt pale ale: one pale malt, 128/10/39/219/130/0 water as the target, all the water in
   // the mash (5.5 L/kg), measured mash pH 5.33 (fact of the trade); spunding 103 kPa at 29.4 °C holds
-  // about 1.3 volumes (force-carbonation tables solved for volumes, our reference notes).
+  // about 1.3 volumes (the regression behind the widely printed force-carbonation tables, solved for volumes; from memory).
   it('designs the seed pale ale: salt plan, predicted mash pH, spunding and the rest for a target FG', () => {
     const input = minimalInput();
     input.batch = { ...input.batch, volumeL: 23, mashWaterLPerKg: 5.5 };

@@ -15,7 +15,7 @@ const DISTILLED: WaterProfile = { calcium: 0, magnesium: 0, sodium: 0, chloride:
 
 describe('ions from salts', () => {
   // Mass fractions from IUPAC standard atomic weights (mg/L per g/L; in brackets ppm per g in one US gallon),
-  // as tabulated in our brewing reference notes.
+  // each computed from those atomic weights (IUPAC, Standard Atomic Weights, 2021).
   it.each([
     ['gypsum', 'calcium', 232.8, 61.5],
     ['gypsum', 'sulfate', 557.9, 147.4],
@@ -128,7 +128,7 @@ describe('salt planning', () => {
     }
   });
 
-  // The seed brewer's water (fact of the trade): 8 US gal of soft water with 5 g gypsum, 3 g Epsom salt,
+  // A homebrewer's water (fact of the trade): 8 US gal of soft water with 5 g gypsum, 3 g Epsom salt,
   // 3 g table salt and 10 g calcium chloride dihydrate gives about 128 Ca / 10 Mg / 39 Na / 219 Cl /
   // 130 SO4 / 0 HCO3 mg/L. Solved backwards from the printed profile, the plan finds those salts.
   it('solves the seed pale ale water backwards from its printed profile', () => {
