@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { computeStats, recipeDocumentSchema } from '@/lib/brewing';
 import { demoForks, demoRecipes } from '@/db/seed/recipes';
-import { parseBeerXml, toBeerXml } from './beerxml';
+import { parseBeerXml } from './beerxml/read';
+import { toBeerXml } from './beerxml/write';
 import { example, examplePaleAle } from './test-helpers';
 import { InterchangeError } from './types';
 
@@ -84,14 +85,14 @@ describe('BeerXML 1.0 specification, 2004 — example recipe', () => {
       use: 'boil',
       timeMin: 60,
     });
-    // Yield is % of sucrose's extract, 46.214 ppg (common practice): 78% → 36.05 ppg.
+    // Yield is % of sucrose's extract, 46.214 ppg (common practice): 78% → 36.047 ppg.
     expect(doc.fermentables[0]).toMatchObject({
       name: 'Pale Malt (2 row) UK',
       amountKg: 2.27,
-      potentialPpg: 36.05,
       colorLovibond: 3,
       kind: 'grain',
     });
+    expect(doc.fermentables[0].potentialPpg).toBeCloseTo(0.78 * 46.214, 6);
     expect(doc.fermentables[1].kind).toBe('adjunct');
     expect(doc.fermentables[2].colorLovibond).toBe(500);
     // 10 L of strike water on 3.63 kg of grist.
@@ -116,7 +117,8 @@ describe('BeerXML 1.0 specification, 2004 — example recipe', () => {
   it('recomputes the numbers from the mapped grist', () => {
     const stats = computeStats(doc);
     // Palmer, How to Brew (extract): points = Σ kg × ppg × 8.3454 × efficiency / L.
-    const points = ((2.27 * 36.05 + 0.91 * 32.35 + 0.45 * 36.05) * 8.3454 * 0.72) / 18.93;
+    const ppg = (yieldPct: number) => (yieldPct * 46.214) / 100;
+    const points = ((2.27 * ppg(78) + 0.91 * ppg(70) + 0.45 * ppg(78)) * 8.3454 * 0.72) / 18.93;
     expect(stats.og).toBeCloseTo(1 + points / 1000, 4);
     // Tinseth (Palmer, How to Brew, ch. 5): 63.8 g at 4.5% for 60 min.
     const utilisation = 1.65 * Math.pow(0.000125, stats.og - 1) * ((1 - Math.exp(-0.04 * 60)) / 4.15);

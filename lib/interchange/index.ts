@@ -1,9 +1,9 @@
-import { parseBeerJson } from './beerjson';
-import { parseBeerXml } from './beerxml';
+import { parseBeerJson } from './beerjson/read';
+import { parseBeerXml } from './beerxml/read';
 import { InterchangeError, type ImportResult, type InterchangeFormat } from './types';
 
-export { toBeerJson } from './beerjson';
-export { toBeerXml } from './beerxml';
+export { toBeerJson } from './beerjson/write';
+export { toBeerXml } from './beerxml/write';
 export { MAX_IMPORT_BYTES, readLimitedText } from './limits';
 export { InterchangeError, type ImportResult, type InterchangeFormat } from './types';
 

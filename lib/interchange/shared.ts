@@ -1,6 +1,16 @@
-import { formatIssues, recipeDocumentSchema, type RecipeDocumentInput, type SaltName } from '@/lib/brewing/schema';
+import {
+  formatIssues,
+  recipeDocumentSchema,
+  type Fermentable,
+  type RecipeDocument,
+  type RecipeDocumentInput,
+  type SaltName,
+  type WaterProfile,
+} from '@/lib/brewing/schema';
+import { ION_NAMES } from '@/lib/brewing/constants';
 import { findStyle, listStyles } from '@/lib/brewing/styles';
 import { InterchangeError, type ImportedRecipe } from './types';
+import { tidy } from './units';
 
 /** What one reader collects while it maps a recipe: the draft document and its two lists. */
 export interface Draft {
@@ -105,3 +115,64 @@ export const DEFAULT_ATTENUATION_PCT = { ale: 75, lager: 76, kveik: 78, wheat: 7
 export const DEFAULT_EFFICIENCY_PCT = 72;
 export const DEFAULT_BOIL_TIME_MIN = 60;
 export const DEFAULT_SERVING_TEMP_C = 4;
+
+/** Kilograms of grain and adjuncts: what goes into the mash (sugars and extracts do not). */
+export function mashedKg(fermentables: readonly Pick<Fermentable, 'kind' | 'amountKg'>[]): number {
+  let kg = 0;
+  for (const f of fermentables) if (f.kind === 'grain' || f.kind === 'adjunct') kg += f.amountKg;
+  return kg;
+}
+
+/** How a recipe is brewed, in the words both formats share (each writes them in its own case). */
+export type BrewMethod = 'all grain' | 'partial mash' | 'extract';
+
+/** The brewing method a recipe's fermentables imply: extract with mashed grain is a partial mash. */
+export function recipeType(doc: Pick<RecipeDocument, 'fermentables'>): BrewMethod {
+  const mashed = doc.fermentables.some((f) => f.kind === 'grain' || f.kind === 'adjunct');
+  const extract = doc.fermentables.some((f) => f.kind === 'extract');
+  return mashed && extract ? 'partial mash' : extract ? 'extract' : 'all grain';
+}
+
+/**
+ * The recipe's water from the waters a file lists: one profile, mixed by volume (evenly when no
+ * volumes are given), and the salts. Salts with no water are counted in distilled water.
+ */
+export function mixWaters(
+  readings: { ions: WaterProfile; volumeL: number }[],
+  salts: { salt: SaltName; grams: number }[],
+  draft: Draft,
+  fallbackVolumeL: number,
+) {
+  const source: WaterProfile = { calcium: 0, magnesium: 0, sodium: 0, chloride: 0, sulfate: 0, bicarbonate: 0 };
+  let volumeL = readings.reduce((n, r) => n + r.volumeL, 0);
+  if (readings.length) {
+    const weights = volumeL > 0 ? readings.map((r) => r.volumeL / volumeL) : readings.map(() => 1 / readings.length);
+    for (const ion of ION_NAMES) source[ion] = tidy(readings.reduce((n, r, i) => n + r.ions[ion] * weights[i], 0));
+    if (readings.length > 1) draft.guessed.push(`Water: ${readings.length} waters mixed into one profile by volume`);
+  } else draft.guessed.push('Water: salts without a water profile; assumed water with no ions (distilled)');
+  if (volumeL <= 0) {
+    volumeL = Math.round(fallbackVolumeL * 100) / 100;
+    draft.guessed.push(`Water volume: the file gives none; used ${volumeL} L`);
+  }
+  return { volumeL: tidy(volumeL), source, salts };
+}
+
+/** Adds a salt to the list, summing repeats of the same salt. */
+export function addSalt(salts: { salt: SaltName; grams: number }[], salt: SaltName, grams: number): void {
+  const existing = salts.find((s) => s.salt === salt);
+  if (existing) existing.grams = tidy(existing.grams + grams);
+  else salts.push({ salt, grams });
+}
+
+/** The yeast a recipe without one gets, so its numbers can be worked out. */
+export function defaultYeast(draft: Draft) {
+  draft.guessed.push(
+    `Yeast: the recipe names none; added a clean ale yeast at ${DEFAULT_ATTENUATION_PCT.ale}% attenuation so the numbers can be worked out`,
+  );
+  return [{ name: 'Clean ale yeast', kind: 'ale' as const, attenuationPct: DEFAULT_ATTENUATION_PCT.ale }];
+}
+
+/** A mash step's name in a file when the brewer gave none (BeerXML requires one); read back as no name. */
+export function unnamedStep(index: number): string {
+  return `Step ${index + 1}`;
+}

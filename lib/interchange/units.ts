@@ -12,20 +12,20 @@ const SUCROSE_PPG = 46.214;
 
 /** BeerXML and BeerJSON give a fermentable's yield as % of sucrose's extract; we keep points per pound per gallon. */
 export function yieldPctToPpg(yieldPct: number): number {
-  return round((yieldPct * SUCROSE_PPG) / 100, 2);
+  return tidy((yieldPct * SUCROSE_PPG) / 100);
 }
 
 export function ppgToYieldPct(ppg: number): number {
-  return round((ppg / SUCROSE_PPG) * 100, 3);
+  return fileNumber((ppg / SUCROSE_PPG) * 100);
 }
 
 /** A potential given as a specific gravity (1.037 for 1 lb in 1 US gal) is already in points per pound per gallon. */
 export function potentialSgToPpg(sg: number): number {
-  return round((sg - 1) * 1000, 2);
+  return tidy((sg - 1) * 1000);
 }
 
 export function ppgToPotentialSg(ppg: number): number {
-  return round(1 + ppg / 1000, 5);
+  return fileNumber(1 + ppg / 1000);
 }
 
 const MASS_TO_KG: Record<string, number> = { mg: 1e-6, g: 1e-3, kg: 1, lb: KG_PER_LB, oz: G_PER_OZ / 1000 };
@@ -65,7 +65,7 @@ function pick(table: Record<string, number>, m: Measured, what: string, element:
       element,
     );
   }
-  return m.value * factor;
+  return tidy(m.value * factor);
 }
 
 export const isMassUnit = (unit: string): boolean => Object.hasOwn(MASS_TO_KG, unit);
@@ -76,15 +76,15 @@ export const toMinutes = (m: Measured, element: string): number => pick(TIME_TO_
 
 export function toCelsius(m: Measured, element: string): number {
   if (m.unit === 'C') return m.value;
-  if (m.unit === 'F') return fahrenheitToCelsius(m.value);
+  if (m.unit === 'F') return tidy(fahrenheitToCelsius(m.value));
   throw new InterchangeError(`unknown temperature unit "${m.unit}" (expected C or F)`, element);
 }
 
 /** A malt colour as degrees Lovibond (SRM and EBC through the usual conversions; see lib/brewing/colour.ts). */
 export function toLovibond(m: Measured, element: string): number {
   if (m.unit === 'Lovi') return m.value;
-  if (m.unit === 'SRM') return Math.max(srmToLovibond(m.value), 0);
-  if (m.unit === 'EBC') return Math.max(srmToLovibond(ebcToSrm(m.value)), 0);
+  if (m.unit === 'SRM') return srmToLovibondClamped(m.value);
+  if (m.unit === 'EBC') return srmToLovibondClamped(ebcToSrm(m.value));
   throw new InterchangeError(`unknown colour unit "${m.unit}" (expected Lovi, SRM or EBC)`, element);
 }
 
@@ -102,11 +102,11 @@ export function toMgPerL(m: Measured, element: string): number {
 
 /** Liquid extract colour is written in SRM by BeerXML; we keep malt colour in °L. */
 export function srmToLovibondClamped(srm: number): number {
-  return Math.max(srmToLovibond(srm), 0);
+  return tidy(Math.max(srmToLovibond(srm), 0));
 }
 
 export function lovibondToSrmClamped(lovibond: number): number {
-  return Math.max(lovibondToSrm(lovibond), 0);
+  return fileNumber(Math.max(lovibondToSrm(lovibond), 0));
 }
 
 /** Rounds away the binary noise a unit conversion leaves (0.1 + 0.2 and friends). */
@@ -115,7 +115,40 @@ export function round(value: number, decimals: number): number {
   return Math.round(value * factor) / factor;
 }
 
-/** A number fit for a file: at most 6 decimals, no trailing zeros. */
+/** A number for a message: at most `decimals` decimals, no trailing zeros. */
 export function plain(value: number, decimals = 6): string {
   return String(round(value, decimals));
+}
+
+/**
+ * Significant digits: files are written with 12, far finer than any brewing measurement; values
+ * read are kept to 10, which clears the binary noise a conversion (or a product of two written
+ * values, such as an evaporation rate times the boil size) leaves in the last digits.
+ */
+const WRITTEN_DIGITS = 12;
+const READ_DIGITS = 10;
+
+function significant(value: number, digits: number): number {
+  if (value === 0 || !Number.isFinite(value)) return value === 0 ? 0 : value;
+  return Number(value.toPrecision(digits));
+}
+
+/** A value read or converted from a file, its binary noise removed. */
+export function tidy(value: number): number {
+  return significant(value, READ_DIGITS);
+}
+
+/** A value as it is written to a file. */
+export function fileNumber(value: number): number {
+  return significant(value, WRITTEN_DIGITS);
+}
+
+/** A number as file text: every significant digit kept, never in exponent notation (1e-7). */
+export function decimalText(value: number): string {
+  const v = fileNumber(value);
+  if (v === 0) return '0';
+  const magnitude = Math.floor(Math.log10(Math.abs(v)));
+  const decimals = Math.min(Math.max(WRITTEN_DIGITS - 1 - magnitude, 0), 100);
+  const text = v.toFixed(decimals);
+  return text.includes('.') ? text.replace(/0+$/, '').replace(/\.$/, '') : text;
 }

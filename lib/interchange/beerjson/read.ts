@@ -2,37 +2,36 @@ import type {
   FermentableKind,
   HopForm,
   HopUse,
-  RecipeDocument,
   RecipeDocumentInput,
   SaltName,
   WaterProfile,
   YeastKind,
 } from '@/lib/brewing/schema';
 import { ION_NAMES } from '@/lib/brewing/schema';
-import { preBoilVolumeL } from '@/lib/brewing/brewday';
-import { findStyle } from '@/lib/brewing/styles';
-import { checkBeerJsonSchema } from './beerjson/schema';
-import { assertWithinLimit } from './limits';
+import { assertWithinLimit } from '../limits';
 import {
   DEFAULT_ATTENUATION_PCT,
   DEFAULT_BOIL_TIME_MIN,
   DEFAULT_SERVING_TEMP_C,
-  SALT_FILE_NAMES,
+  addSalt,
+  defaultYeast,
   finishRecipe,
+  mashedKg,
   matchStyle,
+  mixWaters,
   newDraft,
   notesWith,
   saltFromName,
-  splitStyleCode,
+  unnamedStep,
   type Draft,
-} from './shared';
-import { InterchangeError, type ImportResult, type ImportedRecipe } from './types';
+} from '../shared';
+import { InterchangeError, type ImportResult, type ImportedRecipe } from '../types';
 import {
   isMassUnit,
   plain,
   potentialSgToPpg,
-  ppgToPotentialSg,
   round,
+  tidy,
   toCelsius,
   toKg,
   toLitres,
@@ -42,10 +41,12 @@ import {
   toPercent,
   yieldPctToPpg,
   type Measured,
-} from './units';
+} from '../units';
+import { checkBeerJsonSchema } from './schema';
+import { WHEAT_YEAST_BEST_FOR } from './write';
 
 /**
- * BeerJSON 1.0 (the BeerJSON project, "BeerJSON: a JSON schema for beer recipes", 1.0).
+ * Reading BeerJSON 1.0 (the BeerJSON project, "BeerJSON: a JSON schema for beer recipes", 1.0).
  * Every measured value carries its unit; the file is checked against the published schema
  * before any of it is read.
  */
@@ -53,9 +54,6 @@ import {
 const FORMAT_NAME = 'BeerJSON';
 
 type Json = Record<string, unknown>;
-
-// ---------------------------------------------------------------------------------------------
-// Reading
 
 export function parseBeerJson(text: string): ImportResult {
   assertWithinLimit(text);
@@ -191,10 +189,7 @@ function readRecipe(data: Json, basePath: string, library: Library): ImportedRec
   const boilSteps = boil?.list('boil_steps') ?? [];
   const ingredients = recipe.child('ingredients')!;
   const fermentables = readFermentables(ingredients, draft, origins);
-  const gristKg = fermentables
-    .filter((f) => f.kind === 'grain' || f.kind === 'adjunct')
-    .reduce((n, f) => n + f.amountKg, 0);
-  const mash = readMash(recipe, draft, origins, gristKg);
+  const mash = readMash(recipe, draft, origins, mashedKg(fermentables));
   const equipment = readEquipment(recipe, library, draft, {
     volumeL,
     boilTimeMin,
@@ -268,14 +263,14 @@ function readFermentables(ingredients: Node, draft: Draft, origins: Origins) {
       potentialPpg = yieldPctToPpg(toPercent(coarse, yieldNode.at('coarse_grind')));
       draft.guessed.push(`${f.path}: only a coarse-grind yield is given; used it as the potential`);
     } else throw new InterchangeError('gives no potential, fine_grind or coarse_grind yield', yieldNode.path);
-    const colorLovibond = round(toLovibond(f.measured('color')!, f.at('color')), 2);
+    const colorLovibond = tidy(toLovibond(f.measured('color')!, f.at('color')));
     const timing = f.child('timing');
     if (timing?.str('use') && timing.str('use') !== 'add_to_mash' && timing.str('use') !== 'add_to_boil') {
       draft.kept.push(`${f.data.name}: added ${String(timing.str('use')).replace(/_/g, ' ')}`);
     }
     return {
       name: String(f.data.name).slice(0, 80),
-      amountKg: round(amountKg(f, 'the amount'), 6),
+      amountKg: tidy(amountKg(f, 'the amount')),
       potentialPpg,
       colorLovibond,
       kind,
@@ -312,7 +307,7 @@ function readHops(ingredients: Node, boilSteps: Node[], draft: Draft, origins: O
   return byWeight.map((h, index) => {
     origins.set(`hops.${index}`, h);
     const name = String(h.data.name).slice(0, 80);
-    const amountG = round(amountKg(h, 'the hop amount') * 1000, 3);
+    const amountG = tidy(amountKg(h, 'the hop amount') * 1000);
     const alphaPct = toPercent(h.measured('alpha_acid')!, h.at('alpha_acid'));
     const form = readHopForm(h.str('form'), h.path, draft);
     const timing = h.child('timing')!;
@@ -355,9 +350,9 @@ function readHops(ingredients: Node, boilSteps: Node[], draft: Draft, origins: O
       amountG,
       alphaPct,
       use,
-      timeMin: round(timeMin, 3),
+      timeMin: tidy(timeMin),
       form,
-      ...(tempC === undefined ? {} : { tempC: round(tempC, 1) }),
+      ...(tempC === undefined ? {} : { tempC: tidy(tempC) }),
     };
   });
 }
@@ -390,23 +385,19 @@ const CULTURE_KINDS: Record<string, YeastKind> = {
 
 function readCultures(ingredients: Node, library: Library, draft: Draft, origins: Origins) {
   const cultures = ingredients.list('culture_additions');
-  if (cultures.length === 0) {
-    draft.guessed.push(
-      `Yeast: the recipe names none; added a clean ale yeast at ${DEFAULT_ATTENUATION_PCT.ale}% attenuation so the numbers can be worked out`,
-    );
-    return [{ name: 'Clean ale yeast', kind: 'ale' as const, attenuationPct: DEFAULT_ATTENUATION_PCT.ale }];
-  }
+  if (cultures.length === 0) return defaultYeast(draft);
   return cultures.map((c, index) => {
     origins.set(`yeasts.${index}`, c);
     const name = String(c.data.name).slice(0, 80);
     let kind = CULTURE_KINDS[String(c.data.type)] ?? 'other';
-    // BeerJSON has no wheat-beer type; such yeasts travel as ale and are known by name.
-    if (kind === 'ale' && /wheat|weizen|weiss/i.test(name)) {
+    const info = library.cultures.find((entry) => entry.name === c.data.name);
+    const infoNode = info ? new Node(info, `beerjson.cultures (${name})`) : undefined;
+    // BeerJSON has no wheat-beer type; such yeasts travel as ale, known by what they are best for or by name.
+    if (kind === 'ale' && infoNode?.str('best_for') === WHEAT_YEAST_BEST_FOR) kind = 'wheat';
+    else if (kind === 'ale' && /wheat|weizen|weiss/i.test(name)) {
       kind = 'wheat';
       draft.guessed.push(`${name}: read as a wheat-beer yeast from its name`);
     }
-    const info = library.cultures.find((entry) => entry.name === c.data.name);
-    const infoNode = info ? new Node(info, `beerjson.cultures (${name})`) : undefined;
     const attenuation = c.measured('attenuation');
     let attenuationPct: number;
     if (attenuation) attenuationPct = toPercent(attenuation, c.at('attenuation'));
@@ -427,10 +418,10 @@ function readCultures(ingredients: Node, library: Library, draft: Draft, origins
     }
     const range = c.child('temperature_range') ?? infoNode?.child('temperature_range');
     const tempMinC = range
-      ? round(toCelsius(range.measured('minimum', { allowNegative: true })!, range.at('minimum')), 2)
+      ? tidy(toCelsius(range.measured('minimum', { allowNegative: true })!, range.at('minimum')))
       : undefined;
     const tempMaxC = range
-      ? round(toCelsius(range.measured('maximum', { allowNegative: true })!, range.at('maximum')), 2)
+      ? tidy(toCelsius(range.measured('maximum', { allowNegative: true })!, range.at('maximum')))
       : undefined;
     const producer = [c.str('producer'), c.str('product_id')].filter(Boolean).join(' ');
     if (producer) draft.kept.push(`Culture ${name}: ${producer}`);
@@ -460,10 +451,10 @@ function readEquipment(
   const rate = kettle?.measured('boil_rate_per_hour');
   const loss = kettle?.measured('loss');
   const absorption = tun?.measured('grain_absorption_rate');
-  const trubLossL = loss ? round(toLitres(loss, kettle!.at('loss')), 3) : 1;
+  const trubLossL = loss ? tidy(toLitres(loss, kettle!.at('loss'))) : 1;
   if (!loss) draft.guessed.push('Kettle trub loss: the file gives none; used 1 L');
   let boilOffLPerHour: number;
-  if (rate) boilOffLPerHour = round(toLitres(rate, kettle!.at('boil_rate_per_hour')), 3);
+  if (rate) boilOffLPerHour = tidy(toLitres(rate, kettle!.at('boil_rate_per_hour')));
   else if (batch.preBoil && batch.boilTimeMin > 0) {
     const preBoilL = toLitres(batch.preBoil, recipe.at('boil.pre_boil_size'));
     const worked = round((preBoilL - batch.volumeL - trubLossL) / (batch.boilTimeMin / 60), 2);
@@ -474,8 +465,7 @@ function readEquipment(
     draft.guessed.push('Boil-off rate: the file gives none; used 4 L per hour');
   }
   let grainAbsorptionLPerKg = 1;
-  if (absorption)
-    grainAbsorptionLPerKg = round(specificVolumeToLPerKg(absorption, tun!.at('grain_absorption_rate')), 3);
+  if (absorption) grainAbsorptionLPerKg = tidy(specificVolumeToLPerKg(absorption, tun!.at('grain_absorption_rate')));
   else draft.guessed.push('Grain absorption: the file gives none; used 1 L/kg');
   return { boilOffLPerHour, trubLossL, grainAbsorptionLPerKg };
 }
@@ -518,16 +508,16 @@ function readMash(recipe: Node, draft: Draft, origins: Origins, gristKg: number)
       draft.dropped.push(`${step.path}: a ${type} step (not a rest)`);
       return;
     }
-    const tempC = round(toCelsius(step.measured('step_temperature')!, step.at('step_temperature')), 2);
-    const timeMin = round(toMinutes(step.measured('step_time')!, step.at('step_time')), 3);
+    const tempC = tidy(toCelsius(step.measured('step_temperature')!, step.at('step_temperature')));
+    const timeMin = tidy(toMinutes(step.measured('step_time')!, step.at('step_time')));
     if (index === 0) {
       const ratio = step.measured('water_grain_ratio');
       const amount = step.measured('amount');
       if (ratio) {
-        mashWaterLPerKg = round(specificVolumeToLPerKg(ratio, step.at('water_grain_ratio')), 3);
+        mashWaterLPerKg = tidy(specificVolumeToLPerKg(ratio, step.at('water_grain_ratio')));
         thicknessGiven = true;
       } else if (amount && gristKg > 0) {
-        mashWaterLPerKg = round(toLitres(amount, step.at('amount')) / gristKg, 3);
+        mashWaterLPerKg = tidy(toLitres(amount, step.at('amount')) / gristKg);
         thicknessGiven = true;
       }
     }
@@ -536,7 +526,8 @@ function readMash(recipe: Node, draft: Draft, origins: Origins, gristKg: number)
       return;
     }
     origins.set(`mash.steps.${steps.length}`, step);
-    const name = step.str('name');
+    const stepName = step.str('name');
+    const name = stepName === unnamedStep(index) ? undefined : stepName;
     steps.push({ ...(name ? { name: name.slice(0, 60) } : {}), tempC, timeMin });
   });
   if (steps.length && !thicknessGiven)
@@ -573,7 +564,7 @@ function readFermentation(recipe: Node, draft: Draft, origins: Origins) {
     }
     lastC = tempC;
     origins.set(`fermentation.steps.${steps.length}`, step);
-    steps.push({ tempC: round(tempC, 2), days: round(toMinutes(time, step.at('step_time')) / 1440, 4) });
+    steps.push({ tempC: tidy(tempC), days: tidy(toMinutes(time, step.at('step_time')) / 1440) });
   }
   return steps;
 }
@@ -585,10 +576,8 @@ function readMiscs(ingredients: Node, draft: Draft, origins: Origins): { salt: S
     const salt = saltFromName(name);
     const amount = m.measured('amount');
     if (salt && amount && isMassUnit(amount.unit)) {
-      const grams = round(toKg(amount, m.at('amount')) * 1000, 3);
-      const existing = salts.find((s) => s.salt === salt);
-      if (existing) existing.grams = round(existing.grams + grams, 3);
-      else salts.push({ salt, grams });
+      const grams = tidy(toKg(amount, m.at('amount')) * 1000);
+      addSalt(salts, salt, grams);
       origins.set('water.salts', m);
       continue;
     }
@@ -606,27 +595,12 @@ function readWater(ingredients: Node, salts: { salt: SaltName; grams: number }[]
   if (waters.length === 0 && salts.length === 0) return undefined;
   const readings = waters.map((w) => {
     const ions = Object.fromEntries(
-      ION_NAMES.map((ion) => [ion, round(toMgPerL(w.measured(ion)!, w.at(ion)), 3)]),
+      ION_NAMES.map((ion) => [ion, tidy(toMgPerL(w.measured(ion)!, w.at(ion)))]),
     ) as WaterProfile;
     const amount = w.measured('amount');
     return { ions, volumeL: amount ? toLitres(amount, w.at('amount')) : 0 };
   });
-  const source: WaterProfile = { calcium: 0, magnesium: 0, sodium: 0, chloride: 0, sulfate: 0, bicarbonate: 0 };
-  let volumeL = readings.reduce((n, r) => n + r.volumeL, 0);
-  if (readings.length) {
-    const weights = volumeL > 0 ? readings.map((r) => r.volumeL / volumeL) : readings.map(() => 1 / readings.length);
-    for (const ion of ION_NAMES)
-      source[ion] = round(
-        readings.reduce((n, r, i) => n + r.ions[ion] * weights[i], 0),
-        3,
-      );
-    if (readings.length > 1) draft.guessed.push(`Water: ${readings.length} waters mixed into one profile by volume`);
-  } else draft.guessed.push('Water: salts without a water profile; assumed water with no ions (distilled)');
-  if (volumeL <= 0) {
-    volumeL = round(batchL * 1.5, 2);
-    draft.guessed.push(`Water volume: the file gives none; used ${volumeL} L`);
-  }
-  return { volumeL: round(volumeL, 3), source, salts };
+  return mixWaters(readings, salts, draft, batchL * 1.5);
 }
 
 function readCarbonation(recipe: Node, draft: Draft) {
@@ -641,7 +615,7 @@ function readCarbonation(recipe: Node, draft: Draft) {
   if (!start) draft.guessed.push(`Serving temperature: the file gives none; used ${DEFAULT_SERVING_TEMP_C} °C`);
   return {
     volumesCO2,
-    servingTempC: start ? round(toCelsius(start, vessel!.at('start_temperature')), 2) : DEFAULT_SERVING_TEMP_C,
+    servingTempC: start ? tidy(toCelsius(start, vessel!.at('start_temperature'))) : DEFAULT_SERVING_TEMP_C,
   };
 }
 
@@ -679,251 +653,4 @@ function readKeptExtras(recipe: Node, draft: Draft): void {
   }
   const taste = recipe.child('taste');
   if (taste?.str('notes')) draft.kept.push(`Tasting notes: ${taste.str('notes')}`);
-}
-
-// ---------------------------------------------------------------------------------------------
-// Writing
-
-/** Whole numbers of a unit, as the schema's time type wants; minutes when exact, else seconds. */
-function time(minutes: number): Measured {
-  if (Number.isInteger(minutes)) return { unit: 'min', value: minutes };
-  return { unit: 'sec', value: Math.round(minutes * 60) };
-}
-
-function days(value: number): Measured {
-  if (Number.isInteger(value)) return { unit: 'day', value };
-  if (Number.isInteger(value * 24)) return { unit: 'hr', value: value * 24 };
-  return { unit: 'min', value: Math.round(value * 1440) };
-}
-
-const kg = (value: number): Measured => ({ unit: 'kg', value: round(value, 6) });
-const g = (value: number): Measured => ({ unit: 'g', value: round(value, 4) });
-const litres = (value: number): Measured => ({ unit: 'l', value: round(value, 4) });
-const celsius = (value: number): Measured => ({ unit: 'C', value });
-const percent = (value: number): Measured => ({ unit: '%', value });
-
-const FERMENTABLE_TYPES: Record<FermentableKind, string> = {
-  grain: 'grain',
-  adjunct: 'grain',
-  extract: 'extract',
-  sugar: 'sugar',
-};
-const CULTURE_TYPES: Record<YeastKind, string> = {
-  ale: 'ale',
-  lager: 'lager',
-  kveik: 'kveik',
-  wheat: 'ale',
-  wild: 'brett',
-  other: 'other',
-};
-
-/** One recipe as a BeerJSON 1.0 file, with its equipment and cultures beside it as the format keeps them. */
-export function toBeerJson(doc: RecipeDocument, opts: { author?: string } = {}): Json {
-  const boilSteps = buildBoilSteps(doc);
-  const gristKg = doc.fermentables
-    .filter((f) => f.kind === 'grain' || f.kind === 'adjunct')
-    .reduce((n, f) => n + f.amountKg, 0);
-  const recipe: Json = {
-    name: doc.title,
-    type: recipeType(doc),
-    author: opts.author ?? '',
-    batch_size: litres(doc.batch.volumeL),
-    efficiency: { brewhouse: percent(doc.batch.efficiencyPct) },
-    ...(styleFor(doc) ? { style: styleFor(doc) } : {}),
-    ingredients: {
-      fermentable_additions: doc.fermentables.map((f) => ({
-        name: f.name,
-        type: FERMENTABLE_TYPES[f.kind],
-        ...(f.kind === 'adjunct' ? { grain_group: 'adjunct' } : {}),
-        yield: { potential: { unit: 'sg', value: ppgToPotentialSg(f.potentialPpg) } },
-        color: { unit: 'Lovi', value: f.colorLovibond },
-        amount: kg(f.amountKg),
-      })),
-      hop_additions: doc.hops.map((h) => ({
-        name: h.name,
-        form: h.form,
-        alpha_acid: percent(h.alphaPct),
-        amount: g(h.amountG),
-        timing: hopTiming(h, doc, boilSteps),
-      })),
-      culture_additions: doc.yeasts.map((y) => ({
-        name: y.name,
-        type: CULTURE_TYPES[y.kind],
-        form: 'dry',
-        attenuation: percent(y.attenuationPct),
-        amount: { unit: 'pkg', value: 1 },
-      })),
-      ...(doc.water
-        ? {
-            water_additions: [
-              {
-                name: 'Source water',
-                ...Object.fromEntries(ION_NAMES.map((ion) => [ion, { unit: 'mg/l', value: doc.water!.source[ion] }])),
-                amount: litres(doc.water.volumeL),
-              },
-            ],
-            miscellaneous_additions: doc.water.salts.map((s) => ({
-              name: SALT_FILE_NAMES[s.salt],
-              type: 'water agent',
-              amount: g(s.grams),
-              timing: { use: 'add_to_mash' },
-            })),
-          }
-        : {}),
-    },
-    mash: {
-      name: 'Mash',
-      grain_temperature: celsius(20),
-      mash_steps: doc.mash.steps.map((s, i) => ({
-        name: s.name ?? '',
-        type: i === 0 ? 'infusion' : 'temperature',
-        ...(i === 0 && gristKg > 0 ? { water_grain_ratio: { unit: 'l/kg', value: doc.batch.mashWaterLPerKg } } : {}),
-        step_temperature: celsius(s.tempC),
-        step_time: time(s.timeMin),
-      })),
-    },
-    notes: doc.notes,
-    boil: {
-      name: 'Boil',
-      pre_boil_size: litres(preBoilVolumeL(doc.batch)),
-      boil_time: time(doc.batch.boilTimeMin),
-      ...(boilSteps.length > 1 ? { boil_steps: boilSteps.map((s) => s.json) } : {}),
-    },
-    fermentation: {
-      name: 'Fermentation',
-      fermentation_steps: doc.fermentation.steps.map((s, i) => ({
-        name: `Step ${i + 1}`,
-        start_temperature: celsius(s.tempC),
-        step_time: days(s.days),
-      })),
-    },
-    ...(doc.carbonation
-      ? {
-          carbonation: doc.carbonation.volumesCO2,
-          packaging: {
-            name: 'Packaging',
-            packaging_vessels: [
-              {
-                name: 'Serving vessel',
-                carbonation: doc.carbonation.volumesCO2,
-                start_temperature: celsius(doc.carbonation.servingTempC),
-              },
-            ],
-          },
-        }
-      : {}),
-  };
-  return {
-    beerjson: {
-      version: 1,
-      recipes: [recipe],
-      cultures: doc.yeasts
-        .filter((y) => y.tempMinC !== undefined && y.tempMaxC !== undefined)
-        .map((y) => ({
-          name: y.name,
-          type: CULTURE_TYPES[y.kind],
-          form: 'dry',
-          temperature_range: { minimum: celsius(y.tempMinC!), maximum: celsius(y.tempMaxC!) },
-        })),
-      equipments: [
-        {
-          name: doc.title,
-          equipment_items: [
-            {
-              name: 'Kettle',
-              form: 'Brew Kettle',
-              maximum_volume: litres(doc.batch.volumeL * 2),
-              boil_rate_per_hour: litres(doc.batch.boilOffLPerHour),
-              loss: litres(doc.batch.trubLossL),
-            },
-            {
-              name: 'Mash tun',
-              form: 'Mash Tun',
-              maximum_volume: litres(doc.batch.volumeL * 2),
-              loss: litres(0),
-              grain_absorption_rate: { unit: 'l/kg', value: doc.batch.grainAbsorptionLPerKg },
-            },
-          ],
-        },
-      ],
-    },
-  };
-}
-
-interface BoilStep {
-  key: string;
-  json: Json;
-}
-
-/** The boil as BeerJSON steps: first wort (if used), the boil, then one hop stand per temperature. */
-function buildBoilSteps(doc: RecipeDocument): BoilStep[] {
-  const steps: BoilStep[] = [];
-  if (doc.hops.some((h) => h.use === 'first_wort'))
-    steps.push({ key: 'first_wort', json: { name: 'First wort', step_time: time(0) } });
-  steps.push({
-    key: 'boil',
-    json: {
-      name: 'Boil',
-      start_temperature: celsius(100),
-      end_temperature: celsius(100),
-      step_time: time(doc.batch.boilTimeMin),
-    },
-  });
-  const stands = [...new Set(doc.hops.filter((h) => h.use === 'whirlpool').map((h) => h.tempC))];
-  for (const tempC of stands) {
-    const longest = Math.max(
-      ...doc.hops.filter((h) => h.use === 'whirlpool' && h.tempC === tempC).map((h) => h.timeMin),
-    );
-    const temps = tempC === undefined ? {} : { start_temperature: celsius(tempC), end_temperature: celsius(tempC) };
-    steps.push({
-      key: `stand:${tempC ?? 'unstated'}`,
-      json: {
-        name: tempC === undefined ? 'Hop stand' : `Hop stand at ${tempC} °C`,
-        ...temps,
-        step_time: time(longest),
-      },
-    });
-  }
-  return steps;
-}
-
-function hopTiming(h: RecipeDocument['hops'][number], doc: RecipeDocument, steps: BoilStep[]): Json {
-  const stepNumber = (key: string) => steps.findIndex((s) => s.key === key) + 1;
-  switch (h.use) {
-    case 'mash':
-      return { use: 'add_to_mash', duration: time(h.timeMin) };
-    case 'dry_hop':
-      return { use: 'add_to_fermentation', duration: time(h.timeMin) };
-    case 'first_wort':
-      return { use: 'add_to_boil', step: stepNumber('first_wort'), duration: time(h.timeMin) };
-    case 'whirlpool':
-      return { use: 'add_to_boil', step: stepNumber(`stand:${h.tempC ?? 'unstated'}`), duration: time(h.timeMin) };
-    case 'boil':
-      return {
-        use: 'add_to_boil',
-        ...(steps.length > 1 ? { step: stepNumber('boil') } : {}),
-        time: time(Math.max(doc.batch.boilTimeMin - h.timeMin, 0)),
-        duration: time(h.timeMin),
-      };
-  }
-}
-
-function recipeType(doc: RecipeDocument): string {
-  const mashed = doc.fermentables.some((f) => f.kind === 'grain' || f.kind === 'adjunct');
-  const extract = doc.fermentables.some((f) => f.kind === 'extract');
-  return mashed && extract ? 'partial mash' : extract ? 'extract' : 'all grain';
-}
-
-function styleFor(doc: RecipeDocument): Json | undefined {
-  const guideline = doc.style ? findStyle(doc.style.code) : undefined;
-  if (!guideline) return undefined;
-  const { number, letter } = splitStyleCode(guideline.code);
-  return {
-    name: guideline.name,
-    category: guideline.category,
-    category_number: Number(number),
-    ...(letter ? { style_letter: letter } : {}),
-    style_guide: 'BJCP 2021',
-    type: 'beer',
-  };
 }

@@ -1,10 +1,7 @@
-import { preBoilVolumeL } from '@/lib/brewing/brewday';
-import { findStyle } from '@/lib/brewing/styles';
 import type {
   FermentableKind,
   HopForm,
   HopUse,
-  RecipeDocument,
   RecipeDocumentInput,
   SaltName,
   WaterProfile,
@@ -16,29 +13,30 @@ import {
   DEFAULT_BOIL_TIME_MIN,
   DEFAULT_EFFICIENCY_PCT,
   DEFAULT_SERVING_TEMP_C,
-  SALT_FILE_NAMES,
+  addSalt,
+  defaultYeast,
   finishRecipe,
+  mashedKg,
   matchStyle,
+  mixWaters,
   newDraft,
   notesWith,
   saltFromName,
-  splitStyleCode,
+  unnamedStep,
   type Draft,
-} from './shared';
-import { InterchangeError, type ImportResult, type ImportedRecipe } from './types';
-import { lovibondToSrmClamped, plain, ppgToYieldPct, round, srmToLovibondClamped, yieldPctToPpg } from './units';
-import { XmlRecord, escapeXml, parseXmlSafely } from './xml-reader';
+} from '../shared';
+import { InterchangeError, type ImportResult, type ImportedRecipe } from '../types';
+import { plain, round, srmToLovibondClamped, tidy, yieldPctToPpg } from '../units';
+import { XmlRecord, parseXmlSafely } from '../xml-reader';
+import { UNSPECIFIED_STYLE, YEAST_BEST_FOR } from './write';
 
 /**
- * BeerXML 1.0 (Smith, Avis, Taylor, Perron and Johnson, "BeerXML: An XML Standard for Beer
+ * Reading BeerXML 1.0 (Smith, Avis, Taylor, Perron and Johnson, "BeerXML: An XML Standard for Beer
  * Brewing Data", version 1.0, 2004). Units are fixed: kg, L, °C, minutes (days for
  * fermentation ages), colour in °L (SRM for liquid extract), yield in % of sucrose.
  */
 
 const FORMAT_NAME = 'BeerXML';
-
-// ---------------------------------------------------------------------------------------------
-// Reading
 
 export function parseBeerXml(text: string): ImportResult {
   const root = parseXmlSafely(text);
@@ -142,11 +140,8 @@ function readRecipe(recipe: XmlRecord): ImportedRecipe {
   if (type) draft.dropped.push(`${recipe.at('TYPE')}: ${type} (the ingredients say how it is brewed)`);
 
   const fermentables = readFermentables(recipe, draft, origins);
-  const gristKg = fermentables
-    .filter((f) => f.kind === 'grain' || f.kind === 'adjunct')
-    .reduce((n, f) => n + f.amountKg, 0);
   const equipment = readEquipment(recipe, draft, { volumeL, boilSizeL, boilTimeMin });
-  const mash = readMash(recipe, draft, origins, gristKg);
+  const mash = readMash(recipe, draft, origins, mashedKg(fermentables));
   const miscs = readMiscs(recipe, draft, origins);
   const water = readWater(recipe, draft, miscs.salts, boilSizeL ?? volumeL);
   const style = readStyle(recipe, draft);
@@ -212,7 +207,7 @@ function readFermentables(recipe: XmlRecord, draft: Draft, origins: Origins) {
     const colour = f.num('COLOR', { required: true, min: 0 })!;
     // The specification gives liquid extract colour in SRM and everything else in °L.
     const isLiquidExtract = typeText.trim().toLowerCase() === 'extract';
-    const colorLovibond = isLiquidExtract ? round(srmToLovibondClamped(colour), 2) : colour;
+    const colorLovibond = isLiquidExtract ? srmToLovibondClamped(colour) : colour;
     if (f.bool('ADD_AFTER_BOIL')) draft.kept.push(`${name}: added after the boil`);
     listUnread(f, draft);
     return { name: name.slice(0, 80), amountKg, potentialPpg: yieldPctToPpg(yieldPct), colorLovibond, kind };
@@ -257,7 +252,7 @@ function readHops(recipe: XmlRecord, draft: Draft, origins: Origins) {
     listUnread(h, draft);
     return {
       name: name.slice(0, 80),
-      amountG: round(amountKg * 1000, 3),
+      amountG: tidy(amountKg * 1000),
       alphaPct,
       use,
       timeMin,
@@ -289,12 +284,7 @@ const YEAST_TYPES: Record<string, YeastKind> = {
 
 function readYeasts(recipe: XmlRecord, draft: Draft, origins: Origins) {
   const yeasts = recipe.list('YEASTS', 'YEAST');
-  if (yeasts.length === 0) {
-    draft.guessed.push(
-      `Yeast: the recipe names none; added a clean ale yeast at ${DEFAULT_ATTENUATION_PCT.ale}% attenuation so the numbers can be worked out`,
-    );
-    return [{ name: 'Clean ale yeast', kind: 'ale' as const, attenuationPct: DEFAULT_ATTENUATION_PCT.ale }];
-  }
+  if (yeasts.length === 0) return defaultYeast(draft);
   return yeasts.map((y, index) => {
     origins.set(`yeasts.${index}`, y);
     const name = y.text('NAME', { required: true })!;
@@ -305,7 +295,10 @@ function readYeasts(recipe: XmlRecord, draft: Draft, origins: Origins) {
         `unknown yeast type "${typeText}" (expected Ale, Lager, Wheat, Wine or Champagne)`,
         y.at('TYPE'),
       );
-    if (kind === 'ale' && /kveik/i.test(name)) {
+    const bestFor = y.text('BEST_FOR');
+    const written = (Object.keys(YEAST_BEST_FOR) as YeastKind[]).find((k) => YEAST_BEST_FOR[k] === bestFor);
+    if (kind === 'ale' && written) kind = written;
+    else if (kind === 'ale' && /kveik/i.test(name)) {
       kind = 'kveik';
       draft.guessed.push(`${name}: read as a kveik yeast from its name`);
     } else if (kind !== 'wheat' && /brett|lacto|pedio|wild|sour/i.test(name)) {
@@ -320,6 +313,7 @@ function readYeasts(recipe: XmlRecord, draft: Draft, origins: Origins) {
     const tempMinC = y.num('MIN_TEMPERATURE');
     const tempMaxC = y.num('MAX_TEMPERATURE');
     y.markRead('FORM', 'AMOUNT', 'AMOUNT_IS_WEIGHT');
+    if (bestFor && !written) draft.kept.push(`Yeast ${name}: best for ${bestFor}`);
     const source = [y.text('LABORATORY'), y.text('PRODUCT_ID')].filter(Boolean).join(' ');
     if (source) draft.kept.push(`Yeast ${name}: ${source}`);
     const notes = y.text('NOTES');
@@ -351,7 +345,7 @@ function readEquipment(
   let boilOffLPerHour: number;
   if (evapRatePct !== undefined && boilSizeL !== undefined) {
     // BeerXML's evaporation rate is a percentage of the pre-boil volume per hour.
-    boilOffLPerHour = round((evapRatePct / 100) * boilSizeL, 3);
+    boilOffLPerHour = tidy((evapRatePct / 100) * boilSizeL);
   } else if (boilSizeL !== undefined && batch.boilTimeMin > 0 && boilSizeL - batch.volumeL - trubLossL > 0) {
     boilOffLPerHour = round((boilSizeL - batch.volumeL - trubLossL) / (batch.boilTimeMin / 60), 2);
     draft.guessed.push(`Boil-off rate: worked out from the boil and batch sizes as ${boilOffLPerHour} L per hour`);
@@ -373,19 +367,15 @@ function readMash(recipe: XmlRecord, draft: Draft, origins: Origins, gristKg: nu
   let mashWaterLPerKg = 3;
   let infusionGiven = false;
   mash.list('MASH_STEPS', 'MASH_STEP').forEach((step, index) => {
-    const name = step.text('NAME');
+    const stepName = step.text('NAME');
+    const name = stepName === unnamedStep(index) ? undefined : stepName;
     const tempC = step.num('STEP_TEMP', { required: true, min: 0 })!;
     const timeMin = step.num('STEP_TIME', { required: true, min: 0 })!;
     const infuseL = step.num('INFUSE_AMOUNT', { min: 0 });
     step.markRead('TYPE', 'RAMP_TIME', 'END_TEMP', 'DESCRIPTION', 'WATER_GRAIN_RATIO', 'INFUSE_TEMP');
     if (index === 0 && infuseL && gristKg > 0) {
       infusionGiven = true;
-      const ratio = infuseL / gristKg;
-      if (ratio >= 1 && ratio <= 10) mashWaterLPerKg = round(ratio, 3);
-      else
-        draft.guessed.push(
-          `Mash thickness: ${round(ratio, 2)} L/kg from the first infusion is outside 1–10 L/kg; used 3 L/kg`,
-        );
+      mashWaterLPerKg = tidy(infuseL / gristKg);
     }
     listUnread(step, draft);
     if (timeMin === 0) {
@@ -447,7 +437,8 @@ function readCarbonation(recipe: XmlRecord, draft: Draft) {
 function readStyle(recipe: XmlRecord, draft: Draft) {
   const style = recipe.child('STYLE');
   if (!style) return undefined;
-  if (!style.text('CATEGORY_NUMBER') && /^(unspecified|none)?$/i.test(style.text('NAME') ?? '')) {
+  const name = style.text('NAME') ?? '';
+  if (name === UNSPECIFIED_STYLE || (!style.text('CATEGORY_NUMBER') && /^(unspecified|none)?$/i.test(name))) {
     style.markRead(...Object.keys(style.node));
     return undefined;
   }
@@ -481,10 +472,7 @@ function readMiscs(recipe: XmlRecord, draft: Draft, origins: Origins): MiscReadi
     m.markRead('USE_FOR', 'NOTES', 'VERSION');
     const salt = saltFromName(name);
     if (salt && isWeight) {
-      const existing = salts.find((s) => s.salt === salt);
-      const grams = round(amount * 1000, 3);
-      if (existing) existing.grams = round(existing.grams + grams, 3);
-      else salts.push({ salt, grams });
+      addSalt(salts, salt, tidy(amount * 1000));
       origins.set('water.salts', m);
       return;
     }
@@ -498,7 +486,6 @@ function readMiscs(recipe: XmlRecord, draft: Draft, origins: Origins): MiscReadi
 function readWater(recipe: XmlRecord, draft: Draft, salts: MiscReading['salts'], fallbackVolumeL: number) {
   const waters = recipe.list('WATERS', 'WATER');
   if (waters.length === 0 && salts.length === 0) return undefined;
-  const source: WaterProfile = { calcium: 0, magnesium: 0, sodium: 0, chloride: 0, sulfate: 0, bicarbonate: 0 };
   const readings = waters.map((w) => {
     const volumeL = w.num('AMOUNT', { min: 0 }) ?? 0;
     const ions = Object.fromEntries(
@@ -510,23 +497,7 @@ function readWater(recipe: XmlRecord, draft: Draft, salts: MiscReading['salts'],
     listUnread(w, draft);
     return { volumeL, ions };
   });
-  let volumeL = readings.reduce((n, r) => n + r.volumeL, 0);
-  if (readings.length) {
-    const weights = volumeL > 0 ? readings.map((r) => r.volumeL / volumeL) : readings.map(() => 1 / readings.length);
-    for (const ion of ION_NAMES)
-      source[ion] = round(
-        readings.reduce((n, r, i) => n + r.ions[ion] * weights[i], 0),
-        2,
-      );
-    if (readings.length > 1) draft.guessed.push(`Water: ${readings.length} waters mixed into one profile by volume`);
-  } else {
-    draft.guessed.push('Water: salts without a water profile; assumed water with no ions (distilled)');
-  }
-  if (volumeL <= 0) {
-    volumeL = round(fallbackVolumeL, 2);
-    draft.guessed.push(`Water volume: the file gives none; used ${volumeL} L`);
-  }
-  return { volumeL, source, salts };
+  return mixWaters(readings, salts, draft, fallbackVolumeL);
 }
 
 function readKeptExtras(recipe: XmlRecord, draft: Draft): void {
@@ -542,246 +513,4 @@ function readKeptExtras(recipe: XmlRecord, draft: Draft): void {
   }
   const date = recipe.text('DATE');
   if (date) draft.kept.push(`Brewed on ${date}`);
-}
-
-// ---------------------------------------------------------------------------------------------
-// Writing
-
-interface Tag {
-  tag: string;
-  value?: string | number | boolean;
-  children?: Tag[];
-}
-
-const t = (tag: string, value: string | number | boolean): Tag => ({ tag, value });
-const group = (tag: string, children: Tag[]): Tag => ({ tag, children });
-
-function render(node: Tag, depth: number): string {
-  const pad = ' '.repeat(depth);
-  if (node.children) {
-    if (node.children.length === 0) return `${pad}<${node.tag}></${node.tag}>`;
-    return `${pad}<${node.tag}>\n${node.children.map((c) => render(c, depth + 1)).join('\n')}\n${pad}</${node.tag}>`;
-  }
-  const value =
-    typeof node.value === 'boolean'
-      ? node.value
-        ? 'TRUE'
-        : 'FALSE'
-      : typeof node.value === 'number'
-        ? plain(node.value)
-        : escapeXml(node.value ?? '');
-  return `${pad}<${node.tag}>${value}</${node.tag}>`;
-}
-
-const HOP_USE_WORDS: Record<HopUse, string> = {
-  boil: 'Boil',
-  dry_hop: 'Dry Hop',
-  mash: 'Mash',
-  first_wort: 'First Wort',
-  whirlpool: 'Aroma',
-};
-const FERMENTABLE_WORDS: Record<FermentableKind, string> = {
-  grain: 'Grain',
-  sugar: 'Sugar',
-  extract: 'Extract',
-  adjunct: 'Adjunct',
-};
-// BeerXML 1.0 has no kveik or wild type: they go out as Ale and are recognised again by name.
-const YEAST_WORDS: Record<YeastKind, string> = {
-  ale: 'Ale',
-  lager: 'Lager',
-  kveik: 'Ale',
-  wheat: 'Wheat',
-  wild: 'Ale',
-  other: 'Wine',
-};
-
-/** One recipe as a BeerXML 1.0 file (a RECIPES group holding one RECIPE). */
-export function toBeerXml(doc: RecipeDocument, opts: { brewer?: string } = {}): string {
-  const boilSizeL = round(preBoilVolumeL(doc.batch), 3);
-  const gristKg = doc.fermentables
-    .filter((f) => f.kind === 'grain' || f.kind === 'adjunct')
-    .reduce((n, f) => n + f.amountKg, 0);
-  const recipe: Tag[] = [
-    t('NAME', doc.title),
-    t('VERSION', 1),
-    t('TYPE', recipeType(doc)),
-    style(doc),
-    t('BREWER', opts.brewer ?? ''),
-    t('BATCH_SIZE', doc.batch.volumeL),
-    t('BOIL_SIZE', boilSizeL),
-    t('BOIL_TIME', doc.batch.boilTimeMin),
-    t('EFFICIENCY', doc.batch.efficiencyPct),
-    group(
-      'HOPS',
-      doc.hops.map((h) =>
-        group('HOP', [
-          t('NAME', h.name),
-          t('VERSION', 1),
-          t('ALPHA', h.alphaPct),
-          t('AMOUNT', round(h.amountG / 1000, 6)),
-          t('USE', HOP_USE_WORDS[h.use]),
-          t('TIME', h.timeMin),
-          ...(h.use === 'whirlpool' && h.tempC !== undefined ? [t('NOTES', `Hop stand at ${h.tempC} °C`)] : []),
-          t('FORM', h.form === 'leaf' ? 'Leaf' : 'Pellet'),
-        ]),
-      ),
-    ),
-    group(
-      'FERMENTABLES',
-      doc.fermentables.map((f) =>
-        group('FERMENTABLE', [
-          t('NAME', f.name),
-          t('VERSION', 1),
-          t('TYPE', FERMENTABLE_WORDS[f.kind]),
-          t('AMOUNT', f.amountKg),
-          t('YIELD', ppgToYieldPct(f.potentialPpg)),
-          // Liquid extract colour is SRM in BeerXML; everything else °L.
-          t('COLOR', f.kind === 'extract' ? round(lovibondToSrmClamped(f.colorLovibond), 4) : f.colorLovibond),
-        ]),
-      ),
-    ),
-    group(
-      'MISCS',
-      (doc.water?.salts ?? []).map((s) =>
-        group('MISC', [
-          t('NAME', SALT_FILE_NAMES[s.salt]),
-          t('VERSION', 1),
-          t('TYPE', 'Water Agent'),
-          t('USE', 'Mash'),
-          t('TIME', 0),
-          t('AMOUNT', round(s.grams / 1000, 6)),
-          t('AMOUNT_IS_WEIGHT', true),
-        ]),
-      ),
-    ),
-    group(
-      'YEASTS',
-      doc.yeasts.map((y) =>
-        group('YEAST', [
-          t('NAME', y.name),
-          t('VERSION', 1),
-          t('TYPE', YEAST_WORDS[y.kind]),
-          t('FORM', 'Dry'),
-          t('AMOUNT', 0.011),
-          t('AMOUNT_IS_WEIGHT', true),
-          ...(y.tempMinC === undefined ? [] : [t('MIN_TEMPERATURE', y.tempMinC)]),
-          ...(y.tempMaxC === undefined ? [] : [t('MAX_TEMPERATURE', y.tempMaxC)]),
-          t('ATTENUATION', y.attenuationPct),
-        ]),
-      ),
-    ),
-    group(
-      'WATERS',
-      doc.water
-        ? [
-            group('WATER', [
-              t('NAME', 'Source water'),
-              t('VERSION', 1),
-              t('AMOUNT', doc.water.volumeL),
-              ...ION_NAMES.map((ion) => t(ion.toUpperCase(), doc.water!.source[ion])),
-            ]),
-          ]
-        : [],
-    ),
-    group('EQUIPMENT', [
-      t('NAME', `${doc.title} kit`),
-      t('VERSION', 1),
-      t('BOIL_SIZE', boilSizeL),
-      t('BATCH_SIZE', doc.batch.volumeL),
-      t('TRUB_CHILLER_LOSS', doc.batch.trubLossL),
-      t('EVAP_RATE', boilSizeL > 0 ? round((doc.batch.boilOffLPerHour / boilSizeL) * 100, 6) : 0),
-      t('BOIL_TIME', doc.batch.boilTimeMin),
-    ]),
-    group('MASH', [
-      t('NAME', 'Mash'),
-      t('VERSION', 1),
-      t('GRAIN_TEMP', 20),
-      group(
-        'MASH_STEPS',
-        doc.mash.steps.map((s, i) =>
-          group('MASH_STEP', [
-            t('NAME', s.name ?? ''),
-            t('VERSION', 1),
-            t('TYPE', i === 0 ? 'Infusion' : 'Temperature'),
-            ...(i === 0 ? [t('INFUSE_AMOUNT', round(doc.batch.mashWaterLPerKg * gristKg, 4))] : []),
-            t('STEP_TEMP', s.tempC),
-            t('STEP_TIME', s.timeMin),
-          ]),
-        ),
-      ),
-    ]),
-    t('NOTES', notesForExport(doc)),
-    ...fermentationTags(doc),
-    ...(doc.carbonation
-      ? [t('CARBONATION', doc.carbonation.volumesCO2), t('CARBONATION_TEMP', doc.carbonation.servingTempC)]
-      : []),
-  ];
-  return `<?xml version="1.0" encoding="UTF-8"?>\n${render(group('RECIPES', [group('RECIPE', recipe)]), 0)}\n`;
-}
-
-function recipeType(doc: RecipeDocument): string {
-  const mashed = doc.fermentables.some((f) => f.kind === 'grain' || f.kind === 'adjunct');
-  const extract = doc.fermentables.some((f) => f.kind === 'extract');
-  return mashed && extract ? 'Partial Mash' : extract ? 'Extract' : 'All Grain';
-}
-
-function style(doc: RecipeDocument): Tag {
-  const code = doc.style?.code;
-  const guideline = code ? findStyle(code) : undefined;
-  if (!doc.style || !guideline) {
-    return group('STYLE', [
-      t('NAME', doc.style?.name ?? 'Unspecified'),
-      t('CATEGORY', ''),
-      t('VERSION', 1),
-      t('CATEGORY_NUMBER', ''),
-      t('STYLE_LETTER', ''),
-      t('STYLE_GUIDE', ''),
-      t('TYPE', 'Ale'),
-      ...rangeTags(undefined),
-    ]);
-  }
-  const { number, letter } = splitStyleCode(guideline.code);
-  return group('STYLE', [
-    t('NAME', guideline.name),
-    t('CATEGORY', guideline.category),
-    t('VERSION', 1),
-    t('CATEGORY_NUMBER', number),
-    t('STYLE_LETTER', letter),
-    t('STYLE_GUIDE', 'BJCP 2021'),
-    t('TYPE', /lager|pils|bock|helles|märzen|marzen|schwarz|dunkel/i.test(guideline.name) ? 'Lager' : 'Ale'),
-    ...rangeTags(guideline.vitals),
-  ]);
-}
-
-function rangeTags(vitals: NonNullable<ReturnType<typeof findStyle>>['vitals'] | undefined): Tag[] {
-  const range = (
-    min: string,
-    max: string,
-    r: { min: number; max: number } | null | undefined,
-    fallback: [number, number],
-  ) => [t(min, r?.min ?? fallback[0]), t(max, r?.max ?? fallback[1])];
-  return [
-    ...range('OG_MIN', 'OG_MAX', vitals?.og, [1, 1.2]),
-    ...range('FG_MIN', 'FG_MAX', vitals?.fg, [0.99, 1.1]),
-    ...range('IBU_MIN', 'IBU_MAX', vitals?.ibu, [0, 150]),
-    ...range('COLOR_MIN', 'COLOR_MAX', vitals?.srm, [0, 80]),
-  ];
-}
-
-function fermentationTags(doc: RecipeDocument): Tag[] {
-  const stages = ['PRIMARY', 'SECONDARY', 'TERTIARY'];
-  const steps = doc.fermentation.steps.slice(0, 3);
-  return [
-    t('FERMENTATION_STAGES', steps.length),
-    ...steps.flatMap((s, i) => [t(`${stages[i]}_AGE`, s.days), t(`${stages[i]}_TEMP`, s.tempC)]),
-  ];
-}
-
-/** BeerXML 1.0 has three fermentation stages; later steps are written into the notes so they are not lost. */
-function notesForExport(doc: RecipeDocument): string {
-  const extra = doc.fermentation.steps.slice(3);
-  if (!extra.length) return doc.notes;
-  const lines = extra.map((s, i) => `- Step ${i + 4}: ${s.days} days at ${s.tempC} °C`);
-  return `${doc.notes}\n\nFurther fermentation steps:\n${lines.join('\n')}`.trim();
 }
