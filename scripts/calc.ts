@@ -22,7 +22,7 @@ const scaleTargetSchema = z.object({
   boilOffLPerHour: z.number({ error: 'Boil-off rate must be a number' }).min(0).max(100).optional(),
   trubLossL: z.number({ error: 'Kettle trub loss must be a number' }).min(0).max(500).optional(),
   grainAbsorptionLPerKg: z.number({ error: 'Grain absorption must be a number' }).min(0).max(3).optional(),
-  mashWaterLPerKg: z.number({ error: 'Mash thickness must be a number' }).min(1).max(10).optional(),
+  mashWaterLPerKg: z.number({ error: 'Mash thickness must be a number' }).min(1).max(30).optional(),
 });
 
 async function readStdin(): Promise<string> {

@@ -74,7 +74,7 @@ describe('recipe document', () => {
       'a mash at 20 °C',
       (d) => (d.mash.steps[0].tempC = 20),
       'mash.steps.0.tempC',
-      /Mash temperature must be at least 35/,
+      /Mash temperature must be at least 25/,
     ],
     [
       'a 100 °C fermentation',

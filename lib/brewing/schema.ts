@@ -47,6 +47,10 @@ function objectError(label: string) {
 const MAX_GRIST_KG_PER_L = 1;
 /** Heaviest total hop load we accept per litre of batch (a heavy dry-hopped beer uses about 20 g/L; common practice). */
 const MAX_HOPS_G_PER_L = 100;
+/** Thinnest mash accepted, in litres of water per kg of grist. */
+const MAX_MASH_WATER_L_PER_KG = 30;
+/** Longest mash rest accepted: three days. */
+const MAX_MASH_STEP_MIN = 4320;
 /** Most salt we accept per litre of brewing water. */
 const MAX_SALTS_G_PER_L = 5;
 
@@ -91,9 +95,10 @@ const batchSchema = z.object(
       .min(0, 'Grain absorption cannot be negative')
       .max(3, 'Grain absorption must be at most 3 L per kg')
       .default(1),
+    // Up to 30 L/kg: a full-volume (no-sparge) mash of a small grist runs well past 10 L/kg (common practice).
     mashWaterLPerKg: numberField('Mash thickness')
       .min(1, 'Mash thickness must be at least 1 L per kg')
-      .max(10, 'Mash thickness must be at most 10 L per kg')
+      .max(MAX_MASH_WATER_L_PER_KG, `Mash thickness must be at most ${MAX_MASH_WATER_L_PER_KG} L per kg`)
       .default(3),
   },
   objectError('Batch'),
@@ -163,12 +168,14 @@ const yeastSchema = z
 const mashStepSchema = z.object(
   {
     name: textField('Mash step name', 60).optional(),
+    // From 25 °C: a souring rest for lactic bacteria runs from about 30 °C (common practice).
     tempC: numberField('Mash temperature')
-      .min(35, 'Mash temperature must be at least 35 °C')
+      .min(25, 'Mash temperature must be at least 25 °C')
       .max(80, 'Mash temperature must be at most 80 °C'),
+    // Up to three days: sour mashes and overnight rests are held for 12–72 hours (common practice).
     timeMin: numberField('Mash step time')
       .positive('Mash step time must be more than 0 min')
-      .max(600, 'Mash step time must be at most 600 min'),
+      .max(MAX_MASH_STEP_MIN, `Mash step time must be at most ${MAX_MASH_STEP_MIN} min (3 days)`),
   },
   objectError('Mash step'),
 );

@@ -179,9 +179,19 @@ describe('BeerXML files we refuse', () => {
     );
   });
 
-  it('refuses values our schema does not accept, naming the BeerXML element', () => {
-    const err = refusal(() => parseBeerXml(hop('0.03').replace('<ALPHA>5</ALPHA>', '<ALPHA>45</ALPHA>')));
-    expect(err.message).toMatch(/HOP 1 \(Cascade\) › ALPHA: Alpha acid must be at most 30%/);
+  it('refuses an alpha acid over 100%, which no hop has', () => {
+    const err = refusal(() => parseBeerXml(hop('0.03').replace('<ALPHA>5</ALPHA>', '<ALPHA>145</ALPHA>')));
+    expect(err.message).toMatch(/HOP 1 \(Cascade\) › ALPHA: an alpha acid of 145% is more than the whole/);
+  });
+
+  it('refuses a mash above boiling, naming the element', () => {
+    const file = hop('0.03').replace(
+      '</FERMENTABLES>',
+      '</FERMENTABLES><MASH><NAME>M</NAME><VERSION>1</VERSION><GRAIN_TEMP>20</GRAIN_TEMP><MASH_STEPS><MASH_STEP><NAME>Rest</NAME><VERSION>1</VERSION><TYPE>Infusion</TYPE><STEP_TEMP>152</STEP_TEMP><STEP_TIME>60</STEP_TIME></MASH_STEP></MASH_STEPS></MASH>',
+    );
+    expect(refusal(() => parseBeerXml(file)).message).toMatch(
+      /MASH_STEP 1 \(Rest\) › STEP_TEMP: a mash at 152 °C is outside liquid water/,
+    );
   });
 
   it('refuses a file over 2 MB', () => {

@@ -1,5 +1,4 @@
 import {
-  formatIssues,
   recipeDocumentSchema,
   type Fermentable,
   type RecipeDocument,
@@ -9,7 +8,8 @@ import {
 } from '@/lib/brewing/schema';
 import { ION_NAMES } from '@/lib/brewing/constants';
 import { findStyle, listStyles } from '@/lib/brewing/styles';
-import { InterchangeError, type ImportedRecipe } from './types';
+import { fitToSchema, refuseNonsense } from './fit';
+import type { ImportedRecipe } from './types';
 import { tidy } from './units';
 
 /** What one reader collects while it maps a recipe: the draft document and its two lists. */
@@ -25,29 +25,29 @@ export function newDraft(): Draft {
 }
 
 /** The notes of an imported recipe: the file's own notes, then what we kept from the rest of it. */
-export function notesWith(notes: string, kept: readonly string[], formatName: string): string {
+function notesWith(notes: string, kept: readonly string[], formatName: string): string {
   const parts = [notes.trim()];
   if (kept.length) parts.push(`### Also in the ${formatName} file\n\n${kept.map((line) => `- ${line}`).join('\n')}`);
   return parts.filter(Boolean).join('\n\n').slice(0, 50000);
 }
 
 /**
- * Checks a mapped document against our schema. A refusal names the element of the file
- * (through `describe`, which turns `hops.1.amountG` into the file's own words) and the rule.
+ * Finishes a mapped document: refuses physical nonsense, fits what is real but outside the
+ * editor's limits (listing each change), then writes the notes: the file's own, then what we kept.
+ * A refusal names the element of the file (through `describe`, which turns `hops.1.amountG` into
+ * the file's own words) and the rule.
  */
 export function finishRecipe(
   input: RecipeDocumentInput,
   draft: Draft,
   describe: (path: string) => string,
+  notes: { text: string; formatName: string },
 ): ImportedRecipe {
-  const parsed = recipeDocumentSchema.safeParse(input);
-  if (!parsed.success) {
-    const issues = formatIssues(parsed.error);
-    const first = issues[0];
-    const more = issues.length > 1 ? ` (and ${issues.length - 1} more problem${issues.length > 2 ? 's' : ''})` : '';
-    throw new InterchangeError(`${first.message}${more}`, describe(first.path));
-  }
-  return { document: parsed.data, dropped: draft.dropped, guessed: draft.guessed };
+  refuseNonsense(input, describe);
+  const fitted = fitToSchema(input, draft, describe);
+  fitted.notes = notesWith(notes.text, draft.kept, notes.formatName);
+  const document = recipeDocumentSchema.parse(fitted);
+  return { document, dropped: draft.dropped, guessed: draft.guessed };
 }
 
 /** Salt names as brewers and both formats write them, to our salt list. */

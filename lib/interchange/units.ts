@@ -146,7 +146,8 @@ export function fileNumber(value: number): number {
 /** A number as file text: every significant digit kept, never in exponent notation (1e-7). */
 export function decimalText(value: number): string {
   const v = fileNumber(value);
-  if (v === 0) return '0';
+  // Past a hundred decimals a value is nothing any brewery measures: it is written as 0.
+  if (Math.abs(v) < 1e-90) return '0';
   const magnitude = Math.floor(Math.log10(Math.abs(v)));
   const decimals = Math.min(Math.max(WRITTEN_DIGITS - 1 - magnitude, 0), 100);
   const text = v.toFixed(decimals);

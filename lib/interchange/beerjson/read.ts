@@ -20,7 +20,6 @@ import {
   matchStyle,
   mixWaters,
   newDraft,
-  notesWith,
   saltFromName,
   unnamedStep,
   type Draft,
@@ -211,8 +210,10 @@ function readRecipe(data: Json, basePath: string, library: Library): ImportedRec
   };
   if (!name.trim()) draft.guessed.push('Title: the recipe has no name; called it "Imported recipe"');
   readKeptExtras(recipe, draft);
-  document.notes = notesWith(recipe.str('notes') ?? '', draft.kept, FORMAT_NAME);
-  return finishRecipe(document, draft, describer(recipe, origins));
+  return finishRecipe(document, draft, describer(recipe, origins), {
+    text: recipe.str('notes') ?? '',
+    formatName: FORMAT_NAME,
+  });
 }
 
 function amountKg(node: Node, what: string): number {
@@ -390,7 +391,10 @@ function readCultures(ingredients: Node, library: Library, draft: Draft, origins
     origins.set(`yeasts.${index}`, c);
     const name = String(c.data.name).slice(0, 80);
     let kind = CULTURE_KINDS[String(c.data.type)] ?? 'other';
-    const info = library.cultures.find((entry) => entry.name === c.data.name);
+    // The n-th addition of a name is described by the n-th library entry of that name (else the first).
+    const occurrence = cultures.slice(0, index).filter((other) => other.data.name === c.data.name).length;
+    const namesakes = library.cultures.filter((entry) => entry.name === c.data.name);
+    const info = namesakes[occurrence] ?? namesakes[0];
     const infoNode = info ? new Node(info, `beerjson.cultures (${name})`) : undefined;
     // BeerJSON has no wheat-beer type; such yeasts travel as ale, known by what they are best for or by name.
     if (kind === 'ale' && infoNode?.str('best_for') === WHEAT_YEAST_BEST_FOR) kind = 'wheat';

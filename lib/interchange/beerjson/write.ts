@@ -100,22 +100,21 @@ export function toBeerJson(doc: RecipeDocument, opts: { author?: string } = {}):
         }
       : {}),
   };
-  const cultures = doc.yeasts
-    .filter((y) => (y.tempMinC !== undefined && y.tempMaxC !== undefined) || y.kind === 'wheat')
-    .map((y) => ({
-      name: y.name,
-      type: CULTURE_TYPES[y.kind],
-      form: 'dry',
-      ...(y.tempMinC !== undefined && y.tempMaxC !== undefined
-        ? { temperature_range: { minimum: celsius(y.tempMinC), maximum: celsius(y.tempMaxC) } }
-        : {}),
-      ...(y.kind === 'wheat' ? { best_for: WHEAT_YEAST_BEST_FOR } : {}),
-    }));
+  // One entry per culture addition, in the same order, so two cultures of one name stay apart.
+  const cultures = doc.yeasts.map((y) => ({
+    name: y.name,
+    type: CULTURE_TYPES[y.kind],
+    form: 'dry',
+    ...(y.tempMinC !== undefined && y.tempMaxC !== undefined
+      ? { temperature_range: { minimum: celsius(y.tempMinC), maximum: celsius(y.tempMaxC) } }
+      : {}),
+    ...(y.kind === 'wheat' ? { best_for: WHEAT_YEAST_BEST_FOR } : {}),
+  }));
   return {
     beerjson: {
       version: 1,
       recipes: [recipe],
-      ...(cultures.length ? { cultures } : {}),
+      cultures,
       equipments: [equipment(doc)],
     },
   };

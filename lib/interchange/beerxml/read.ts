@@ -20,7 +20,6 @@ import {
   matchStyle,
   mixWaters,
   newDraft,
-  notesWith,
   saltFromName,
   unnamedStep,
   type Draft,
@@ -174,8 +173,7 @@ function readRecipe(recipe: XmlRecord): ImportedRecipe {
     .filter(Boolean)
     .join('\n\n');
   listUnread(recipe, draft);
-  document.notes = notesWith(notes, draft.kept, FORMAT_NAME);
-  return finishRecipe(document, draft, describer(recipe, origins));
+  return finishRecipe(document, draft, describer(recipe, origins), { text: notes, formatName: FORMAT_NAME });
 }
 
 function listUnread(record: XmlRecord, draft: Draft): void {
