@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { computeStats, recipeDocumentSchema, type RecipeDocument, type RecipeStats } from '@/lib/brewing';
+import { checkBeerJsonSchema } from '@/lib/interchange/beerjson/schema';
 import { TestClient } from '../helpers/http';
 import { createRecipeVia, paleAle } from '../helpers/recipes';
 import { signedInClient } from '../helpers/users';
@@ -48,6 +49,29 @@ describe('POST /api/import', () => {
     expect(res.status).toBe(200);
     expect(res.body.format).toBe('beerjson');
     expect(res.body.recipes[0].document.style).toEqual({ code: '18B', name: 'American Pale Ale' });
+  });
+
+  it('imports a long souring rest and a 21-day dry hop whole, and lists a value past the editor under Assumed', async () => {
+    const { client } = await signedInClient();
+    const file = JSON.parse(example('beerjson-spec-pale-ale.json'));
+    const recipe = file.beerjson.recipes[0];
+    recipe.mash.mash_steps.push({
+      name: 'Souring rest',
+      type: 'souring mash',
+      step_temperature: { unit: 'C', value: 42 },
+      step_time: { unit: 'hr', value: 48 },
+    });
+    recipe.ingredients.hop_additions[1].timing.duration = { unit: 'day', value: 21 };
+    recipe.ingredients.hop_additions[0].alpha_acid.value = 48;
+    const res = await client.post<Preview>('/api/import', { text: JSON.stringify(file) });
+    expect(res.status).toBe(200);
+    const [back] = res.body.recipes;
+    expect(back.document.mash.steps[1]).toEqual({ name: 'Souring rest', tempC: 42, timeMin: 2880 });
+    expect(back.document.hops[1].timeMin).toBe(21 * 1440);
+    expect(back.document.hops[0].alphaPct).toBe(30);
+    expect(back.guessed.join('\n')).toMatch(
+      /hop_additions\[0\] \(Cascade\)\.alpha_acid: 48 is outside what the editor takes/,
+    );
   });
 
   describe('refuses bad files with a message naming the problem, and creates nothing', () => {
@@ -155,6 +179,23 @@ describe('GET /api/versions/[id]/export and the round trip back in', () => {
       expect(version.body.version.number).toBe(2);
     });
   }
+
+  it('exports an extract recipe with no mash and no fermentation steps as valid BeerJSON 1.0', async () => {
+    const { client } = await signedInClient();
+    const document = paleAle({
+      title: 'Kitchen Extract',
+      fermentables: [{ name: 'Dry malt extract', amountKg: 3, potentialPpg: 44, colorLovibond: 4, kind: 'extract' }],
+      mash: { steps: [] },
+      fermentation: { steps: [] },
+    });
+    const saved = await createRecipeVia(client, { document, visibility: 'private' });
+    const res = await client.fetch(`/api/versions/${saved.version.id}/export?format=beerjson`);
+    expect(res.status).toBe(200);
+    const file = (await res.json()) as { beerjson: { recipes: Record<string, unknown>[] } };
+    expect(checkBeerJsonSchema(file)).toBeNull();
+    expect(file.beerjson.recipes[0]).not.toHaveProperty('mash');
+    expect(file.beerjson.recipes[0]).not.toHaveProperty('fermentation');
+  });
 
   it('exports our own JSON document', async () => {
     const { client } = await signedInClient();
