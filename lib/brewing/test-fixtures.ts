@@ -125,13 +125,13 @@ export function recipeInputArb(options: RecipeArbOptions = {}): fc.Arbitrary<Rec
           boilOffLPerHour: within(0, 100),
           trubLossL: within(0, 500),
           grainAbsorptionLPerKg: within(0, 3),
-          mashWaterLPerKg: within(1, 10),
+          mashWaterLPerKg: within(1, 30),
         }),
         fermentables: fermentablesArb(batch.volumeL, options.minKgShare ?? 0.0001),
         hops: hopsArb(batch.volumeL, batch.boilTimeMin),
         yeasts: fc.array(yeastArb, { minLength: 1, maxLength: 3 }),
         mash: fc.record({
-          steps: fc.array(fc.record({ tempC: within(35, 80), timeMin: within(0.01, 600) }), { maxLength: 4 }),
+          steps: fc.array(fc.record({ tempC: within(25, 80), timeMin: within(0.01, 4320) }), { maxLength: 4 }),
         }),
         fermentation: fc.record({
           steps: fc.array(fc.record({ tempC: within(0, 40), days: within(0.01, 365) }), { maxLength: 3 }),
