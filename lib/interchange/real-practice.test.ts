@@ -108,6 +108,15 @@ describe('real brewing practice imports whole', () => {
     );
   });
 
+  it('reads an attenuation of 0 as not given, using the usual attenuation for the yeast kind', () => {
+    expect(beerXml({}).document.yeasts[0].attenuationPct).toBe(78);
+    const zero = parseBeerXml(
+      `${XML_HEAD.replace('<ATTENUATION>78</ATTENUATION>', '<ATTENUATION>0</ATTENUATION>')}</RECIPE></RECIPES>`,
+    ).recipes[0];
+    expect(zero.document.yeasts[0].attenuationPct).toBe(75);
+    expect(zero.guessed.join('\n')).toMatch(/Clean ale yeast: the file gives no attenuation; used 75%/);
+  });
+
   it('brings a boil hop longer than the boil to the boil time, listed under Assumed', () => {
     const xml = beerXml({ hops: xmlHop('Boil', 90), steps: xmlStep('Rest', 66, 60, 7.5) });
     expect(xml.document.hops[0].timeMin).toBe(60);

@@ -404,7 +404,8 @@ function readCultures(ingredients: Node, library: Library, draft: Draft, origins
     }
     const attenuation = c.measured('attenuation');
     let attenuationPct: number;
-    if (attenuation) attenuationPct = toPercent(attenuation, c.at('attenuation'));
+    // An attenuation of 0 is how some programs write "not known": no yeast leaves the wort untouched.
+    if (attenuation && attenuation.value > 0) attenuationPct = toPercent(attenuation, c.at('attenuation'));
     else {
       const range = infoNode?.child('attenuation_range');
       if (range) {

@@ -304,7 +304,8 @@ function readYeasts(recipe: XmlRecord, draft: Draft, origins: Origins) {
       draft.guessed.push(`${name}: read as a wild culture from its name`);
     }
     let attenuationPct = y.num('ATTENUATION', { min: 0 });
-    if (attenuationPct === undefined) {
+    // An attenuation of 0 is how some programs write "not known": no yeast leaves the wort untouched.
+    if (attenuationPct === undefined || attenuationPct === 0) {
       attenuationPct = DEFAULT_ATTENUATION_PCT[kind];
       draft.guessed.push(`${name}: the file gives no attenuation; used ${attenuationPct}%`);
     }
