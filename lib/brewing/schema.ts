@@ -49,6 +49,8 @@ const MAX_GRIST_KG_PER_L = 1;
 const MAX_HOPS_G_PER_L = 100;
 /** Thinnest mash accepted, in litres of water per kg of grist. */
 const MAX_MASH_WATER_L_PER_KG = 30;
+/** Longest hop contact accepted: 90 days. */
+const MAX_HOP_TIME_MIN = 129600;
 /** Longest mash rest accepted: three days. */
 const MAX_MASH_STEP_MIN = 4320;
 /** Most salt we accept per litre of brewing water. */
@@ -129,9 +131,10 @@ const hopSchema = z.object(
       .min(0, 'Alpha acid cannot be negative')
       .max(30, 'Alpha acid must be at most 30%'),
     use: choiceField('Hop use', HOP_USES),
+    // Up to 90 days: a keg hop stays in the keg while it is served, for weeks to months (common practice).
     timeMin: numberField('Hop time')
       .min(0, 'Hop time cannot be negative')
-      .max(43200, 'Hop time must be at most 43200 min (30 days)'),
+      .max(MAX_HOP_TIME_MIN, `Hop time must be at most ${MAX_HOP_TIME_MIN} min (90 days)`),
     form: choiceField('Hop form', HOP_FORMS),
     tempC: numberField('Hop stand temperature')
       .min(0, 'Hop stand temperature cannot be below 0 °C')

@@ -66,7 +66,7 @@ function hopsArb(volumeL: number, boilTimeMin: number) {
       })
       .map(({ timeShare, ...hop }) => ({
         ...hop,
-        timeMin: hop.use === 'boil' || hop.use === 'first_wort' ? timeShare * boilTimeMin : timeShare * 43200,
+        timeMin: hop.use === 'boil' || hop.use === 'first_wort' ? timeShare * boilTimeMin : timeShare * 129600,
       })),
     { maxLength: 8 },
   );

@@ -66,6 +66,15 @@ describe('real brewing practice imports whole', () => {
     expect(json.document.hops[1]).toMatchObject({ use: 'dry_hop', timeMin: days * 1440 });
   });
 
+  // A keg hop stays in while the keg is served (common practice).
+  it('a keg hop left in for 60 days', () => {
+    const json = beerJson((r) => {
+      r.ingredients.hop_additions[1].timing = { use: 'add_to_package', duration: { unit: 'day', value: 60 } };
+    });
+    expect(json.document.hops[1]).toMatchObject({ use: 'dry_hop', timeMin: 60 * 1440 });
+    expect(json.guessed.join('\n')).toMatch(/a hop added at packaging, counted as a dry hop/);
+  });
+
   it('a thin mash of 12 L/kg and a full-volume (no-sparge) mash of 11.6 L/kg', () => {
     // 30 L of strike water on 2.5 kg: 12 L/kg.
     const thin = beerXml({ steps: xmlStep('Full volume', 66, 60, 30) });
