@@ -123,11 +123,16 @@ describe('BeerJSON files we refuse', () => {
     );
   });
 
-  it('refuses a fermentable measured by volume', () => {
+  it('leaves out a fermentable measured by volume, listing it, and refuses a file left with none', () => {
     const file = base();
     file.beerjson.recipes[0].ingredients.fermentable_additions[0].amount = { unit: 'l', value: 2 };
+    const [recipe] = parseBeerJson(JSON.stringify(file)).recipes;
+    expect(recipe.document.fermentables.map((f) => f.name)).toEqual(['Crystal 40']);
+    expect(recipe.dropped.join('\n')).toMatch(/fermentable_additions\[0\] \(Pale 2-row\): measured by volume \(2 l\)/);
+    expect(recipe.document.notes).toContain('Pale 2-row: 2 l (left out: measured by volume)');
+    file.beerjson.recipes[0].ingredients.fermentable_additions[1].amount = { unit: 'l', value: 1 };
     expect(refusal(() => parseBeerJson(JSON.stringify(file))).message).toMatch(
-      /fermentable_additions\[0\] \(Pale 2-row\)\.amount: the amount given as a volume/,
+      /fermentable_additions: Fermentables need at least one entry/,
     );
   });
 

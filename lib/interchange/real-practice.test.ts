@@ -117,6 +117,20 @@ describe('real brewing practice imports whole', () => {
     );
   });
 
+  it('reads types and uses outside the BeerXML 1.0 lists as the nearest one, listed under Assumed', () => {
+    const xml = parseBeerXml(
+      `${XML_HEAD.replace('<TYPE>Grain</TYPE>', '<TYPE>Fruit</TYPE>').replace('<TYPE>Ale</TYPE>', '<TYPE>Kveik</TYPE>')}
+<HOPS>${xmlHop('Hop Stand', 20)}</HOPS></RECIPE></RECIPES>`,
+    ).recipes[0];
+    expect(xml.document.fermentables[0].kind).toBe('adjunct');
+    expect(xml.document.yeasts[0].kind).toBe('kveik');
+    expect(xml.document.hops[0].use).toBe('whirlpool');
+    expect(xml.guessed.join('\n')).toMatch(/FERMENTABLE 1 \(Pilsner malt\) › TYPE: "Fruit" is not a BeerXML 1.0 type/);
+    expect(xml.guessed.join('\n')).toMatch(
+      /HOP 1 \(Saaz\) › USE: "Hop Stand" is not a BeerXML 1.0 use .*read as whirlpool/,
+    );
+  });
+
   it('reads an attenuation of 0 as not given, using the usual attenuation for the yeast kind', () => {
     expect(beerXml({}).document.yeasts[0].attenuationPct).toBe(78);
     const zero = parseBeerXml(

@@ -229,7 +229,17 @@ function amountKg(node: Node, what: string): number {
 }
 
 function readFermentables(ingredients: Node, draft: Draft, origins: Origins) {
-  return ingredients.list('fermentable_additions').map((f, index) => {
+  const byWeight = ingredients.list('fermentable_additions').filter((f) => {
+    const amount = f.measured('amount');
+    if (!amount || isMassUnit(amount.unit)) return true;
+    // Syrups, honey and purées are measured by volume; their weight depends on a density the file does not give.
+    draft.dropped.push(
+      `${f.path}: measured by volume (${plain(amount.value, 3)} ${amount.unit}); Kettlefork counts fermentables by weight, so it is left out`,
+    );
+    draft.kept.push(`${String(f.data.name)}: ${plain(amount.value, 3)} ${amount.unit} (left out: measured by volume)`);
+    return false;
+  });
+  return byWeight.map((f, index) => {
     origins.set(`fermentables.${index}`, f);
     const type = String(f.data.type);
     const group = f.str('grain_group');

@@ -194,12 +194,13 @@ function readFermentables(recipe: XmlRecord, draft: Draft, origins: Origins) {
     origins.set(`fermentables.${index}`, f);
     const name = f.text('NAME', { required: true })!;
     const typeText = f.text('TYPE', { required: true })!;
-    const kind = FERMENTABLE_TYPES[typeText.trim().toLowerCase()];
-    if (!kind)
-      throw new InterchangeError(
-        `unknown fermentable type "${typeText}" (expected Grain, Sugar, Extract, Dry Extract or Adjunct)`,
-        f.at('TYPE'),
+    let kind = FERMENTABLE_TYPES[typeText.trim().toLowerCase()];
+    if (!kind) {
+      kind = 'adjunct';
+      draft.guessed.push(
+        `${f.at('TYPE')}: "${typeText}" is not a BeerXML 1.0 type (Grain, Sugar, Extract, Dry Extract, Adjunct); counted as an adjunct`,
       );
+    }
     const amountKg = f.num('AMOUNT', { required: true, min: 0 })!;
     const yieldPct = f.num('YIELD', { required: true, min: 0 })!;
     const colour = f.num('COLOR', { required: true, min: 0 })!;
@@ -228,12 +229,17 @@ function readHops(recipe: XmlRecord, draft: Draft, origins: Origins) {
     origins.set(`hops.${index}`, h);
     const name = h.text('NAME', { required: true })!;
     const useText = h.text('USE', { required: true })!;
-    const use = HOP_USES[useText.trim().toLowerCase()];
-    if (!use)
-      throw new InterchangeError(
-        `unknown hop use "${useText}" (expected Boil, Dry Hop, Mash, First Wort or Aroma)`,
-        h.at('USE'),
+    let use = HOP_USES[useText.trim().toLowerCase()];
+    if (!use) {
+      use = /stand|flame ?out|knock ?out|steep|whirl/i.test(useText)
+        ? 'whirlpool'
+        : /dry/i.test(useText)
+          ? 'dry_hop'
+          : 'boil';
+      draft.guessed.push(
+        `${h.at('USE')}: "${useText}" is not a BeerXML 1.0 use (Boil, Dry Hop, Mash, First Wort, Aroma); read as ${use.replace('_', ' ')}`,
       );
+    }
     const amountKg = h.num('AMOUNT', { required: true, min: 0 })!;
     const alphaPct = h.num('ALPHA', { required: true, min: 0 })!;
     const timeMin = h.num('TIME', { required: true, min: 0 })!;
@@ -288,11 +294,12 @@ function readYeasts(recipe: XmlRecord, draft: Draft, origins: Origins) {
     const name = y.text('NAME', { required: true })!;
     const typeText = y.text('TYPE', { required: true })!;
     let kind = YEAST_TYPES[typeText.trim().toLowerCase()];
-    if (!kind)
-      throw new InterchangeError(
-        `unknown yeast type "${typeText}" (expected Ale, Lager, Wheat, Wine or Champagne)`,
-        y.at('TYPE'),
+    if (!kind) {
+      kind = /kveik/i.test(typeText) ? 'kveik' : /brett|lacto|pedio|wild|sour|mixed/i.test(typeText) ? 'wild' : 'other';
+      draft.guessed.push(
+        `${y.at('TYPE')}: "${typeText}" is not a BeerXML 1.0 type (Ale, Lager, Wheat, Wine, Champagne); read as ${kind}`,
       );
+    }
     const bestFor = y.text('BEST_FOR');
     const written = (Object.keys(YEAST_BEST_FOR) as YeastKind[]).find((k) => YEAST_BEST_FOR[k] === bestFor);
     if (kind === 'ale' && written) kind = written;
