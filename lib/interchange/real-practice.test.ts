@@ -131,6 +131,14 @@ describe('real brewing practice imports whole', () => {
     );
   });
 
+  it('reads a BeerJSON potential given in °P', () => {
+    const json = beerJson((r) => {
+      r.ingredients.fermentable_additions[1].yield = { potential: { unit: 'plato', value: 8.5 } };
+    });
+    // °P → SG: 1 + P / (258.6 − 227.1 P / 258.2) (the common inverse of the ASBC polynomial).
+    expect(json.document.fermentables[1].potentialPpg).toBeCloseTo((8.5 / (258.6 - (8.5 / 258.2) * 227.1)) * 1000, 6);
+  });
+
   it('reads an attenuation of 0 as not given, using the usual attenuation for the yeast kind', () => {
     expect(beerXml({}).document.yeasts[0].attenuationPct).toBe(78);
     const zero = parseBeerXml(

@@ -7,6 +7,7 @@ import type {
   WaterProfile,
   YeastKind,
 } from '@/lib/brewing/schema';
+import { platoToSg } from '@/lib/brewing/gravity';
 import { ION_NAMES } from '@/lib/brewing/schema';
 import { assertWithinLimit } from '../limits';
 import {
@@ -257,14 +258,10 @@ function readFermentables(ingredients: Node, draft: Draft, origins: Origins) {
     const fine = yieldNode.measured('fine_grind');
     const coarse = yieldNode.measured('coarse_grind');
     if (potential) {
-      if (potential.unit !== 'sg')
-        throw new InterchangeError(
-          `a potential in ${potential.unit} is not supported; give it as sg`,
-          yieldNode.at('potential'),
-        );
-      let sg = potential.value;
+      // °P and °Brix measure the same thing for a sugar solution: grams of extract per 100 g (common practice).
+      let sg = potential.unit === 'sg' ? potential.value : platoToSg(potential.value);
       // Some files write the potential as gravity times 1000 (1037 for 1.037).
-      if (sg >= 1000 && sg < 1200) {
+      if (potential.unit === 'sg' && sg >= 1000 && sg < 1200) {
         sg /= 1000;
         draft.guessed.push(`${yieldNode.at('potential')}: ${potential.value} read as ${sg}`);
       }
