@@ -15,6 +15,8 @@ import {
   varchar,
   type AnyPgColumn,
 } from 'drizzle-orm/pg-core';
+import type { RecipeDocument } from '@/lib/brewing/schema';
+import type { RecipeStats } from '@/lib/brewing/stats';
 
 export const userRole = pgEnum('user_role', ['member', 'moderator', 'admin']);
 export const unitSystem = pgEnum('unit_system', ['metric', 'us']);
@@ -148,8 +150,8 @@ export const recipeVersions = pgTable(
       .references(() => users.id),
     coAuthorId: text('co_author_id').references(() => users.id),
     message: text('message').notNull().default(''),
-    document: jsonb('document').notNull(),
-    stats: jsonb('stats').notNull(),
+    document: jsonb('document').$type<RecipeDocument>().notNull(),
+    stats: jsonb('stats').$type<RecipeStats>().notNull(),
     og: real('og').notNull(),
     fg: real('fg').notNull(),
     abv: real('abv').notNull(),

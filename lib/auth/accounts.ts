@@ -6,6 +6,7 @@ import { uniqueViolation } from '@/lib/db-errors';
 import { env } from '@/lib/env';
 import { AppError, invalidInput } from '@/lib/errors';
 import { sendMail } from '@/lib/mail';
+import { slugify } from '@/lib/slug';
 import { hashPassword } from './password';
 import { hasRole, suspensionRefusal, type Role } from './roles';
 import { signUpSchema, type SignUpInput } from './schemas';
@@ -13,19 +14,7 @@ import type { Viewer } from './session';
 
 /** A URL-safe handle from a display name, made unique with a numeric suffix when taken. */
 async function freeHandle(name: string, email: string): Promise<string> {
-  const base =
-    name
-      .normalize('NFKD')
-      .replace(/[\u0300-\u036f]/g, '')
-      .toLowerCase()
-      .replace(/[^a-z0-9]+/g, '-')
-      .replace(/^-+|-+$/g, '')
-      .slice(0, 30) ||
-    email
-      .split('@')[0]
-      .replace(/[^a-z0-9]+/g, '-')
-      .slice(0, 30) ||
-    'brewer';
+  const base = slugify(name, 30) || slugify(email.split('@')[0], 30) || 'brewer';
   const taken = await db
     .select({ handle: users.handle })
     .from(users)

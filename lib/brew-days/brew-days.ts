@@ -236,8 +236,7 @@ export async function getBrewDayById(viewer: MaybeViewer, id: string): Promise<B
       .where(and(eq(photos.brewDayId, day.id), photoVisibleTo(viewer)))
       .orderBy(asc(photos.createdAt)),
   ]);
-  const document = version.document as RecipeDocument;
-  const stats = version.stats as RecipeStats;
+  const { document, stats } = version;
   const isBrewer = Boolean(viewer && viewer.id === day.brewerId);
   return {
     day,
@@ -370,8 +369,7 @@ export async function getBrewerAverages({ brewer }: { brewer: Pick<Viewer, 'id' 
   const visible = rows.filter((r) => canView(r.recipe, brewer));
   const efficiencies: number[] = [];
   const attenuation = new Map<string, number[]>();
-  for (const { day, document } of visible) {
-    const doc = document as RecipeDocument;
+  for (const { day, document: doc } of visible) {
     if (day.og === null) continue;
     const efficiency = measuredEfficiencyPct(doc.fermentables, day.og, fermenterVolume(day, doc));
     if (efficiency > 0) efficiencies.push(efficiency);

@@ -4,7 +4,6 @@ import { eq } from 'drizzle-orm';
 import { db } from '@/db';
 import { brewDays, recipeVersions } from '@/db/schema';
 import type { Viewer } from '@/lib/auth/session';
-import type { RecipeDocument } from '@/lib/brewing';
 import { AppError } from '@/lib/errors';
 import { loadOwnBrewDay, loadVisibleBrewDay } from './brew-days';
 import { planToIcs } from './plan-ics';
@@ -29,7 +28,7 @@ export async function saveBrewDayPlan(
     .where(eq(recipeVersions.id, day.versionId));
   let plan: BrewPlan;
   try {
-    plan = planBrew(version.document as RecipeDocument, { ...options, brewOn: options.brewOn ?? day.brewedOn }, today);
+    plan = planBrew(version.document, { ...options, brewOn: options.brewOn ?? day.brewedOn }, today);
   } catch (err) {
     if (err instanceof PlanDateError)
       throw new AppError('bad_request', 'plan', `Please check these fields: ${err.field}: ${err.message}`, [
@@ -53,7 +52,7 @@ export async function getBrewDayPlanIcs(
     .select({ document: recipeVersions.document })
     .from(recipeVersions)
     .where(eq(recipeVersions.id, day.versionId));
-  const title = (version.document as RecipeDocument).title;
+  const title = version.document.title;
   const ics = planToIcs(day.plan, { title, url: `${siteUrl}/brew-days/${day.id}`, uidBase: day.id });
   return { ics, filename: `brew-plan-${day.plan.brewOn}.ics` };
 }

@@ -2,7 +2,7 @@ import 'server-only';
 import { and, desc, eq, isNotNull, sql } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 import { db } from '@/db';
-import { recipeVersions, recipes } from '@/db/schema';
+import { recipeVersions, recipes, users } from '@/db/schema';
 import type { Viewer } from '@/lib/auth/session';
 import { listedRecipeSql } from '@/lib/recipes/access';
 import { countFollowers } from './follows';
@@ -15,6 +15,32 @@ export interface MemberCommunity {
 }
 
 const sources = alias(recipes, 'source');
+
+interface MemberProfile {
+  id: string;
+  name: string | null;
+  handle: string;
+  bio: string;
+  createdAt: Date;
+}
+
+/** The member a `/members/[handle]` page is about; null when there is none or they are suspended. */
+export async function getMemberByHandle({ handle }: { handle: string }): Promise<MemberProfile | null> {
+  const [member] = await db
+    .select({
+      id: users.id,
+      name: users.name,
+      handle: users.handle,
+      bio: users.bio,
+      createdAt: users.createdAt,
+      suspendedAt: users.suspendedAt,
+    })
+    .from(users)
+    .where(eq(users.handle, handle.slice(0, 40)));
+  if (!member || member.suspendedAt) return null;
+  const { suspendedAt: _suspendedAt, ...profile } = member;
+  return profile;
+}
 
 /**
  * What a member page shows beside the recipes: stars their listed recipes received, followers,

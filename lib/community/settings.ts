@@ -26,6 +26,20 @@ export async function getSettings(viewer: Pick<Viewer, 'id'>): Promise<MemberSet
   return { ...row, name: row.name ?? row.handle, emailChoices: await getEmailChoices(viewer.id) };
 }
 
+/** The batch size and efficiency a member's new recipes start from. */
+export async function getBrewhouseDefaultsByUserId({
+  userId,
+}: {
+  userId: string;
+}): Promise<{ volumeL: number; efficiencyPct: number }> {
+  const [row] = await db
+    .select({ volumeL: users.defaultBatchVolumeL, efficiencyPct: users.defaultEfficiencyPct })
+    .from(users)
+    .where(eq(users.id, userId));
+  if (!row) throw new AppError('not_found', 'member');
+  return row;
+}
+
 /** Profile, units, brewhouse defaults and e-mail choices change together or not at all. */
 export async function updateSettings(viewer: Pick<Viewer, 'id'>, input: SettingsInput): Promise<MemberSettings> {
   await db.transaction(async (tx) => {

@@ -6,6 +6,7 @@ import { getViewer, type Viewer } from '@/lib/auth/session';
 import { hasRole, type Role } from '@/lib/auth/roles';
 import { isDatabaseUnavailable, loggableError } from '@/lib/db-errors';
 import { assertStorableText } from '@/lib/validation/text';
+import { readBodyWithin } from './body';
 import { crossSiteReason } from './origin';
 
 type Access = 'public' | 'user' | Role;
@@ -81,7 +82,9 @@ export function route<
       if (result instanceof Response) return result;
       return NextResponse.json(result ?? { ok: true }, { status: req.method === 'POST' ? 201 : 200 });
     } catch (err) {
-      return errorResponse(err, requestId);
+      const res = errorResponse(err, requestId);
+      if (err instanceof BodyCutOff) res.headers.set('Connection', 'close');
+      return res;
     }
   };
 }
@@ -113,14 +116,16 @@ export function errorResponse(err: unknown, requestId: string = crypto.randomUUI
   );
 }
 
+/** A body cut off mid-stream leaves the connection unusable; its refusal closes it. */
+class BodyCutOff extends AppError {}
+
 async function parseJsonBody<S extends z.ZodType>(req: NextRequest, schema: S, maxBytes: number): Promise<z.infer<S>> {
+  const message = `The request body is larger than ${maxBytes} bytes.`;
   const declared = Number(req.headers.get('content-length') ?? '0');
-  if (declared > maxBytes)
-    throw new AppError('too_large', 'request body', `The request body is larger than ${maxBytes} bytes.`);
-  const text = await req.text();
-  if (Buffer.byteLength(text) > maxBytes) {
-    throw new AppError('too_large', 'request body', `The request body is larger than ${maxBytes} bytes.`);
-  }
+  if (declared > maxBytes) throw new AppError('too_large', 'request body', message);
+  const bytes = await readBodyWithin(req.body, maxBytes);
+  if (!bytes) throw new BodyCutOff('too_large', 'request body', message);
+  const text = bytes.toString('utf8');
   let json: unknown;
   try {
     json = text.length ? JSON.parse(text) : undefined;

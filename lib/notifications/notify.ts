@@ -1,5 +1,5 @@
 import 'server-only';
-import { and, eq, gt } from 'drizzle-orm';
+import { and, eq, gt, sql } from 'drizzle-orm';
 import type { Transaction } from '@/db';
 import { notificationEmails, notificationPreferences, notifications } from '@/db/schema';
 import type { NotificationKind } from './kinds';
@@ -66,6 +66,39 @@ export async function notify(tx: Transaction, input: NotifyInput): Promise<strin
     await tx.insert(notificationEmails).values({ notificationId: row.id, userId: input.userId, kind: input.kind });
   }
   return row.id;
+}
+
+/**
+ * `notify` for every follower of `actorId` at once, in one statement whatever their number: a bell
+ * row each, and an e-mail queued for each who has not turned this kind off. The actor is never
+ * among them (a member cannot follow themselves). Stars are left to `notify`, which holds repeats
+ * back. Returns how many members were told.
+ */
+export async function notifyFollowers(
+  tx: Transaction,
+  input: Omit<NotifyInput, 'userId' | 'kind' | 'commentId'> & { kind: Exclude<NotificationKind, 'star'> },
+): Promise<number> {
+  const result = await tx.execute<{ told: number }>(sql`
+    with told as (
+      insert into notifications (user_id, kind, actor_id, recipe_id, url, excerpt)
+      select f.follower_id, ${input.kind}::notification_kind, ${input.actorId}, ${input.recipeId ?? null}::uuid,
+             ${input.url}, ${plainExcerpt(input.excerpt ?? '')}
+      from member_follows f
+      where f.followee_id = ${input.actorId} and f.follower_id <> ${input.actorId}
+      returning id, user_id, kind
+    ), queued as (
+      insert into notification_emails (notification_id, user_id, kind)
+      select t.id, t.user_id, t.kind
+      from told t
+      where not exists (
+        select 1 from notification_preferences p
+        where p.user_id = t.user_id and p.kind = t.kind and p.email = false
+      )
+      returning 1
+    )
+    select (select count(*) from told)::int as told, (select count(*) from queued)::int as queued
+  `);
+  return result.rows[0]?.told ?? 0;
 }
 
 /** Markdown reduced to a short line of plain text. */

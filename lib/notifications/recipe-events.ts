@@ -1,12 +1,13 @@
 import 'server-only';
 import { eq } from 'drizzle-orm';
 import type { Transaction } from '@/db';
-import { memberFollows, recipeVersions, recipes } from '@/db/schema';
-import { notify } from './notify';
+import { recipeVersions, recipes } from '@/db/schema';
+import { notify, notifyFollowers } from './notify';
 
 /**
  * Called inside the transaction that creates a recipe (a new one or a fork): the source's owner
- * hears of a public fork, and the owner's followers of any new public recipe.
+ * hears of a public fork, and the owner's followers of any new public recipe (in a fixed number of
+ * statements, however many followers there are).
  */
 export async function notifyRecipeCreated(
   tx: Transaction,
@@ -23,11 +24,5 @@ export async function notifyRecipeCreated(
     if (source)
       await notify(tx, { userId: source.ownerId, kind: 'fork', actorId: recipe.ownerId, recipeId: source.id, url });
   }
-  const followers = await tx
-    .select({ id: memberFollows.followerId })
-    .from(memberFollows)
-    .where(eq(memberFollows.followeeId, recipe.ownerId));
-  for (const f of followers) {
-    await notify(tx, { userId: f.id, kind: 'new_recipe', actorId: recipe.ownerId, recipeId: recipe.id, url });
-  }
+  await notifyFollowers(tx, { kind: 'new_recipe', actorId: recipe.ownerId, recipeId: recipe.id, url });
 }

@@ -15,6 +15,13 @@ export async function orNotFound<T>(load: () => Promise<T>): Promise<T> {
   }
 }
 
+/** A version number from a page address (`/v/3`); anything but a whole number from 1 is the 404 page. */
+export function versionNumberFromPath(text: string): number {
+  const n = Number(text);
+  if (!Number.isInteger(n) || n < 1) notFound();
+  return n;
+}
+
 /**
  * The version a recipe page shows (the head when no number is given) and who is looking.
  * Cached per request, so the page and its metadata share one query.

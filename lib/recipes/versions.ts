@@ -3,13 +3,7 @@ import { and, desc, eq, getTableColumns, sql } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 import { db, type Transaction } from '@/db';
 import { recipeVersions, recipes, users, type Recipe, type RecipeVersion } from '@/db/schema';
-import {
-  computeStats,
-  ENGINE_VERSION,
-  recipeDocumentSchema,
-  type RecipeDocument,
-  type RecipeStats,
-} from '@/lib/brewing';
+import { computeStats, ENGINE_VERSION, recipeDocumentSchema, type RecipeDocument } from '@/lib/brewing';
 import type { Viewer } from '@/lib/auth/session';
 import { AppError } from '@/lib/errors';
 import { notifyRecipeCreated } from '@/lib/notifications/recipe-events';
@@ -136,7 +130,7 @@ async function headSummary(tx: Transaction | typeof db, versionId: string): Prom
     .from(recipeVersions)
     .innerJoin(users, eq(users.id, recipeVersions.authorId))
     .where(eq(recipeVersions.id, versionId));
-  return { ...row, authorName: row.authorName ?? 'a brewer', document: row.document as RecipeDocument };
+  return { ...row, authorName: row.authorName ?? 'a brewer' };
 }
 
 /**
@@ -223,7 +217,7 @@ export async function restoreVersion(
 
 export interface VersionView {
   recipe: Recipe & { ownerName: string; ownerHandle: string };
-  version: RecipeVersion & { authorName: string; authorHandle: string; document: RecipeDocument; stats: RecipeStats };
+  version: RecipeVersion & { authorName: string; authorHandle: string };
 }
 
 /**
@@ -286,8 +280,6 @@ async function loadVersionRow(
       ...row.version,
       authorName: row.authorName ?? row.authorHandle,
       authorHandle: row.authorHandle,
-      document: row.version.document as RecipeDocument,
-      stats: row.version.stats as RecipeStats,
     },
   };
   const flags = row as Partial<RecipeActivity>;

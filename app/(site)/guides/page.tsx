@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { listGuides } from '@/components/guides/guides';
+import { listGuides } from '@/lib/guides';
 
 export const metadata: Metadata = {
   title: 'Guides',

@@ -1,7 +1,8 @@
 /** The fake's state and operations, independent of HTTP: indexes, documents, settings, tasks. */
 import { badRequest, FakeApiError, indexNotFound } from './errors';
-import { evaluateFilter } from './evaluate';
-import { runSearch, validateSearchRequest } from './search';
+import { evaluateFilter, parseFilterOrFail } from './evaluate';
+import { selectPaths } from './paths';
+import { buildComparator, parseSort, runSearch, topK, validateSearchRequest, withVectors } from './search';
 import { settingNameFromRoute, validateSettingsPatch, defaultSettings, type IndexSettings } from './settings';
 import { documentKey, FakeIndex, inferPrimaryKey, type Document } from './store';
 import { TaskQueue, type EnqueuedTaskView } from './tasks';
@@ -53,9 +54,105 @@ function pagingParam(params: URLSearchParams, name: string, fallback: number): n
   return value;
 }
 
-function pickFields(doc: Document, fields: string[] | null): Document {
-  if (!fields || fields.includes('*')) return doc;
-  return Object.fromEntries(Object.entries(doc).filter(([key]) => fields.includes(key)));
+/** What a document listing asks for, from `GET /documents` parameters or a `POST /documents/fetch` body. */
+interface DocumentsQuery {
+  offset: number;
+  limit: number;
+  fields: string[] | null;
+  filter: unknown;
+  ids: string[] | null;
+  sort: string[] | undefined;
+  retrieveVectors: boolean;
+}
+
+const DOCUMENTS_QUERY_FIELDS = ['offset', 'limit', 'fields', 'filter', 'ids', 'sort', 'retrieveVectors'];
+
+function unknownField(key: string, expected: string[], where: 'parameter' | 'field'): FakeApiError {
+  return badRequest(
+    'bad_request',
+    `Unknown ${where} \`${key}\`: expected one of ${expected.map((name) => `\`${name}\``).join(', ')}`,
+  );
+}
+
+function documentIds(raw: unknown): string[] {
+  if (!Array.isArray(raw)) throw badRequest('invalid_document_ids', 'Invalid value type at `.ids`: expected an array.');
+  return raw.map((id, i) => {
+    const key = documentKey(id);
+    if (key === null) {
+      throw badRequest(
+        'invalid_document_ids',
+        `In \`.ids[${i}]\`: Document identifier \`${JSON.stringify(id)}\` is invalid. A document identifier can be of type integer or string, only composed of alphanumeric characters (a-z A-Z 0-9), hyphens (-) and underscores (_), and can not be more than 511 bytes.`,
+      );
+    }
+    return key;
+  });
+}
+
+function stringListOrFail(raw: unknown, name: string): string[] {
+  if (!Array.isArray(raw) || !raw.every((item) => typeof item === 'string')) {
+    throw badRequest(`invalid_document_${name}`, `Invalid value type at \`.${name}\`: expected an array of strings.`);
+  }
+  return raw;
+}
+
+function naturalOrFail(raw: unknown, name: string): number {
+  if (typeof raw !== 'number' || !Number.isInteger(raw) || raw < 0) {
+    throw badRequest(`invalid_document_${name}`, `Invalid value type at \`.${name}\`: expected a positive integer.`);
+  }
+  return raw;
+}
+
+function documentsQueryFromParams(params: URLSearchParams): DocumentsQuery {
+  for (const key of params.keys()) {
+    if (!DOCUMENTS_QUERY_FIELDS.includes(key)) throw unknownField(key, DOCUMENTS_QUERY_FIELDS, 'parameter');
+  }
+  const list = (name: string) => {
+    const raw = params.get(name);
+    return raw === null ? null : raw.split(',').map((item) => item.trim());
+  };
+  const vectors = params.get('retrieveVectors');
+  if (vectors !== null && vectors !== 'true' && vectors !== 'false') {
+    throw badRequest(
+      'invalid_document_retrieve_vectors',
+      `Invalid value in parameter \`retrieveVectors\`: could not parse \`${vectors}\` as a boolean, expected either \`true\` or \`false\``,
+    );
+  }
+  const ids = list('ids');
+  return {
+    offset: pagingParam(params, 'offset', 0),
+    limit: pagingParam(params, 'limit', 20),
+    fields: list('fields'),
+    filter: params.get('filter') ?? undefined,
+    ids: ids === null ? null : documentIds(ids),
+    sort: list('sort')?.filter(Boolean),
+    retrieveVectors: vectors === 'true',
+  };
+}
+
+function documentsQueryFromBody(body: unknown): DocumentsQuery {
+  if (typeof body !== 'object' || body === null || Array.isArray(body)) {
+    throw badRequest('bad_request', 'Invalid value type: expected an object');
+  }
+  const record = body as Record<string, unknown>;
+  for (const key of Object.keys(record)) {
+    if (!DOCUMENTS_QUERY_FIELDS.includes(key)) throw unknownField(key, DOCUMENTS_QUERY_FIELDS, 'field');
+  }
+  const { offset, limit, fields, filter, ids, sort, retrieveVectors } = record;
+  if (retrieveVectors !== undefined && typeof retrieveVectors !== 'boolean') {
+    throw badRequest(
+      'invalid_document_retrieve_vectors',
+      'Invalid value type at `.retrieveVectors`: expected a boolean.',
+    );
+  }
+  return {
+    offset: offset === undefined ? 0 : naturalOrFail(offset, 'offset'),
+    limit: limit === undefined ? 20 : naturalOrFail(limit, 'limit'),
+    fields: fields === undefined || fields === null ? null : stringListOrFail(fields, 'fields'),
+    filter,
+    ids: ids === undefined || ids === null ? null : documentIds(ids),
+    sort: sort === undefined || sort === null ? undefined : stringListOrFail(sort, 'sort'),
+    retrieveVectors: retrieveVectors === true,
+  };
 }
 
 export class FakeEngine {
@@ -93,10 +190,27 @@ export class FakeEngine {
     });
   }
 
+  /** `PATCH /indexes/{uid}`: sets the primary key of an index without documents, renames it with a new `uid`. */
   updateIndex(uid: string, body: unknown): EnqueuedTaskView {
-    const { primaryKey } = (body ?? {}) as { primaryKey?: unknown };
-    return this.tasks.enqueue(uid, 'indexUpdate', { primaryKey: primaryKey ?? null }, () => {
+    if (typeof body !== 'object' || body === null || Array.isArray(body)) {
+      throw badRequest('bad_request', 'Invalid value type: expected an object');
+    }
+    const record = body as Record<string, unknown>;
+    for (const key of Object.keys(record)) {
+      if (key !== 'primaryKey' && key !== 'uid') throw unknownField(key, ['primaryKey', 'uid'], 'field');
+    }
+    const { primaryKey } = record;
+    if (primaryKey !== undefined && primaryKey !== null && typeof primaryKey !== 'string') {
+      throw badRequest('invalid_index_primary_key', 'Invalid value type at `.primaryKey`: expected a string.');
+    }
+    const newUid = record.uid === undefined || record.uid === null ? null : checkIndexUid(record.uid);
+    const details: Record<string, unknown> = { primaryKey: primaryKey ?? null };
+    if (newUid !== null) Object.assign(details, { oldIndexUid: uid, newIndexUid: newUid });
+    return this.tasks.enqueue(uid, 'indexUpdate', details, () => {
       const index = this.getIndex(uid);
+      if (newUid !== null && newUid !== uid && this.indexes.has(newUid)) {
+        throw new FakeApiError(409, 'index_already_exists', `Index \`${newUid}\` already exists.`);
+      }
       if (typeof primaryKey === 'string' && primaryKey !== index.primaryKey) {
         if (index.documentCount > 0) {
           throw badRequest(
@@ -105,6 +219,11 @@ export class FakeEngine {
           );
         }
         index.primaryKey = primaryKey;
+      }
+      if (newUid !== null && newUid !== uid) {
+        this.indexes.delete(uid);
+        index.rename(newUid);
+        this.indexes.set(newUid, index);
       }
       return {};
     });
@@ -180,39 +299,37 @@ export class FakeEngine {
     const index = this.getIndex(uid);
     const doc = index.document(index.slotOf(id) ?? -1);
     if (!doc) throw new FakeApiError(404, 'document_not_found', `Document \`${id}\` not found.`);
-    return pickFields(doc, params.get('fields')?.split(',') ?? null);
+    return withVectors(selectPaths(doc, params.get('fields')?.split(',') ?? null), false);
   }
 
   listDocuments(uid: string, params: URLSearchParams): Record<string, unknown> {
     const index = this.getIndex(uid);
-    const offset = pagingParam(params, 'offset', 0);
-    const limit = pagingParam(params, 'limit', 20);
-    const fields = params.get('fields')?.split(',') ?? null;
-    const all = index.allDocuments();
-    return {
-      results: all.slice(offset, offset + limit).map((doc) => pickFields(doc, fields)),
-      offset,
-      limit,
-      total: all.length,
-    };
+    return this.queryDocuments(index, documentsQueryFromParams(params));
   }
 
   fetchDocuments(uid: string, body: unknown): Record<string, unknown> {
     const index = this.getIndex(uid);
-    const {
-      filter,
-      offset = 0,
-      limit = 20,
-      fields = null,
-    } = (body ?? {}) as { filter?: unknown; offset?: number; limit?: number; fields?: string[] | null };
-    const selected = evaluateFilter(index, filter);
-    const docs: Document[] = [];
-    (selected ?? index.liveSlots()).forEach((slot) => docs.push(index.document(slot) as Document));
+    return this.queryDocuments(index, documentsQueryFromBody(body));
+  }
+
+  /** Documents in the order they were first added, narrowed by ids and filter, then sorted and paged. */
+  private queryDocuments(index: FakeIndex, query: DocumentsQuery): Record<string, unknown> {
+    const rules = parseSort(index, query.sort, 'invalid_document_sort');
+    const selected = evaluateFilter(index, query.filter, 'invalid_document_filter');
+    const wanted = query.ids === null ? null : new Set(query.ids.map((id) => index.slotOf(id)));
+    const slots: number[] = [];
+    (selected ?? index.liveSlots()).forEach((slot) => {
+      if (!wanted || wanted.has(slot)) slots.push(slot);
+    });
+    const end = query.offset + query.limit;
+    const ordered = rules.length === 0 ? slots.slice(0, end) : topK(slots, end, buildComparator(index, rules, null));
     return {
-      results: docs.slice(offset, offset + limit).map((doc) => pickFields(doc, fields)),
-      offset,
-      limit,
-      total: docs.length,
+      results: ordered
+        .slice(query.offset)
+        .map((slot) => withVectors(selectPaths(index.document(slot) as Document, query.fields), query.retrieveVectors)),
+      offset: query.offset,
+      limit: query.limit,
+      total: slots.length,
     };
   }
 
@@ -235,17 +352,27 @@ export class FakeEngine {
     });
   }
 
+  /** The filter's syntax is checked when the task is enqueued; whether its attributes are filterable, when it runs. */
   deleteDocumentsByFilter(uid: string, body: unknown): EnqueuedTaskView {
-    const { filter } = (body ?? {}) as { filter?: unknown };
-    if (filter === undefined) throw badRequest('missing_document_filter', 'Missing field `filter`.');
+    if (typeof body !== 'object' || body === null || Array.isArray(body)) {
+      throw badRequest('bad_request', 'Invalid value type: expected an object');
+    }
+    for (const key of Object.keys(body)) {
+      if (key !== 'filter') throw unknownField(key, ['filter'], 'field');
+    }
+    const { filter } = body as { filter?: unknown };
+    if (filter === undefined || filter === null) throw badRequest('missing_document_filter', 'Missing field `filter`.');
+    if (parseFilterOrFail(filter, 'invalid_document_filter') === null) {
+      throw badRequest('invalid_document_filter', 'Sending an empty filter is forbidden.');
+    }
     return this.tasks.enqueue(
       uid,
       'documentDeletion',
-      { originalFilter: JSON.stringify(filter), deletedDocuments: null },
+      { providedIds: 0, originalFilter: JSON.stringify(filter), deletedDocuments: null },
       () => {
         const index = this.getIndex(uid);
         const keys: string[] = [];
-        evaluateFilter(index, filter)?.forEach((slot) => {
+        evaluateFilter(index, filter, 'invalid_document_filter')?.forEach((slot) => {
           const doc = index.document(slot);
           if (doc && index.primaryKey) keys.push(String(doc[index.primaryKey]));
         });

@@ -5,12 +5,15 @@ import { parseNumber } from './facets';
 import { filterAttributes, FilterSyntaxError, parseFilter, type FilterInput, type FilterNode } from './filter';
 import type { FakeIndex } from './store';
 
-const invalidFilter = (message: string) => badRequest('invalid_search_filter', message);
+/** Filter errors carry the route's code: `invalid_search_filter` for search, `invalid_document_filter` for documents. */
+type FilterErrorCode = 'invalid_search_filter' | 'invalid_document_filter';
+
+class FilterValueError extends Error {}
 
 function numberOrFail(value: string, attribute: string): number {
   const n = parseNumber(value);
   if (n === null) {
-    throw invalidFilter(
+    throw new FilterValueError(
       `The filter \`${attribute}\` compares with \`${value}\`, which is not a number; range operators compare numbers.`,
     );
   }
@@ -69,11 +72,12 @@ function compare(
   return facet.range(-Infinity, true, n, true, size);
 }
 
-function checkFilterable(index: FakeIndex, node: FilterNode): void {
+function checkFilterable(index: FakeIndex, node: FilterNode, code: FilterErrorCode): void {
   for (const attribute of filterAttributes(node)) {
     if (!index.isFilterable(attribute)) {
       const available = index.settings.filterableAttributes;
-      throw invalidFilter(
+      throw badRequest(
+        code,
         available.length === 0
           ? `Attribute \`${attribute}\` is not filterable. This index does not have configured filterable attributes.`
           : `Attribute \`${attribute}\` is not filterable. Available filterable attributes are: \`${[...available].sort().join(', ')}\`.`,
@@ -92,23 +96,37 @@ function isFilterInput(input: unknown): input is FilterInput {
   );
 }
 
-/** Parses and evaluates a filter; null when there is none. Syntax and attribute errors are `invalid_search_filter`. */
-export function evaluateFilter(index: FakeIndex, input: unknown): Bitset | null {
-  if (input === undefined || input === null) return null;
+/** Parses a filter without evaluating it; null when it is empty. */
+export function parseFilterOrFail(input: unknown, code: FilterErrorCode = 'invalid_search_filter'): FilterNode | null {
   if (!isFilterInput(input)) {
-    throw invalidFilter(
+    throw badRequest(
+      code,
       'Invalid value type at `.filter`: expected a string or an array of strings and arrays of strings',
     );
   }
-  let node: FilterNode | null;
   try {
-    node = parseFilter(input);
+    return parseFilter(input);
   } catch (error) {
-    if (error instanceof FilterSyntaxError) throw invalidFilter(error.message);
+    if (error instanceof FilterSyntaxError) throw badRequest(code, error.message);
     throw error;
   }
+}
+
+/** Parses and evaluates a filter; null when there is none. Syntax and attribute errors carry `code`. */
+export function evaluateFilter(
+  index: FakeIndex,
+  input: unknown,
+  code: FilterErrorCode = 'invalid_search_filter',
+): Bitset | null {
+  if (input === undefined || input === null) return null;
+  const node = parseFilterOrFail(input, code);
   if (node === null) return null;
-  checkFilterable(index, node);
+  checkFilterable(index, node, code);
   const live = index.liveSlots();
-  return evaluateNode(index, node, live).and(live);
+  try {
+    return evaluateNode(index, node, live).and(live);
+  } catch (error) {
+    if (error instanceof FilterValueError) throw badRequest(code, error.message);
+    throw error;
+  }
 }

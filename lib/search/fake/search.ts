@@ -2,6 +2,7 @@
 import type { Bitset } from './bitset';
 import { badRequest } from './errors';
 import { evaluateFilter } from './evaluate';
+import { selectPaths, valueAtPath } from './paths';
 import { processTerm, type Document, type FakeIndex } from './store';
 import { matchText, type TextMatch } from './text';
 
@@ -15,7 +16,9 @@ export interface SearchRequest {
   facets?: string[];
   sort?: string[];
   attributesToRetrieve?: string[];
+  attributesToSearchOn?: string[];
   matchingStrategy?: 'last' | 'all' | 'frequency';
+  retrieveVectors?: boolean;
 }
 
 /** Parameters the fake accepts and ignores (highlighting, cropping, ranking details and the like). */
@@ -30,9 +33,7 @@ const IGNORED_PARAMETERS = new Set([
   'showRankingScore',
   'showRankingScoreDetails',
   'rankingScoreThreshold',
-  'attributesToSearchOn',
   'locales',
-  'retrieveVectors',
   'showPerformanceDetails',
 ]);
 
@@ -46,7 +47,9 @@ const KNOWN_PARAMETERS = new Set([
   'facets',
   'sort',
   'attributesToRetrieve',
+  'attributesToSearchOn',
   'matchingStrategy',
+  'retrieveVectors',
   ...IGNORED_PARAMETERS,
 ]);
 
@@ -87,7 +90,13 @@ export function validateSearchRequest(body: unknown): SearchRequest {
   for (const key of Object.keys(record)) {
     if (!KNOWN_PARAMETERS.has(key)) throw badRequest('bad_request', `Unknown field \`${key}\` in the search request.`);
   }
-  const { q, matchingStrategy } = record;
+  const { q, matchingStrategy, retrieveVectors } = record;
+  if (retrieveVectors !== undefined && typeof retrieveVectors !== 'boolean') {
+    throw badRequest(
+      'invalid_search_retrieve_vectors',
+      'Invalid value type at `.retrieveVectors`: expected a boolean.',
+    );
+  }
   if (q !== undefined && q !== null && typeof q !== 'string') {
     throw badRequest('invalid_search_q', 'Invalid value type at `.q`: expected a string.');
   }
@@ -107,32 +116,36 @@ export function validateSearchRequest(body: unknown): SearchRequest {
     facets: requireStringList(record, 'facets'),
     sort: requireStringList(record, 'sort'),
     attributesToRetrieve: requireStringList(record, 'attributesToRetrieve'),
+    attributesToSearchOn: requireStringList(record, 'attributesToSearchOn'),
     matchingStrategy: matchingStrategy as SearchRequest['matchingStrategy'],
+    retrieveVectors: retrieveVectors as boolean | undefined,
   };
 }
 
-interface SortRule {
+export interface SortRule {
   attribute: string;
   direction: 1 | -1;
 }
 
-function parseSort(index: FakeIndex, sort: string[] | undefined): SortRule[] {
+function notSortableMessage(index: FakeIndex, attribute: string): string {
+  const available = index.settings.sortableAttributes;
+  return available.length === 0
+    ? `Attribute \`${attribute}\` is not sortable. This index does not have configured sortable attributes.`
+    : `Attribute \`${attribute}\` is not sortable. Available sortable attributes are: \`${[...available].sort().join(', ')}\`.`;
+}
+
+/** Parses `attribute:asc|desc` rules; `code` is the route's error code (search or documents). */
+export function parseSort(index: FakeIndex, sort: string[] | undefined, code = 'invalid_search_sort'): SortRule[] {
   return (sort ?? []).map((expression) => {
     const match = /^(.+):(asc|desc)$/.exec(expression.trim());
     if (!match) {
       throw badRequest(
-        'invalid_search_sort',
+        code,
         `Invalid syntax for the sort parameter: expected expression ending by \`:asc\` or \`:desc\`, found \`${expression}\`.`,
       );
     }
     const [, attribute, direction] = match;
-    if (!index.isSortable(attribute)) {
-      const available = [...index.settings.sortableAttributes].sort().join(', ');
-      throw badRequest(
-        'invalid_search_sort',
-        `Attribute \`${attribute}\` is not sortable. Available sortable attributes are: \`${available}\`.`,
-      );
-    }
+    if (!index.isSortable(attribute)) throw badRequest(code, notSortableMessage(index, attribute));
     return { attribute, direction: direction === 'asc' ? 1 : -1 };
   });
 }
@@ -154,11 +167,14 @@ function compareKeys(a: number | string | undefined, b: number | string | undefi
 
 type Comparator = (a: number, b: number) => number;
 
-function buildComparator(index: FakeIndex, rules: SortRule[], scores: Map<number, number> | null): Comparator {
+export function buildComparator(index: FakeIndex, rules: SortRule[], scores: Map<number, number> | null): Comparator {
   const keyCache = rules.map(() => new Map<number, number | string | undefined>());
   const keyOf = (rule: number, slot: number) => {
     const cache = keyCache[rule];
-    if (!cache.has(slot)) cache.set(slot, sortKey(index.document(slot)?.[rules[rule].attribute]));
+    if (!cache.has(slot)) {
+      const doc = index.document(slot);
+      cache.set(slot, doc ? sortKey(valueAtPath(doc, rules[rule].attribute)) : undefined);
+    }
     return cache.get(slot);
   };
   return (a, b) => {
@@ -200,6 +216,7 @@ interface Window {
   size: number;
 }
 
+/** Page 0 asks for no hits but still counts them, as the engine does. */
 function pageWindow(request: SearchRequest): Window & { finite: boolean } {
   if (request.page !== undefined || request.hitsPerPage !== undefined) {
     const page = request.page ?? 1;
@@ -209,15 +226,35 @@ function pageWindow(request: SearchRequest): Window & { finite: boolean } {
   return { finite: false, start: request.offset ?? 0, size: request.limit ?? 20 };
 }
 
-function project(doc: Document, attributes: string[] | undefined, displayed: string[]): Document {
-  const wanted = (attributes ?? ['*']).includes('*') ? null : new Set(attributes);
-  const shown = displayed.includes('*') ? null : new Set(displayed);
-  if (!wanted && !shown) return { ...doc };
-  const out: Document = {};
-  for (const [key, value] of Object.entries(doc)) {
-    if ((!wanted || wanted.has(key)) && (!shown || shown.has(key))) out[key] = value;
+/**
+ * `_vectors` is hidden unless asked for; asked for, it holds the document's own vectors (the fake
+ * has no embedders, so nothing is added to them).
+ */
+export function withVectors(doc: Document, retrieveVectors: boolean): Document {
+  const { _vectors: vectors, ...rest } = doc;
+  if (!retrieveVectors) return rest;
+  return { ...rest, _vectors: typeof vectors === 'object' && vectors !== null ? vectors : {} };
+}
+
+function project(doc: Document, request: SearchRequest, displayed: string[]): Document {
+  const shown = selectPaths(doc, displayed);
+  return withVectors(selectPaths(shown, request.attributesToRetrieve ?? null), request.retrieveVectors ?? false);
+}
+
+/** `attributesToSearchOn` may only name searchable attributes; null means every searchable one. */
+function searchedAttributes(index: FakeIndex, request: SearchRequest): string[] | null {
+  const wanted = request.attributesToSearchOn;
+  if (!wanted || wanted.includes('*')) return null;
+  for (const attribute of wanted) {
+    if (!index.isSearchable(attribute)) {
+      const available = [...index.settings.searchableAttributes].sort().join(', ');
+      throw badRequest(
+        'invalid_search_attributes_to_search_on',
+        `Attribute \`${attribute}\` is not searchable. Available searchable attributes are: \`${available}\`.`,
+      );
+    }
   }
-  return out;
+  return wanted;
 }
 
 function facetOrder(index: FakeIndex, facet: string): 'alpha' | 'count' {
@@ -226,7 +263,9 @@ function facetOrder(index: FakeIndex, facet: string): 'alpha' | 'count' {
 }
 
 function facetResults(index: FakeIndex, facets: string[], matched: ArrayLike<number>) {
-  const names = facets.includes('*') ? index.settings.filterableAttributes.filter((name) => name !== '*') : facets;
+  const filterable = index.settings.filterableAttributes;
+  const everyField = filterable.includes('*') ? Object.keys(index.fieldDistribution()) : filterable;
+  const names = facets.includes('*') ? everyField : facets;
   const distribution: Record<string, Record<string, number>> = {};
   const stats: Record<string, { min: number; max: number }> = {};
   for (const name of names) {
@@ -263,9 +302,14 @@ function queryTerms(q: string | null | undefined): string[] {
 }
 
 /** Matched slots in relevance order (or slot order without a query), with their scores. */
-function matchDocuments(index: FakeIndex, request: SearchRequest, candidates: Bitset | null): TextMatch {
+function matchDocuments(
+  index: FakeIndex,
+  request: SearchRequest,
+  candidates: Bitset | null,
+  only: string[] | null,
+): TextMatch {
   const terms = queryTerms(request.q);
-  if (terms.length > 0) return matchText(index, terms, candidates, request.matchingStrategy ?? 'last');
+  if (terms.length > 0) return matchText(index, terms, candidates, request.matchingStrategy ?? 'last', only);
   const pool = candidates ?? index.liveSlots();
   const slots: number[] = [];
   pool.forEach((slot) => slots.push(slot));
@@ -274,9 +318,10 @@ function matchDocuments(index: FakeIndex, request: SearchRequest, candidates: Bi
 
 export function runSearch(index: FakeIndex, request: SearchRequest): Record<string, unknown> {
   const started = performance.now();
+  const only = searchedAttributes(index, request);
   const candidates = evaluateFilter(index, request.filter);
   const rules = parseSort(index, request.sort);
-  const matched = matchDocuments(index, request, candidates);
+  const matched = matchDocuments(index, request, candidates, only);
   const window = pageWindow(request);
   const reachable = Math.min(matched.slots.length, index.settings.pagination.maxTotalHits);
   const end = Math.min(window.start + window.size, reachable);
@@ -286,16 +331,16 @@ export function runSearch(index: FakeIndex, request: SearchRequest): Record<stri
       : topK(matched.slots, end, buildComparator(index, rules, matched.scores));
   const hits = ordered
     .slice(window.start)
-    .map((slot) =>
-      project(index.document(slot) as Document, request.attributesToRetrieve, index.settings.displayedAttributes),
-    );
+    .map((slot) => project(index.document(slot) as Document, request, index.settings.displayedAttributes));
   const facets = request.facets ? facetResults(index, request.facets, matched.slots) : {};
-  const total = matched.slots.length;
+  // Totals count no further than the hits pagination can reach.
+  const total = reachable;
+  const hitsPerPage = request.hitsPerPage ?? 20;
   const paging = window.finite
     ? {
-        hitsPerPage: window.size,
+        hitsPerPage,
         page: request.page ?? 1,
-        totalPages: window.size === 0 ? 0 : Math.ceil(total / window.size),
+        totalPages: hitsPerPage === 0 ? 0 : Math.ceil(total / hitsPerPage),
         totalHits: total,
       }
     : { limit: window.size, offset: window.start, estimatedTotalHits: total };

@@ -43,7 +43,9 @@ function searchBodyFromQuery(params: URLSearchParams): Record<string, unknown> {
   const body: Record<string, unknown> = {};
   for (const [key, value] of params) {
     if (['offset', 'limit', 'page', 'hitsPerPage'].includes(key)) body[key] = value === '' ? undefined : Number(value);
-    else if (['sort', 'facets', 'attributesToRetrieve'].includes(key)) body[key] = value.split(',').filter(Boolean);
+    else if (['sort', 'facets', 'attributesToRetrieve', 'attributesToSearchOn'].includes(key))
+      body[key] = value.split(',').filter(Boolean);
+    else if (key === 'retrieveVectors') body[key] = value === 'true' ? true : value === 'false' ? false : value;
     else body[key] = value;
   }
   return body;

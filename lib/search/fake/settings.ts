@@ -6,6 +6,7 @@ export interface TypoToleranceSettings {
   minWordSizeForTypos: { oneTypo: number; twoTypos: number };
   disableOnWords: string[];
   disableOnAttributes: string[];
+  disableOnNumbers: boolean;
 }
 
 export interface IndexSettings {
@@ -37,6 +38,7 @@ export function defaultSettings(): IndexSettings {
       minWordSizeForTypos: { oneTypo: 5, twoTypos: 9 },
       disableOnWords: [],
       disableOnAttributes: [],
+      disableOnNumbers: false,
     },
     faceting: { maxValuesPerFacet: 100, sortFacetValuesBy: { '*': 'alpha' } },
     pagination: { maxTotalHits: 1000 },
@@ -77,14 +79,51 @@ function snakeCase(name: string): string {
   return name.replace(/[A-Z]/g, (ch) => `_${ch.toLowerCase()}`);
 }
 
+type FieldCheck = (value: unknown) => boolean;
+
+const isNaturalNumber: FieldCheck = (value) => typeof value === 'number' && Number.isInteger(value) && value >= 0;
+const isBoolean: FieldCheck = (value) => typeof value === 'boolean';
+const isFacetOrderMap: FieldCheck = (value) =>
+  typeof value === 'object' &&
+  value !== null &&
+  !Array.isArray(value) &&
+  Object.values(value).every((order) => order === 'alpha' || order === 'count');
+
+/** The fields each object-valued setting takes; any of them may be null, which resets it to its default. */
+const OBJECT_FIELDS: Partial<Record<keyof IndexSettings, Record<string, FieldCheck>>> = {
+  typoTolerance: {
+    enabled: isBoolean,
+    minWordSizeForTypos: (value) => checkObject(value, { oneTypo: isNaturalNumber, twoTypos: isNaturalNumber }),
+    disableOnWords: isStringList,
+    disableOnAttributes: isStringList,
+    disableOnNumbers: isBoolean,
+  },
+  faceting: { maxValuesPerFacet: isNaturalNumber, sortFacetValuesBy: isFacetOrderMap },
+  pagination: { maxTotalHits: isNaturalNumber },
+};
+
+function checkObject(value: unknown, fields: Record<string, FieldCheck>): boolean {
+  if (typeof value !== 'object' || value === null || Array.isArray(value)) return false;
+  return Object.entries(value).every(([key, inner]) => key in fields && (inner === null || fields[key](inner)));
+}
+
+function isSynonyms(value: unknown): boolean {
+  return (
+    typeof value === 'object' && value !== null && !Array.isArray(value) && Object.values(value).every(isStringList)
+  );
+}
+
 function validateSetting(name: keyof IndexSettings, value: unknown): unknown {
   if (value === null) return defaultSettings()[name];
   const candidate = name === 'filterableAttributes' ? filterablePatterns(value) : value;
+  const fields = OBJECT_FIELDS[name];
   const valid = LIST_SETTINGS.has(name)
     ? isStringList(candidate)
     : name === 'distinctAttribute'
       ? typeof candidate === 'string'
-      : typeof candidate === 'object' && !Array.isArray(candidate);
+      : name === 'synonyms'
+        ? isSynonyms(candidate)
+        : fields !== undefined && checkObject(candidate, fields);
   if (!valid) {
     throw badRequest(`invalid_settings_${snakeCase(name)}`, `Invalid value type at \`.${name}\``);
   }
@@ -109,14 +148,37 @@ export function validateSettingsPatch(body: unknown): Partial<IndexSettings> {
   return patch as Partial<IndexSettings>;
 }
 
-/** Applies a patch; object-valued settings merge one level deep, as the engine's PATCH does. */
+/** Merges an object-valued setting: given fields replace, null fields go back to their defaults. */
+function mergeObject(base: Record<string, unknown>, patch: Record<string, unknown>, defaults: Record<string, unknown>) {
+  const next: Record<string, unknown> = { ...base };
+  for (const [key, value] of Object.entries(patch)) {
+    if (value === null) next[key] = defaults[key];
+    else if (key === 'minWordSizeForTypos') {
+      next[key] = mergeObject(
+        base[key] as Record<string, unknown>,
+        value as Record<string, unknown>,
+        defaults[key] as Record<string, unknown>,
+      );
+    } else if (key === 'sortFacetValuesBy') {
+      // The map is replaced as a whole; `*` falls back to alphabetical order when it is not given.
+      next[key] = { '*': 'alpha', ...(value as object) };
+    } else next[key] = value;
+  }
+  return next;
+}
+
+/** Applies a patch; object-valued settings (except synonyms) merge field by field, as the engine's PATCH does. */
 export function applySettingsPatch(current: IndexSettings, patch: Partial<IndexSettings>): IndexSettings {
   const next: IndexSettings = { ...current };
+  const defaults = defaultSettings();
   for (const [key, value] of Object.entries(patch) as Array<[keyof IndexSettings, unknown]>) {
-    const base = current[key];
     const merged =
-      typeof base === 'object' && base !== null && !Array.isArray(base) && key !== 'synonyms'
-        ? { ...base, ...(value as object) }
+      OBJECT_FIELDS[key] !== undefined
+        ? mergeObject(
+            current[key] as unknown as Record<string, unknown>,
+            value as Record<string, unknown>,
+            defaults[key] as unknown as Record<string, unknown>,
+          )
         : value;
     Object.assign(next, { [key]: merged });
   }

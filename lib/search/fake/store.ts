@@ -3,6 +3,7 @@ import MiniSearch from 'minisearch';
 import { Bitset } from './bitset';
 import { badRequest } from './errors';
 import { FacetIndex } from './facets';
+import { covers, valueAtPath, valuesAtPath } from './paths';
 import { applySettingsPatch, defaultSettings, type IndexSettings } from './settings';
 
 export type Document = Record<string, unknown>;
@@ -14,6 +15,34 @@ interface TextEntry {
 
 /** Catch-all text field used while searchableAttributes is `["*"]`. */
 const ALL_FIELDS = '_all';
+
+export interface TextFields {
+  index: MiniSearch<TextEntry>;
+  fields: string[];
+  boost: Record<string, number>;
+}
+
+/** Earlier fields weigh more, as the engine's attribute ranking rule orders them. */
+function boostByOrder(fields: string[]): Record<string, number> {
+  const boost: Record<string, number> = {};
+  fields.forEach((field, i) => {
+    boost[field] = 1 + (fields.length - i) / fields.length;
+  });
+  return boost;
+}
+
+function createTextIndex(fields: string[]): MiniSearch<TextEntry> {
+  return new MiniSearch<TextEntry>({
+    idField: 'slot',
+    fields,
+    storeFields: [],
+    extractField: (entry, field) => {
+      if (field === 'slot') return entry.slot as unknown as string;
+      return field === ALL_FIELDS ? textOf(entry.doc) : textOf(valuesAtPath(entry.doc, field));
+    },
+    processTerm,
+  });
+}
 
 /** Lower case and strip diacritics, so "Mittelfrüh" and "mittelfruh" meet. */
 export function processTerm(term: string): string {
@@ -47,13 +76,21 @@ export class FakeIndex {
   private text: MiniSearch<TextEntry>;
   private textFields: string[] = [ALL_FIELDS];
   private live: Bitset | null = null;
+  /** A text index over other fields than the settings' (for `attributesToSearchOn`), kept until a write. */
+  private restricted: { key: string; text: TextFields } | null = null;
 
   constructor(
-    readonly uid: string,
+    public uid: string,
     primaryKey: string | null,
   ) {
     this.primaryKey = primaryKey;
     this.text = this.createTextIndex();
+  }
+
+  /** Renames the index in place (the engine's PATCH with a new `uid`); documents and settings stay. */
+  rename(uid: string): void {
+    this.uid = uid;
+    this.updatedAt = new Date();
   }
 
   get capacity(): number {
@@ -64,17 +101,23 @@ export class FakeIndex {
     return this.slotByKey.size;
   }
 
-  /** The fields minisearch indexes and their weights, from searchableAttributes (earlier = stronger). */
-  get searchFields(): { fields: string[]; boost: Record<string, number> } {
-    const boost: Record<string, number> = {};
-    this.textFields.forEach((field, i) => {
-      boost[field] = 1 + (this.textFields.length - i) / this.textFields.length;
-    });
-    return { fields: this.textFields, boost };
-  }
-
-  get textIndex(): MiniSearch<TextEntry> {
-    return this.text;
+  /**
+   * The text index to search and its weighted fields: the settings' own, or, for `attributesToSearchOn`,
+   * the same fields narrowed to `only` (a separate index when they are not fields of the main one).
+   */
+  textFor(only: string[] | null): TextFields {
+    if (!only) return { index: this.text, fields: this.textFields, boost: boostByOrder(this.textFields) };
+    if (only.every((field) => this.textFields.includes(field))) {
+      const fields = this.textFields.filter((field) => only.includes(field));
+      return { index: this.text, fields, boost: boostByOrder(fields) };
+    }
+    const key = JSON.stringify(only);
+    if (this.restricted?.key !== key) {
+      const index = createTextIndex(only);
+      for (const slot of this.slotByKey.values()) index.add({ slot, doc: this.slots[slot] as Document });
+      this.restricted = { key, text: { index, fields: only, boost: boostByOrder(only) } };
+    }
+    return this.restricted.text;
   }
 
   document(slot: number): Document | undefined {
@@ -85,8 +128,15 @@ export class FakeIndex {
     return this.slotByKey.get(id);
   }
 
+  /** The lookup for a filterable attribute or nested path, built from the documents on first use. */
   facet(attribute: string): FacetIndex | undefined {
-    return this.facets.get(attribute);
+    let facet = this.facets.get(attribute);
+    if (!facet && this.isFilterable(attribute)) {
+      facet = new FacetIndex();
+      for (const slot of this.slotByKey.values()) facet.add(slot, valueAtPath(this.slots[slot] as Document, attribute));
+      this.facets.set(attribute, facet);
+    }
+    return facet;
   }
 
   /** Slots holding a document; shared between calls, so callers must not change it. */
@@ -143,57 +193,45 @@ export class FakeIndex {
     this.updatedAt = new Date();
   }
 
-  /** Whether `attribute` may be used in filters and facets. */
+  /** Whether `attribute` (or a parent of it) may be used in filters and facets. */
   isFilterable(attribute: string): boolean {
-    return this.settings.filterableAttributes.includes(attribute) || this.settings.filterableAttributes.includes('*');
+    return covers(this.settings.filterableAttributes, attribute);
   }
 
   isSortable(attribute: string): boolean {
-    return this.settings.sortableAttributes.includes(attribute) || this.settings.sortableAttributes.includes('*');
+    return covers(this.settings.sortableAttributes, attribute);
   }
 
-  /** Filter lookups exist for filterable attributes; sortable ones read values from the document. */
-  private facetAttributes(doc: Document): string[] {
-    if (this.settings.filterableAttributes.includes('*')) return Object.keys(doc);
-    return this.settings.filterableAttributes;
+  isSearchable(attribute: string): boolean {
+    return covers(this.settings.searchableAttributes, attribute);
   }
 
   private createTextIndex(): MiniSearch<TextEntry> {
     const searchable = this.settings.searchableAttributes;
     this.textFields = searchable.includes('*') ? [ALL_FIELDS] : [...searchable];
-    return new MiniSearch<TextEntry>({
-      idField: 'slot',
-      fields: this.textFields,
-      storeFields: [],
-      extractField: (entry, field) => {
-        if (field === 'slot') return entry.slot as unknown as string;
-        return field === ALL_FIELDS ? textOf(entry.doc) : textOf(entry.doc[field]);
-      },
-      processTerm,
-    });
+    return createTextIndex(this.textFields);
   }
 
+  /** Declared filterable attributes get their lookups at once; nested paths and `*` fields on first use. */
   private index(slot: number, doc: Document): void {
-    for (const attribute of this.facetAttributes(doc)) {
-      let facet = this.facets.get(attribute);
-      if (!facet) {
-        facet = new FacetIndex();
-        this.facets.set(attribute, facet);
-      }
-      facet.add(slot, doc[attribute]);
+    for (const attribute of this.settings.filterableAttributes) {
+      if (attribute !== '*' && !this.facets.has(attribute)) this.facets.set(attribute, new FacetIndex());
     }
+    for (const [attribute, facet] of this.facets) facet.add(slot, valueAtPath(doc, attribute));
     this.text.add({ slot, doc });
+    this.restricted = null;
   }
 
   private unindex(slot: number): void {
-    const doc = this.slots[slot];
-    if (!doc) return;
-    for (const attribute of this.facetAttributes(doc)) this.facets.get(attribute)?.remove(slot);
+    if (!this.slots[slot]) return;
+    for (const facet of this.facets.values()) facet.remove(slot);
     this.text.discard(slot);
+    this.restricted = null;
   }
 
   private rebuild(): void {
     this.facets = new Map();
+    this.restricted = null;
     this.text = this.createTextIndex();
     for (const slot of this.slotByKey.values()) this.index(slot, this.slots[slot] as Document);
   }

@@ -90,34 +90,21 @@ export class TaskQueue {
     return this.tasks.slice(this.nextToProcess).some((task) => task.view.indexUid === indexUid);
   }
 
-  /** `GET /tasks`: newest first, with `limit`, `from` and comma-separated `uids`, `statuses`, `types`, `indexUids`. */
+  /** `GET /tasks`: newest first (oldest first with `reverse=true`), paged by `limit` and `from`, filtered as below. */
   list(params: URLSearchParams): Record<string, unknown> {
-    const limit = Number(params.get('limit') ?? 20);
-    const from = params.has('from') ? Number(params.get('from')) : null;
-    if (!Number.isInteger(limit) || limit < 0)
-      throw badRequest('invalid_task_limit', 'Invalid value in parameter `limit`: expected a positive integer.');
-    const statuses = listParam(params, 'statuses');
-    if (statuses?.some((status) => !TASK_STATUSES.has(status))) {
-      throw badRequest('invalid_task_statuses', 'Invalid value in parameter `statuses`.');
-    }
-    const filters: Array<[string[] | null, (view: TaskView) => string]> = [
-      [listParam(params, 'uids'), (view) => String(view.uid)],
-      [statuses, (view) => view.status],
-      [listParam(params, 'types'), (view) => view.type],
-      [listParam(params, 'indexUids'), (view) => view.indexUid ?? ''],
-    ];
-    const matching = this.tasks
-      .map((task) => task.view)
-      .filter((view) => filters.every(([allowed, pick]) => !allowed || allowed.includes(pick(view))))
-      .reverse();
-    const startAt = from === null ? 0 : matching.findIndex((view) => view.uid <= from);
-    const page = startAt < 0 ? [] : matching.slice(startAt, startAt + limit + 1);
+    const query = parseTaskQuery(params);
+    const matching = this.tasks.map((task) => task.view).filter((view) => query.filters.every((keep) => keep(view)));
+    if (!query.reverse) matching.reverse();
+    const from = query.from;
+    const startAt =
+      from === null ? 0 : matching.findIndex((view) => (query.reverse ? view.uid >= from : view.uid <= from));
+    const page = startAt < 0 ? [] : matching.slice(startAt, startAt + query.limit + 1);
     return {
-      results: page.slice(0, limit),
+      results: page.slice(0, query.limit),
       total: matching.length,
-      limit,
+      limit: query.limit,
       from: page[0]?.uid ?? null,
-      next: page.length > limit ? page[limit].uid : null,
+      next: page.length > query.limit ? page[query.limit].uid : null,
     };
   }
 
@@ -159,8 +146,178 @@ export class TaskQueue {
   }
 }
 
+const TASK_TYPES = [
+  'documentAdditionOrUpdate',
+  'documentEdition',
+  'documentDeletion',
+  'settingsUpdate',
+  'indexCreation',
+  'indexDeletion',
+  'indexUpdate',
+  'indexSwap',
+  'taskCancelation',
+  'taskDeletion',
+  'dumpCreation',
+  'snapshotCreation',
+  'upgradeDatabase',
+];
+
+const DATE_FILTERS = [
+  'afterEnqueuedAt',
+  'beforeEnqueuedAt',
+  'afterStartedAt',
+  'beforeStartedAt',
+  'afterFinishedAt',
+  'beforeFinishedAt',
+] as const;
+
+const TASK_QUERY_PARAMETERS = [
+  'limit',
+  'from',
+  'reverse',
+  'uids',
+  'batchUids',
+  'canceledBy',
+  'types',
+  'statuses',
+  'indexUids',
+  ...DATE_FILTERS,
+];
+
+const INDEX_UID = /^[a-zA-Z0-9_-]{1,400}$/;
+const RFC_3339 = /^\d{4}-\d{2}-\d{2}[Tt ]\d{2}:\d{2}:\d{2}(\.\d+)?([Zz]|[+-]\d{2}:\d{2})$/;
+const CALENDAR_DATE = /^\d{4}-\d{2}-\d{2}$/;
+
+interface TaskQuery {
+  limit: number;
+  from: number | null;
+  reverse: boolean;
+  filters: Array<(view: TaskView) => boolean>;
+}
+
+function snake(name: string): string {
+  return name.replace(/[A-Z]/g, (ch) => `_${ch.toLowerCase()}`);
+}
+
+const invalidParameter = (code: string, name: string, reason: string) =>
+  badRequest(code, `Invalid value in parameter \`${name}\`: ${reason}`);
+
+function naturalNumber(raw: string, name: string, code: string): number {
+  const value = Number(raw);
+  if (raw.trim() === '' || !Number.isInteger(value) || value < 0) {
+    throw invalidParameter(code, name, `could not parse \`${raw}\` as a positive integer`);
+  }
+  return value;
+}
+
+/** A comma-separated list parameter; null when absent or `*` (no restriction). */
 function listParam(params: URLSearchParams, name: string): string[] | null {
   const raw = params.get(name);
   if (raw === null || raw === '*') return null;
   return raw.split(',').map((item) => item.trim());
+}
+
+/**
+ * A date bound: RFC 3339, or a calendar date, which for an `after…` bound means after that whole
+ * day and for a `before…` bound means before it starts. Both bounds are exclusive.
+ */
+function dateBound(raw: string, name: (typeof DATE_FILTERS)[number]): number {
+  const ms =
+    RFC_3339.test(raw) || CALENDAR_DATE.test(raw)
+      ? Date.parse(CALENDAR_DATE.test(raw) ? `${raw}T00:00:00Z` : raw)
+      : NaN;
+  if (Number.isNaN(ms)) {
+    throw invalidParameter(
+      `invalid_task_${snake(name)}`,
+      name,
+      `\`${raw}\` is an invalid date-time. It should follow the YYYY-MM-DD or RFC 3339 date-time format.`,
+    );
+  }
+  return CALENDAR_DATE.test(raw) && name.startsWith('after') ? ms + 24 * 60 * 60 * 1000 : ms;
+}
+
+function parseTaskQuery(params: URLSearchParams): TaskQuery {
+  for (const key of params.keys()) {
+    if (!TASK_QUERY_PARAMETERS.includes(key)) {
+      throw badRequest(
+        'bad_request',
+        `Unknown parameter \`${key}\`: expected one of ${TASK_QUERY_PARAMETERS.map((name) => `\`${name}\``).join(', ')}`,
+      );
+    }
+  }
+  const limitRaw = params.get('limit');
+  const fromRaw = params.get('from');
+  const reverseRaw = params.get('reverse');
+  if (reverseRaw !== null && reverseRaw !== 'true' && reverseRaw !== 'false') {
+    throw invalidParameter(
+      'invalid_task_reverse',
+      'reverse',
+      `could not parse \`${reverseRaw}\` as a boolean, expected either \`true\` or \`false\``,
+    );
+  }
+  const filters: TaskQuery['filters'] = [];
+  const numbers = (name: string, code: string, pick: (view: TaskView) => number | null) => {
+    const list = listParam(params, name);
+    if (!list) return;
+    const wanted = new Set(list.map((item, i) => naturalNumber(item, list.length > 1 ? `${name}[${i}]` : name, code)));
+    filters.push((view) => {
+      const value = pick(view);
+      return value !== null && wanted.has(value);
+    });
+  };
+  numbers('uids', 'invalid_task_uids', (view) => view.uid);
+  numbers('batchUids', 'invalid_task_batch_uids', (view) => view.batchUid);
+  numbers('canceledBy', 'invalid_task_canceled_by', () => null);
+
+  const choice = (name: string, allowed: string[], noun: string, pick: (view: TaskView) => string | null) => {
+    const list = listParam(params, name);
+    if (!list) return;
+    for (const item of list) {
+      if (!allowed.includes(item)) {
+        throw invalidParameter(
+          `invalid_task_${snake(name)}`,
+          name,
+          `\`${item}\` is not a valid task ${noun}. Available ${noun === 'type' ? 'types' : 'statuses'} are ${allowed.map((value) => `\`${value}\``).join(', ')}.`,
+        );
+      }
+    }
+    filters.push((view) => list.includes(pick(view) ?? ''));
+  };
+  choice('types', TASK_TYPES, 'type', (view) => view.type);
+  choice('statuses', [...TASK_STATUSES], 'status', (view) => view.status);
+
+  const indexUids = listParam(params, 'indexUids');
+  if (indexUids) {
+    for (const uid of indexUids) {
+      if (!INDEX_UID.test(uid)) {
+        throw invalidParameter(
+          'invalid_index_uid',
+          'indexUids',
+          `\`${uid}\` is not a valid index uid. Index uid can be an integer or a string containing only alphanumeric characters, hyphens (-) and underscores (_), and can not be more than 400 bytes.`,
+        );
+      }
+    }
+    filters.push((view) => indexUids.includes(view.indexUid ?? ''));
+  }
+
+  for (const name of DATE_FILTERS) {
+    const raw = params.get(name);
+    if (raw === null || raw === '*') continue;
+    const bound = dateBound(raw, name);
+    const field = name.endsWith('EnqueuedAt') ? 'enqueuedAt' : name.endsWith('StartedAt') ? 'startedAt' : 'finishedAt';
+    const after = name.startsWith('after');
+    filters.push((view) => {
+      const at = view[field];
+      if (at === null) return false;
+      const ms = Date.parse(at);
+      return after ? ms > bound : ms < bound;
+    });
+  }
+
+  return {
+    limit: limitRaw === null ? 20 : naturalNumber(limitRaw, 'limit', 'invalid_task_limit'),
+    from: fromRaw === null ? null : naturalNumber(fromRaw, 'from', 'invalid_task_from'),
+    reverse: reverseRaw === 'true',
+    filters,
+  };
 }

@@ -3,6 +3,7 @@
  * match (AND), only the last term matches as a prefix, and typos are allowed only on
  * longer terms (one from `oneTypo` letters, two from `twoTypos`). Filter candidates are
  * applied inside scoring through `boostDocument`, so excluded documents are never scored.
+ * `only` narrows the searched fields (`attributesToSearchOn`).
  */
 import type { Bitset } from './bitset';
 import type { FakeIndex } from './store';
@@ -17,20 +18,20 @@ export interface TextMatch {
 export type MatchingStrategy = 'last' | 'all' | 'frequency';
 
 function typoBudget(index: FakeIndex): (term: string) => number {
-  const { enabled, minWordSizeForTypos, disableOnWords } = index.settings.typoTolerance;
+  const { enabled, minWordSizeForTypos, disableOnWords, disableOnNumbers } = index.settings.typoTolerance;
   const oneTypo = minWordSizeForTypos?.oneTypo ?? 5;
   const twoTypos = minWordSizeForTypos?.twoTypos ?? 9;
   const exact = new Set((disableOnWords ?? []).map((word) => word.toLowerCase()));
   return (term) => {
-    if (!enabled || exact.has(term)) return 0;
+    if (!enabled || exact.has(term) || (disableOnNumbers && /^\d+$/.test(term))) return 0;
     if (term.length >= twoTypos) return 2;
     return term.length >= oneTypo ? 1 : 0;
   };
 }
 
-function searchAll(index: FakeIndex, terms: string[], candidates: Bitset | null): TextMatch {
-  const { fields, boost } = index.searchFields;
-  const results = index.textIndex.search(terms.join(' '), {
+function searchAll(index: FakeIndex, terms: string[], candidates: Bitset | null, only: string[] | null): TextMatch {
+  const { index: text, fields, boost } = index.textFor(only);
+  const results = text.search(terms.join(' '), {
     fields,
     boost,
     combineWith: 'AND',
@@ -55,10 +56,11 @@ export function matchText(
   terms: string[],
   candidates: Bitset | null,
   strategy: MatchingStrategy,
+  only: string[] | null = null,
 ): TextMatch {
-  let match = searchAll(index, terms, candidates);
+  let match = searchAll(index, terms, candidates, only);
   for (let kept = terms.length - 1; match.slots.length === 0 && strategy !== 'all' && kept > 0; kept--) {
-    match = searchAll(index, terms.slice(0, kept), candidates);
+    match = searchAll(index, terms.slice(0, kept), candidates, only);
   }
   return match;
 }

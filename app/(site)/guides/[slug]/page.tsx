@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
-import { listGuideSlugs, loadGuide } from '@/components/guides/guides';
+import { listGuideSlugs, loadGuide } from '@/lib/guides';
 
 type Props = { params: Promise<{ slug: string }> };
 

@@ -1,31 +1,19 @@
 import { format } from 'date-fns';
-import { eq } from 'drizzle-orm';
 import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { MemberBrewDays } from '@/components/brew-days/member-brew-days';
 import { MemberCommunity } from '@/components/community/member-community';
 import { Markdown } from '@/components/markdown';
 import { RecipeCard } from '@/components/recipe-card';
-import { db } from '@/db';
-import { users } from '@/db/schema';
 import { getViewer } from '@/lib/auth/session';
+import { getMemberByHandle } from '@/lib/community/profile';
 import { listRecipes } from '@/lib/recipes/listing';
 
 type Props = { params: Promise<{ handle: string }> };
 
 async function loadMember(handle: string) {
-  const [member] = await db
-    .select({
-      id: users.id,
-      name: users.name,
-      handle: users.handle,
-      bio: users.bio,
-      createdAt: users.createdAt,
-      suspendedAt: users.suspendedAt,
-    })
-    .from(users)
-    .where(eq(users.handle, handle.slice(0, 40)));
-  if (!member || member.suspendedAt) notFound();
+  const member = await getMemberByHandle({ handle });
+  if (!member) notFound();
   return member;
 }
 

@@ -1,8 +1,8 @@
-import type { NextRequest } from 'next/server';
 import { loadOwnBrewDay } from '@/lib/brew-days/brew-days';
 import { uploadPhoto } from '@/lib/brew-days/photos';
 import { photoCaptionSchema } from '@/lib/brew-days/schemas';
 import { AppError, invalidInput } from '@/lib/errors';
+import { readBodyWithin } from '@/lib/http/body';
 import { errorResponse, route } from '@/lib/http/route';
 import { idParams } from '@/lib/validation/ids';
 import { MAX_PHOTO_BYTES } from '@/lib/storage/images';
@@ -14,25 +14,6 @@ const LIMIT_MB = MAX_PHOTO_BYTES / 1024 / 1024;
 function tooLarge(): AppError {
   const message = `The photo is larger than ${LIMIT_MB} MB.`;
   return new AppError('too_large', 'photo', message, [{ path: 'photo', message }]);
-}
-
-/** Reads the body, stopping as soon as it passes the limit (a missing or false Content-Length proves nothing). */
-async function readLimited(req: NextRequest, limit: number): Promise<Buffer> {
-  if (!req.body) return Buffer.alloc(0);
-  const reader = req.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let total = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    total += value.byteLength;
-    if (total > limit) {
-      await reader.cancel().catch(() => {});
-      throw tooLarge();
-    }
-    chunks.push(value);
-  }
-  return Buffer.concat(chunks);
 }
 
 /** A refusal after reading was cut off mid-stream: that connection cannot be reused, so say so. */
@@ -53,12 +34,8 @@ export const POST = route({ access: 'user', params: idParams('brew day') }, asyn
     throw new AppError('bad_request', 'photo', message, [{ path: 'photo', message }]);
   }
   await loadOwnBrewDay(viewer, params.id, 'add photos to');
-  let body: Buffer;
-  try {
-    body = await readLimited(req, MAX_PHOTO_BYTES + ENVELOPE_BYTES);
-  } catch (err) {
-    return closing(err);
-  }
+  const body = await readBodyWithin(req.body, MAX_PHOTO_BYTES + ENVELOPE_BYTES);
+  if (!body) return closing(tooLarge());
   let form: FormData;
   try {
     form = await new Response(new Uint8Array(body), { headers: { 'content-type': contentType } }).formData();

@@ -4,6 +4,7 @@ import { route } from '@/lib/http/route';
 import { idParams } from '@/lib/validation/ids';
 import { toBeerJson, toBeerXml } from '@/lib/interchange';
 import { getVersionById } from '@/lib/recipes/versions';
+import { slugify } from '@/lib/slug';
 
 const exportQuerySchema = z.object({
   format: z
@@ -13,15 +14,7 @@ const exportQuerySchema = z.object({
 
 /** A file name from the title: plain letters, digits and dashes, with the version number. */
 function fileName(title: string, number: number, extension: string): string {
-  const base =
-    title
-      .normalize('NFKD')
-      .replace(/[\u0300-\u036f]/g, '')
-      .toLowerCase()
-      .replace(/[^a-z0-9]+/g, '-')
-      .replace(/^-+|-+$/g, '')
-      .slice(0, 60) || 'recipe';
-  return `${base}-v${number}.${extension}`;
+  return `${slugify(title, 60) || 'recipe'}-v${number}.${extension}`;
 }
 
 // GET /api/versions/[id]/export – download a version as BeerXML 1.0, BeerJSON 1.0 or Kettlefork's own JSON document

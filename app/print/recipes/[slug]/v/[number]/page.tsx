@@ -1,27 +1,20 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound } from 'next/navigation';
 import { BrewSheet } from '@/components/print/brew-sheet';
 import { PrintButton } from '@/components/print/print-button';
-import { loadRecipePage } from '@/lib/recipes/pages';
+import { loadRecipePage, versionNumberFromPath } from '@/lib/recipes/pages';
 
 type Props = { params: Promise<{ slug: string; number: string }> };
 
-function versionNumber(text: string): number {
-  const n = Number(text);
-  if (!Number.isInteger(n) || n < 1) notFound();
-  return n;
-}
-
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
   const { slug, number } = await params;
-  const { version } = await loadRecipePage(slug, versionNumber(number));
+  const { version } = await loadRecipePage(slug, versionNumberFromPath(number));
   return { title: `Brew sheet: ${version.document.title}, version ${version.number}`, robots: { index: false } };
 }
 
 export default async function BrewSheetPage({ params }: Props) {
   const { slug, number } = await params;
-  const { viewer, recipe, version } = await loadRecipePage(slug, versionNumber(number));
+  const { viewer, recipe, version } = await loadRecipePage(slug, versionNumberFromPath(number));
   return (
     <>
       <nav aria-label="Brew sheet" className="kf-no-print mb-6 flex flex-wrap items-center gap-3 font-sans text-sm">

@@ -3,7 +3,7 @@ import { readdir, readFile } from 'node:fs/promises';
 import path from 'node:path';
 import { compileMDX } from 'next-mdx-remote/rsc';
 import type { ReactElement } from 'react';
-import { guideComponents } from './mdx-components';
+import { guideComponents } from '@/components/guides/mdx-components';
 
 const GUIDES_DIR = path.join(process.cwd(), 'content', 'guides');
 
