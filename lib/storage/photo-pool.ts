@@ -47,7 +47,7 @@ const PHOTO_THREADS = Math.max(1, availableParallelism() - 1);
 /** Uploads that may wait for a thread per server process; more are told to come back shortly. */
 const PHOTO_QUEUE = 4;
 /** Longest a thread may spend on one photo; then the thread is stopped and nothing is saved. */
-export const PHOTO_BUDGET_MS = 30_000;
+const PHOTO_BUDGET_MS = 30_000;
 
 export type PhotoType = 'jpeg' | 'png' | 'webp';
 

@@ -17,10 +17,13 @@ describe('a large photo upload', () => {
     const rowsBefore = await photoRowCount(brewDayId);
 
     const health = new TestClient();
-    const latenciesMs: number[] = [];
-    let uploading = true;
-    const polling = (async () => {
-      while (uploading) {
+    /** Health checks about every 50 ms until `until` settles; each one's time to the last byte. */
+    async function pollHealth(until: Promise<unknown>): Promise<number[]> {
+      const latenciesMs: number[] = [];
+      let settled = false;
+      const done = () => (settled = true);
+      until.then(done, done);
+      while (!settled) {
         const started = performance.now();
         const res = await health.fetch('/api/health');
         await res.arrayBuffer();
@@ -28,18 +31,22 @@ describe('a large photo upload', () => {
         expect(res.status).toBe(200);
         await new Promise((resolve) => setTimeout(resolve, 50));
       }
-    })();
-    const upload = await uploadVia(client, brewDayId, photo, { name: 'wide.png', type: 'image/png' }).finally(() => {
-      uploading = false;
-    });
-    await polling;
+      return latenciesMs.sort((a, b) => a - b);
+    }
+    const summary = (xs: number[]) =>
+      `${xs.length} checks, p50 ${percentile(xs, 50).toFixed(1)} ms, p99 ${percentile(xs, 99).toFixed(1)} ms, max ${xs.at(-1)?.toFixed(1)} ms`;
 
-    const sorted = [...latenciesMs].sort((a, b) => a - b);
-    console.info(
-      `[large photo] upload ${upload.status}; ${sorted.length} health checks, p50 ${percentile(sorted, 50).toFixed(1)} ms, p99 ${percentile(sorted, 99).toFixed(1)} ms, max ${sorted.at(-1)?.toFixed(1)} ms`,
-    );
-    expect(sorted.length).toBeGreaterThan(5);
-    expect(percentile(sorted, 99)).toBeLessThan(200);
+    // The same polling with nothing else going on, for what this machine manages right now.
+    const idle = await pollHealth(new Promise((resolve) => setTimeout(resolve, 3000)));
+    const uploading = uploadVia(client, brewDayId, photo, { name: 'wide.png', type: 'image/png' });
+    const during = await pollHealth(uploading);
+    const upload = await uploading;
+    console.info(`[large photo] upload ${upload.status}; idle: ${summary(idle)}; during: ${summary(during)}`);
+
+    expect(during.length).toBeGreaterThan(5);
+    // Decoding on the request thread held every request to that process for seconds. The bar is
+    // 200 ms, raised only when the shared machine is so busy that idle checks are slow too.
+    expect(percentile(during, 99)).toBeLessThan(Math.max(200, 3 * percentile(idle, 99)));
 
     if (upload.status === 201) {
       expect(await photoRowCount(brewDayId)).toBe(rowsBefore + 1);
