@@ -1,4 +1,5 @@
 import path from 'node:path';
+import { Jimp } from 'jimp';
 import { Piscina } from 'piscina';
 import { afterAll, describe, expect, it } from 'vitest';
 import { AppError } from '@/lib/errors';
@@ -82,6 +83,20 @@ describe('photos on worker threads', () => {
     expect((overrun as AppError).message).toMatch(/took longer than \d+ seconds/);
     const next = await processOnWorker(new Uint8Array(stripedPng(800, 600)), 'png', { pool, gate });
     expect([next.width, next.height]).toEqual([800, 600]);
+  });
+
+  it('puts see-through parts of a PNG on white, half see-through ones halfway', async () => {
+    const picture = new Jimp({ width: 90, height: 30, color: 0x000000ff });
+    picture.scan(0, 0, 30, 30, (_x, _y, i) => void (picture.bitmap.data[i + 3] = 0));
+    picture.scan(30, 0, 30, 30, (_x, _y, i) => void (picture.bitmap.data[i + 3] = 128));
+    const png = await picture.getBuffer('image/png');
+    const photo = await processOnWorker(new Uint8Array(png), 'png', { pool, gate: new AdmissionGate(1, 1) });
+    const shown = await Jimp.fromBuffer(photo.display);
+    const red = (x: number) => shown.bitmap.data[(15 * shown.width + x) * 4];
+    expect(red(15)).toBeGreaterThan(245); // transparent black: white
+    expect(red(45)).toBeGreaterThan(110); // half see-through black: grey
+    expect(red(45)).toBeLessThan(145);
+    expect(red(75)).toBeLessThan(10); // opaque black stays black
   });
 
   it('refuses a damaged file with a 400 naming the field', async () => {

@@ -70,6 +70,9 @@ function photoWorkers(): PhotoWorkers {
       minThreads: 0,
       maxThreads: PHOTO_THREADS,
       idleTimeout: 60_000,
+      // Photo threads run at a lower priority (a higher nice value), so on a busy machine the
+      // request threads get the processor first and a photo only waits a little longer.
+      niceIncrement: 10,
     }),
     gate: new AdmissionGate(PHOTO_THREADS, PHOTO_QUEUE),
   };

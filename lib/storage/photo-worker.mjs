@@ -91,6 +91,23 @@ function pngHasTransparency(bytes) {
   return false;
 }
 
+/**
+ * JPEG has no transparency: see-through parts go on white rather than black. The "over" operator
+ * onto an opaque white backdrop (Porter and Duff, Compositing Digital Images, 1984), in one pass over
+ * the RGBA bytes: many times faster than a general composite on a picture of tens of megapixels.
+ */
+function flattenOnWhite(rgba) {
+  for (let i = 0; i < rgba.length; i += 4) {
+    const alpha = rgba[i + 3];
+    if (alpha === 255) continue;
+    const white = 255 * (255 - alpha);
+    rgba[i] = Math.round((rgba[i] * alpha + white) / 255);
+    rgba[i + 1] = Math.round((rgba[i + 1] * alpha + white) / 255);
+    rgba[i + 2] = Math.round((rgba[i + 2] * alpha + white) / 255);
+    rgba[i + 3] = 255;
+  }
+}
+
 async function decodeImage(bytes, type) {
   if (type === 'png') {
     let decoded;
@@ -99,9 +116,8 @@ async function decodeImage(bytes, type) {
     } catch {
       throw new Damaged();
     }
-    if (!pngHasTransparency(bytes)) return decoded;
-    // JPEG has no transparency: see-through parts go on white rather than black.
-    return new Jimp({ width: decoded.width, height: decoded.height, color: 0xffffffff }).composite(decoded);
+    if (pngHasTransparency(bytes)) flattenOnWhite(decoded.bitmap.data);
+    return decoded;
   }
   if (type === 'jpeg' && !jpegIsComplete(bytes)) throw new Damaged('the file ends too early');
   const decoded = await decodeWithWasm(type === 'jpeg' ? (b) => decodeJpegWasm(b) : decodeWebpWasm, bytes);
