@@ -14,7 +14,9 @@ const nextConfig: NextConfig = {
   poweredByHeader: false,
   // Photos are resized by jimp when they are uploaded, so Next's optimiser (and sharp) is not needed.
   images: { unoptimized: true },
-  serverExternalPackages: ['pg', 'smtp-server', 'mailparser', 'bcryptjs', 'jimp', 's3rver'],
+  // piscina starts its threads from its own files, and lib/storage/photo-worker.mjs (loaded from the
+  // checkout at run time, never bundled) imports jimp and the decoders from node_modules.
+  serverExternalPackages: ['pg', 'smtp-server', 'mailparser', 'bcryptjs', 'jimp', 's3rver', 'piscina'],
   async headers() {
     return [
       { source: '/:path*', headers: securityHeaders },

@@ -27,6 +27,13 @@ function pagePolicy(scripts: string): string {
  * and chart libraries set them); scripts may not.
  */
 export async function proxy(request: NextRequest) {
+  // scripts/serve.mjs refuses these before Next.js sees them; this covers pages served any other way.
+  if (!pathDecodes(request.nextUrl.pathname)) {
+    return new NextResponse('Bad request: the address has broken percent-encoding.\n', {
+      status: 400,
+      headers: { 'content-type': 'text/plain; charset=utf-8', 'cache-control': 'no-store' },
+    });
+  }
   const nonce = Buffer.from(crypto.getRandomValues(new Uint8Array(16))).toString('base64');
   const policy = pagePolicy(`'nonce-${nonce}' 'strict-dynamic'`);
   if (!(await databaseReachable())) return unavailable(policy);
@@ -49,6 +56,16 @@ export async function proxy(request: NextRequest) {
   const response = NextResponse.next({ request: { headers: requestHeaders } });
   response.headers.set('Content-Security-Policy', policy);
   return response;
+}
+
+/** Next.js answers a path that is not percent-encoded UTF-8 with a 500 once it tries to decode it. */
+function pathDecodes(pathname: string): boolean {
+  try {
+    decodeURIComponent(pathname);
+    return true;
+  } catch {
+    return false;
+  }
 }
 
 /** While the database is down, pages answer at once with a plain 503 and come back by themselves. */

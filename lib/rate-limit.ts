@@ -52,9 +52,18 @@ export const SIGN_IN_PER_ADDRESS: LimitRule = { name: 'signin-address', points: 
 export const MAGIC_LINK_PER_ACCOUNT: LimitRule = { name: 'magic-account', points: 5, durationSec: 60 * 60 };
 export const SIGN_UP_PER_ADDRESS: LimitRule = { name: 'signup-address', points: 20, durationSec: 60 * 60 };
 
+/** Set by scripts/serve.mjs (scripts/request-guard.mjs) from the socket; the same name in both. */
+const CLIENT_ADDRESS_HEADER = 'x-kettlefork-client-address';
+
 /**
- * The client's address. X-Forwarded-For is believed only when TRUST_PROXY=1 (behind our own
- * load balancer, which overwrites it); otherwise a client could pick a fresh address per request.
+ * The client's address, the key of the per-address limits. Behind our own load balancer
+ * (TRUST_PROXY=1), which overwrites X-Forwarded-For, its first entry. Otherwise the connecting
+ * socket's address, which scripts/serve.mjs stamps on every request as CLIENT_ADDRESS_HEADER after
+ * removing any copy the client sent (and says so with KF_SOCKET_ADDRESS_HEADER=1 in its workers'
+ * environment); a client-sent X-Forwarded-For is never believed there, or a client could pick a
+ * fresh address per request. Served any other way (`next dev`, a bare `next start`) nobody removes a
+ * forged copy, so the header is ignored and every client shares the one key 'direct': stricter,
+ * never looser.
  */
 export function clientAddress(headers: Headers | Record<string, string | string[] | undefined> | undefined): string {
   const get = (name: string): string | undefined => {
@@ -63,8 +72,11 @@ export function clientAddress(headers: Headers | Record<string, string | string[
     const v = headers[name];
     return Array.isArray(v) ? v[0] : v;
   };
-  if (process.env.TRUST_PROXY !== '1') return 'direct';
-  return get('x-forwarded-for')?.split(',')[0]?.trim() || get('x-real-ip') || 'direct';
+  const socket = process.env.KF_SOCKET_ADDRESS_HEADER === '1' ? get(CLIENT_ADDRESS_HEADER)?.trim() : undefined;
+  if (process.env.TRUST_PROXY === '1') {
+    return get('x-forwarded-for')?.split(',')[0]?.trim() || get('x-real-ip') || socket || 'direct';
+  }
+  return socket || 'direct';
 }
 
 // Community posting, per member (key: the member's id).

@@ -1,8 +1,12 @@
 // Serves the production build on every core: the primary process forks one `next start`
 // worker per core and they share the listening socket. Background loops (search sync,
 // e-mail digests) run in the first worker only; both are safe to run twice, but once is enough.
+// Each worker's server runs scripts/request-guard.mjs first: it refuses paths that do not decode
+// and tells the app the client's socket address.
 import cluster from 'node:cluster';
+import http from 'node:http';
 import { availableParallelism } from 'node:os';
+import { guardServers } from './request-guard.mjs';
 
 const count = Math.max(1, Number(process.env.KF_WORKERS ?? availableParallelism()));
 
@@ -29,6 +33,7 @@ if (cluster.isPrimary && count > 1) {
   process.on('SIGTERM', () => stop('SIGTERM'));
   process.on('SIGINT', () => stop('SIGINT'));
 } else {
+  guardServers(http);
   process.argv = [process.argv[0], 'next', 'start', ...process.argv.slice(2)];
   await import('next/dist/bin/next');
 }

@@ -52,7 +52,11 @@ async function authorizeWithPassword(
     tryConsume(SIGN_IN_PER_ADDRESS, clientAddress(headers)),
     tryConsume(SIGN_IN_PER_ACCOUNT, email.data),
   ]);
-  if (!perAddress || !perAccount) return null;
+  if (!perAddress || !perAccount) {
+    // A locked account or address answers no faster than a wrong password, so timing tells nothing.
+    await verifyPassword(password, null);
+    return null;
+  }
   const [user] = await db.select().from(users).where(eq(users.email, email.data)).limit(1);
   const ok = await verifyPassword(password, user?.passwordHash);
   if (!user || !ok || user.suspendedAt) return null;

@@ -93,7 +93,8 @@ export function errorResponse(err: unknown, requestId: string = crypto.randomUUI
   if (err instanceof AppError) {
     return NextResponse.json(
       { error: { code: err.code, message: err.message, fields: err.fields, details: err.details, requestId } },
-      { status: err.status },
+      // Whatever is briefly unavailable (a store, a busy worker pool) says when to come back.
+      { status: err.status, headers: err.status === 503 ? { 'Retry-After': '5' } : undefined },
     );
   }
   if (isDatabaseUnavailable(err)) {

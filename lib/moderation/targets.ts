@@ -8,7 +8,7 @@ import { getVisibleComment } from '@/lib/community/comments';
 import { getVisibleProposal, hideProposal } from '@/lib/proposals/proposals';
 import { AppError } from '@/lib/errors';
 import { canView } from '@/lib/recipes/access';
-import { recordRecipeChange } from '@/lib/recipes/events';
+import { recordListingChange } from '@/lib/recipes/events';
 import { getRecipe, getVersionById } from '@/lib/recipes/versions';
 import type { ReportTarget } from './words';
 import { requireId } from '@/lib/validation/ids';
@@ -87,7 +87,8 @@ export async function hideTarget(
         .update(recipes)
         .set({ hiddenAt: sql`coalesce(${recipes.hiddenAt}, now())`, hiddenReason: reason })
         .where(eq(recipes.id, recipeId));
-      await recordRecipeChange(tx, recipeId);
+      // A hidden fork leaves its source's public fork count too.
+      await recordListingChange(tx, recipeId);
       await log(tx, actor, 'hide_recipe', 'recipe', recipeId, reason, {
         ...details,
         reported: target.type === 'version' ? { version: target.id } : undefined,
@@ -131,7 +132,7 @@ export async function unhideTarget(
       .where(eq(recipes.id, id))
       .returning({ id: recipes.id });
     if (!rows.length) throw new AppError('not_found', 'recipe');
-    await recordRecipeChange(tx, id);
+    await recordListingChange(tx, id);
   } else if (type === 'comment') {
     const rows = await tx
       .update(comments)

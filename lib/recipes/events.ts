@@ -1,6 +1,7 @@
 import 'server-only';
+import { eq } from 'drizzle-orm';
 import type { Transaction } from '@/db';
-import { searchOutbox } from '@/db/schema';
+import { recipes, recipeVersions, searchOutbox } from '@/db/schema';
 import { processSearchOutbox } from '@/lib/search/sync';
 
 /**
@@ -9,6 +10,20 @@ import { processSearchOutbox } from '@/lib/search/sync';
  */
 export async function recordRecipeChange(tx: Transaction, recipeId: string): Promise<void> {
   await tx.insert(searchOutbox).values({ recipeId });
+}
+
+/**
+ * Records that a recipe's listing changed (its visibility or hidden flag): its own document and, when
+ * it is a fork, its source's, whose public fork count (listedForkCountSql) follows its forks' listing.
+ */
+export async function recordListingChange(tx: Transaction, recipeId: string): Promise<void> {
+  await recordRecipeChange(tx, recipeId);
+  const [source] = await tx
+    .select({ id: recipeVersions.recipeId })
+    .from(recipes)
+    .innerJoin(recipeVersions, eq(recipeVersions.id, recipes.forkedFromVersionId))
+    .where(eq(recipes.id, recipeId));
+  if (source) await recordRecipeChange(tx, source.id);
 }
 
 /** After the commit: hand pending changes to the search index without making the member wait. */

@@ -10,7 +10,7 @@ import { notifyRecipeCreated } from '@/lib/notifications/recipe-events';
 import { canView, isOwner, listedForkCountSql } from './access';
 import type { Visibility } from './schemas';
 import { slugFor } from './slug';
-import { afterRecipeCommit, recordRecipeChange } from './events';
+import { afterRecipeCommit, recordListingChange, recordRecipeChange } from './events';
 import { requireId } from '@/lib/validation/ids';
 
 export interface SavedVersion {
@@ -446,15 +446,7 @@ export async function setVisibility(viewer: Viewer, recipeId: string, visibility
     throw new AppError('forbidden', 'recipe', 'Only the owner can change who sees this recipe.');
   await db.transaction(async (tx) => {
     await tx.update(recipes).set({ visibility, updatedAt: new Date() }).where(eq(recipes.id, recipeId));
-    await recordRecipeChange(tx, recipeId);
-    // The source's listed fork count (in its search document) follows its forks' visibility.
-    if (recipe.forkedFromVersionId) {
-      const [source] = await tx
-        .select({ id: recipeVersions.recipeId })
-        .from(recipeVersions)
-        .where(eq(recipeVersions.id, recipe.forkedFromVersionId));
-      if (source) await recordRecipeChange(tx, source.id);
-    }
+    await recordListingChange(tx, recipeId);
   });
   afterRecipeCommit();
 }

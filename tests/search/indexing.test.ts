@@ -114,6 +114,44 @@ describe('keeping the index in step with recipes', () => {
     );
     expect(found.total).toBe(2);
   });
+
+  it('takes a fork that moderators hide out of its source’s count, and counts it again once restored', async () => {
+    const { client: owner } = await signedInClient();
+    const { client: forker } = await signedInClient();
+    const { client: reader } = await signedInClient();
+    const { client: moderator } = await signedInClient('moderator');
+    const word = uniqueWord();
+    const source = await createRecipeVia(owner, { document: farmhouseIpa(word) });
+    const fork = await forker.post<{ recipe: { id: string } }>(`/api/versions/${source.version.id}/fork`, {
+      title: `Spam take on ${word}`,
+    });
+    expect(fork.status).toBe(201);
+    const forksOfSource = (n: number) => (body: Parameters<Parameters<typeof waitForSearch>[2]>[0]) =>
+      body.hits.find((hit) => hit.id === source.recipe.id)?.forks === n;
+    await waitForSearch(new TestClient(), { q: word }, forksOfSource(1));
+
+    const report = await reader.post<{ id: string }>('/api/reports', {
+      targetType: 'recipe',
+      targetId: fork.body.recipe.id,
+      reason: 'spam',
+    });
+    expect(report.status).toBe(201);
+    const hidden = await moderator.post(`/api/moderation/reports/${report.body.id}`, {
+      action: 'hide',
+      reason: 'Advertising',
+    });
+    expect(hidden.status).toBe(200);
+    const afterHide = await waitForSearch(new TestClient(), { q: word }, forksOfSource(0));
+    expect(ids(afterHide)).toEqual([source.recipe.id]);
+
+    const restored = await moderator.post('/api/moderation/restore', {
+      targetType: 'recipe',
+      targetId: fork.body.recipe.id,
+      reason: 'Reviewed again',
+    });
+    expect(restored.status).toBe(200);
+    await waitForSearch(new TestClient(), { q: word }, forksOfSource(1));
+  });
 });
 
 describe('when search is down', () => {
