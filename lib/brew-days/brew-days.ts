@@ -71,7 +71,8 @@ function resolveGravities(fields: BrewDayFields) {
   return { preBoilGravity: preBoil, og, fg };
 }
 
-function measuredColumns(fields: BrewDayFields) {
+/** The columns a brew day's fields are stored in (gravities corrected, typed entries kept beside them). */
+export function measuredColumns(fields: BrewDayFields) {
   const gravities = resolveGravities(fields);
   const entries: Record<string, GravityEntry> = {};
   if (fields.preBoilGravity) entries.preBoil = fields.preBoilGravity;
@@ -94,6 +95,34 @@ function measuredColumns(fields: BrewDayFields) {
     gravityEntries: entries,
     ...gravities,
   };
+}
+
+/**
+ * A stored brew day back as the fields the form sends. A gravity kept without its typed entry (an
+ * older row) reads as the hydrometer reading it was stored as, which corrects to itself.
+ */
+export function fieldsOfDay(day: BrewDay): BrewDayFields {
+  const entries = day.gravityEntries as { preBoil?: GravityEntry; og?: GravityEntry; fg?: GravityEntry };
+  const entry = (typed: GravityEntry | undefined, sg: number | null): GravityEntry | null =>
+    typed ?? (sg === null ? null : { method: 'hydrometer', value: sg, sampleTempC: null });
+  return {
+    brewedOn: day.brewedOn,
+    strikeTempC: day.strikeTempC,
+    mashTempC: day.mashTempC,
+    mashPh: day.mashPh,
+    preBoilVolumeL: day.preBoilVolumeL,
+    preBoilGravity: entry(entries.preBoil, day.preBoilGravity),
+    postBoilVolumeL: day.postBoilVolumeL,
+    fermenterVolumeL: day.fermenterVolumeL,
+    og: entry(entries.og, day.og),
+    pitchTempC: day.pitchTempC,
+    fg: entry(entries.fg, day.fg),
+    packagedOn: day.packagedOn,
+    packaging: day.packaging,
+    kegPressureKPa: day.kegPressureKPa,
+    primingSugarG: day.primingSugarG,
+    notes: day.notes,
+  } as BrewDayFields;
 }
 
 /** Logs a brew of one exact version the viewer can see. */
