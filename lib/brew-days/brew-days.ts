@@ -18,17 +18,7 @@ import type { RecipeDocument, RecipeStats } from '@/lib/brewing';
 import { AppError, type FieldIssue } from '@/lib/errors';
 import { canView } from '@/lib/recipes/access';
 import { getVersionById } from '@/lib/recipes/versions';
-import { apparentAttenuationPct } from '@/lib/brewing';
-import {
-  compareWithPrediction,
-  fermenterVolume,
-  gravityFromEntry,
-  leadingYeastKind,
-  originalBrix,
-  type GravityEntry,
-  type Outcome,
-} from './measure';
-import { measuredEfficiencyPct } from '@/lib/brewing';
+import { compareWithPrediction, gravityFromEntry, originalBrix, type GravityEntry, type Outcome } from './measure';
 import { photoVisibleTo } from './photo-visibility';
 import type { BrewDayFields, CreateBrewDayInput, ReadingInput, TastingInput } from './schemas';
 import { requireId } from '@/lib/validation/ids';
@@ -374,46 +364,4 @@ export async function getBrewDaysByBrewerId({
   viewer: MaybeViewer;
 }): Promise<BrewDaySummary[]> {
   return summaries(eq(brewDays.brewerId, brewerId), viewer);
-}
-
-export interface BrewerAverages {
-  brewDayCount: number;
-  efficiency: { meanPct: number; count: number } | null;
-  attenuationByYeastKind: { yeastKind: string; meanPct: number; count: number }[];
-}
-
-const mean = (values: number[]) => values.reduce((a, b) => a + b, 0) / values.length;
-
-/**
- * A brewer's own averages across their brew days: brewhouse efficiency (where the OG was measured)
- * and apparent attenuation per yeast kind (where OG and FG were). Only brew days of recipes the
- * brewer can still see count.
- */
-export async function getBrewerAverages({ brewer }: { brewer: Pick<Viewer, 'id' | 'role'> }): Promise<BrewerAverages> {
-  const rows = await db
-    .select({ day: brewDays, recipe: recipes, document: recipeVersions.document })
-    .from(brewDays)
-    .innerJoin(recipes, eq(recipes.id, brewDays.recipeId))
-    .innerJoin(recipeVersions, eq(recipeVersions.id, brewDays.versionId))
-    .where(eq(brewDays.brewerId, brewer.id));
-  const visible = rows.filter((r) => canView(r.recipe, brewer));
-  const efficiencies: number[] = [];
-  const attenuation = new Map<string, number[]>();
-  for (const { day, document } of visible) {
-    const doc = document as RecipeDocument;
-    if (day.og === null) continue;
-    const efficiency = measuredEfficiencyPct(doc.fermentables, day.og, fermenterVolume(day, doc));
-    if (efficiency > 0) efficiencies.push(efficiency);
-    if (day.fg !== null) {
-      const kind = leadingYeastKind(doc);
-      attenuation.set(kind, [...(attenuation.get(kind) ?? []), apparentAttenuationPct(day.og, day.fg)]);
-    }
-  }
-  return {
-    brewDayCount: visible.length,
-    efficiency: efficiencies.length ? { meanPct: mean(efficiencies), count: efficiencies.length } : null,
-    attenuationByYeastKind: [...attenuation]
-      .map(([yeastKind, values]) => ({ yeastKind, meanPct: mean(values), count: values.length }))
-      .sort((a, b) => b.count - a.count),
-  };
 }
