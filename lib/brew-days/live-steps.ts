@@ -232,3 +232,16 @@ export function sameLiveValue(a: LiveValue | undefined, b: LiveValue | undefined
   };
   return key(a) === key(b);
 }
+
+export interface LiveFieldState {
+  value: LiveValue;
+  /** When brew-day mode last saved it (null when it came from the form, or is empty). */
+  savedAt: string | null;
+}
+
+/** What the server holds of a brew day in brew-day mode: each field, and the steps ticked off. */
+export interface LiveState {
+  brewDayId: string;
+  fields: Record<LiveField, LiveFieldState>;
+  checkedSteps: Record<string, string>;
+}

@@ -7,30 +7,27 @@ import type { RecipeDocument, RecipeStats } from '@/lib/brewing';
 import { uniqueViolation } from '@/lib/db-errors';
 import { AppError, invalidInput } from '@/lib/errors';
 import { fieldsOfDay, loadOwnBrewDay, measuredColumns } from './brew-days';
-import { LIVE_FIELD_LABELS, liveSteps, sameLiveValue, type LiveStep, type LiveValue } from './live-steps';
+import {
+  LIVE_FIELD_LABELS,
+  liveSteps,
+  sameLiveValue,
+  type LiveFieldState,
+  type LiveState,
+  type LiveStep,
+  type LiveValue,
+} from './live-steps';
 import { brewDayFieldsSchema, LIVE_FIELDS, parseLiveFieldValue, type LiveEntryInput, type LiveField } from './schemas';
 
 // Brew-day mode's reads and writes. Every write carries an idempotency key made on the device; the
 // first answer to a key is kept in brew_day_entries and a repeat gets that same answer, so a
 // reading sent again and again after a lost connection is saved exactly once.
 
-export interface LiveFieldState {
-  value: LiveValue;
-  /** When brew-day mode last saved it (null when it came from the form, or is empty). */
-  savedAt: string | null;
-}
-
-export interface LiveState {
-  brewDayId: string;
-  fields: Record<LiveField, LiveFieldState>;
-  checkedSteps: Record<string, string>;
-}
-
 export interface LiveBrewDay {
   day: BrewDay;
   document: RecipeDocument;
   stats: RecipeStats;
   versionNumber: number;
+  state: LiveState;
 }
 
 type Answer = { status: number; body: unknown };
@@ -44,18 +41,22 @@ export function liveValueOf(day: BrewDay, field: LiveField): LiveValue {
   return day[field];
 }
 
-/** The brewer's own brew day with the exact version brewed (brew-day mode is the brewer's alone). */
+/** The brewer's own brew day with the exact version brewed and what is saved (brew-day mode is the brewer's alone). */
 export async function getLiveBrewDayById(viewer: Viewer, id: string): Promise<LiveBrewDay> {
   const { day } = await loadOwnBrewDay(viewer, id, 'run brew-day mode for');
-  const [version] = await db
-    .select({ document: recipeVersions.document, stats: recipeVersions.stats, number: recipeVersions.number })
-    .from(recipeVersions)
-    .where(eq(recipeVersions.id, day.versionId));
+  const [[version], state] = await Promise.all([
+    db
+      .select({ document: recipeVersions.document, stats: recipeVersions.stats, number: recipeVersions.number })
+      .from(recipeVersions)
+      .where(eq(recipeVersions.id, day.versionId)),
+    liveStateOf(day),
+  ]);
   return {
     day,
     document: version.document as RecipeDocument,
     stats: version.stats as RecipeStats,
     versionNumber: version.number,
+    state,
   };
 }
 
@@ -103,12 +104,16 @@ function requestOf(input: LiveEntryInput): unknown {
  * values, and the write is kept as a conflict.
  */
 export async function recordLiveEntry(viewer: Viewer, brewDayId: string, input: LiveEntryInput): Promise<Answer> {
-  const live = await getLiveBrewDayById(viewer, brewDayId);
+  const { day: loaded } = await loadOwnBrewDay(viewer, brewDayId, 'run brew-day mode for');
+  const [version] = await db
+    .select({ document: recipeVersions.document, stats: recipeVersions.stats })
+    .from(recipeVersions)
+    .where(eq(recipeVersions.id, loaded.versionId));
   const request = requestOf(input);
   try {
     return await db.transaction(async (tx) => {
       // One writer per brew day at a time, so a key and a field are checked and written together.
-      const [day] = await tx.select().from(brewDays).where(eq(brewDays.id, live.day.id)).for('update');
+      const [day] = await tx.select().from(brewDays).where(eq(brewDays.id, loaded.id)).for('update');
       const [prior] = await tx
         .select()
         .from(brewDayEntries)
@@ -120,7 +125,7 @@ export async function recordLiveEntry(viewer: Viewer, brewDayId: string, input: 
       let answer: Answer;
       let outcome: 'saved' | 'conflict' = 'saved';
       if (input.kind === 'step') {
-        const steps: LiveStep[] = liveSteps(live.document, live.stats, 'metric');
+        const steps: LiveStep[] = liveSteps(version.document as RecipeDocument, version.stats as RecipeStats, 'metric');
         if (!steps.some((s) => s.id === input.stepId))
           throw new AppError('bad_request', 'step', `Please check these fields: stepId: No such step`, [
             { path: 'stepId', message: 'No such step in this recipe version' },
@@ -195,7 +200,7 @@ export async function recordLiveEntry(viewer: Viewer, brewDayId: string, input: 
       .from(brewDayEntries)
       .where(eq(brewDayEntries.idempotencyKey, input.idempotencyKey));
     if (!prior) throw err;
-    return replay(prior, viewer, live.day.id, request);
+    return replay(prior, viewer, loaded.id, request);
   }
 }
 
