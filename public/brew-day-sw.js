@@ -64,7 +64,7 @@ self.addEventListener('fetch', (event) => {
 });
 
 // The page names what it loaded on its first visit (before this worker controlled it), so that
-// visit can be reopened offline too.
+// visit can be reopened offline too; the reply on the given port says when all of it is kept.
 self.addEventListener('message', (event) => {
   const data = event.data;
   if (!data || data.type !== 'keep' || !Array.isArray(data.urls)) return;
@@ -84,6 +84,7 @@ self.addEventListener('message', (event) => {
           // Offline already: what is kept stays kept.
         }
       }
+      event.ports[0]?.postMessage({ type: 'kept' });
     })(),
   );
 });

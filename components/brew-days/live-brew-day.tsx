@@ -101,10 +101,18 @@ function useOfflineCopy(brewDayId: string): 'ready' | 'unavailable' | 'pending' 
           .getEntriesByType('resource')
           .map((e) => e.name)
           .filter((name) => new URL(name).pathname.startsWith('/_next/static/'));
-        registration.active?.postMessage({
-          type: 'keep',
-          urls: [location.pathname, `/api/brew-days/${brewDayId}/live`, ...built],
+        const worker = registration.active;
+        if (!worker) throw new Error('no active worker');
+        return new Promise<void>((resolve) => {
+          const channel = new MessageChannel();
+          channel.port1.onmessage = () => resolve();
+          worker.postMessage(
+            { type: 'keep', urls: [location.pathname, `/api/brew-days/${brewDayId}/live`, ...built] },
+            [channel.port2],
+          );
         });
+      })
+      .then(() => {
         if (!stopped) setState('ready');
       })
       .catch(() => {
