@@ -14,7 +14,7 @@ import {
 import type { LiveField } from '@/lib/brew-days/schemas';
 import { requestJson } from '@/lib/http/client';
 
-export const brewDayLiveKeys = { state: (id: string) => ['brew-day-live', id] as const };
+const brewDayLiveKeys = { state: (id: string) => ['brew-day-live', id] as const };
 
 /** While anything waits, sending is tried again this often (and at once when the connection returns). */
 const RETRY_MS = 15_000;

@@ -93,9 +93,13 @@ function useOfflineCopy(brewDayId: string): 'ready' | 'unavailable' | 'pending' 
   useEffect(() => {
     if (!('serviceWorker' in navigator)) return;
     let stopped = false;
-    navigator.serviceWorker
-      .register('/brew-day-sw.js', { scope: '/brew-days/' })
-      .then(() => navigator.serviceWorker.ready)
+    // Already controlled (a later visit, perhaps offline): the browser checks for a newer worker itself.
+    const registered = navigator.serviceWorker.controller
+      ? navigator.serviceWorker.ready
+      : navigator.serviceWorker
+          .register('/brew-day-sw.js', { scope: '/brew-days/' })
+          .then(() => navigator.serviceWorker.ready);
+    registered
       .then((registration) => {
         const built = performance
           .getEntriesByType('resource')

@@ -1,7 +1,7 @@
 import 'server-only';
 import { and, eq, max } from 'drizzle-orm';
 import { db } from '@/db';
-import { brewDayEntries, brewDays, recipeVersions, type BrewDay } from '@/db/schema';
+import { brewDayEntries, brewDays, recipeVersions, type BrewDay, type BrewDayEntry } from '@/db/schema';
 import type { Viewer } from '@/lib/auth/session';
 import type { RecipeDocument, RecipeStats } from '@/lib/brewing';
 import { uniqueViolation } from '@/lib/db-errors';
@@ -205,7 +205,7 @@ export async function recordLiveEntry(viewer: Viewer, brewDayId: string, input: 
 }
 
 function replay(
-  prior: typeof brewDayEntries.$inferSelect,
+  prior: BrewDayEntry,
   viewer: Viewer,
   brewDayId: string,
   request: unknown,

@@ -198,7 +198,6 @@ export const LIVE_FIELDS = [
   'pitchTempC',
 ] as const;
 export type LiveField = (typeof LIVE_FIELDS)[number];
-export const GRAVITY_LIVE_FIELDS = ['preBoilGravity', 'og'] as const satisfies readonly LiveField[];
 
 /** One field's value checked exactly as the brew-day form checks it (the form's own field schema). */
 export function parseLiveFieldValue(field: LiveField, value: unknown) {
