@@ -60,6 +60,8 @@ export function useBrewDayLive(brewDayId: string, initialState: LiveState) {
     () => true,
   );
   const [sending, setSending] = useState(false);
+  /** The last try found no way through (a phone can say it is online behind a dead connection). */
+  const [unreachable, setUnreachable] = useState(false);
   const [storageError, setStorageError] = useState<string | null>(null);
   const flushing = useRef(false);
 
@@ -91,6 +93,7 @@ export function useBrewDayLive(brewDayId: string, initialState: LiveState) {
       for (const item of await listOutbox(brewDayId)) {
         if (item.state !== 'waiting') continue;
         const result = await requestJson<Saved>(`/api/brew-days/${brewDayId}/live`, 'POST', item.request);
+        setUnreachable(result.status === 0);
         if (result.ok) {
           await removeFromOutbox(item.idempotencyKey);
           applySaved(result.data);
@@ -183,5 +186,17 @@ export function useBrewDayLive(brewDayId: string, initialState: LiveState) {
     [reload],
   );
 
-  return { server, items, online, sending, storageError, enterField, tickStep, keepMine, discard, sendNow: flush };
+  return {
+    server,
+    items,
+    online,
+    unreachable,
+    sending,
+    storageError,
+    enterField,
+    tickStep,
+    keepMine,
+    discard,
+    sendNow: flush,
+  };
 }

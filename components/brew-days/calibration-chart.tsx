@@ -145,7 +145,7 @@ export function CalibrationChart({ brews }: { brews: CalibrationBrew[] }) {
         </svg>{' '}
         what you measured
       </p>
-      <div className="mt-2 space-y-3">
+      <div className="mt-2 max-w-3xl space-y-3">
         {SERIES.map((s) => (
           <Panel key={s.key} series={s} brews={brews} />
         ))}

@@ -216,6 +216,10 @@ export function LiveBrewDay({
               Offline. {waiting.length ? `${waiting.length} waiting on this phone` : 'Entries wait on this phone'} until
               the connection returns.
             </span>
+          ) : waiting.length && live.unreachable ? (
+            <span className="font-semibold text-caution">
+              Kettlefork cannot be reached. {waiting.length} waiting on this phone; trying again.
+            </span>
           ) : waiting.length ? (
             <span className="text-caution">
               {live.sending ? 'Sending' : 'Waiting to send'} {waiting.length}…

@@ -42,7 +42,7 @@ export interface WeightedFigure {
 }
 
 /** The plain means kept for readers of the earlier answer, beside the weighted calibration. */
-export interface BrewerAverages {
+interface BrewerAverages {
   brewDayCount: number;
   efficiency: { meanPct: number; count: number } | null;
   attenuationByYeastKind: { yeastKind: string; meanPct: number; count: number }[];

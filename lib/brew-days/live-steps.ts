@@ -7,7 +7,7 @@ import type { LiveField } from './schemas';
 // Pure: the checklist brew-day mode walks through, built from the exact version's document.
 
 /** Grain temperature the strike water is worked out for (the printed brew sheet assumes the same). */
-export const GRAIN_TEMP_C = 20;
+const GRAIN_TEMP_C = 20;
 /** A mash-out rest: 75–78 °C for about 10 minutes stops the enzymes and thins the wort (common practice). */
 const MASH_OUT_MIN_C = 75;
 const MASH_OUT_TEMP_C = 76;
@@ -15,7 +15,7 @@ const MASH_OUT_MIN = 10;
 
 export type LiveCaution = 'hotLiquor' | 'boil' | 'chilling' | 'lifting' | 'pressure';
 
-export interface LiveAnnouncement {
+interface LiveAnnouncement {
   id: string;
   /** Minutes after the step's timer starts. */
   atMin: number;
@@ -48,7 +48,7 @@ function hopList(hops: readonly Hop[], units: UnitSystem): string {
  * Boil additions grouped by minute: each is announced when that many minutes of the boil are left
  * (an addition as long as the boil, or longer, goes in at the start).
  */
-export function boilAnnouncements(doc: RecipeDocument, units: UnitSystem): LiveAnnouncement[] {
+function boilAnnouncements(doc: RecipeDocument, units: UnitSystem): LiveAnnouncement[] {
   const boilMin = doc.batch.boilTimeMin;
   const byLeft = new Map<number, Hop[]>();
   for (const hop of doc.hops) {

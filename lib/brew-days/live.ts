@@ -33,7 +33,7 @@ export interface LiveBrewDay {
 type Answer = { status: number; body: unknown };
 
 /** The value of one field as stored: the typed entry for a gravity, the number otherwise. */
-export function liveValueOf(day: BrewDay, field: LiveField): LiveValue {
+function liveValueOf(day: BrewDay, field: LiveField): LiveValue {
   if (field === 'preBoilGravity' || field === 'og') {
     const fields = fieldsOfDay(day);
     return fields[field];
@@ -204,12 +204,7 @@ export async function recordLiveEntry(viewer: Viewer, brewDayId: string, input: 
   }
 }
 
-function replay(
-  prior: BrewDayEntry,
-  viewer: Viewer,
-  brewDayId: string,
-  request: unknown,
-): Answer {
+function replay(prior: BrewDayEntry, viewer: Viewer, brewDayId: string, request: unknown): Answer {
   if (prior.brewDayId !== brewDayId || prior.authorId !== viewer.id || !sameJson(prior.request, request))
     throw new AppError(
       'conflict',

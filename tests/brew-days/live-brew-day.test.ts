@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
 import { db } from '@/db';
+import { correctHydrometerReading } from '@/lib/brewing';
 import { brewDayEntries } from '@/db/schema';
 import { TestClient } from '../helpers/http';
 import { signedInClient, TEST_PASSWORD } from '../helpers/users';
@@ -41,7 +42,8 @@ describe('brew-day mode writes', () => {
     const rows = await entriesOf(brewDayId);
     expect(rows).toHaveLength(1);
     expect(rows[0]).toMatchObject({ kind: 'field', name: 'og', outcome: 'saved', status: 201 });
-    expect((await brewDayRow(brewDayId)).og).toBeCloseTo(1.052, 4);
+    // Stored corrected for the sample's temperature, as the brew-day form stores it.
+    expect((await brewDayRow(brewDayId)).og).toBeCloseTo(correctHydrometerReading(1.052, 20), 4);
 
     // Sent at the same moment (two retries racing): still one row.
     const racing = { ...write, idempotencyKey: randomUUID(), field: 'mashPh', value: 5.3 };
