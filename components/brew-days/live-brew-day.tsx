@@ -173,6 +173,12 @@ export function LiveBrewDay({
       if (item.request.checked) checked.add(item.request.stepId);
       else checked.delete(item.request.stepId);
     }
+  // A tick shows at once, before IndexedDB has it.
+  const [ticking, setTicking] = useState<Record<string, boolean>>({});
+  for (const [stepId, done] of Object.entries(ticking)) {
+    if (done) checked.add(stepId);
+    else checked.delete(stepId);
+  }
   const firstOpen = steps.find((s) => !checked.has(s.id))?.id ?? steps[steps.length - 1].id;
   const [chosen, setChosen] = useState<string | null>(null);
   const currentId = chosen ?? firstOpen;
@@ -190,7 +196,13 @@ export function LiveBrewDay({
   };
 
   const tick = async (step: LiveStep, done: boolean) => {
+    setTicking((t) => ({ ...t, [step.id]: done }));
     await live.tickStep(step.id, done);
+    setTicking((t) => {
+      const rest = { ...t };
+      delete rest[step.id];
+      return rest;
+    });
     if (done && step.id === currentId) {
       const next = steps.slice(steps.indexOf(step) + 1).find((s) => !checked.has(s.id));
       setChosen(next?.id ?? null);
