@@ -12,6 +12,8 @@ function pagePolicy(scripts: string): string {
     "img-src 'self' blob: data:",
     "font-src 'self' data:",
     "connect-src 'self'",
+    // Brew-day mode's service worker (public/brew-day-sw.js); 'strict-dynamic' would otherwise refuse it.
+    "worker-src 'self'",
     "object-src 'none'",
     "base-uri 'self'",
     "form-action 'self'",

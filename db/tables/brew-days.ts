@@ -9,6 +9,7 @@ import {
   smallint,
   text,
   timestamp,
+  uniqueIndex,
   uuid,
   varchar,
 } from 'drizzle-orm/pg-core';
@@ -64,6 +65,8 @@ export const brewDays = pgTable(
     notes: text('notes').notNull().default(''),
     /** The calendar from this brew day to the day it must pour (lib/brew-days/schedule.ts), when planned. */
     plan: jsonb('plan').$type<BrewPlan>(),
+    /** Brew-day mode's checklist: step id → when it was ticked (ISO time). */
+    checkedSteps: jsonb('checked_steps').$type<Record<string, string>>().notNull().default({}),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
   },
@@ -75,6 +78,41 @@ export const brewDays = pgTable(
 );
 export type BrewDay = typeof brewDays.$inferSelect;
 export type NewBrewDay = typeof brewDays.$inferInsert;
+
+export const brewDayEntryKind = pgEnum('brew_day_entry_kind', ['field', 'step']);
+export const brewDayEntryOutcome = pgEnum('brew_day_entry_outcome', ['saved', 'conflict']);
+
+// Every write from brew-day mode, keyed by the idempotency key the device made for it: a retry with
+// the same key gets the answer kept here instead of writing again. A conflicting write is kept too,
+// so both values stay on record while the brewer chooses.
+export const brewDayEntries = pgTable(
+  'brew_day_entries',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    brewDayId: uuid('brew_day_id')
+      .notNull()
+      .references(() => brewDays.id, { onDelete: 'cascade' }),
+    authorId: text('author_id')
+      .notNull()
+      .references(() => users.id),
+    idempotencyKey: uuid('idempotency_key').notNull(),
+    kind: brewDayEntryKind('kind').notNull(),
+    /** The brew-day field (`og`, `mashPh`…) or the checklist step id. */
+    name: varchar('name', { length: 40 }).notNull(),
+    /** The request as sent, to tell a true retry from a different write reusing a key. */
+    request: jsonb('request').notNull(),
+    outcome: brewDayEntryOutcome('outcome').notNull(),
+    /** The HTTP status and body answered the first time; a repeat gets exactly these. */
+    status: smallint('status').notNull(),
+    response: jsonb('response').notNull(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    uniqueIndex('brew_day_entries_key_idx').on(t.idempotencyKey),
+    index('brew_day_entries_day_idx').on(t.brewDayId, t.createdAt),
+  ],
+);
+export type BrewDayEntry = typeof brewDayEntries.$inferSelect;
 
 // Fermentation readings over time; `gravity` is the corrected SG the chart plots.
 export const brewReadings = pgTable(

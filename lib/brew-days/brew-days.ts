@@ -18,17 +18,7 @@ import type { RecipeDocument, RecipeStats } from '@/lib/brewing';
 import { AppError, type FieldIssue } from '@/lib/errors';
 import { canView } from '@/lib/recipes/access';
 import { getVersionById } from '@/lib/recipes/versions';
-import { apparentAttenuationPct } from '@/lib/brewing';
-import {
-  compareWithPrediction,
-  fermenterVolume,
-  gravityFromEntry,
-  leadingYeastKind,
-  originalBrix,
-  type GravityEntry,
-  type Outcome,
-} from './measure';
-import { measuredEfficiencyPct } from '@/lib/brewing';
+import { compareWithPrediction, gravityFromEntry, originalBrix, type GravityEntry, type Outcome } from './measure';
 import { photoVisibleTo } from './photo-visibility';
 import type { BrewDayFields, CreateBrewDayInput, ReadingInput, TastingInput } from './schemas';
 import { requireId } from '@/lib/validation/ids';
@@ -71,7 +61,8 @@ function resolveGravities(fields: BrewDayFields) {
   return { preBoilGravity: preBoil, og, fg };
 }
 
-function measuredColumns(fields: BrewDayFields) {
+/** The columns a brew day's fields are stored in (gravities corrected, typed entries kept beside them). */
+export function measuredColumns(fields: BrewDayFields) {
   const gravities = resolveGravities(fields);
   const entries: Record<string, GravityEntry> = {};
   if (fields.preBoilGravity) entries.preBoil = fields.preBoilGravity;
@@ -94,6 +85,34 @@ function measuredColumns(fields: BrewDayFields) {
     gravityEntries: entries,
     ...gravities,
   };
+}
+
+/**
+ * A stored brew day back as the fields the form sends. A gravity kept without its typed entry (an
+ * older row) reads as the hydrometer reading it was stored as, which corrects to itself.
+ */
+export function fieldsOfDay(day: BrewDay): BrewDayFields {
+  const entries = day.gravityEntries as { preBoil?: GravityEntry; og?: GravityEntry; fg?: GravityEntry };
+  const entry = (typed: GravityEntry | undefined, sg: number | null): GravityEntry | null =>
+    typed ?? (sg === null ? null : { method: 'hydrometer', value: sg, sampleTempC: null });
+  return {
+    brewedOn: day.brewedOn,
+    strikeTempC: day.strikeTempC,
+    mashTempC: day.mashTempC,
+    mashPh: day.mashPh,
+    preBoilVolumeL: day.preBoilVolumeL,
+    preBoilGravity: entry(entries.preBoil, day.preBoilGravity),
+    postBoilVolumeL: day.postBoilVolumeL,
+    fermenterVolumeL: day.fermenterVolumeL,
+    og: entry(entries.og, day.og),
+    pitchTempC: day.pitchTempC,
+    fg: entry(entries.fg, day.fg),
+    packagedOn: day.packagedOn,
+    packaging: day.packaging,
+    kegPressureKPa: day.kegPressureKPa,
+    primingSugarG: day.primingSugarG,
+    notes: day.notes,
+  } as BrewDayFields;
 }
 
 /** Logs a brew of one exact version the viewer can see. */
@@ -344,45 +363,4 @@ export async function getBrewDaysByBrewerId({
   viewer: MaybeViewer;
 }): Promise<BrewDaySummary[]> {
   return summaries(eq(brewDays.brewerId, brewerId), viewer);
-}
-
-export interface BrewerAverages {
-  brewDayCount: number;
-  efficiency: { meanPct: number; count: number } | null;
-  attenuationByYeastKind: { yeastKind: string; meanPct: number; count: number }[];
-}
-
-const mean = (values: number[]) => values.reduce((a, b) => a + b, 0) / values.length;
-
-/**
- * A brewer's own averages across their brew days: brewhouse efficiency (where the OG was measured)
- * and apparent attenuation per yeast kind (where OG and FG were). Only brew days of recipes the
- * brewer can still see count.
- */
-export async function getBrewerAverages({ brewer }: { brewer: Pick<Viewer, 'id' | 'role'> }): Promise<BrewerAverages> {
-  const rows = await db
-    .select({ day: brewDays, recipe: recipes, document: recipeVersions.document })
-    .from(brewDays)
-    .innerJoin(recipes, eq(recipes.id, brewDays.recipeId))
-    .innerJoin(recipeVersions, eq(recipeVersions.id, brewDays.versionId))
-    .where(eq(brewDays.brewerId, brewer.id));
-  const visible = rows.filter((r) => canView(r.recipe, brewer));
-  const efficiencies: number[] = [];
-  const attenuation = new Map<string, number[]>();
-  for (const { day, document: doc } of visible) {
-    if (day.og === null) continue;
-    const efficiency = measuredEfficiencyPct(doc.fermentables, day.og, fermenterVolume(day, doc));
-    if (efficiency > 0) efficiencies.push(efficiency);
-    if (day.fg !== null) {
-      const kind = leadingYeastKind(doc);
-      attenuation.set(kind, [...(attenuation.get(kind) ?? []), apparentAttenuationPct(day.og, day.fg)]);
-    }
-  }
-  return {
-    brewDayCount: visible.length,
-    efficiency: efficiencies.length ? { meanPct: mean(efficiencies), count: efficiencies.length } : null,
-    attenuationByYeastKind: [...attenuation]
-      .map(([yeastKind, values]) => ({ yeastKind, meanPct: mean(values), count: values.length }))
-      .sort((a, b) => b.count - a.count),
-  };
 }

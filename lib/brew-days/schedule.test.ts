@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { recipeDocumentSchema, type RecipeDocument } from '@/lib/brewing/schema';
+import { recipeDocumentSchema, YEAST_KINDS, type RecipeDocument } from '@/lib/brewing/schema';
 import { minimalInput } from '@/lib/brewing/test-fixtures';
 import { planToIcs } from './plan-ics';
 import { PlanDateError, carbonationDays, fermentationDays, planBrew, planOptionsSchema } from './schedule';
@@ -24,13 +24,18 @@ const kveikDryHopped = (contactMin = 2880) =>
 
 const opts = (o: Record<string, unknown>) => planOptionsSchema.parse(o);
 
-describe('fermentation and carbonation lengths (common practice)', () => {
-  it('kveik at 30–35 °C finishes in 2–4 days (common practice)', () => {
+describe('fermentation and carbonation lengths', () => {
+  it('kveik at 30–35 °C finishes in 2–4 days (Garshol, Historical Brewing Techniques, 2020; from memory)', () => {
     expect(fermentationDays('kveik', 32)).toMatchObject({ min: 2, max: 4 });
-    expect(fermentationDays('kveik', 32).source).toMatch(/common practice/);
+    expect(fermentationDays('kveik', 32).source).toMatch(/Garshol/);
   });
-  it('a clean ale at 18 °C takes 7–14 days (common practice)', () => {
+  it('a clean ale at 18 °C takes one to two weeks (Palmer, How to Brew, 2017; from memory)', () => {
     expect(fermentationDays('ale', 18)).toMatchObject({ min: 7, max: 14 });
+    expect(fermentationDays('ale', 18).source).toMatch(/Palmer/);
+  });
+  it('primed bottles carbonate in about two weeks at room temperature (Palmer, How to Brew, 2017; from memory)', () => {
+    expect(carbonationDays('bottle')).toMatchObject({ typical: 14 });
+    expect(carbonationDays('bottle').source).toMatch(/Palmer/);
   });
   it('a lager takes longer than an ale (common practice)', () => {
     expect(fermentationDays('lager', 10).min).toBeGreaterThan(fermentationDays('ale', 18).min);
@@ -39,6 +44,30 @@ describe('fermentation and carbonation lengths (common practice)', () => {
     expect(carbonationDays('set_and_forget')).toMatchObject({ min: 7, max: 14 });
     expect(carbonationDays('burst')).toMatchObject({ min: 1, max: 3 });
     expect(carbonationDays('spunding').typical).toBeLessThan(carbonationDays('burst').typical);
+  });
+});
+
+describe('every length in a plan says where it comes from', () => {
+  const NAMED = /^(common practice|Palmer, How to Brew|Garshol, Historical Brewing Techniques)/;
+  it('each fermentation range, for every yeast kind and temperature, names a source or common practice', () => {
+    for (const kind of YEAST_KINDS)
+      for (let tempC = 0; tempC <= 40; tempC += 1) expect(fermentationDays(kind, tempC).source).toMatch(NAMED);
+  });
+  it('each carbonation method names a source or common practice', () => {
+    for (const method of ['set_and_forget', 'burst', 'spunding', 'bottle'] as const)
+      expect(carbonationDays(method).source).toMatch(NAMED);
+  });
+  it('every timed event of a full plan carries its source (common practice for crash and dry hop)', () => {
+    const plan = planBrew(
+      kveikDryHopped(),
+      opts({ pourOn: '2026-12-30', carbonation: 'spunding', dryHopIn: 'fermenter', crash: true }),
+      '2026-12-02',
+    );
+    const timed = plan.events.filter((e) => ['ferment', 'dry_hop', 'spunding', 'crash', 'carbonate'].includes(e.kind));
+    expect(timed.map((e) => e.kind)).toEqual(expect.arrayContaining(['ferment', 'dry_hop', 'crash', 'carbonate']));
+    for (const e of timed) expect(e.source).toMatch(NAMED);
+    expect(plan.events.find((e) => e.kind === 'crash')?.source).toMatch(/^common practice/);
+    expect(plan.events.find((e) => e.kind === 'dry_hop')?.source).toBe('common practice');
   });
 });
 

@@ -24,32 +24,44 @@ export interface DayRange {
 
 const COMMON = 'common practice';
 
+/** Named sources for the lengths below; each is quoted from memory of the printed text. */
+const PALMER = 'Palmer, How to Brew (4th ed., 2017)';
+const GARSHOL = 'Garshol, Historical Brewing Techniques: The Lost Art of Farmhouse Brewing (2020)';
+
 /**
  * Days of primary fermentation until the gravity is stable, by yeast kind and the beer's
- * temperature. Ranges are the trade's usual figures (common practice); a kveik ferment at
- * 30–35 °C finishing in 2–4 days is widely reported by farmhouse brewers (common practice).
+ * temperature. Each range carries its source: an ale finishing primary in one to two weeks
+ * (Palmer, from memory); kveik pitched hot finishing in two to four days (Garshol reports farmhouse
+ * brewers' ferments done in a day or two at 30–40 °C, from memory); the rest common practice.
  */
 export function fermentationDays(kind: YeastKind, tempC: number): DayRange {
   switch (kind) {
     case 'kveik':
-      if (tempC >= 30) return { min: 2, typical: 3, max: 4, source: `${COMMON} (kveik at 30–35 °C)` };
+      if (tempC >= 30) return { min: 2, typical: 3, max: 4, source: `${GARSHOL} (kveik at 30–35 °C)` };
+      // Cooler kveik ferments: common practice.
       if (tempC >= 25) return { min: 3, typical: 4, max: 6, source: `${COMMON} (kveik at 25–29 °C)` };
       return { min: 5, typical: 7, max: 10, source: `${COMMON} (kveik below 25 °C)` };
     case 'lager':
+      // Lager primary at 8–13 °C for two to four weeks, warmer lagers faster: common practice.
       if (tempC <= 13) return { min: 14, typical: 21, max: 28, source: `${COMMON} (lager at 8–13 °C)` };
       return { min: 10, typical: 14, max: 21, source: `${COMMON} (lager above 13 °C)` };
     case 'wild':
+      // Mixed and wild fermentations run for months: common practice.
       return { min: 30, typical: 60, max: 180, source: `${COMMON} (mixed and wild fermentation)` };
     case 'ale':
     case 'wheat':
     case 'other':
     default:
+      // Warm ales finish sooner than cool ones (common practice); the 1–2 week span is Palmer's.
       if (tempC >= 20) return { min: 5, typical: 7, max: 10, source: `${COMMON} (ale at 20 °C and above)` };
-      return { min: 7, typical: 10, max: 14, source: `${COMMON} (ale at 16–19 °C)` };
+      return { min: 7, typical: 10, max: 14, source: `${PALMER} (ale at 16–19 °C: one to two weeks)` };
   }
 }
 
-/** Days from a filled keg or bottle to carbonated beer, by method (common practice). */
+/**
+ * Days from a filled keg or bottle to carbonated beer, by method. Bottle conditioning's two weeks
+ * at room temperature is Palmer's (from memory); the keg methods are common practice.
+ */
 export function carbonationDays(method: CarbonationMethod): DayRange {
   switch (method) {
     case 'set_and_forget':
@@ -59,7 +71,7 @@ export function carbonationDays(method: CarbonationMethod): DayRange {
     case 'spunding':
       return { min: 0, typical: 1, max: 2, source: `${COMMON} (CO2 kept from fermentation; chill and top up)` };
     case 'bottle':
-      return { min: 10, typical: 14, max: 21, source: `${COMMON} (priming sugar at about 20 °C)` };
+      return { min: 10, typical: 14, max: 21, source: `${PALMER} (primed bottles at about 20 °C: two weeks)` };
   }
 }
 
@@ -166,6 +178,7 @@ function fermentTemp(doc: RecipeDocument, options: PlanOptions): number {
   if (first) return first.tempC;
   const y = doc.yeasts[0];
   if (y?.tempMinC !== undefined && y.tempMaxC !== undefined) return (y.tempMinC + y.tempMaxC) / 2;
+  // Middle of each kind's usual range when the recipe gives none (common practice).
   return y?.kind === 'kveik' ? 32 : y?.kind === 'lager' ? 10 : 18;
 }
 

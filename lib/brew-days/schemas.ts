@@ -184,3 +184,59 @@ export type TastingInput = z.output<typeof tastingSchema>;
 
 export const photoCaptionSchema = textSchema('Caption').trim().max(200, 'Caption must be at most 200 characters');
 export const photoSizeSchema = z.enum(['display', 'thumb'], { error: 'No such photo size.' });
+
+/** The brew-day fields brew-day mode asks for at the step where each is measured. */
+export const LIVE_FIELDS = [
+  'strikeTempC',
+  'mashTempC',
+  'mashPh',
+  'preBoilVolumeL',
+  'preBoilGravity',
+  'postBoilVolumeL',
+  'og',
+  'fermenterVolumeL',
+  'pitchTempC',
+] as const;
+export type LiveField = (typeof LIVE_FIELDS)[number];
+
+/** One field's value checked exactly as the brew-day form checks it (the form's own field schema). */
+export function parseLiveFieldValue(field: LiveField, value: unknown) {
+  return measuredFields[field].safeParse(value);
+}
+
+const idempotencyKey = z.uuid({ error: 'Idempotency key must be a UUID made by the device' });
+
+/**
+ * A write from brew-day mode: a field measured at its step, or a step ticked off. `knownValue` is
+ * the field's value on the server as the device last saw it (null when it was empty), so a value
+ * entered meanwhile on another device is a conflict rather than overwritten.
+ */
+export const liveEntrySchema = z.discriminatedUnion(
+  'kind',
+  [
+    z
+      .object({
+        idempotencyKey,
+        kind: z.literal('field'),
+        field: z.enum(LIVE_FIELDS, { error: 'No such brew-day field' }),
+        value: z.unknown(),
+        knownValue: z.unknown().optional(),
+      })
+      .superRefine((entry, ctx) => {
+        const parsed = parseLiveFieldValue(entry.field, entry.value);
+        if (!parsed.success)
+          for (const issue of parsed.error.issues)
+            ctx.addIssue({ code: 'custom', path: ['value', ...issue.path.map(String)], message: issue.message });
+        else if (parsed.data === null)
+          ctx.addIssue({ code: 'custom', path: ['value'], message: 'Enter a value before saving' });
+      }),
+    z.object({
+      idempotencyKey,
+      kind: z.literal('step'),
+      stepId: z.string({ error: 'Step is required' }).regex(/^[a-z0-9-]{1,40}$/, 'No such step'),
+      checked: z.boolean({ error: 'Checked must be true or false' }),
+    }),
+  ],
+  { error: 'Kind must be field or step' },
+);
+export type LiveEntryInput = z.output<typeof liveEntrySchema>;

@@ -174,6 +174,13 @@ const ROWS: Record<string, Row> = {
     }),
     expect: ownerOnly(201),
   },
+  'POST /api/brew-days/[id]/live': {
+    prepare: async (w) => ({
+      path: `/api/brew-days/${(await brewDayOf(w)).brewDayId}/live`,
+      body: { idempotencyKey: crypto.randomUUID(), kind: 'step', stepId: 'boil', checked: true },
+    }),
+    expect: ownerOnly(201),
+  },
   'PUT /api/brew-days/[id]/plan': {
     prepare: async (w) => ({
       path: `/api/brew-days/${(await brewDayOf(w)).brewDayId}/plan`,

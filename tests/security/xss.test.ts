@@ -177,7 +177,17 @@ describe('user text cannot run script', () => {
       (await commenter.post(`/api/proposals/${proposal.id}/comments`, { body: '<img src=x onerror=kfXss()>' })).status,
     ).toBe(201);
 
+    // A brew day of the payload-titled recipe: brew-day mode and the calibration chart show its title.
+    const brewed = await owner.post<{ id: string }>('/api/brew-days', {
+      versionId: recipe.version.id,
+      brewedOn: '2026-02-01',
+      og: { method: 'hydrometer', value: 1.05 },
+    });
+    expect(brewed.status).toBe(201);
+
     pages.push(
+      { name: 'brew-day mode', client: owner, path: `/brew-days/${brewed.body.id}/live` },
+      { name: 'my brew days with the calibration chart', client: owner, path: '/brew-days' },
       {
         name: 'proposal page with its title, description and discussion',
         client: new TestClient(),

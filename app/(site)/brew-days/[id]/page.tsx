@@ -161,9 +161,14 @@ export default async function BrewDayPage({ params }: Props) {
           )}
         </p>
         {view.canEdit && (
-          <Link href={`/brew-days/${day.id}/edit`} className="kf-btn-quiet mt-2 inline-block font-sans text-sm">
-            Edit brew day
-          </Link>
+          <p className="mt-2 flex flex-wrap gap-2 font-sans text-sm">
+            <Link href={`/brew-days/${day.id}/live`} className="kf-btn inline-block">
+              Brew-day mode
+            </Link>
+            <Link href={`/brew-days/${day.id}/edit`} className="kf-btn-quiet inline-block">
+              Edit brew day
+            </Link>
+          </p>
         )}
       </header>
 
