@@ -15,6 +15,7 @@ import {
   varchar,
   type AnyPgColumn,
 } from 'drizzle-orm/pg-core';
+import type { BrewhouseInput } from '@/lib/community/brewhouse-schema';
 
 export const userRole = pgEnum('user_role', ['member', 'moderator', 'admin']);
 export const unitSystem = pgEnum('unit_system', ['metric', 'us']);
@@ -38,6 +39,8 @@ export const users = pgTable(
     bio: text('bio').notNull().default(''),
     defaultBatchVolumeL: real('default_batch_volume_l').notNull().default(20),
     defaultEfficiencyPct: real('default_efficiency_pct').notNull().default(72),
+    /** Losses and the member's water report (lib/community/brewhouse-schema.ts); null until first saved. */
+    brewhouse: jsonb('brewhouse').$type<BrewhouseInput>(),
     suspendedAt: timestamp('suspended_at', { withTimezone: true }),
     suspendedReason: text('suspended_reason'),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),

@@ -14,7 +14,14 @@ function doc(steps: [tempC: number, days: number][], yeasts: Doc['yeasts'] = [kv
 describe('yeast temperature flags', () => {
   it('flags a step below and a step above the yeast’s range, and none inside it', () => {
     expect(yeastTemperatureFlags(doc([[32, 4]]))).toEqual([]);
-    expect(yeastTemperatureFlags(doc([[20, 4], [38, 2]]))).toEqual([
+    expect(
+      yeastTemperatureFlags(
+        doc([
+          [20, 4],
+          [38, 2],
+        ]),
+      ),
+    ).toEqual([
       { stepIndex: 0, tempC: 20, yeastName: 'Kveik', side: 'below', limitC: 29 },
       { stepIndex: 1, tempC: 38, yeastName: 'Kveik', side: 'above', limitC: 35 },
     ]);
@@ -22,7 +29,14 @@ describe('yeast temperature flags', () => {
 
   // Common practice: a cold crash at the end clears the beer after fermentation; it is not a ferment.
   it('leaves a cold last step alone, but not a cold only step', () => {
-    expect(yeastTemperatureFlags(doc([[32, 4], [2, 2]]))).toEqual([]);
+    expect(
+      yeastTemperatureFlags(
+        doc([
+          [32, 4],
+          [2, 2],
+        ]),
+      ),
+    ).toEqual([]);
     expect(yeastTemperatureFlags(doc([[2, 4]]))).toHaveLength(1);
   });
 

@@ -20,14 +20,11 @@ const COLD_CONDITIONING_MAX_C = 4;
  * fusel alcohols (common practice; yeast makers state these ranges). A cold
  * last step is left alone below the range: the yeast's work is done by then.
  */
-export function yeastTemperatureFlags(
-  doc: Pick<RecipeDocument, 'yeasts' | 'fermentation'>,
-): YeastTemperatureFlag[] {
+export function yeastTemperatureFlags(doc: Pick<RecipeDocument, 'yeasts' | 'fermentation'>): YeastTemperatureFlag[] {
   const flags: YeastTemperatureFlag[] = [];
   const steps = doc.fermentation.steps;
   steps.forEach((step, stepIndex) => {
-    const coldConditioning =
-      stepIndex > 0 && stepIndex === steps.length - 1 && step.tempC <= COLD_CONDITIONING_MAX_C;
+    const coldConditioning = stepIndex > 0 && stepIndex === steps.length - 1 && step.tempC <= COLD_CONDITIONING_MAX_C;
     for (const yeast of doc.yeasts) {
       if (yeast.tempMinC !== undefined && step.tempC < yeast.tempMinC && !coldConditioning) {
         flags.push({ stepIndex, tempC: step.tempC, yeastName: yeast.name, side: 'below', limitC: yeast.tempMinC });
