@@ -78,7 +78,10 @@ export function BrewSheet({
   const pressure = (kPa: number) => formatAmount(kPa, 'pressure', units, units === 'us' ? 1 : 0);
   const measured: [string, string][] = [
     ['Strike water temperature', strikeC === null ? '—' : `${temp(strikeC)} (grain at ${temp(GRAIN_TEMP_C)})`],
-    ['Mash pH (room temperature)', predictedPh === null ? '5.2–5.6' : `${predictedPh.toFixed(2)} predicted (aim 5.2–5.6)`],
+    [
+      'Mash pH (room temperature)',
+      predictedPh === null ? '5.2–5.6' : `${predictedPh.toFixed(2)} predicted (aim 5.2–5.6)`,
+    ],
     ['Pre-boil volume', volume(volumes.preBoilVolumeL)],
     ['Pre-boil gravity', formatGravity(preBoilGravity(stats.og, doc.batch))],
     ['Original gravity (OG)', formatGravity(stats.og)],
@@ -266,8 +269,8 @@ export function BrewSheet({
           <p className="mt-2">
             Spund: set the valve to <strong>{pressure(spunding.pressureKPa)}</strong> with the beer at{' '}
             {temp(spunding.tempC)} (about {spunding.volumesCO2.toFixed(2)} volumes CO₂). Seal only a pressure-rated
-            vessel, keep its pressure-relief valve working and stay under the maker&apos;s rated pressure. Valve set
-            to: <span className="kf-write-in inline-block min-w-[6rem]">&nbsp;</span>
+            vessel, keep its pressure-relief valve working and stay under the maker&apos;s rated pressure. Valve set to:{' '}
+            <span className="kf-write-in inline-block min-w-[6rem]">&nbsp;</span>
           </p>
         )}
         {stats.carbonation && (

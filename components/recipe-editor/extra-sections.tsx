@@ -71,7 +71,11 @@ function PartCheckbox({
 export function WaterSection({ units }: { units: UnitSystem }) {
   const { on, toggle } = usePartSwitch('document.water', newWater);
   return (
-    <EditorSection id="water" title="Water" description="Optional. Pick the water you start from and the water you want; Kettlefork proposes the salts.">
+    <EditorSection
+      id="water"
+      title="Water"
+      description="Optional. Pick the water you start from and the water you want; Kettlefork proposes the salts."
+    >
       <PartCheckbox id="kf-water-on" label="Include a water profile" checked={on} onChange={toggle} />
       {on && <WaterFields units={units} />}
     </EditorSection>

@@ -17,13 +17,7 @@ export interface FieldUnit {
 }
 
 export type ConvertedQuantity =
-  | 'mass'
-  | 'hopMass'
-  | 'volume'
-  | 'volumePerHour'
-  | 'litresPerKg'
-  | 'temperature'
-  | 'pressure';
+  'mass' | 'hopMass' | 'volume' | 'volumePerHour' | 'litresPerKg' | 'temperature' | 'pressure';
 
 const MINUTES_PER_DAY = 24 * 60;
 

@@ -37,10 +37,7 @@ export function useLiveStats(form: UseFormReturn<EditorValues, unknown, unknown>
     let timer: ReturnType<typeof setTimeout> | undefined;
     const subscription = watch(() => {
       clearTimeout(timer);
-      timer = setTimeout(
-        () => setLive((previous) => evaluate(getValues('document'), previous)),
-        RECOMPUTE_DELAY_MS,
-      );
+      timer = setTimeout(() => setLive((previous) => evaluate(getValues('document'), previous)), RECOMPUTE_DELAY_MS);
     });
     return () => {
       clearTimeout(timer);

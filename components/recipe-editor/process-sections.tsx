@@ -1,6 +1,6 @@
 'use client';
 
-import { useRef, useState } from 'react';
+import { useRef, useState, type ReactNode } from 'react';
 import { Controller, useFieldArray, useFormContext, useFormState, useWatch } from 'react-hook-form';
 import { describedBy } from '@/components/form-field';
 import { findStyle, styleCategories } from '@/lib/brewing/styles';
@@ -79,7 +79,7 @@ export function StyleField() {
   );
 }
 
-export function BatchSection({ units }: { units: UnitSystem }) {
+export function BatchSection({ units, children }: { units: UnitSystem; children?: ReactNode }) {
   const { errors } = useFormState<EditorValues>({ name: 'document.batch' });
   const detailsHaveError = BREWHOUSE_FIELDS.some((name) => errorMessageAt(errors, `document.batch.${name}`));
   const [open, setOpen] = useState(false);
@@ -111,6 +111,7 @@ export function BatchSection({ units }: { units: UnitSystem }) {
           <NumberField path="document.batch.mashWaterLPerKg" label="Mash thickness" unit={thickness} />
         </div>
       </details>
+      {children}
     </EditorSection>
   );
 }
@@ -220,7 +221,11 @@ function YeastTemperatureNotes({ units }: { units: UnitSystem }) {
   const flags = yeastTemperatureFlags(doc);
   if (flags.length === 0) return null;
   return (
-    <div role="status" className="mt-3 rounded-md border border-caution p-3 font-sans text-sm" id="yeast-temperature-flags">
+    <div
+      role="status"
+      className="mt-3 rounded-md border border-caution p-3 font-sans text-sm"
+      id="yeast-temperature-flags"
+    >
       <p className="font-semibold text-caution">Outside the yeast’s temperature range</p>
       <ul className="mt-1 list-disc pl-5">
         {flags.map((flag) => (

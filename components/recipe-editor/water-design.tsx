@@ -103,9 +103,7 @@ export function SourceWaterPicker() {
       </select>
       <p className="mt-1 font-sans text-xs text-muted">
         {preset?.note ??
-          (isReport
-            ? 'From the water report in your settings.'
-            : 'Type the six ions from a water report below.')}{' '}
+          (isReport ? 'From the water report in your settings.' : 'Type the six ions from a water report below.')}{' '}
         {!report && (
           <>
             Save your own report in <a href="/settings">settings</a> to pick it here.
@@ -338,7 +336,9 @@ export function AcidPanel() {
   const { setValue } = useFormContext<EditorValues>();
   const water = useWatch<EditorValues, 'document.water'>({ name: 'document.water' });
   const fermentables = useWatch<EditorValues, 'document.fermentables'>({ name: 'document.fermentables' });
-  const thickness = useWatch<EditorValues, 'document.batch.mashWaterLPerKg'>({ name: 'document.batch.mashWaterLPerKg' });
+  const thickness = useWatch<EditorValues, 'document.batch.mashWaterLPerKg'>({
+    name: 'document.batch.mashWaterLPerKg',
+  });
   const [kind, setKind] = useState<AcidKind>('lactic_88');
   const [wantedText, setWantedText] = useState('5.4');
   const ids = useId();
