@@ -3,7 +3,7 @@
 import { useQuery } from '@tanstack/react-query';
 import type { RecipeDocument } from '@/lib/brewing/schema';
 
-export const versionKeys = { document: (versionId: string) => ['versions', versionId, 'document'] as const };
+const versionKeys = { document: (versionId: string) => ['versions', versionId, 'document'] as const };
 
 /** One version's document; a version never changes, so it is read once. */
 export function useVersionDocument(versionId: string, enabled: boolean) {

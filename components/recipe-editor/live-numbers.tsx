@@ -1,5 +1,6 @@
 'use client';
 
+import Link from 'next/link';
 import { useEffect, useState } from 'react';
 import type { UseFormReturn } from 'react-hook-form';
 import { StatsPanel } from '@/components/stats-panel';
@@ -137,9 +138,9 @@ function RestForFgTool({ doc, units }: { doc: RecipeDocument; units: UnitSystem 
               ? `Rest at about ${formatC(answer!.tempC, units)} for this FG.`
               : `No rest in ${range} reaches it: the ${answer!.reason === 'too_low' ? 'coolest' : 'hottest'} rest, ${formatC(answer!.closestTempC, units)}, gives about ${answer!.closestFg.toFixed(3)}.`}
       </p>
-      <a href="/guides/designing#rest-temperature" className="font-sans text-xs">
+      <Link href="/guides/designing#rest-temperature" className="font-sans text-xs">
         how is this worked out?<span className="sr-only"> (rest temperature)</span>
-      </a>
+      </Link>
     </section>
   );
 }

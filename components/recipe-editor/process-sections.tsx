@@ -193,7 +193,7 @@ export function FermentationSection({ units }: { units: UnitSystem }) {
 }
 
 /** What a flag says: which step, which yeast, and what it means for the beer. */
-export function yeastFlagSentence(flag: YeastTemperatureFlag, units: UnitSystem): string {
+function yeastFlagSentence(flag: YeastTemperatureFlag, units: UnitSystem): string {
   const at = formatAmount(flag.tempC, 'temperature', units);
   const limit = formatAmount(flag.limitC, 'temperature', units);
   return flag.side === 'below'

@@ -17,7 +17,7 @@ export interface MeasuredEfficiency {
 }
 
 /** Fewer brew days than this and one odd brew would set the efficiency (common practice: average several). */
-export const MEASURED_EFFICIENCY_MIN_BREWS = 2;
+const MEASURED_EFFICIENCY_MIN_BREWS = 2;
 /** The recipe schema's bounds on efficiency: a measured mean outside them is not used. */
 const EFFICIENCY_BOUNDS = { min: 10, max: 100 } as const;
 

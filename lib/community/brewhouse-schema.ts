@@ -21,7 +21,7 @@ function ion(label: string) {
     .max(2000, `${label} must be at most 2000 mg/L`);
 }
 
-export const waterReportSchema = z.object(
+const waterReportSchema = z.object(
   {
     name: z
       .string({ error: 'Give the water a name' })
@@ -51,7 +51,6 @@ export const brewhouseSchema = z.object(
 );
 
 export type BrewhouseInput = z.infer<typeof brewhouseSchema>;
-export type WaterReport = z.infer<typeof waterReportSchema>;
 
 export const EMPTY_BREWHOUSE: BrewhouseInput = {
   boilOffLPerHour: null,

@@ -3,7 +3,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
-import { Controller, useForm, type Control, type FieldPath } from 'react-hook-form';
+import { Controller, useForm, useWatch, type Control, type FieldPath } from 'react-hook-form';
 import { toast } from 'sonner';
 import { FormField, describedBy } from '@/components/form-field';
 import { fieldUnit, plainUnit, type FieldUnit } from '@/components/recipe-editor/field-units';
@@ -83,12 +83,12 @@ function NumberSetting({
 export function BrewhouseSettings({ initial, units }: { initial: BrewhouseInput; units: UnitSystem }) {
   const queryClient = useQueryClient();
   const [formError, setFormError] = useState<string>();
-  const { control, register, handleSubmit, setError, setValue, watch, formState, getValues } = useForm<BrewhouseInput>({
+  const { control, register, handleSubmit, setError, setValue, formState, getValues } = useForm<BrewhouseInput>({
     resolver: zodResolver(brewhouseSchema),
     defaultValues: initial,
   });
   const { errors, isSubmitting } = formState;
-  const report = watch('waterReport');
+  const report = useWatch({ control, name: 'waterReport' });
   const [keptReport, setKeptReport] = useState(initial.waterReport ?? EMPTY_REPORT);
   const thickness = fieldUnit('litresPerKg', units);
 
