@@ -100,7 +100,9 @@ export function FitChanges({ result, units }: { result: BrewhouseFit; units: Uni
               <tbody className="kf-data">
                 {result.changes.map((change, i) => (
                   <tr key={i} className="border-b border-line/60 last:border-0">
-                    <td className="py-1 pr-2 font-sans">{change.what}</td>
+                    <td className="py-1 pr-2 font-sans">
+                      {change.what.charAt(0).toUpperCase() + change.what.slice(1)}
+                    </td>
                     <td className="py-1 pr-2">{amount(change.from, change.unit, units)}</td>
                     <td className="py-1 font-semibold">{amount(change.to, change.unit, units)}</td>
                   </tr>

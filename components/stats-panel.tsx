@@ -91,8 +91,9 @@ function SpundingBlock({ spunding, units }: { spunding: NonNullable<RecipeStats[
       </p>
       {spunding.servingPressureKPa !== null && (
         <p className="kf-data mt-1 text-sm">
-          Sealed and chilled to serving temperature, the same CO₂ reads about{' '}
-          {formatPressure(spunding.servingPressureKPa, units)} on the gauge.
+          {spunding.servingPressureKPa < 1
+            ? 'Sealed and chilled to serving temperature, the cold beer holds all of that CO₂: the gauge reads nothing.'
+            : `Sealed and chilled to serving temperature, the same CO₂ reads about ${formatPressure(spunding.servingPressureKPa, units)} on the gauge.`}
         </p>
       )}
       {spunding.pressureForTargetKPa !== null && (

@@ -187,17 +187,27 @@ describe('fitting a fork to my brewhouse', { timeout: 240_000 }, () => {
       },
     });
     expect(settings.status).toBe(200);
-    const brewhouse = await client.put('/api/me/brewhouse', {
-      boilOffLPerHour: 3,
-      trubLossL: null,
-      grainAbsorptionLPerKg: null,
-      mashWaterLPerKg: 2.8,
-      waterReport: null,
-    });
-    expect(brewhouse.status).toBe(200);
 
-    s = await browserAs(client);
+    // Losses and a water report through the settings page, as a member saves them.
+    s = await browserAs(client, 390);
     const { page } = s;
+    await page.goto('/settings', { waitUntil: 'networkidle' });
+    await page.locator('#brewhouse-boilOffLPerHour').fill('3');
+    await page.locator('#brewhouse-mashWaterLPerKg').fill('0.4');
+    await page.locator('#brewhouse-has-report').check();
+    await page.locator('#brewhouse-report-name').fill('Hillside spring');
+    await page.locator('#brewhouse-waterReport-calcium').fill('6');
+    await page.getByRole('button', { name: 'Save losses and water' }).click();
+    await page.getByText('Mash thickness must be at least 1 L per kg').waitFor();
+    await page.locator('#brewhouse-mashWaterLPerKg').fill('2.8');
+    await page.getByRole('button', { name: 'Save losses and water' }).click();
+    await page.getByText('Brewhouse saved.').waitFor();
+    await s.shot('brewhouse-settings-phone');
+    const saved = await client.get<{ brewhouse: { boilOffLPerHour: number; waterReport: { name: string } } }>(
+      '/api/me/brewhouse',
+    );
+    expect(saved.body.brewhouse).toMatchObject({ boilOffLPerHour: 3, waterReport: { name: 'Hillside spring' } });
+    await page.setViewportSize({ width: 1280, height: 900 });
     await page.goto(`/recipes/${source.recipe.slug}`, { waitUntil: 'networkidle' });
     await page.locator('#fork-fit').check();
     const changes = page.getByTestId('fit-changes');
@@ -215,6 +225,9 @@ describe('fitting a fork to my brewhouse', { timeout: 240_000 }, () => {
     expect(await page.getByText('You are editing from').textContent()).toContain('version 2');
     expect(await page.locator('#kf-document-batch-volumeL').inputValue()).toBe('30');
     expect(await page.locator('#kf-document-batch-efficiencyPct').inputValue()).toBe('65');
+
+    // The saved water report is offered as a source water.
+    expect(await page.getByLabel('Water you start from').textContent()).toContain('My water report: Hillside spring');
 
     // Fitted once, the editor's own fit finds nothing left to change.
     await page.getByRole('button', { name: 'Fit to my brewhouse' }).click();
