@@ -4,6 +4,7 @@ import type { UnitSystem } from '@/lib/brewing/units';
 import { HOP_USE_LABEL, SALT_LABEL, formatAmount } from '@/lib/format';
 import { SrmSwatch } from './srm-swatch';
 import { lovibondToSrm } from '@/lib/brewing/colour';
+import { yeastTemperatureFlags } from '@/lib/brewing/yeast-temperature';
 
 function Table({ caption, head, children }: { caption: string; head: string[]; children: ReactNode }) {
   return (
@@ -41,6 +42,8 @@ export function RecipeDocumentView({
   notes: ReactNode;
 }) {
   const totalKg = doc.fermentables.reduce((n, f) => n + f.amountKg, 0);
+  const flags = yeastTemperatureFlags(doc);
+  const temp = (c: number) => formatAmount(c, 'temperature', units);
   return (
     <div className="space-y-8">
       <p className="font-sans text-sm text-muted">
@@ -105,15 +108,36 @@ export function RecipeDocumentView({
             </tr>
           ))}
         </Table>
-        <Table caption="Fermentation" head={['Step', 'Temperature', 'Days']}>
-          {doc.fermentation.steps.map((s, i) => (
-            <tr key={i} className="border-b border-line/50">
-              <td className={cell}>Step {i + 1}</td>
-              <td className={cell}>{formatAmount(s.tempC, 'temperature', units)}</td>
-              <td className={cell}>{s.days}</td>
-            </tr>
-          ))}
-        </Table>
+        <div>
+          <Table caption="Fermentation" head={['Step', 'Temperature', 'Days']}>
+            {doc.fermentation.steps.map((s, i) => {
+              const stepFlags = flags.filter((flag) => flag.stepIndex === i);
+              return (
+                <tr key={i} className="border-b border-line/50">
+                  <td className={cell}>Step {i + 1}</td>
+                  <td className={cell}>
+                    {temp(s.tempC)}
+                    {stepFlags.map((flag) => (
+                      <span key={flag.yeastName} className="block font-sans text-xs font-semibold text-caution">
+                        <span aria-hidden="true">⚠ </span>
+                        {flag.side} {flag.yeastName}’s {flag.side === 'below' ? 'lowest' : 'highest'}{' '}
+                        {temp(flag.limitC)}
+                      </span>
+                    ))}
+                  </td>
+                  <td className={cell}>{s.days}</td>
+                </tr>
+              );
+            })}
+          </Table>
+          {doc.fermentation.spunding && (
+            <p className="mt-2 font-sans text-sm">
+              Spunded: valve at{' '}
+              {formatAmount(doc.fermentation.spunding.pressureKPa, 'pressure', units, units === 'us' ? 1 : 0)} with the
+              beer at {temp(doc.fermentation.spunding.tempC)}. Use a pressure-rated vessel with a working relief valve.
+            </p>
+          )}
+        </div>
       </div>
       {doc.water && (
         <Table caption={`Water (${formatAmount(doc.water.volumeL, 'volume', units, 1)})`} head={['Addition', 'Amount']}>
@@ -130,6 +154,14 @@ export function RecipeDocumentView({
               <td className={cell}>{s.grams} g</td>
             </tr>
           ))}
+          {doc.water.acid && (
+            <tr className="border-b border-line/50">
+              <td className={cell}>
+                {doc.water.acid.kind === 'lactic_88' ? 'Lactic acid 88 %' : 'Phosphoric acid 10 %'}
+              </td>
+              <td className={cell}>{doc.water.acid.mL} mL</td>
+            </tr>
+          )}
         </Table>
       )}
       {doc.notes.trim() && (

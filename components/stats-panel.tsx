@@ -5,6 +5,7 @@ import type { HopUse, IonName } from '@/lib/brewing/schema';
 import type { RecipeStats } from '@/lib/brewing/stats';
 import { fitStyle, type RangeFit, type StyleFit, type StyleVital } from '@/lib/brewing/styles';
 import { DISPLAY_UNITS, toDisplayUnits, type UnitSystem } from '@/lib/brewing/units';
+import { MASH_PH_TARGET } from '@/lib/brewing/water';
 
 /** Above this keg pressure most homebrew kegs and regulators are near their limits. */
 const HIGH_KEG_PRESSURE_KPA = 200;
@@ -54,6 +55,61 @@ function formatVital(vital: StyleVital, value: number): string {
 function formatTemperature(tempC: number, units: UnitSystem): string {
   const unit = DISPLAY_UNITS[units].temperature;
   return `${fixed(toDisplayUnits(tempC, 'temperature', units), 0)} °${unit}`;
+}
+
+function formatPressure(kPa: number, units: UnitSystem): string {
+  return units === 'us' ? `${fixed(toDisplayUnits(kPa, 'pressure', units), 1)} psi` : `${fixed(kPa, 0)} kPa`;
+}
+
+/** Where the design guide explains a number the engine predicts. */
+function DesignGuide({ anchor, about }: { anchor: 'mash-ph' | 'spunding'; about: string }) {
+  return (
+    <a href={`/guides/designing#${anchor}`} className="font-sans text-xs">
+      how is this predicted?<span className="sr-only"> ({about})</span>
+    </a>
+  );
+}
+
+/** Predicted mash pH against the range pale beers aim for; old versions saved before the prediction have none. */
+function mashPhExtra(ph: number): string {
+  if (ph < MASH_PH_TARGET.min) return `predicted; below the usual ${MASH_PH_TARGET.min}–${MASH_PH_TARGET.max}`;
+  if (ph > MASH_PH_TARGET.max) return `predicted; above the usual ${MASH_PH_TARGET.min}–${MASH_PH_TARGET.max}`;
+  return `predicted, room temperature; within ${MASH_PH_TARGET.min}–${MASH_PH_TARGET.max}`;
+}
+
+function SpundingBlock({ spunding, units }: { spunding: NonNullable<RecipeStats['spunding']>; units: UnitSystem }) {
+  const high = spunding.pressureKPa > HIGH_KEG_PRESSURE_KPA;
+  return (
+    <section className="mt-6" aria-labelledby="spunding-numbers-title">
+      <h3 id="spunding-numbers-title" className="text-base font-semibold">
+        Spunding
+      </h3>
+      <p className="kf-data mt-2 text-sm" data-testid="spunding-volumes">
+        A valve at {formatPressure(spunding.pressureKPa, units)} with the beer at{' '}
+        {formatTemperature(spunding.tempC, units)} leaves about{' '}
+        <strong className="font-semibold">{fixed(spunding.volumesCO2, 2)} volumes CO₂</strong> in the beer.
+      </p>
+      {spunding.servingPressureKPa !== null && (
+        <p className="kf-data mt-1 text-sm">
+          {spunding.servingPressureKPa < 1
+            ? 'Sealed and chilled to serving temperature, the cold beer holds all of that CO₂: the gauge reads nothing.'
+            : `Sealed and chilled to serving temperature, the same CO₂ reads about ${formatPressure(spunding.servingPressureKPa, units)} on the gauge.`}
+        </p>
+      )}
+      {spunding.pressureForTargetKPa !== null && (
+        <p className="kf-data mt-1 text-sm">
+          For the carbonation target, set the valve to about{' '}
+          <strong className="font-semibold">{formatPressure(spunding.pressureForTargetKPa, units)}</strong> at{' '}
+          {formatTemperature(spunding.tempC, units)}.
+        </p>
+      )}
+      <p className={`mt-1 font-sans text-sm ${high ? 'font-semibold text-caution' : 'text-muted'}`}>
+        Caution: seal only a vessel rated for pressure, keep its pressure-relief valve working, and never go past the
+        vessel maker’s rated pressure{high ? '; this setting is higher than many homebrew vessels allow' : ''}.
+      </p>
+      <DesignGuide anchor="spunding" about="spunding" />
+    </section>
+  );
 }
 
 function HowComputed({ anchor, about }: { anchor: GuideAnchor; about: string }) {
@@ -265,6 +321,8 @@ function styleFitFor(stats: RecipeStats, styleCode?: string): StyleFit | null {
 export function StatsPanel({ stats, units, styleCode, compact = false }: StatsPanelProps) {
   if (compact) return <CompactStats stats={stats} />;
   const styleFit = styleFitFor(stats, styleCode);
+  // Versions saved before the engine predicted mash pH carry no mash numbers.
+  const mashPh = (stats.mash as RecipeStats['mash'] | undefined)?.predictedPh ?? null;
   return (
     <div className="@container">
       <dl className="grid grid-cols-2 gap-x-4 gap-y-4 @xl:grid-cols-3">
@@ -304,6 +362,14 @@ export function StatsPanel({ stats, units, styleCode, compact = false }: StatsPa
           link={<HowComputed anchor="colour" about="colour" />}
         />
         <Figure term="Calories" value={fixed(stats.caloriesPer355mL, 0)} extra="kcal per 355 mL (12 US fl oz)" />
+        {mashPh !== null && (
+          <Figure
+            term="Mash pH"
+            value={<span data-testid="predicted-mash-ph">{fixed(mashPh, 2)}</span>}
+            extra={mashPhExtra(mashPh)}
+            link={<DesignGuide anchor="mash-ph" about="mash pH" />}
+          />
+        )}
       </dl>
       <section className="mt-6">
         <h3 className="text-base font-semibold">Bitterness by hop</h3>
@@ -311,6 +377,7 @@ export function StatsPanel({ stats, units, styleCode, compact = false }: StatsPa
       </section>
       {stats.water && <WaterBlock water={stats.water} units={units} />}
       {stats.carbonation && <CarbonationBlock carbonation={stats.carbonation} units={units} />}
+      {stats.spunding && <SpundingBlock spunding={stats.spunding} units={units} />}
       {styleFit && <StyleFitBlock fit={styleFit} />}
     </div>
   );

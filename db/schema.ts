@@ -17,6 +17,7 @@ import {
 } from 'drizzle-orm/pg-core';
 import type { RecipeDocument } from '@/lib/brewing/schema';
 import type { RecipeStats } from '@/lib/brewing/stats';
+import type { BrewhouseInput } from '@/lib/community/brewhouse-schema';
 
 export const userRole = pgEnum('user_role', ['member', 'moderator', 'admin']);
 export const unitSystem = pgEnum('unit_system', ['metric', 'us']);
@@ -40,6 +41,8 @@ export const users = pgTable(
     bio: text('bio').notNull().default(''),
     defaultBatchVolumeL: real('default_batch_volume_l').notNull().default(20),
     defaultEfficiencyPct: real('default_efficiency_pct').notNull().default(72),
+    /** Losses and the member's water report (lib/community/brewhouse-schema.ts); null until first saved. */
+    brewhouse: jsonb('brewhouse').$type<BrewhouseInput>(),
     suspendedAt: timestamp('suspended_at', { withTimezone: true }),
     suspendedReason: text('suspended_reason'),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),

@@ -72,9 +72,16 @@ export function BrewSheet({
   const totalKg = doc.fermentables.reduce((n, f) => n + f.amountKg, 0);
   const volume = (litres: number) => formatAmount(litres, 'volume', units, 1);
   const temp = (c: number) => formatAmount(c, 'temperature', units);
+  // Versions saved before the engine predicted mash pH carry no mash numbers.
+  const predictedPh = (stats.mash as RecipeStats['mash'] | undefined)?.predictedPh ?? null;
+  const spunding = stats.spunding as RecipeStats['spunding'] | undefined;
+  const pressure = (kPa: number) => formatAmount(kPa, 'pressure', units, units === 'us' ? 1 : 0);
   const measured: [string, string][] = [
     ['Strike water temperature', strikeC === null ? '—' : `${temp(strikeC)} (grain at ${temp(GRAIN_TEMP_C)})`],
-    ['Mash pH (room temperature)', '5.2–5.6'],
+    [
+      'Mash pH (room temperature)',
+      predictedPh === null ? '5.2–5.6' : `${predictedPh.toFixed(2)} predicted (aim 5.2–5.6)`,
+    ],
     ['Pre-boil volume', volume(volumes.preBoilVolumeL)],
     ['Pre-boil gravity', formatGravity(preBoilGravity(stats.og, doc.batch))],
     ['Original gravity (OG)', formatGravity(stats.og)],
@@ -257,6 +264,14 @@ export function BrewSheet({
               ))}
             </tbody>
           </table>
+        )}
+        {spunding && (
+          <p className="mt-2">
+            Spund: set the valve to <strong>{pressure(spunding.pressureKPa)}</strong> with the beer at{' '}
+            {temp(spunding.tempC)} (about {spunding.volumesCO2.toFixed(2)} volumes CO₂). Seal only a pressure-rated
+            vessel, keep its pressure-relief valve working and stay under the maker&apos;s rated pressure. Valve set to:{' '}
+            <span className="kf-write-in inline-block min-w-[6rem]">&nbsp;</span>
+          </p>
         )}
         {stats.carbonation && (
           <p className="mt-2">

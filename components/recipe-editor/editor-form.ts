@@ -86,6 +86,11 @@ export function newWater(): NonNullable<RecipeDocumentInput['water']> {
   };
 }
 
+/** Spunding switched on starts at a common setting: about 1 bar (100 kPa, 15 psi) near the end of fermentation (common practice). */
+export function newSpunding(): NonNullable<RecipeDocumentInput['fermentation']['spunding']> {
+  return { pressureKPa: 100, tempC: emptyNumber() };
+}
+
 export function newCarbonation(): NonNullable<RecipeDocumentInput['carbonation']> {
   return { volumesCO2: emptyNumber(), servingTempC: emptyNumber() };
 }
@@ -108,6 +113,9 @@ const PLACEABLE_PATHS: readonly RegExp[] = [
   /^document\.fermentation\.steps\.\d+\.(tempC|days)$/,
   /^document\.water\.(volumeL|source\.(calcium|magnesium|sodium|chloride|sulfate|bicarbonate))$/,
   /^document\.water\.salts\.\d+\.(salt|grams)$/,
+  /^document\.water\.target\.(calcium|magnesium|sodium|chloride|sulfate|bicarbonate)$/,
+  /^document\.water\.acid\.(kind|mL)$/,
+  /^document\.fermentation\.spunding\.(pressureKPa|tempC)$/,
   /^document\.carbonation\.(volumesCO2|servingTempC)$/,
 ];
 

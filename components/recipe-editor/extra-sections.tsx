@@ -3,21 +3,13 @@
 import { useRef } from 'react';
 import { useFieldArray, useFormContext, useWatch } from 'react-hook-form';
 import { describedBy } from '@/components/form-field';
-import { ION_NAMES, type IonName } from '@/lib/brewing/schema';
+import { ION_NAMES } from '@/lib/brewing/schema';
 import { DISPLAY_UNITS, type UnitSystem } from '@/lib/brewing/units';
 import { EditorSection, NumberField, SelectField, fieldId, useErrorAt } from './editor-fields';
 import { emptyNumber, newCarbonation, newWater, type EditorValues } from './editor-form';
 import { fieldUnit, plainUnit } from './field-units';
 import { RowList } from './row-list';
-
-const ION_WORDS: Record<IonName, string> = {
-  calcium: 'Calcium',
-  magnesium: 'Magnesium',
-  sodium: 'Sodium',
-  chloride: 'Chloride',
-  sulfate: 'Sulfate',
-  bicarbonate: 'Bicarbonate',
-};
+import { AcidPanel, ION_WORDS, SaltPlanPanel, SourceWaterPicker, TargetPicker } from './water-design';
 
 const SALT_OPTIONS = [
   ['gypsum', 'Gypsum (calcium sulfate)'],
@@ -79,7 +71,11 @@ function PartCheckbox({
 export function WaterSection({ units }: { units: UnitSystem }) {
   const { on, toggle } = usePartSwitch('document.water', newWater);
   return (
-    <EditorSection id="water" title="Water" description="Optional. The numbers panel shows the ions after your salts.">
+    <EditorSection
+      id="water"
+      title="Water"
+      description="Optional. Pick the water you start from and the water you want; Kettlefork proposes the salts."
+    >
       <PartCheckbox id="kf-water-on" label="Include a water profile" checked={on} onChange={toggle} />
       {on && <WaterFields units={units} />}
     </EditorSection>
@@ -99,6 +95,7 @@ function WaterFields({ units }: { units: UnitSystem }) {
         hint="All the water the salts go into, mash and sparge together."
         className="max-w-xs"
       />
+      <SourceWaterPicker />
       <fieldset>
         <legend className="kf-label">Source water</legend>
         <p className="font-sans text-xs text-muted">
@@ -110,6 +107,8 @@ function WaterFields({ units }: { units: UnitSystem }) {
           ))}
         </div>
       </fieldset>
+      <TargetPicker units={units} />
+      <SaltPlanPanel units={units} />
       <div>
         <h3 className="kf-label">Salts</h3>
         <RowList
@@ -129,6 +128,7 @@ function WaterFields({ units }: { units: UnitSystem }) {
           )}
         />
       </div>
+      <AcidPanel />
     </div>
   );
 }

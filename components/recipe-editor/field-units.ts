@@ -16,7 +16,8 @@ export interface FieldUnit {
   decimals: number;
 }
 
-export type ConvertedQuantity = 'mass' | 'hopMass' | 'volume' | 'volumePerHour' | 'litresPerKg' | 'temperature';
+export type ConvertedQuantity =
+  'mass' | 'hopMass' | 'volume' | 'volumePerHour' | 'litresPerKg' | 'temperature' | 'pressure';
 
 const MINUTES_PER_DAY = 24 * 60;
 
@@ -48,6 +49,8 @@ export function fieldUnit(quantity: ConvertedQuantity, units: UnitSystem): Field
       return converted(metric ? 'L per hour' : 'gal per hour', 'volume', units, 2);
     case 'temperature':
       return converted(metric ? '°C' : '°F', 'temperature', units, 1);
+    case 'pressure':
+      return converted(metric ? 'kPa' : 'psi', 'pressure', units, metric ? 0 : 1);
     case 'litresPerKg':
       return metric
         ? plainUnit('L per kg', 2)
@@ -62,7 +65,7 @@ export function fieldUnit(quantity: ConvertedQuantity, units: UnitSystem): Field
 
 function converted(
   label: string,
-  quantity: 'mass' | 'hopMass' | 'volume' | 'temperature',
+  quantity: 'mass' | 'hopMass' | 'volume' | 'temperature' | 'pressure',
   units: UnitSystem,
   decimals: number,
 ): FieldUnit {

@@ -1,12 +1,15 @@
 'use client';
 
-import { useState } from 'react';
-import { Controller, useFieldArray, useFormContext, useFormState } from 'react-hook-form';
+import { useRef, useState, type ReactNode } from 'react';
+import { Controller, useFieldArray, useFormContext, useFormState, useWatch } from 'react-hook-form';
 import { describedBy } from '@/components/form-field';
 import { findStyle, styleCategories } from '@/lib/brewing/styles';
+import type { RecipeDocument } from '@/lib/brewing/schema';
 import type { UnitSystem } from '@/lib/brewing/units';
+import { yeastTemperatureFlags, type YeastTemperatureFlag } from '@/lib/brewing/yeast-temperature';
+import { formatAmount } from '@/lib/format';
 import { EditorSection, NumberField, TextField, errorMessageAt, fieldId } from './editor-fields';
-import { newFermentationStep, newMashStep, type EditorValues } from './editor-form';
+import { newFermentationStep, newMashStep, newSpunding, type EditorValues } from './editor-form';
 import { fieldUnit, plainUnit } from './field-units';
 import { RowList } from './row-list';
 
@@ -76,7 +79,7 @@ export function StyleField() {
   );
 }
 
-export function BatchSection({ units }: { units: UnitSystem }) {
+export function BatchSection({ units, children }: { units: UnitSystem; children?: ReactNode }) {
   const { errors } = useFormState<EditorValues>({ name: 'document.batch' });
   const detailsHaveError = BREWHOUSE_FIELDS.some((name) => errorMessageAt(errors, `document.batch.${name}`));
   const [open, setOpen] = useState(false);
@@ -108,6 +111,7 @@ export function BatchSection({ units }: { units: UnitSystem }) {
           <NumberField path="document.batch.mashWaterLPerKg" label="Mash thickness" unit={thickness} />
         </div>
       </details>
+      {children}
     </EditorSection>
   );
 }
@@ -182,6 +186,103 @@ export function FermentationSection({ units }: { units: UnitSystem }) {
           </div>
         )}
       />
+      <YeastTemperatureNotes units={units} />
+      <SpundingFields units={units} />
     </EditorSection>
+  );
+}
+
+/** What a flag says: which step, which yeast, and what it means for the beer. */
+function yeastFlagSentence(flag: YeastTemperatureFlag, units: UnitSystem): string {
+  const at = formatAmount(flag.tempC, 'temperature', units);
+  const limit = formatAmount(flag.limitC, 'temperature', units);
+  return flag.side === 'below'
+    ? `Step ${flag.stepIndex + 1} at ${at} is below ${flag.yeastName}’s lowest ${limit}: it may ferment slowly or stall.`
+    : `Step ${flag.stepIndex + 1} at ${at} is above ${flag.yeastName}’s highest ${limit}: expect more fruity esters and harsh fusel alcohols.`;
+}
+
+function isNumber(value: unknown): value is number {
+  return typeof value === 'number' && Number.isFinite(value);
+}
+
+function YeastTemperatureNotes({ units }: { units: UnitSystem }) {
+  const yeasts = useWatch<EditorValues, 'document.yeasts'>({ name: 'document.yeasts' }) ?? [];
+  const steps = useWatch<EditorValues, 'document.fermentation.steps'>({ name: 'document.fermentation.steps' }) ?? [];
+  const doc: Pick<RecipeDocument, 'yeasts' | 'fermentation'> = {
+    yeasts: yeasts.map((yeast) => ({
+      ...yeast,
+      name: yeast.name?.trim() || 'the yeast',
+      tempMinC: isNumber(yeast.tempMinC) ? yeast.tempMinC : undefined,
+      tempMaxC: isNumber(yeast.tempMaxC) ? yeast.tempMaxC : undefined,
+    })),
+    // A step still being typed keeps its place, so the step numbers stay right; it cannot be flagged yet.
+    fermentation: { steps: steps.map((step) => ({ tempC: isNumber(step.tempC) ? step.tempC : Number.NaN, days: 1 })) },
+  };
+  const flags = yeastTemperatureFlags(doc);
+  if (flags.length === 0) return null;
+  return (
+    <div
+      role="status"
+      className="mt-3 rounded-md border border-caution p-3 font-sans text-sm"
+      id="yeast-temperature-flags"
+    >
+      <p className="font-semibold text-caution">Outside the yeast’s temperature range</p>
+      <ul className="mt-1 list-disc pl-5">
+        {flags.map((flag) => (
+          <li key={`${flag.stepIndex}-${flag.yeastName}`}>{yeastFlagSentence(flag, units)}</li>
+        ))}
+      </ul>
+    </div>
+  );
+}
+
+function SpundingFields({ units }: { units: UnitSystem }) {
+  const { setValue, getValues } = useFormContext<EditorValues>();
+  const spunding = useWatch<EditorValues, 'document.fermentation.spunding'>({ name: 'document.fermentation.spunding' });
+  const kept = useRef(spunding);
+  const on = spunding !== undefined;
+  const toggle = (wanted: boolean) => {
+    if (!wanted) kept.current = getValues('document.fermentation.spunding');
+    setValue('document.fermentation.spunding', wanted ? (kept.current ?? newSpunding()) : undefined, {
+      shouldDirty: true,
+    });
+  };
+  return (
+    <div className="mt-4 rounded-md border border-line p-3">
+      <div className="flex items-center gap-2">
+        <input
+          id="kf-spunding-on"
+          type="checkbox"
+          className="h-5 w-5 accent-copper"
+          checked={on}
+          onChange={(event) => toggle(event.target.checked)}
+        />
+        <label htmlFor="kf-spunding-on" className="font-sans text-sm font-semibold">
+          Spund: cap the fermenter with a pressure-relief valve near the end of fermentation
+        </label>
+      </div>
+      {on && (
+        <>
+          <div className="mt-3 grid grid-cols-2 gap-3">
+            <NumberField
+              path="document.fermentation.spunding.pressureKPa"
+              label="Valve setting"
+              unit={fieldUnit('pressure', units)}
+              hint="Gauge pressure."
+            />
+            <NumberField
+              path="document.fermentation.spunding.tempC"
+              label="Beer temperature"
+              unit={fieldUnit('temperature', units)}
+            />
+          </div>
+          <p className="mt-2 font-sans text-xs text-caution">
+            Caution: only a vessel rated for pressure may be sealed. Keep the valve below the vessel maker’s rated
+            pressure, fit a working pressure-relief valve, and never exceed the maker’s limit. The numbers panel shows
+            the carbonation this setting gives.
+          </p>
+        </>
+      )}
+    </div>
   );
 }

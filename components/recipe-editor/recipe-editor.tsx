@@ -23,6 +23,7 @@ import {
   type ServerFieldIssue,
 } from './editor-form';
 import { CarbonationSection, NotesSection, WaterSection } from './extra-sections';
+import { FitToBrewhouse } from './fit-section';
 import { FermentablesSection, HopsSection, YeastsSection } from './ingredient-sections';
 import { LiveNumbers, NumbersBar, useLiveStats } from './live-numbers';
 import { BatchSection, FermentationSection, MashSection, StyleField } from './process-sections';
@@ -269,7 +270,9 @@ export function RecipeEditor({
                 <StyleField />
               </div>
             </EditorSection>
-            <BatchSection units={units} />
+            <BatchSection units={units}>
+              <FitToBrewhouse doc={live.document} current={live.current} units={units} />
+            </BatchSection>
             <FermentablesSection units={units} />
             <HopsSection units={units} />
             <YeastsSection units={units} />

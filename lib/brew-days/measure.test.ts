@@ -84,4 +84,29 @@ describe('measured against predicted', () => {
         .kegPressureAboveTypicalRating,
     ).toBe(false);
   });
+
+  // A measured mash pH lies beside the engine's prediction (Troester 2009 model, see lib/brewing/mash-ph.ts).
+  it('lays the measured mash pH beside the predicted one, and leaves it unpredicted for stats saved before', () => {
+    const doc = examplePaleAle();
+    const stats = computeStats(doc);
+    const day = {
+      preBoilGravity: null,
+      preBoilVolumeL: null,
+      postBoilVolumeL: null,
+      fermenterVolumeL: null,
+      strikeTempC: null,
+      mashTempC: null,
+      mashPh: 5.3,
+      pitchTempC: null,
+      og: null,
+      fg: null,
+      kegPressureKPa: null,
+    };
+    const row = compareWithPrediction(day, doc, stats).comparisons.find((c) => c.key === 'mashPh')!;
+    expect(row.predicted).toBe(stats.mash.predictedPh);
+    expect(row.difference).toBeCloseTo(5.3 - stats.mash.predictedPh!, 9);
+    const { mash: _dropped, ...older } = stats;
+    const oldRow = compareWithPrediction(day, doc, older as typeof stats).comparisons.find((c) => c.key === 'mashPh')!;
+    expect(oldRow.predicted).toBeNull();
+  });
 });

@@ -120,10 +120,12 @@ export function compareWithPrediction(day: BrewDayMeasures, doc: RecipeDocument,
     day.og !== null ? measuredEfficiencyPct(doc.fermentables, day.og, fermenterVolume(day, doc)) : null;
   const beer = day.og !== null && day.fg !== null ? measuredBeer(day.og, day.fg) : null;
   const predictedKeg = stats.carbonation?.kegPressureKPa ?? null;
+  // Versions saved before the engine predicted mash pH carry no mash numbers.
+  const predictedPh = (stats.mash as RecipeStats['mash'] | undefined)?.predictedPh ?? null;
   return {
     comparisons: [
       row('mashTempC', 'Mash temperature', 'temperature', day.mashTempC, mainSaccharificationTempC(doc.mash.steps)),
-      row('mashPh', 'Mash pH', 'ph', day.mashPh, null),
+      row('mashPh', 'Mash pH', 'ph', day.mashPh, predictedPh),
       row('preBoilVolumeL', 'Pre-boil volume', 'volume', day.preBoilVolumeL, preBoilVolumeL(doc.batch)),
       row('preBoilGravity', 'Pre-boil gravity', 'gravity', day.preBoilGravity, preBoilGravity(stats.og, doc.batch)),
       row('postBoilVolumeL', 'Post-boil volume', 'volume', day.postBoilVolumeL, postBoilVolumeL(doc.batch)),

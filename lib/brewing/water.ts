@@ -89,6 +89,11 @@ export interface SaltPlan {
 /** An ion counts as reached within 5 mg/L or 5 % of its target, whichever is larger (common practice for a salt plan). */
 const PLAN_TOLERANCE = { mgPerL: 5, share: 0.05 } as const;
 
+/** Whether an ion is off its target by more than a salt plan allows. */
+export function ionOffTarget(valueMgPerL: number, targetMgPerL: number): boolean {
+  return Math.abs(valueMgPerL - targetMgPerL) > Math.max(PLAN_TOLERANCE.mgPerL, PLAN_TOLERANCE.share * targetMgPerL);
+}
+
 /** The last plan and what it was for: 6 source ions, 6 target ions, the volume. */
 const lastPlanInput = new Float64Array(13).fill(Number.NaN);
 let lastPlan: SaltPlan | null = null;
@@ -133,9 +138,8 @@ function solvePlan(source: WaterProfile, target: WaterProfile, volumeL: number):
   const rmsErrorMgPerL = Math.sqrt(sumOfSquares(ION_NAMES.map((ion) => water[ion] - target[ion])) / ION_NAMES.length);
   const misses: SaltPlan['misses'] = [];
   for (const ion of ION_NAMES) {
-    const off = water[ion] - target[ion];
-    if (Math.abs(off) > Math.max(PLAN_TOLERANCE.mgPerL, PLAN_TOLERANCE.share * target[ion])) {
-      misses.push({ ion, offMgPerL: off, fromSource: source[ion] > target[ion] });
+    if (ionOffTarget(water[ion], target[ion])) {
+      misses.push({ ion, offMgPerL: water[ion] - target[ion], fromSource: source[ion] > target[ion] });
     }
   }
   return { salts, water, rmsErrorMgPerL, misses };

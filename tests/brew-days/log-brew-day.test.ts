@@ -50,7 +50,7 @@ describe('logging a brew day', () => {
     expect(row.fg!).toBeGreaterThan(0.99);
 
     const view = await client.get<{
-      version: { number: number; stats: { og: number; fg: number } };
+      version: { number: number; stats: { og: number; fg: number; mash: { predictedPh: number | null } } };
       outcome: {
         efficiencyPct: number;
         abv: number;
@@ -63,6 +63,11 @@ describe('logging a brew day', () => {
     const og = view.body.outcome.comparisons.find((c) => c.key === 'og')!;
     expect(og.predicted).toBeCloseTo(view.body.version.stats.og, 6);
     expect(og.difference).toBeCloseTo(og.measured! - og.predicted!, 9);
+    // The measured mash pH lies beside the version's predicted one (Troester 2009 model, lib/brewing/mash-ph.ts).
+    const ph = view.body.outcome.comparisons.find((c) => c.key === 'mashPh')!;
+    expect(ph.predicted).not.toBeNull();
+    expect(ph.predicted).toBeCloseTo(view.body.version.stats.mash.predictedPh!, 9);
+    expect(ph.difference).toBeCloseTo(5.4 - ph.predicted!, 9);
     const doc = paleAle() as unknown as RecipeDocument;
     // Efficiency from measured OG and volume into the fermenter (common practice), via the engine.
     expect(view.body.outcome.efficiencyPct).toBeCloseTo(measuredEfficiencyPct(doc.fermentables, row.og!, 20), 6);

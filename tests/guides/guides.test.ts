@@ -18,7 +18,16 @@ function sections(html: string): { heading: string; id?: string; body: string }[
 
 describe('guides', () => {
   it('has every guide the product links to', () => {
-    expect(slugs.sort()).toEqual(['carbonation', 'dry-hopping', 'fermentation', 'hops', 'numbers', 'safety', 'water']);
+    expect(slugs.sort()).toEqual([
+      'carbonation',
+      'designing',
+      'dry-hopping',
+      'fermentation',
+      'hops',
+      'numbers',
+      'safety',
+      'water',
+    ]);
   });
 
   it('lists them on the index', async () => {
@@ -44,6 +53,15 @@ describe('guides', () => {
     const html = await (await new TestClient().fetch('/guides/numbers')).text();
     const byId = new Map(sections(html).map((s) => [s.id, s]));
     for (const anchor of ['og', 'fg', 'abv', 'ibu', 'colour', 'water', 'carbonation', 'style-fit']) {
+      expect(byId.get(anchor), anchor).toBeDefined();
+      expect(byId.get(anchor)!.body, anchor).toMatch(/Source:/);
+    }
+  });
+
+  it('has the anchors the design tools link to, each with its source', async () => {
+    const html = await (await new TestClient().fetch('/guides/designing')).text();
+    const byId = new Map(sections(html).map((s) => [s.id, s]));
+    for (const anchor of ['water-targets', 'mash-ph', 'rest-temperature', 'spunding', 'fit']) {
       expect(byId.get(anchor), anchor).toBeDefined();
       expect(byId.get(anchor)!.body, anchor).toMatch(/Source:/);
     }

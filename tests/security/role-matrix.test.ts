@@ -326,6 +326,19 @@ const ROWS: Record<string, Row> = {
     }),
     expect: signedIn(200),
   },
+  'PUT /api/me/brewhouse': {
+    prepare: async () => ({
+      path: '/api/me/brewhouse',
+      body: {
+        boilOffLPerHour: 3.5,
+        trubLossL: null,
+        grainAbsorptionLPerKg: 0.9,
+        mashWaterLPerKg: null,
+        waterReport: null,
+      },
+    }),
+    expect: signedIn(200),
+  },
   'POST /api/proposals': {
     prepare: async (w) => {
       const source = await createRecipeVia((await signedInClient()).client);

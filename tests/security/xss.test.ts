@@ -126,6 +126,23 @@ describe('user text cannot run script', () => {
       settings('<img src=x onerror=kfXss()>"><script>kfXss()</script>'),
     );
     expect(named.status).toBe(200);
+    // The name of a water report, shown in settings and the recipe editor.
+    const watered = await commenter.put('/api/me/brewhouse', {
+      boilOffLPerHour: null,
+      trubLossL: null,
+      grainAbsorptionLPerKg: null,
+      mashWaterLPerKg: null,
+      waterReport: {
+        name: '<img src=x onerror=kfXss()>"><script>kfXss()</script>',
+        calcium: 0,
+        magnesium: 0,
+        sodium: 0,
+        chloride: 0,
+        sulfate: 0,
+        bicarbonate: 0,
+      },
+    });
+    expect(watered.status).toBe(200);
 
     // Recipe notes and titles.
     const recipe = await createRecipeVia(owner, {
@@ -207,6 +224,7 @@ describe('user text cannot run script', () => {
         path: `/members/${commenterUser.handle}`,
       },
       { name: 'notifications', client: owner, path: '/notifications' },
+      { name: 'settings with a water report name', client: commenter, path: '/settings' },
       { name: 'feed', client: follower, path: '/feed' },
       { name: 'moderation queue with report notes', client: moderator, path: '/admin/moderation' },
       { name: 'owner’s member page', client: owner, path: `/members/${ownerUser.handle}` },

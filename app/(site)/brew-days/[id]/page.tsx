@@ -61,7 +61,10 @@ function shown(value: number | null, c: Comparison, units: UnitSystem, signed = 
 
 function ComparisonTable({ view, units }: { view: BrewDayView; units: UnitSystem }) {
   const rows = view.outcome.comparisons.filter(
-    (c) => c.measured !== null || ['og', 'fg', 'efficiencyPct', 'abv'].includes(c.key),
+    (c) =>
+      c.measured !== null ||
+      ['og', 'fg', 'efficiencyPct', 'abv'].includes(c.key) ||
+      (c.key === 'mashPh' && c.predicted !== null),
   );
   return (
     <table className="w-full font-sans text-sm">

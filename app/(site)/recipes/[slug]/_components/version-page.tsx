@@ -151,6 +151,7 @@ export async function VersionPage({
               versionId={version.id}
               defaultTitle={`${version.document.title} (my take)`}
               number={version.number}
+              units={units}
             />
           )}
           {!viewer && (

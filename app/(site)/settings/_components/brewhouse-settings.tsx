@@ -1,0 +1,207 @@
+'use client';
+
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useQueryClient } from '@tanstack/react-query';
+import { useState } from 'react';
+import { Controller, useForm, useWatch, type Control, type FieldPath } from 'react-hook-form';
+import { toast } from 'sonner';
+import { FormField, describedBy } from '@/components/form-field';
+import { fieldUnit, plainUnit, type FieldUnit } from '@/components/recipe-editor/field-units';
+import { UnitNumberInput } from '@/components/recipe-editor/unit-number-input';
+import { brewhouseKeys } from '@/hooks/use-brewhouse';
+import { ION_NAMES } from '@/lib/brewing/constants';
+import type { IonName } from '@/lib/brewing/schema';
+import { DISPLAY_UNITS, type UnitSystem } from '@/lib/brewing/units';
+import { brewhouseSchema, type BrewhouseInput } from '@/lib/community/brewhouse-schema';
+import { requestJson } from '@/lib/http/client';
+
+const ION_WORDS: Record<IonName, string> = {
+  calcium: 'Calcium',
+  magnesium: 'Magnesium',
+  sodium: 'Sodium',
+  chloride: 'Chloride',
+  sulfate: 'Sulfate',
+  bicarbonate: 'Bicarbonate',
+};
+
+const EMPTY_REPORT: NonNullable<BrewhouseInput['waterReport']> = {
+  name: '',
+  calcium: 0,
+  magnesium: 0,
+  sodium: 0,
+  chloride: 0,
+  sulfate: 0,
+  bicarbonate: 0,
+};
+
+type Path = FieldPath<BrewhouseInput>;
+
+function NumberSetting({
+  control,
+  path,
+  label,
+  unit,
+  hint,
+  error,
+}: {
+  control: Control<BrewhouseInput>;
+  path: Path;
+  label: string;
+  unit: FieldUnit;
+  hint?: string;
+  error?: string;
+}) {
+  const id = `brewhouse-${path.replace(/\./g, '-')}`;
+  return (
+    <FormField id={id} label={`${label} (${unit.label})`} error={error} hint={hint}>
+      <Controller
+        control={control}
+        name={path}
+        render={({ field }) => (
+          <UnitNumberInput
+            id={id}
+            name={field.name}
+            value={field.value as number | null}
+            onChange={field.onChange}
+            onBlur={field.onBlur}
+            inputRef={field.ref}
+            unit={unit}
+            invalid={Boolean(error)}
+            describedBy={describedBy(id, error, hint)}
+          />
+        )}
+      />
+    </FormField>
+  );
+}
+
+/**
+ * Losses and a water report, kept apart from the profile form: "Fit to my
+ * brewhouse" takes the losses, and the recipe editor offers the water report
+ * as a source water.
+ */
+export function BrewhouseSettings({ initial, units }: { initial: BrewhouseInput; units: UnitSystem }) {
+  const queryClient = useQueryClient();
+  const [formError, setFormError] = useState<string>();
+  const { control, register, handleSubmit, setError, setValue, formState, getValues } = useForm<BrewhouseInput>({
+    resolver: zodResolver(brewhouseSchema),
+    defaultValues: initial,
+  });
+  const { errors, isSubmitting } = formState;
+  const report = useWatch({ control, name: 'waterReport' });
+  const [keptReport, setKeptReport] = useState(initial.waterReport ?? EMPTY_REPORT);
+  const thickness = fieldUnit('litresPerKg', units);
+
+  const onSubmit = handleSubmit(async (values) => {
+    setFormError(undefined);
+    const result = await requestJson<{ brewhouse: BrewhouseInput }>('/api/me/brewhouse', 'PUT', values);
+    if (!result.ok) {
+      for (const field of result.fields) setError(field.path as Path, { message: field.message });
+      setFormError(result.message);
+      return;
+    }
+    toast.success('Brewhouse saved.');
+    await queryClient.invalidateQueries({ queryKey: brewhouseKeys.all });
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="mt-6" aria-labelledby="brewhouse-title">
+      <fieldset className="kf-card">
+        <legend id="brewhouse-title" className="px-1 text-lg font-semibold">
+          Losses and water
+        </legend>
+        <p className="font-sans text-sm text-muted">
+          “Fit to my brewhouse” uses these with your batch volume and efficiency. Leave a loss empty to keep the
+          recipe’s own.
+        </p>
+        <div className="grid gap-x-4 sm:grid-cols-2">
+          <NumberSetting
+            control={control}
+            path="boilOffLPerHour"
+            label="Boil-off rate"
+            unit={fieldUnit('volumePerHour', units)}
+            error={errors.boilOffLPerHour?.message}
+          />
+          <NumberSetting
+            control={control}
+            path="trubLossL"
+            label="Kettle trub loss"
+            unit={fieldUnit('volume', units)}
+            error={errors.trubLossL?.message}
+          />
+          <NumberSetting
+            control={control}
+            path="grainAbsorptionLPerKg"
+            label="Grain absorption"
+            unit={thickness}
+            error={errors.grainAbsorptionLPerKg?.message}
+          />
+          <NumberSetting
+            control={control}
+            path="mashWaterLPerKg"
+            label="Mash thickness"
+            unit={thickness}
+            error={errors.mashWaterLPerKg?.message}
+          />
+        </div>
+        <div className="mt-6 flex items-center gap-2">
+          <input
+            id="brewhouse-has-report"
+            type="checkbox"
+            className="h-5 w-5 accent-copper"
+            checked={report !== null}
+            onChange={(event) => {
+              if (!event.target.checked) setKeptReport(getValues('waterReport') ?? EMPTY_REPORT);
+              setValue('waterReport', event.target.checked ? keptReport : null, { shouldDirty: true });
+            }}
+          />
+          <label htmlFor="brewhouse-has-report" className="font-sans text-sm font-semibold">
+            I have a report of my water
+          </label>
+        </div>
+        {report !== null && (
+          <div className="mt-2">
+            <FormField
+              id="brewhouse-report-name"
+              label="Name of this water"
+              error={errors.waterReport?.name?.message}
+              hint="Shown in the recipe editor as a source water."
+            >
+              <input
+                id="brewhouse-report-name"
+                className="kf-input"
+                aria-invalid={Boolean(errors.waterReport?.name)}
+                aria-describedby={describedBy(
+                  'brewhouse-report-name',
+                  errors.waterReport?.name?.message,
+                  'Shown in the recipe editor as a source water.',
+                )}
+                {...register('waterReport.name')}
+              />
+            </FormField>
+            <div className="grid grid-cols-2 gap-x-4 sm:grid-cols-3">
+              {ION_NAMES.map((ion) => (
+                <NumberSetting
+                  key={ion}
+                  control={control}
+                  path={`waterReport.${ion}`}
+                  label={ION_WORDS[ion]}
+                  unit={plainUnit(DISPLAY_UNITS[units].concentration, 1)}
+                  error={errors.waterReport?.[ion]?.message}
+                />
+              ))}
+            </div>
+          </div>
+        )}
+        {formError && (
+          <p role="alert" className="kf-field-error mt-4">
+            {formError}
+          </p>
+        )}
+        <button type="submit" className="kf-btn mt-4" disabled={isSubmitting}>
+          {isSubmitting ? 'Saving…' : 'Save losses and water'}
+        </button>
+      </fieldset>
+    </form>
+  );
+}

@@ -1,0 +1,44 @@
+'use client';
+
+import { useQuery } from '@tanstack/react-query';
+import { fitTargetFor, type FitTarget } from '@/lib/brewing/fit-target';
+import type { MemberBrewhouse } from '@/lib/community/brewhouse-schema';
+
+export const brewhouseKeys = { all: ['me', 'brewhouse'] as const, averages: ['me', 'brew-averages'] as const };
+
+interface BrewAverages {
+  efficiency: { meanPct: number; count: number } | null;
+}
+
+async function getJson<T>(url: string, what: string): Promise<T> {
+  const res = await fetch(url, { cache: 'no-store' });
+  if (res.status === 401) throw new Error(`Sign in to use your ${what}.`);
+  if (!res.ok) throw new Error(`Your ${what} could not be loaded. Try again in a moment.`);
+  return (await res.json()) as T;
+}
+
+/** The signed-in member's brewhouse: batch volume, efficiency, losses and water report from settings. */
+export function useBrewhouse(enabled = true) {
+  return useQuery({
+    queryKey: brewhouseKeys.all,
+    enabled,
+    queryFn: async () => (await getJson<{ brewhouse: MemberBrewhouse }>('/api/me/brewhouse', 'settings')).brewhouse,
+  });
+}
+
+/** What "Fit to my brewhouse" fits to: settings, with measured efficiency from two brew days or more. */
+export function useFitTarget(enabled: boolean) {
+  const brewhouse = useBrewhouse(enabled);
+  const averages = useQuery({
+    queryKey: brewhouseKeys.averages,
+    enabled,
+    queryFn: () => getJson<BrewAverages>('/api/me/brew-averages', 'brew-day averages'),
+  });
+  const fit: FitTarget | undefined =
+    brewhouse.data && averages.data ? fitTargetFor(brewhouse.data, averages.data.efficiency) : undefined;
+  return {
+    fit,
+    isLoading: brewhouse.isLoading || averages.isLoading,
+    error: brewhouse.error ?? averages.error,
+  };
+}
