@@ -1,4 +1,5 @@
 import type { RecipeDocument } from '@/lib/brewing';
+import { describeMergePath } from './merge-words';
 
 /**
  * A field-level three-way merge of two recipe documents that share an ancestor: `base` (the
@@ -197,6 +198,10 @@ function mergeOptional<T extends object>(
   return mergeValue(ctx, path, base, ours, theirs);
 }
 
+/** `{ [key]: value }`, or nothing when the value is absent (an optional field stays left out). */
+const present = <K extends string, V>(key: K, value: V | undefined) =>
+  (value === undefined ? {} : { [key]: value }) as Partial<Record<K, V>>;
+
 const nameKey = (item: { name: string }) => item.name.trim().toLowerCase();
 const hopKey = (hop: { name: string; use: string }) => `${nameKey(hop)}|${hop.use}`;
 
@@ -231,6 +236,8 @@ function mergeWith(base: RecipeDocument, ours: RecipeDocument, theirs: RecipeDoc
     volumeL: mergeValue(ctx, 'water.volumeL', b.volumeL, o.volumeL, t.volumeL)!,
     source: mergeFields(ctx, 'water.source', b.source, o.source, t.source),
     salts: mergeKeyedList(ctx, 'water.salts', b.salts, o.salts, t.salts, (s) => s.salt),
+    ...present('target', mergeValue(ctx, 'water.target', b.target, o.target, t.target)),
+    ...present('acid', mergeValue(ctx, 'water.acid', b.acid, o.acid, t.acid)),
   }));
   const carbonation = mergeOptional(
     ctx,
@@ -261,51 +268,25 @@ export function resolveMerge(result: MergeResult, picks: Readonly<Record<string,
   const issues: MergePickIssue[] = [];
   for (const [path, side] of Object.entries(picks)) {
     if (!open.has(path))
-      issues.push({ path, message: `“${path}” is not a conflict in this merge; there is nothing to choose there.` });
+      issues.push({
+        path,
+        message: `“${describeMergePath(path)}” is not a conflict in this merge; there is nothing to choose there.`,
+      });
     else if (side !== 'ours' && side !== 'theirs')
-      issues.push({ path, message: `Choose “ours” or “theirs” for ${path}.` });
+      issues.push({ path, message: `Choose “ours” or “theirs” for ${describeMergePath(path)}.` });
   }
   for (const path of open)
-    if (!(path in picks)) issues.push({ path, message: `Choose which side to keep for ${path}.` });
+    if (!(path in picks)) issues.push({ path, message: `Choose which side to keep for ${describeMergePath(path)}.` });
   if (issues.length) throw new MergePickError(issues);
   const { base, ours, theirs } = result.inputs;
   const resolved = mergeWith(base, ours, theirs, picks as Picks);
   // Every conflict had a pick, so none is left open (a pick can only settle, never raise one).
   if (resolved.conflicts.length)
     throw new MergePickError(
-      resolved.conflicts.map((c) => ({ path: c.path, message: `Choose which side to keep for ${c.path}.` })),
+      resolved.conflicts.map((c) => ({
+        path: c.path,
+        message: `Choose which side to keep for ${describeMergePath(c.path, c)}.`,
+      })),
     );
   return resolved.merged;
-}
-
-const SECTION_WORDS: Record<string, string> = {
-  batch: 'Batch',
-  fermentables: 'Fermentable',
-  hops: 'Hop',
-  yeasts: 'Yeast',
-  'mash.steps': 'Mash step',
-  'fermentation.steps': 'Fermentation step',
-  'water.salts': 'Water salt',
-  'water.source': 'Source water',
-  water: 'Water',
-  carbonation: 'Carbonation',
-  notes: 'Notes',
-  style: 'Style',
-};
-
-function keyWords(key: string): string {
-  if (/^\d+$/.test(key)) return String(Number(key) + 1);
-  const [main, nth] = key.split('~');
-  const [name, use] = main.split('|');
-  return `${name}${use ? ` (${use.replaceAll('_', ' ')})` : ''}${nth ? `, the ${nth}. one` : ''}`.replaceAll('_', ' ');
-}
-
-/** A path as a brewer reads it: `hops[cascade|boil].amountG` → `Hop cascade (boil) · amountG`. */
-export function describeMergePath(path: string): string {
-  const m = /^([a-z.]+?)(?:\[(.+)\])?(?:\.(\w+))?$/i.exec(path);
-  if (!m) return path;
-  const [, section, key, field] = m;
-  const word = SECTION_WORDS[section] ?? section;
-  const label = key === undefined ? word : `${word} ${keyWords(key)}`;
-  return field ? `${label} · ${field}` : label;
 }

@@ -18,6 +18,7 @@ import {
   type MaybeViewer,
 } from './loading';
 import { mergeDocuments, type MergeConflict } from './merge';
+import { describeConflict, describeMergePath, type ConflictView } from './merge-words';
 
 // What the proposal pages and lists read: the proposal page's whole view, the lists by recipe and
 // by member, and the recipes a fork may propose to.
@@ -150,7 +151,11 @@ export interface ProposalView {
   compareFrom: { id: string; number: number };
   comparison: DocumentComparison | null;
   conflicts: MergeConflict[];
+  /** The conflicts labelled and in the viewer's units, for screens. */
+  conflictViews: ConflictView[];
   fromTheirs: string[];
+  /** The fields taken from the proposal without asking, in words. */
+  fromTheirsWords: string[];
   brewDays: BrewDaySummary[];
   comments: ProposalCommentView[];
   /** Later versions of the fork the proposer may move the proposal to. */
@@ -161,7 +166,11 @@ export interface ProposalView {
 }
 
 /** Everything the proposal page shows, if the viewer may see the proposal (404 otherwise). */
-export async function getProposalView(viewer: MaybeViewer, id: string): Promise<ProposalView> {
+export async function getProposalView(
+  viewer: (NonNullable<MaybeViewer> & Pick<Viewer, 'units'>) | null,
+  id: string,
+): Promise<ProposalView> {
+  const units = viewer?.units ?? 'metric';
   const { proposal, source, fork } = await loadProposal(db, viewer, id);
   const [people, headDoc, baseDoc, proposedDoc] = await Promise.all([
     db
@@ -190,7 +199,7 @@ export async function getProposalView(viewer: MaybeViewer, id: string): Promise<
     comparison = compareDocuments(
       compareFrom.document,
       { ...proposedDoc.document, title: compareFrom.document.title },
-      { units: (viewer as { units?: 'metric' | 'us' } | null)?.units ?? 'metric' },
+      { units },
     );
     if (live && headMoved)
       ({ conflicts, fromTheirs } = mergeDocuments(baseDoc.document, headDoc.document, proposedDoc.document));
@@ -265,7 +274,9 @@ export async function getProposalView(viewer: MaybeViewer, id: string): Promise<
     compareFrom: { id: compareFrom.id, number: compareFrom.number },
     comparison,
     conflicts,
+    conflictViews: conflicts.map((c) => describeConflict(c, units)),
     fromTheirs,
+    fromTheirsWords: fromTheirs.map((path) => describeMergePath(path)),
     brewDays,
     comments: commentRows.map((c) => ({
       id: c.id,

@@ -82,7 +82,7 @@ describe('historyLine', () => {
     const text = line((d) => {
       d.batch.boilOffLPerHour = 5;
       d.carbonation = { volumesCO2: 2.6, servingTempC: 4 };
-      d.water!.salts[0].grams = 8;
+      d.water!.salts![0].grams = 8;
     }, 'us');
     expect(text).not.toMatch(/\b[a-z]+[A-Z][a-zA-Z]*\b/);
   });
