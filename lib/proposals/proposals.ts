@@ -1,4 +1,3 @@
 // Proposals: the commands that change them and the views that read them.
 export * from './commands';
 export * from './views';
-export type { Ancestor } from './loading';

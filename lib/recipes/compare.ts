@@ -770,6 +770,21 @@ export function compareDocuments(a: RecipeDocument, b: RecipeDocument, options: 
   };
 }
 
+/**
+ * The item-by-item differences alone, without the numbers (no engine runs): for screens that list
+ * what changed, such as the editor's panel when a newer version was saved meanwhile.
+ */
+export function compareItems(
+  a: RecipeDocument,
+  b: RecipeDocument,
+  units: UnitSystem,
+): Pick<DocumentComparison, 'sections' | 'notesChanged'> {
+  return {
+    sections: diffDocuments(a, b, units).sections,
+    notesChanged: (a.notes ?? '').trim() !== (b.notes ?? '').trim(),
+  };
+}
+
 /** Every change in one list, in section order: the lines the history and the conflict panel show. */
 export function changeLines(comparison: Pick<DocumentComparison, 'sections'>): ItemComparison[] {
   return comparison.sections.flatMap((s) => s.items.filter((i) => i.status !== 'same'));
