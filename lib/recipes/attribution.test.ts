@@ -17,14 +17,14 @@ const sentences = (change: (d: RecipeDocumentInput) => void, units: UnitSystem) 
 };
 
 const newAddition = (d: RecipeDocumentInput) => {
-  d.hops.push({ name: 'Amarillo', amountG: 28, alphaPct: 9, use: 'boil', timeMin: 10, form: 'pellet' });
+  d.hops.push({ name: 'Chinook', amountG: 28, alphaPct: 9, use: 'boil', timeMin: 10, form: 'pellet' });
 };
 
 describe('effectSentence', () => {
   it('credits a single change by name: the new 10-minute addition moved IBU', () => {
     for (const units of ['metric', 'us'] as const) {
       const ibu = sentences(newAddition, units).find((s) => s.includes(' IBU '));
-      expect(ibu).toMatch(/^Accepting this changes IBU by \+\d+: the new 10-minute Amarillo addition$/);
+      expect(ibu).toMatch(/^Accepting this changes IBU by \+\d+: the new 10-minute Chinook addition$/);
     }
   });
 
@@ -46,7 +46,7 @@ describe('effectSentence', () => {
       newAddition(d);
     }, 'metric');
     expect(both.find((s) => s.includes(' IBU '))).toMatch(
-      /^Accepting this changes IBU by \+\d+: \+\d+ from the new 10-minute Amarillo addition, −\d+ from 0\.4 kg more Pale ale malt, 2-row/,
+      /^Accepting this changes IBU by \+\d+: \+\d+ from the new 10-minute Chinook addition, −\d+ from 0\.4 kg more Pale ale malt, 2-row/,
     );
     expect(both.some((s) => s.startsWith('Accepting this changes colour (EBC) by +'))).toBe(true);
   });

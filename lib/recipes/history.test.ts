@@ -35,10 +35,10 @@ describe('historyLine', () => {
 
   it('says a new hop addition moved IBU, with its amount in ounces for US members', () => {
     const added = (d: RecipeDocumentInput) => {
-      d.hops.push({ name: 'Amarillo', amountG: 28, alphaPct: 9, use: 'boil', timeMin: 10, form: 'pellet' });
+      d.hops.push({ name: 'Chinook', amountG: 28, alphaPct: 9, use: 'boil', timeMin: 10, form: 'pellet' });
     };
-    expect(line(added, 'us')).toMatch(/^Added Amarillo \(boil, 10 min\), 0\.99 oz → IBU \+\d+/);
-    expect(line(added, 'metric')).toMatch(/^Added Amarillo \(boil, 10 min\), 28 g → IBU \+\d+/);
+    expect(line(added, 'us')).toMatch(/^Added Chinook \(boil, 10 min\), 0\.99 oz → IBU \+\d+/);
+    expect(line(added, 'metric')).toMatch(/^Added Chinook \(boil, 10 min\), 28 g → IBU \+\d+/);
   });
 
   it('lists each change with its own numbers, the ones that moved a number first', () => {
