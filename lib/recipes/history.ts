@@ -36,12 +36,16 @@ export function historyLine(
     return { text: moves.length ? `${item.short} → ${moves.join(', ')}` : item.short, moves: moves.length };
   });
   // What the named changes do not account for: the changes acting together, or many small ones.
-  const rest = attribution.filter((a) => headline(units).includes(a.stat)).flatMap((a) => {
-    const shown = a.parts.filter((p) => Math.abs(p.delta) >= epsilonOf(a.stat, units)).reduce((n, p) => n + p.delta, 0);
-    const left = a.delta - shown;
-    if (Math.abs(left) < epsilonOf(a.stat, units)) return [];
-    return [`${a.label} ${STAT_SPECS.find((s) => s.key === a.stat)!.delta(left, units)}`];
-  });
+  const rest = attribution
+    .filter((a) => headline(units).includes(a.stat))
+    .flatMap((a) => {
+      const shown = a.parts
+        .filter((p) => Math.abs(p.delta) >= epsilonOf(a.stat, units))
+        .reduce((n, p) => n + p.delta, 0);
+      const left = a.delta - shown;
+      if (Math.abs(left) < epsilonOf(a.stat, units)) return [];
+      return [`${a.label} ${STAT_SPECS.find((s) => s.key === a.stat)!.delta(left, units)}`];
+    });
   // Changes that moved a number come first; the order within each group is the recipe's.
   const ordered = [...segments.filter((s) => s.moves), ...segments.filter((s) => !s.moves)];
   const named = ordered.slice(0, MAX_SEGMENTS).map((s) => s.text);
