@@ -30,7 +30,7 @@ describe('historyLine', () => {
       line((d) => {
         d.yeasts[0] = KVEIK;
       }),
-    ).toMatch(/^Yeast: Clean ale yeast → Kveik → FG −0\.\d{3}/);
+    ).toMatch(/^Yeast: Clean ale yeast → Kveik — FG −0\.\d{3}/);
   });
 
   it('says a new hop addition moved IBU, with its amount in ounces for US members', () => {

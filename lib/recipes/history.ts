@@ -33,7 +33,9 @@ export function historyLine(
     });
     const main = all.filter((m) => headline(units).includes(m.stat));
     const moves = (main.length ? main : all.slice(0, MAX_OTHER)).map((m) => m.text);
-    return { text: moves.length ? `${item.short} → ${moves.join(', ')}` : item.short, moves: moves.length };
+    // A swap already reads "A → B"; its numbers follow a dash so the arrow is not read as a second swap.
+    const lead = item.short.includes('→') ? ' — ' : ' → ';
+    return { text: moves.length ? `${item.short}${lead}${moves.join(', ')}` : item.short, moves: moves.length };
   });
   // What the named changes do not account for: the changes acting together, or many small ones.
   const rest = attribution

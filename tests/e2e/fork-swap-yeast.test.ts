@@ -57,7 +57,7 @@ describe('fork a pale ale and swap the yeast, read in brewers’ words', { timeo
       await s.shot(`fork-swap-yeast-compare-${units}`);
 
       await s.page.goto(new URL(forkVersion).pathname.replace(/\/v\/2$/, '/history'));
-      await s.page.getByText(/Yeast: Clean ale yeast → Kveik, farmhouse → FG −0\.\d{3}/).waitFor();
+      await s.page.getByText(/Yeast: Clean ale yeast → Kveik, farmhouse — FG −0\.\d{3}/).waitFor();
       const history = await s.page.locator('body').innerText();
       expect(documentKeys(history)).toEqual([]);
       await s.shot(`fork-swap-yeast-history-${units}`);
