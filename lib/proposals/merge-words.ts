@@ -179,3 +179,16 @@ export function describeConflict(conflict: MergeConflict, units: UnitSystem): Co
     theirs: show(conflict.theirs),
   };
 }
+
+/**
+ * A field taken from the proposal without asking, e.g. "Mash step 1 · Temperature 66 °C → 68 °C",
+ * "Yeast Kveik (added)", "Yeast Clean ale yeast (removed)".
+ */
+export function describeTaken(taken: Omit<MergeConflict, 'ours'>, units: UnitSystem): string {
+  const label = describeMergePath(taken.path, { ...taken, ours: undefined });
+  if (taken.base === undefined) return `${label} (added)`;
+  if (taken.theirs === undefined) return `${label} (removed)`;
+  if (typeof taken.base === 'object' || typeof taken.theirs === 'object' || taken.path === 'notes') return label;
+  const view = describeConflict({ ...taken, ours: taken.base }, units);
+  return `${label} ${view.base} → ${view.theirs}`;
+}

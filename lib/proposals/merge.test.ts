@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { recipeDocumentSchema, type RecipeDocument } from '@/lib/brewing';
 import { examplePaleAle } from '@/lib/brewing/test-fixtures';
 import { MergePickError, mergeDocuments, resolveMerge } from './merge';
-import { describeConflict, describeMergePath } from './merge-words';
+import { describeConflict, describeMergePath, describeTaken } from './merge-words';
 
 /** Three copies of the example pale ale: the common ancestor, the source's head and the proposal. */
 function three(change: { ours?: (d: RecipeDocument) => void; theirs?: (d: RecipeDocument) => void } = {}) {
@@ -313,5 +313,23 @@ describe('describeConflict', () => {
     expect(shown.ours).toBe('not in the recipe');
     expect(shown.theirs).toMatch(/^Munich malt: Amount 1\.32 lb · Colour 10 °L/);
     for (const text of Object.values(shown).slice(1)) expect(text).not.toMatch(/\b[a-z]+[A-Z][a-zA-Z]*\b/);
+  });
+});
+
+describe('describeTaken', () => {
+  it('says what was taken from the proposal without asking, in the member’s units', () => {
+    const mash = { path: 'mash.steps[0].tempC', base: 66, theirs: 68 };
+    expect(describeTaken(mash, 'metric')).toBe('Mash step 1 · Temperature 66 °C → 68 °C');
+    expect(describeTaken(mash, 'us')).toBe('Mash step 1 · Temperature 151 °F → 154 °F');
+    const kveik = { name: 'Kveik', kind: 'kveik', attenuationPct: 80, tempMinC: 25, tempMaxC: 37 };
+    expect(describeTaken({ path: 'yeasts[kveik]', base: undefined, theirs: kveik }, 'metric')).toBe(
+      'Yeast Kveik (added)',
+    );
+    expect(
+      describeTaken(
+        { path: 'yeasts[clean ale yeast]', base: { ...kveik, name: 'Clean ale yeast' }, theirs: undefined },
+        'us',
+      ),
+    ).toBe('Yeast Clean ale yeast (removed)');
   });
 });

@@ -35,6 +35,8 @@ export interface MergeResult {
   conflicts: MergeConflict[];
   /** Paths where the proposal's change was taken without asking. */
   fromTheirs: string[];
+  /** The same, with the value before and the proposal's value, for showing them. */
+  taken: Omit<MergeConflict, 'ours'>[];
   /** The three documents, kept so picks can be applied later. */
   inputs: { base: RecipeDocument; ours: RecipeDocument; theirs: RecipeDocument };
 }
@@ -59,6 +61,7 @@ interface Ctx {
   picks: Picks;
   conflicts: MergeConflict[];
   fromTheirs: string[];
+  taken: Omit<MergeConflict, 'ours'>[];
 }
 
 function same(a: unknown, b: unknown): boolean {
@@ -90,6 +93,7 @@ function mergeValue<T>(
   if (same(ours, theirs)) return ours;
   if (same(base, ours)) {
     ctx.fromTheirs.push(path);
+    ctx.taken.push({ path, base, theirs });
     return theirs;
   }
   if (same(base, theirs)) return ours;
@@ -206,7 +210,7 @@ const nameKey = (item: { name: string }) => item.name.trim().toLowerCase();
 const hopKey = (hop: { name: string; use: string }) => `${nameKey(hop)}|${hop.use}`;
 
 function mergeWith(base: RecipeDocument, ours: RecipeDocument, theirs: RecipeDocument, picks: Picks): MergeResult {
-  const ctx: Ctx = { picks, conflicts: [], fromTheirs: [] };
+  const ctx: Ctx = { picks, conflicts: [], fromTheirs: [], taken: [] };
   const merged: RecipeDocument = {
     title: ours.title,
     batch: mergeFields(ctx, 'batch', base.batch, ours.batch, theirs.batch),
@@ -251,7 +255,13 @@ function mergeWith(base: RecipeDocument, ours: RecipeDocument, theirs: RecipeDoc
   if (water) merged.water = water;
   if (carbonation) merged.carbonation = carbonation;
   if (style) merged.style = style;
-  return { merged, conflicts: ctx.conflicts, fromTheirs: ctx.fromTheirs, inputs: { base, ours, theirs } };
+  return {
+    merged,
+    conflicts: ctx.conflicts,
+    fromTheirs: ctx.fromTheirs,
+    taken: ctx.taken,
+    inputs: { base, ours, theirs },
+  };
 }
 
 /** Merges the proposal (`theirs`) into the source's head (`ours`) over their common ancestor (`base`). */

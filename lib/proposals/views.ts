@@ -18,7 +18,7 @@ import {
   type MaybeViewer,
 } from './loading';
 import { mergeDocuments, type MergeConflict } from './merge';
-import { describeConflict, describeMergePath, type ConflictView } from './merge-words';
+import { describeConflict, describeTaken, type ConflictView } from './merge-words';
 
 // What the proposal pages and lists read: the proposal page's whole view, the lists by recipe and
 // by member, and the recipes a fork may propose to.
@@ -192,6 +192,7 @@ export async function getProposalView(
   let comparison: DocumentComparison | null = null;
   let conflicts: MergeConflict[] = [];
   let fromTheirs: string[] = [];
+  let taken: ReturnType<typeof mergeDocuments>['taken'] = [];
   // An open proposal is read against the source as it is now; a closed one as what it offered.
   const compareFrom = live ? headDoc : baseDoc;
   if (forkVisible) {
@@ -202,7 +203,7 @@ export async function getProposalView(
       { units },
     );
     if (live && headMoved)
-      ({ conflicts, fromTheirs } = mergeDocuments(baseDoc.document, headDoc.document, proposedDoc.document));
+      ({ conflicts, fromTheirs, taken } = mergeDocuments(baseDoc.document, headDoc.document, proposedDoc.document));
   }
   const [commentRows, brewDays, newer, accepted] = await Promise.all([
     db
@@ -276,7 +277,7 @@ export async function getProposalView(
     conflicts,
     conflictViews: conflicts.map((c) => describeConflict(c, units)),
     fromTheirs,
-    fromTheirsWords: fromTheirs.map((path) => describeMergePath(path)),
+    fromTheirsWords: taken.map((t) => describeTaken(t, units)),
     brewDays,
     comments: commentRows.map((c) => ({
       id: c.id,
