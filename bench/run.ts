@@ -7,6 +7,7 @@ type Bench = { name: string; load: () => Promise<() => Promise<BenchRow[]>> };
 
 const benches: Bench[] = [
   { name: 'engine', load: async () => (await import('./engine')).benchEngine },
+  { name: 'compare', load: async () => (await import('./compare')).benchCompare },
   { name: 'search', load: async () => (await import('./search')).benchSearch },
   { name: 'uploads', load: async () => (await import('./uploads')).benchUploads },
   { name: 'recipes', load: async () => (await import('./recipes')).benchRecipes },

@@ -66,14 +66,13 @@ function StatRow({ row }: { row: StatDelta }) {
 }
 
 /** Why the numbers moved: each changed number with the changes that moved it. */
-function AttributionList({ attribution, lead }: { attribution: StatAttribution[]; lead?: string }) {
+function AttributionList({ attribution, effects }: { attribution: StatAttribution[]; effects?: string[] }) {
   if (!attribution.length) return <p className="mt-3 font-sans text-sm text-muted">No number changed.</p>;
   return (
     <div className="mt-3">
-      {lead && <p className="font-sans text-sm">{lead}</p>}
       <ul className="mt-1 list-disc space-y-1 pl-5 font-sans text-sm">
-        {attribution.map((a) => (
-          <li key={a.stat}>{a.sentence}</li>
+        {attribution.map((a, i) => (
+          <li key={a.stat}>{effects?.[i] ?? a.sentence}</li>
         ))}
       </ul>
     </div>
@@ -93,11 +92,14 @@ export function CompareView({
   b,
   comparison,
   showUnchanged,
+  effects,
 }: {
   a: CompareSide;
   b: CompareSide;
   comparison: DocumentComparison;
   showUnchanged: boolean;
+  /** One sentence per attribution, in its order, when the page words them itself (a proposal's "Accepting this changes …"). */
+  effects?: string[];
 }) {
   const sides = [a, b];
   return (
@@ -148,7 +150,7 @@ export function CompareView({
         {comparison.identical ? (
           <p className="mt-3 font-sans text-sm text-muted">The two versions are identical.</p>
         ) : (
-          <AttributionList attribution={comparison.attribution} />
+          <AttributionList attribution={comparison.attribution} effects={effects} />
         )}
       </section>
       <section aria-labelledby="ingredients-heading">

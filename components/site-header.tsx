@@ -13,7 +13,7 @@ export function SiteHeader() {
         </Link>
         <nav aria-label="Main" className="flex flex-1 flex-wrap items-center gap-4 font-sans text-sm">
           <Link href="/search">Find recipes</Link>
-          <Link href="/recipes">Recent</Link>
+          <Link href="/recipes">Newest recipes</Link>
           <Link href="/guides">Guides</Link>
           <Link href="/about">About</Link>
         </nav>

@@ -7,10 +7,12 @@ import type { SeedContext } from './seed/context';
 import { DEMO_PASSWORD, demoPeople } from './seed/people';
 import { seedProposals } from './seed/proposals';
 import { demoForks, demoRecipes } from './seed/recipes';
+import { dateDemoWorld, planVersionDates } from './seed/timeline';
 import { hashPassword } from '@/lib/auth/password';
 import type { Viewer } from '@/lib/auth/session';
 import { recipeDocumentSchema, type RecipeDocumentInput } from '@/lib/brewing';
 import { createRecipe, forkRecipe, getVersionByNumber, saveVersion } from '@/lib/recipes/versions';
+import { processSearchOutbox } from '@/lib/search/sync';
 
 // Idempotent: running it again leaves an existing demo world as it is.
 async function seedPeople(): Promise<Map<string, Viewer>> {
@@ -93,10 +95,12 @@ const people = await seedPeople();
 const recipeIds = await seedRecipes(people);
 if (recipeIds) {
   // The rest of the demo world is added once, together with the recipes it belongs to.
-  const context: SeedContext = { people, recipes: recipeIds };
+  const context: SeedContext = { people, recipes: recipeIds, versionDates: planVersionDates(demoRecipes, demoForks) };
   await seedCommunity(context);
   await seedBrewDays(context);
   await seedProposals(context);
+  await dateDemoWorld(context, context.versionDates);
+  await processSearchOutbox().catch((err: Error) => console.warn(`seed: search index not updated yet: ${err.message}`));
 }
 const [{ members }] = (await db.execute(sql`select count(*)::int as members from users`)).rows as { members: number }[];
 const recipeCount = await db.$count(recipes);

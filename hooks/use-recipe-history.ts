@@ -15,6 +15,8 @@ export interface HistoryItem {
   abv: number;
   ibu: number;
   srm: number;
+  /** What moved against the version before, e.g. "Mashed 1 °C cooler → FG −0.001"; null for the first. */
+  moved: string | null;
 }
 
 const recipeHistoryKeys = {

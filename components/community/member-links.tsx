@@ -7,7 +7,7 @@ import { NotificationBell } from './notification-bell';
 export function MemberLinks({ role }: { role: 'member' | 'moderator' | 'admin' }) {
   return (
     <>
-      <Link href="/feed">Feed</Link>
+      <Link href="/feed">From brewers you follow</Link>
       {role !== 'member' && <Link href="/admin/moderation">Moderation</Link>}
       <Link href="/settings">Settings</Link>
       <NotificationBell />

@@ -5,17 +5,7 @@ import { useRouter } from 'next/navigation';
 import { useId, useState } from 'react';
 import { toast } from 'sonner';
 import { sendJson } from '@/lib/http/client';
-import { describeMergePath, type MergeConflict } from '@/lib/proposals/merge';
-
-function showValue(value: unknown): string {
-  if (value === undefined || value === null) return 'not there';
-  if (typeof value === 'object') {
-    return Object.entries(value as Record<string, unknown>)
-      .map(([k, v]) => `${k} ${typeof v === 'object' ? JSON.stringify(v) : String(v)}`)
-      .join(' · ');
-  }
-  return String(value) === '' ? '(empty)' : String(value);
-}
+import type { ConflictView } from '@/lib/proposals/merge-words';
 
 function ErrorLine({ error }: { error?: string }) {
   if (!error) return null;
@@ -36,7 +26,7 @@ export function AcceptForm({
   proposalId: string;
   headVersionId: string;
   headNumber: number;
-  conflicts: MergeConflict[];
+  conflicts: ConflictView[];
 }) {
   const id = useId();
   const router = useRouter();
@@ -77,8 +67,8 @@ export function AcceptForm({
           </p>
           {conflicts.map((c, i) => (
             <fieldset key={c.path} className="rounded-md border border-line p-3 font-sans text-sm">
-              <legend className="px-1 font-semibold">{describeMergePath(c.path)}</legend>
-              <p className="text-xs text-muted">When forked: {showValue(c.base)}</p>
+              <legend className="px-1 font-semibold">{c.label}</legend>
+              <p className="text-xs text-muted">When forked: {c.base}</p>
               <label className="mt-2 flex items-start gap-2">
                 <input
                   type="radio"
@@ -88,7 +78,7 @@ export function AcceptForm({
                   onChange={() => setPicks({ ...picks, [c.path]: 'ours' })}
                 />
                 <span>
-                  Keep yours: <span className="kf-data whitespace-pre-wrap">{showValue(c.ours)}</span>
+                  Keep yours: <span className="kf-data whitespace-pre-wrap">{c.ours}</span>
                 </span>
               </label>
               <label className="mt-1 flex items-start gap-2">
@@ -100,7 +90,7 @@ export function AcceptForm({
                   onChange={() => setPicks({ ...picks, [c.path]: 'theirs' })}
                 />
                 <span>
-                  Take the proposal’s: <span className="kf-data whitespace-pre-wrap">{showValue(c.theirs)}</span>
+                  Take the proposal’s: <span className="kf-data whitespace-pre-wrap">{c.theirs}</span>
                 </span>
               </label>
             </fieldset>

@@ -5,60 +5,7 @@ import { useEffect, useRef } from 'react';
 import type { RecipeDocumentInput } from '@/lib/brewing/schema';
 import type { UnitSystem } from '@/lib/brewing/units';
 import type { HeadVersion } from './save-recipe';
-import { compareVersions, hasChanges, type ItemChange, type ValueChange } from './version-changes';
-
-const CHANGE_WORDS = { added: 'Added', removed: 'Removed', changed: 'Changed' } as const;
-
-function ValueChangeText({ change }: { change: ValueChange }) {
-  return (
-    <>
-      {change.label}: {change.from} <span aria-hidden="true">→</span>
-      <span className="sr-only"> to </span> {change.to}
-    </>
-  );
-}
-
-function ItemList({ title, items }: { title: string; items: ItemChange[] }) {
-  if (items.length === 0) return null;
-  return (
-    <div>
-      <h4 className="font-sans text-sm font-semibold">{title}</h4>
-      <ul className="ml-5 list-disc font-sans text-sm">
-        {items.map((item, index) => (
-          <li key={index}>
-            <span className="font-semibold">{CHANGE_WORDS[item.change]}:</span> {item.name}
-            {item.fields.length > 0 && (
-              <ul className="ml-5 list-[circle]">
-                {item.fields.map((field) => (
-                  <li key={field.label}>
-                    <ValueChangeText change={field} />
-                  </li>
-                ))}
-              </ul>
-            )}
-          </li>
-        ))}
-      </ul>
-    </div>
-  );
-}
-
-function ValueList({ title, changes }: { title: string; changes: (ValueChange | null)[] }) {
-  const shown = changes.filter((change) => change !== null);
-  if (shown.length === 0) return null;
-  return (
-    <div>
-      <h4 className="font-sans text-sm font-semibold">{title}</h4>
-      <ul className="ml-5 list-disc font-sans text-sm">
-        {shown.map((change) => (
-          <li key={change.label}>
-            <ValueChangeText change={change} />
-          </li>
-        ))}
-      </ul>
-    </div>
-  );
-}
+import { compareVersions, hasChanges } from './version-changes';
 
 function whenSaved(createdAt: string): string {
   const date = new Date(createdAt);
@@ -93,10 +40,6 @@ export function ConflictPanel({
     baseVersionNumber === undefined
       ? 'the version you started from'
       : `version ${baseVersionNumber}, the one you started from`;
-  const notes: string[] = [];
-  if (changes.waterChanged) notes.push('Water changed.');
-  if (changes.carbonationChanged) notes.push('Carbonation changed.');
-  if (changes.notesChanged) notes.push('Notes changed.');
 
   return (
     <section aria-labelledby="kf-conflict-title" className="rounded-lg border-2 border-caution bg-card p-5">
@@ -113,14 +56,17 @@ export function ConflictPanel({
       </h3>
       {hasChanges(changes) ? (
         <div className="mt-2 space-y-3">
-          <ValueList title="Recipe" changes={[changes.title, changes.style]} />
-          <ItemList title="Fermentables" items={changes.fermentables} />
-          <ItemList title="Hops" items={changes.hops} />
-          <ItemList title="Yeast" items={changes.yeasts} />
-          <ValueList title="Batch" changes={changes.batch} />
-          <ValueList title="Mash" changes={changes.mash} />
-          <ValueList title="Fermentation" changes={changes.fermentation} />
-          {notes.length > 0 && <p className="font-sans text-sm">{notes.join(' ')}</p>}
+          {changes.groups.map((group) => (
+            <div key={group.title}>
+              <h4 className="font-sans text-sm font-semibold">{group.title}</h4>
+              <ul className="ml-5 list-disc font-sans text-sm">
+                {group.lines.map((line, i) => (
+                  <li key={i}>{line}</li>
+                ))}
+              </ul>
+            </div>
+          ))}
+          {changes.notesChanged && <p className="font-sans text-sm">The notes changed too.</p>}
         </div>
       ) : (
         <p className="mt-2 font-sans text-sm">Nothing in the recipe itself; only the version message differs.</p>

@@ -6,6 +6,7 @@ import { createBrewDaySchema, readingSchema, tastingSchema } from '@/lib/brew-da
 import { srmToHex } from '@/lib/brewing';
 import { getRecipe, getVersionByNumber } from '@/lib/recipes/versions';
 import type { SeedContext } from './context';
+import { dayAfter } from './timeline';
 
 // The demo club's brew days: a few per popular recipe, with readings, tastings and a photo or two
 // drawn here (a glass of beer in the recipe's colour), never downloaded.
@@ -14,7 +15,8 @@ interface DemoBrew {
   recipe: string;
   version?: number;
   brewer: string;
-  brewedOn: string;
+  /** Days after the brewed version was saved. */
+  daysAfterVersion: number;
   /** Measured OG and FG as differences from the prediction, in gravity points. */
   ogOffset: number;
   fgOffset: number;
@@ -29,7 +31,7 @@ const demoBrews: DemoBrew[] = [
   {
     recipe: 'millrace-pale',
     brewer: 'wren',
-    brewedOn: '2025-03-08',
+    daysAfterVersion: 12,
     ogOffset: -3,
     fgOffset: 1,
     fermentC: 19,
@@ -48,7 +50,7 @@ const demoBrews: DemoBrew[] = [
   {
     recipe: 'millrace-pale',
     brewer: 'dov',
-    brewedOn: '2025-04-19',
+    daysAfterVersion: 75,
     ogOffset: 2,
     fgOffset: 0,
     fermentC: 18,
@@ -60,7 +62,7 @@ const demoBrews: DemoBrew[] = [
   {
     recipe: 'orchard-ipa',
     brewer: 'kofi',
-    brewedOn: '2025-02-15',
+    daysAfterVersion: 20,
     ogOffset: -5,
     fgOffset: 2,
     fermentC: 20,
@@ -72,7 +74,7 @@ const demoBrews: DemoBrew[] = [
   {
     recipe: 'orchard-ipa',
     brewer: 'ilse',
-    brewedOn: '2025-05-03',
+    daysAfterVersion: 120,
     ogOffset: 1,
     fgOffset: -1,
     fermentC: 19,
@@ -84,7 +86,7 @@ const demoBrews: DemoBrew[] = [
   {
     recipe: 'lantern-stout',
     brewer: 'tamsin',
-    brewedOn: '2025-01-11',
+    daysAfterVersion: 45,
     ogOffset: -2,
     fgOffset: 2,
     fermentC: 18,
@@ -99,7 +101,7 @@ const demoBrews: DemoBrew[] = [
   {
     recipe: 'garage-kveik',
     brewer: 'bastian',
-    brewedOn: '2025-06-21',
+    daysAfterVersion: 100,
     ogOffset: 0,
     fgOffset: -1,
     fermentC: 34,
@@ -111,7 +113,7 @@ const demoBrews: DemoBrew[] = [
   {
     recipe: 'weir-pils',
     brewer: 'agnieszka',
-    brewedOn: '2025-02-01',
+    daysAfterVersion: 150,
     ogOffset: -1,
     fgOffset: 1,
     fermentC: 10,
@@ -183,14 +185,17 @@ export async function seedBrewDays(ctx: SeedContext): Promise<void> {
     const brewer = member(brew.brewer);
     const recipe = await getRecipe(brewer, { id: recipeId });
     const { version } = await getVersionByNumber(brewer, recipe.id, brew.version ?? recipe.headNumber);
+    const savedAt = ctx.versionDates.get(brew.recipe)?.[version.number - 1];
+    if (!savedAt) throw new Error(`no date planned for ${brew.recipe} version ${version.number}`);
+    const brewedOn = dayAfter(savedAt, brew.daysAfterVersion);
     const og = Math.round((version.stats.og + brew.ogOffset / 1000) * 1000) / 1000;
     const fg = Math.round((version.stats.fg + brew.fgOffset / 1000) * 1000) / 1000;
-    const packagedOn = addDays(brew.brewedOn, 16);
+    const packagedOn = addDays(brewedOn, 16);
     const { id } = await createBrewDay(
       brewer,
       createBrewDaySchema.parse({
         versionId: version.id,
-        brewedOn: brew.brewedOn,
+        brewedOn,
         strikeTempC: 73 + (index % 3),
         mashTempC: 66 + (index % 2) * 0.5,
         mashPh: 5.3 + (index % 3) * 0.05,
@@ -214,7 +219,7 @@ export async function seedBrewDays(ctx: SeedContext): Promise<void> {
         brewer,
         id,
         readingSchema.parse({
-          takenOn: addDays(brew.brewedOn, day),
+          takenOn: addDays(brewedOn, day),
           method: 'hydrometer',
           value: Math.round(gravity * 1000) / 1000,
           beerTempC: brew.fermentC + (day < 4 ? 1 : 0),

@@ -29,6 +29,8 @@ function libraryUnit(unit: UnitName): string {
 
 /** Converts between two units of the same kind; throws on a mass-to-volume mix-up. */
 export function convertUnit(value: number, from: UnitName, to: UnitName): number {
+  // Metric readers see stored values as they are; the library's unit lookup is the costly part.
+  if (libraryUnit(from) === libraryUnit(to)) return value;
   return convert(value).from(libraryUnit(from)).to(libraryUnit(to));
 }
 

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { recipeDocumentSchema, type RecipeDocument } from '@/lib/brewing';
 import { examplePaleAle } from '@/lib/brewing/test-fixtures';
-import { describeMergePath, MergePickError, mergeDocuments, resolveMerge } from './merge';
+import { MergePickError, mergeDocuments, resolveMerge } from './merge';
+import { describeConflict, describeMergePath, describeTaken } from './merge-words';
 
 /** Three copies of the example pale ale: the common ancestor, the source's head and the proposal. */
 function three(change: { ours?: (d: RecipeDocument) => void; theirs?: (d: RecipeDocument) => void } = {}) {
@@ -265,10 +266,70 @@ describe('resolveMerge', () => {
 });
 
 describe('describeMergePath', () => {
-  it('reads paths in brewing words', () => {
-    expect(describeMergePath('hops[cascade|dry_hop].amountG')).toBe('Hop cascade (dry hop) · amountG');
-    expect(describeMergePath('mash.steps[0].tempC')).toBe('Mash step 1 · tempC');
+  it('reads paths in brewing words, with the labels compare uses and no document key', () => {
+    expect(describeMergePath('hops[cascade|dry_hop].amountG')).toBe('Hop Cascade (dry hop) · Amount');
+    expect(describeMergePath('mash.steps[0].tempC')).toBe('Mash step 1 · Temperature');
     expect(describeMergePath('notes')).toBe('Notes');
-    expect(describeMergePath('batch.volumeL')).toBe('Batch · volumeL');
+    expect(describeMergePath('batch.volumeL')).toBe('Batch volume');
+    expect(describeMergePath('water.source.calcium')).toBe('Source water · Calcium');
+    expect(describeMergePath('water.salts[calcium_chloride].grams')).toBe('Water salt Calcium chloride · Amount');
+  });
+});
+
+describe('describeConflict', () => {
+  const hop = { path: 'hops[cascade|boil].amountG', base: 25, ours: 28.35, theirs: 40 };
+
+  it('labels a conflicting hop amount with the hop’s own name, in grams for metric members', () => {
+    expect(describeConflict(hop, 'metric')).toEqual({
+      path: hop.path,
+      label: 'Hop Cascade (boil) · Amount',
+      base: '25 g',
+      ours: '28 g',
+      theirs: '40 g',
+    });
+  });
+
+  it('shows the same conflict in ounces for US members', () => {
+    expect(describeConflict(hop, 'us')).toMatchObject({ base: '0.88 oz', ours: '1 oz', theirs: '1.41 oz' });
+  });
+
+  it('shows temperatures and whole items in the member’s units, and an absent item as such', () => {
+    const mash = { path: 'mash.steps[0].tempC', base: 66, ours: 65, theirs: 68 };
+    expect(describeConflict(mash, 'us')).toMatchObject({
+      label: 'Mash step 1 · Temperature',
+      base: '151 °F',
+      ours: '149 °F',
+      theirs: '154 °F',
+    });
+    expect(describeConflict(mash, 'metric')).toMatchObject({ base: '66 °C', ours: '65 °C', theirs: '68 °C' });
+    const munich = {
+      path: 'fermentables[munich malt]',
+      base: { name: 'Munich malt', amountKg: 0.4, potentialPpg: 35, colorLovibond: 10, kind: 'grain' },
+      ours: undefined,
+      theirs: { name: 'Munich malt', amountKg: 0.6, potentialPpg: 35, colorLovibond: 10, kind: 'grain' },
+    };
+    const shown = describeConflict(munich, 'us');
+    expect(shown.label).toBe('Fermentable Munich malt');
+    expect(shown.ours).toBe('not in the recipe');
+    expect(shown.theirs).toMatch(/^Munich malt: Amount 1\.32 lb · Colour 10 °L/);
+    for (const text of Object.values(shown).slice(1)) expect(text).not.toMatch(/\b[a-z]+[A-Z][a-zA-Z]*\b/);
+  });
+});
+
+describe('describeTaken', () => {
+  it('says what was taken from the proposal without asking, in the member’s units', () => {
+    const mash = { path: 'mash.steps[0].tempC', base: 66, theirs: 68 };
+    expect(describeTaken(mash, 'metric')).toBe('Mash step 1 · Temperature 66 °C → 68 °C');
+    expect(describeTaken(mash, 'us')).toBe('Mash step 1 · Temperature 151 °F → 154 °F');
+    const kveik = { name: 'Kveik', kind: 'kveik', attenuationPct: 80, tempMinC: 25, tempMaxC: 37 };
+    expect(describeTaken({ path: 'yeasts[kveik]', base: undefined, theirs: kveik }, 'metric')).toBe(
+      'Yeast Kveik (added)',
+    );
+    expect(
+      describeTaken(
+        { path: 'yeasts[clean ale yeast]', base: { ...kveik, name: 'Clean ale yeast' }, theirs: undefined },
+        'us',
+      ),
+    ).toBe('Yeast Clean ale yeast (removed)');
   });
 });

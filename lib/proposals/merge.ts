@@ -1,4 +1,5 @@
 import type { RecipeDocument } from '@/lib/brewing';
+import { describeMergePath } from './merge-words';
 
 /**
  * A field-level three-way merge of two recipe documents that share an ancestor: `base` (the
@@ -34,6 +35,8 @@ export interface MergeResult {
   conflicts: MergeConflict[];
   /** Paths where the proposal's change was taken without asking. */
   fromTheirs: string[];
+  /** The same, with the value before and the proposal's value, for showing them. */
+  taken: Omit<MergeConflict, 'ours'>[];
   /** The three documents, kept so picks can be applied later. */
   inputs: { base: RecipeDocument; ours: RecipeDocument; theirs: RecipeDocument };
 }
@@ -58,6 +61,7 @@ interface Ctx {
   picks: Picks;
   conflicts: MergeConflict[];
   fromTheirs: string[];
+  taken: Omit<MergeConflict, 'ours'>[];
 }
 
 function same(a: unknown, b: unknown): boolean {
@@ -89,6 +93,7 @@ function mergeValue<T>(
   if (same(ours, theirs)) return ours;
   if (same(base, ours)) {
     ctx.fromTheirs.push(path);
+    ctx.taken.push({ path, base, theirs });
     return theirs;
   }
   if (same(base, theirs)) return ours;
@@ -197,11 +202,15 @@ function mergeOptional<T extends object>(
   return mergeValue(ctx, path, base, ours, theirs);
 }
 
+/** `{ [key]: value }`, or nothing when the value is absent (an optional field stays left out). */
+const present = <K extends string, V>(key: K, value: V | undefined) =>
+  (value === undefined ? {} : { [key]: value }) as Partial<Record<K, V>>;
+
 const nameKey = (item: { name: string }) => item.name.trim().toLowerCase();
 const hopKey = (hop: { name: string; use: string }) => `${nameKey(hop)}|${hop.use}`;
 
 function mergeWith(base: RecipeDocument, ours: RecipeDocument, theirs: RecipeDocument, picks: Picks): MergeResult {
-  const ctx: Ctx = { picks, conflicts: [], fromTheirs: [] };
+  const ctx: Ctx = { picks, conflicts: [], fromTheirs: [], taken: [] };
   const merged: RecipeDocument = {
     title: ours.title,
     batch: mergeFields(ctx, 'batch', base.batch, ours.batch, theirs.batch),
@@ -231,6 +240,8 @@ function mergeWith(base: RecipeDocument, ours: RecipeDocument, theirs: RecipeDoc
     volumeL: mergeValue(ctx, 'water.volumeL', b.volumeL, o.volumeL, t.volumeL)!,
     source: mergeFields(ctx, 'water.source', b.source, o.source, t.source),
     salts: mergeKeyedList(ctx, 'water.salts', b.salts, o.salts, t.salts, (s) => s.salt),
+    ...present('target', mergeValue(ctx, 'water.target', b.target, o.target, t.target)),
+    ...present('acid', mergeValue(ctx, 'water.acid', b.acid, o.acid, t.acid)),
   }));
   const carbonation = mergeOptional(
     ctx,
@@ -244,7 +255,13 @@ function mergeWith(base: RecipeDocument, ours: RecipeDocument, theirs: RecipeDoc
   if (water) merged.water = water;
   if (carbonation) merged.carbonation = carbonation;
   if (style) merged.style = style;
-  return { merged, conflicts: ctx.conflicts, fromTheirs: ctx.fromTheirs, inputs: { base, ours, theirs } };
+  return {
+    merged,
+    conflicts: ctx.conflicts,
+    fromTheirs: ctx.fromTheirs,
+    taken: ctx.taken,
+    inputs: { base, ours, theirs },
+  };
 }
 
 /** Merges the proposal (`theirs`) into the source's head (`ours`) over their common ancestor (`base`). */
@@ -261,51 +278,25 @@ export function resolveMerge(result: MergeResult, picks: Readonly<Record<string,
   const issues: MergePickIssue[] = [];
   for (const [path, side] of Object.entries(picks)) {
     if (!open.has(path))
-      issues.push({ path, message: `“${path}” is not a conflict in this merge; there is nothing to choose there.` });
+      issues.push({
+        path,
+        message: `“${describeMergePath(path)}” is not a conflict in this merge; there is nothing to choose there.`,
+      });
     else if (side !== 'ours' && side !== 'theirs')
-      issues.push({ path, message: `Choose “ours” or “theirs” for ${path}.` });
+      issues.push({ path, message: `Choose “ours” or “theirs” for ${describeMergePath(path)}.` });
   }
   for (const path of open)
-    if (!(path in picks)) issues.push({ path, message: `Choose which side to keep for ${path}.` });
+    if (!(path in picks)) issues.push({ path, message: `Choose which side to keep for ${describeMergePath(path)}.` });
   if (issues.length) throw new MergePickError(issues);
   const { base, ours, theirs } = result.inputs;
   const resolved = mergeWith(base, ours, theirs, picks as Picks);
   // Every conflict had a pick, so none is left open (a pick can only settle, never raise one).
   if (resolved.conflicts.length)
     throw new MergePickError(
-      resolved.conflicts.map((c) => ({ path: c.path, message: `Choose which side to keep for ${c.path}.` })),
+      resolved.conflicts.map((c) => ({
+        path: c.path,
+        message: `Choose which side to keep for ${describeMergePath(c.path, c)}.`,
+      })),
     );
   return resolved.merged;
-}
-
-const SECTION_WORDS: Record<string, string> = {
-  batch: 'Batch',
-  fermentables: 'Fermentable',
-  hops: 'Hop',
-  yeasts: 'Yeast',
-  'mash.steps': 'Mash step',
-  'fermentation.steps': 'Fermentation step',
-  'water.salts': 'Water salt',
-  'water.source': 'Source water',
-  water: 'Water',
-  carbonation: 'Carbonation',
-  notes: 'Notes',
-  style: 'Style',
-};
-
-function keyWords(key: string): string {
-  if (/^\d+$/.test(key)) return String(Number(key) + 1);
-  const [main, nth] = key.split('~');
-  const [name, use] = main.split('|');
-  return `${name}${use ? ` (${use.replaceAll('_', ' ')})` : ''}${nth ? `, the ${nth}. one` : ''}`.replaceAll('_', ' ');
-}
-
-/** A path as a brewer reads it: `hops[cascade|boil].amountG` → `Hop cascade (boil) · amountG`. */
-export function describeMergePath(path: string): string {
-  const m = /^([a-z.]+?)(?:\[(.+)\])?(?:\.(\w+))?$/i.exec(path);
-  if (!m) return path;
-  const [, section, key, field] = m;
-  const word = SECTION_WORDS[section] ?? section;
-  const label = key === undefined ? word : `${word} ${keyWords(key)}`;
-  return field ? `${label} · ${field}` : label;
 }

@@ -145,3 +145,26 @@ function sentence(
   const head = `${row.label} ${row.beforeText} → ${row.afterText}`;
   return bits.length ? `${head}: ${bits.join(', ')}` : `${head}: ${row.deltaText} from several small changes`;
 }
+
+/** "IBU", "FG" stay as they are; "Colour (SRM)" reads "colour (SRM)" inside a sentence. */
+const inSentence = (label: string) =>
+  /^[A-Z]{2}/.test(label) ? label : label.charAt(0).toLowerCase() + label.slice(1);
+
+/**
+ * One number's change as a consequence of taking a set of changes, e.g. "Accepting this changes
+ * IBU by +6: the new 10-minute Cascade addition" (`lead` is "Accepting this changes"). Causes are
+ * the attribution's, largest first; what they do not add up to is the changes acting together.
+ */
+export function effectSentence(a: StatAttribution, lead: string, units: UnitSystem): string {
+  const spec = STAT_SPECS.find((s) => s.key === a.stat)!;
+  const shown = a.parts.filter((p) => Math.abs(p.delta) >= spec.epsilon(units));
+  const rest = a.delta - shown.reduce((n, p) => n + p.delta, 0);
+  const head = `${lead} ${inSentence(a.label)} by ${a.deltaText}`;
+  if (shown.length === 1 && Math.abs(rest) < spec.epsilon(units)) return `${head}: ${shown[0].cause}`;
+  const bits = shown.map((p) => `${p.deltaText} from ${p.cause}`);
+  if (Math.abs(rest) >= spec.epsilon(units))
+    bits.push(
+      `${spec.delta(rest, units)} from ${shown.length ? 'the changes acting together' : 'several small changes'}`,
+    );
+  return `${head}: ${bits.join(', ')}`;
+}

@@ -53,6 +53,8 @@ export interface ItemComparison {
   summary: string;
   /** Short phrase naming the change in "… from the yeast swap". */
   cause: string;
+  /** The summary without its before → after detail, e.g. "Mashed 1 °C cooler": a history line's lead. */
+  short: string;
   /** The item's fields in words (for an added, removed or unchanged item). */
   details: string;
   changes: FieldChange[];
@@ -205,10 +207,10 @@ interface Builder {
 function push(
   builder: Builder,
   section: SectionName,
-  item: Omit<ItemComparison, 'id'>,
+  item: Omit<ItemComparison, 'id' | 'short'> & { short?: string },
   apply: AppliedChange['apply'] | null,
 ): ItemComparison {
-  const full: ItemComparison = { id: `${section}-${builder.nextId++}`, ...item };
+  const full: ItemComparison = { id: `${section}-${builder.nextId++}`, ...item, short: item.short ?? item.summary };
   if (apply && full.status !== 'same') builder.changes.push({ item: full, apply });
   return full;
 }
@@ -246,6 +248,11 @@ function fermentableItems(a: RecipeDocument, b: RecipeDocument, builder: Builder
           status,
           kind: swap ? 'swap' : status === 'changed' ? 'edit' : null,
           summary: status === 'same' ? after.name : summary,
+          short: swap
+            ? `Fermentable: ${before.name} → ${after.name}`
+            : amountOnly
+              ? `${after.name} ${changes[0].delta}`
+              : undefined,
           cause,
           details: describeFields(FERMENTABLE_FIELDS, asRow(after), units),
           changes,
@@ -315,6 +322,7 @@ function hopItems(a: RecipeDocument, b: RecipeDocument, builder: Builder): ItemC
           status,
           kind: swap ? 'swap' : moved ? 'moved' : status === 'changed' ? 'edit' : null,
           summary: status === 'same' ? hopLabel(after) : summary,
+          short: amountOnly ? `${hopLabel(after)} ${rest[0].delta}` : undefined,
           cause,
           details: describeFields(HOP_FIELDS, asRow(after), units, ['use']),
           changes: all,
@@ -376,6 +384,7 @@ function yeastItems(a: RecipeDocument, b: RecipeDocument, builder: Builder): Ite
             : status === 'same'
               ? after.name
               : `${after.name}: ${changesText(changes)}`,
+          short: swap ? `Yeast: ${before.name} → ${after.name}` : undefined,
           cause: swap ? 'the yeast swap' : `the ${after.name} change`,
           details: describeFields(YEAST_FIELDS, asRow(after), units),
           changes,
@@ -510,10 +519,13 @@ function stepItems(kind: StepList, a: RecipeDocument, b: RecipeDocument, builder
           ? `the ${temperatureStep(Math.abs(tempDiff), units)} ${tempDiff > 0 ? 'hotter' : 'cooler'} ${whole}`
           : `fermenting ${temperatureStep(Math.abs(tempDiff), units)} ${tempDiff > 0 ? 'warmer' : 'cooler'} in step ${i + 1}`
         : `the ${name(y).toLowerCase()} change`;
-      const summary = onlyTemp
+      const short = onlyTemp
         ? kind === 'mash'
-          ? `Mashed ${temperatureStep(Math.abs(tempDiff), units)} ${tempDiff > 0 ? 'hotter' : 'cooler'} (${name(y)}: ${changes[0].before} → ${changes[0].after})`
-          : `Fermented ${temperatureStep(Math.abs(tempDiff), units)} ${tempDiff > 0 ? 'warmer' : 'cooler'} (${name(y)}: ${changes[0].before} → ${changes[0].after})`
+          ? `Mashed ${temperatureStep(Math.abs(tempDiff), units)} ${tempDiff > 0 ? 'hotter' : 'cooler'}`
+          : `Fermented ${temperatureStep(Math.abs(tempDiff), units)} ${tempDiff > 0 ? 'warmer' : 'cooler'}`
+        : undefined;
+      const summary = short
+        ? `${short} (${name(y)}: ${changes[0].before} → ${changes[0].after})`
         : `${name(y)}: ${changesText(changes)}`;
       items.push(
         push(
@@ -524,6 +536,7 @@ function stepItems(kind: StepList, a: RecipeDocument, b: RecipeDocument, builder
             status: changes.length ? 'changed' : 'same',
             kind: changes.length ? 'edit' : null,
             summary: changes.length ? summary : name(y),
+            short: changes.length ? short : undefined,
             cause,
             details: describeFields(specs, y, units, ['name']),
             changes,
@@ -626,6 +639,7 @@ function waterItems(a: RecipeDocument, b: RecipeDocument, builder: Builder): Ite
             status: c.length ? 'changed' : 'same',
             kind: c.length ? 'edit' : null,
             summary: c.length ? `${name} ${c[0].delta} (${c[0].before} → ${c[0].after})` : name,
+            short: c.length ? `${name} ${c[0].delta}` : undefined,
             cause: c.length ? `${c[0].delta} ${name.toLowerCase()}` : '',
             details: describeFields(SALT_FIELDS, asRow(one), units),
             changes: c,
@@ -753,6 +767,21 @@ export function compareDocuments(a: RecipeDocument, b: RecipeDocument, options: 
     notesChanged,
     changeCount,
     identical: changeCount === 0 && !notesChanged,
+  };
+}
+
+/**
+ * The item-by-item differences alone, without the numbers (no engine runs): for screens that list
+ * what changed, such as the editor's panel when a newer version was saved meanwhile.
+ */
+export function compareItems(
+  a: RecipeDocument,
+  b: RecipeDocument,
+  units: UnitSystem,
+): Pick<DocumentComparison, 'sections' | 'notesChanged'> {
+  return {
+    sections: diffDocuments(a, b, units).sections,
+    notesChanged: (a.notes ?? '').trim() !== (b.notes ?? '').trim(),
   };
 }
 

@@ -1,7 +1,7 @@
 import { eq } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
 import { db } from '@/db';
-import { proposals, recipeVersions } from '@/db/schema';
+import { proposals, recipeVersions, users } from '@/db/schema';
 import type { RecipeDocumentInput } from '@/lib/brewing';
 import type { ProposalView } from '@/lib/proposals/proposals';
 import { paleAle, saveVia } from '../helpers/recipes';
@@ -82,8 +82,16 @@ describe('accepting after the source moved on (three-way merge)', () => {
       theirs: 32,
     });
     // The fork removed the second fermentation step, the owner too: no conflict there.
+    // The page labels the fields as compare does, with values in the owner's units.
     const page = await (await owner.client.fetch(`/proposals/${p.id}`)).text();
-    expect(page).toContain('Fermentation step 1 · tempC');
+    expect(page).toContain('Fermentation step 1 · Temperature');
+    expect(page).toContain('Fermentation step 1 · Days');
+    for (const value of ['18 °C', '19 °C', '32 °C', '12 days']) expect(page).toContain(value);
+    const visible = page.replace(/<script[\s\S]*?<\/script>/g, ' ').replace(/<[^>]+>/g, ' ');
+    expect(visible).not.toMatch(/tempC|\bdays\b ·|· days\b/);
+    await db.update(users).set({ units: 'us' }).where(eq(users.id, owner.user.id));
+    const usPage = await (await owner.client.fetch(`/proposals/${p.id}`)).text();
+    for (const value of ['64 °F', '66 °F', '90 °F']) expect(usPage).toContain(value);
 
     const missing = await owner.client.post<ApiError>(`/api/proposals/${p.id}/accept`, {
       sourceHeadVersionId: head.id,

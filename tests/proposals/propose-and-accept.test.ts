@@ -84,6 +84,8 @@ describe('proposing a fork’s version back to its source', () => {
     expect(text).toContain('Accept and save a new version');
     expect(text).toContain('Discussion (1)');
     expect(text).toContain('OG 1.050');
+    // What accepting does to the numbers, credited to the change that does it.
+    expect(text).toMatch(/Accepting this changes FG by −0\.\d{3}: (the yeast swap|−0\.\d{3} from the yeast swap)/);
 
     // Listed for both members and on both recipes.
     const mine = await owner.client.get<{ incoming: { id: string }[]; outgoing: { id: string }[] }>('/api/proposals');

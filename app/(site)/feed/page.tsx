@@ -4,7 +4,7 @@ import Link from 'next/link';
 import { requirePageViewer } from '@/lib/auth/page-guard';
 import { getFeed, type FeedItem } from '@/lib/community/feed';
 
-export const metadata: Metadata = { title: 'Your feed' };
+export const metadata: Metadata = { title: 'From brewers you follow' };
 
 type Props = { searchParams: Promise<{ before?: string }> };
 
@@ -37,14 +37,14 @@ export default async function FeedPage({ searchParams }: Props) {
   const { items, next } = await getFeed(viewer, { before });
   return (
     <div className="max-w-3xl">
-      <h1 className="text-3xl font-semibold">Your feed</h1>
+      <h1 className="text-3xl font-semibold">From brewers you follow</h1>
       <p className="mt-1 font-sans text-sm text-muted">
         New versions, forks and brew days from the members and recipes you follow.
       </p>
       {items.length === 0 ? (
         <p className="kf-card mt-6">
           Nothing here yet. Follow members on their pages, or recipes on theirs, and what they brew shows up here.{' '}
-          <Link href="/recipes">See recent recipes.</Link>
+          <Link href="/recipes">See the newest recipes.</Link>
         </p>
       ) : (
         <ul className="mt-6 divide-y divide-line">

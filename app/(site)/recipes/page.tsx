@@ -4,7 +4,7 @@ import { RecipeCard } from '@/components/recipe-card';
 import { getViewer } from '@/lib/auth/session';
 import { listRecipes } from '@/lib/recipes/listing';
 
-export const metadata: Metadata = { title: 'Recent recipes' };
+export const metadata: Metadata = { title: 'Newest recipes' };
 
 type Props = { searchParams: Promise<{ page?: string }> };
 
@@ -17,7 +17,7 @@ export default async function RecipesPage({ searchParams }: Props) {
     <div>
       <div className="flex flex-wrap items-end justify-between gap-4">
         <div>
-          <h1 className="text-3xl font-semibold">Recent recipes</h1>
+          <h1 className="text-3xl font-semibold">Newest recipes</h1>
           <p className="mt-1 font-sans text-sm text-muted">Public recipes, most recently saved first.</p>
         </div>
         {viewer && (

@@ -13,8 +13,9 @@ import {
 } from '@/components/proposals/proposal-actions';
 import { ProposalStatusBadge } from '@/components/proposals/proposal-status';
 import { getViewer } from '@/lib/auth/session';
-import { describeMergePath } from '@/lib/proposals/merge';
+import { isLive } from '@/lib/proposals/access';
 import { getProposalView } from '@/lib/proposals/proposals';
+import { effectSentence } from '@/lib/recipes/attribution';
 import { orNotFound } from '@/lib/recipes/pages';
 
 export const metadata: Metadata = { title: 'Proposal' };
@@ -27,6 +28,7 @@ export default async function ProposalPage({ params, searchParams }: Props) {
   const viewer = await getViewer();
   const view = await orNotFound(() => getProposalView(viewer, id));
   const { proposal, proposer, source, fork, proposed, base } = view;
+  const live = isLive(proposal);
   return (
     <article>
       {proposal.hidden && (
@@ -130,20 +132,14 @@ export default async function ProposalPage({ params, searchParams }: Props) {
                   </tr>
                 </thead>
                 <tbody>
-                  {view.conflicts.map((c) => (
+                  {view.conflictViews.map((c) => (
                     <tr key={c.path} className="border-b border-line/50 align-top">
                       <th scope="row" className="py-1.5 pr-3 text-left font-normal">
-                        {describeMergePath(c.path)}
+                        {c.label}
                       </th>
                       {[c.base, c.ours, c.theirs].map((v, i) => (
                         <td key={i} className="max-w-xs whitespace-pre-wrap py-1.5 pr-3">
-                          {v === undefined
-                            ? '—'
-                            : typeof v === 'object'
-                              ? Object.entries(v as Record<string, unknown>)
-                                  .map(([k, x]) => `${k} ${String(x)}`)
-                                  .join(' · ')
-                              : String(v)}
+                          {v}
                         </td>
                       ))}
                     </tr>
@@ -154,7 +150,7 @@ export default async function ProposalPage({ params, searchParams }: Props) {
           )}
           {view.fromTheirs.length > 0 && (
             <p className="mt-3 font-sans text-sm text-muted">
-              From the proposal without asking: {view.fromTheirs.map(describeMergePath).join('; ')}.
+              From the proposal without asking: {view.fromTheirsWords.join('; ')}.
             </p>
           )}
         </section>
@@ -167,7 +163,7 @@ export default async function ProposalPage({ params, searchParams }: Props) {
               proposalId={proposal.id}
               headVersionId={source.headVersionId}
               headNumber={source.headNumber}
-              conflicts={view.conflicts}
+              conflicts={view.conflictViews}
             />
           )}
           {view.can.decide && <DecisionForm proposalId={proposal.id} />}
@@ -192,6 +188,9 @@ export default async function ProposalPage({ params, searchParams }: Props) {
               b={{ title: fork.title, slug: fork.slug, number: proposed.number, ownerName: fork.ownerName }}
               comparison={view.comparison}
               showUnchanged={all === '1'}
+              effects={view.comparison.attribution.map((a) =>
+                effectSentence(a, live ? 'Accepting this changes' : 'This proposal changed', view.comparison!.units),
+              )}
             />
           </div>
           {all !== '1' && (

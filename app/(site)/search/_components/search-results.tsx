@@ -264,7 +264,7 @@ export function SearchUnavailable({ onRetry, retrying }: { onRetry(): void; retr
       </p>
       <div className="mt-4 flex flex-wrap gap-3">
         <Link href="/recipes" className="kf-btn">
-          Browse recent recipes
+          Browse the newest recipes
         </Link>
         <button type="button" className="kf-btn-quiet" onClick={onRetry} disabled={retrying}>
           {retrying ? 'Trying…' : 'Try search again'}

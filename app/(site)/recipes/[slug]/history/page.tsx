@@ -2,7 +2,8 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { getViewer } from '@/lib/auth/session';
 import { orNotFound } from '@/lib/recipes/pages';
-import { getRecipe, getVersionsByRecipeId } from '@/lib/recipes/versions';
+import { getHistoryByRecipeId } from '@/lib/recipes/history-lines';
+import { getRecipe } from '@/lib/recipes/versions';
 import { HistoryTimeline } from './_components/history-timeline';
 
 type Props = { params: Promise<{ slug: string }> };
@@ -13,7 +14,7 @@ export default async function HistoryPage({ params }: Props) {
   const { slug } = await params;
   const viewer = await getViewer();
   const recipe = await orNotFound(() => getRecipe(viewer, { slug }));
-  const versions = await getVersionsByRecipeId({ recipeId: recipe.id });
+  const versions = await getHistoryByRecipeId({ recipeId: recipe.id, units: viewer?.units ?? 'metric' });
   return (
     <div>
       <p className="font-sans text-sm">

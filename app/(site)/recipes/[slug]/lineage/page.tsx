@@ -47,7 +47,7 @@ export default async function LineagePage({ params }: Props) {
       <p className="font-sans text-sm">
         <Link href={`/recipes/${recipe.slug}`}>← {recipe.title}</Link>
       </p>
-      <h1 className="mt-2 text-3xl font-semibold">Family of {recipe.title}</h1>
+      <h1 className="mt-2 text-3xl font-semibold">Forks of {recipe.title}</h1>
       <p className="mt-2 font-sans text-sm text-muted">
         Each lane is a recipe and each dot a version; a green curve joins a fork to the exact version it came from.
         Select a dot to read that version.
@@ -56,7 +56,7 @@ export default async function LineagePage({ params }: Props) {
         <LineagePicture recipes={family} currentId={recipe.id} />
       </div>
       <details className="mt-6 font-sans text-sm">
-        <summary className="cursor-pointer">The same family as a list</summary>
+        <summary className="cursor-pointer">The same forks as a list</summary>
         <div className="mt-3">
           <LineageList recipes={family} parentVersionIds={null} />
         </div>

@@ -6,22 +6,6 @@ import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { useRecipeHistory, type HistoryItem } from '@/hooks/use-recipe-history';
 
-const STATS: { key: 'og' | 'fg' | 'abv' | 'ibu' | 'srm'; label: string; digits: number }[] = [
-  { key: 'og', label: 'OG', digits: 3 },
-  { key: 'fg', label: 'FG', digits: 3 },
-  { key: 'abv', label: 'ABV', digits: 1 },
-  { key: 'ibu', label: 'IBU', digits: 0 },
-  { key: 'srm', label: 'SRM', digits: 1 },
-];
-
-/** The numbers that moved between a version and the one before it, in words. */
-function changedStats(item: HistoryItem, previous: HistoryItem | undefined): string[] {
-  if (!previous) return [];
-  return STATS.filter((s) => item[s.key].toFixed(s.digits) !== previous[s.key].toFixed(s.digits)).map(
-    (s) => `${s.label} ${previous[s.key].toFixed(s.digits)} → ${item[s.key].toFixed(s.digits)}`,
-  );
-}
-
 export function HistoryTimeline({
   recipeId,
   slug,
@@ -76,7 +60,6 @@ export function HistoryTimeline({
       </div>
       <ol className="mt-4 space-y-3">
         {versions.map((v, i) => {
-          const changes = changedStats(v, versions[i + 1]);
           const checkboxId = `pick-${v.id}`;
           return (
             <li key={v.id} className={`kf-card flex gap-4 ${picked.includes(v.id) ? 'border-copper' : ''}`}>
@@ -99,10 +82,10 @@ export function HistoryTimeline({
                   {v.coAuthorName && <> with {v.coAuthorName}</>}
                 </p>
                 {v.message && <p className="mt-1">{v.message}</p>}
-                {changes.length > 0 && (
-                  <p className="kf-data mt-1 text-sm text-copper-strong">
-                    <span className="sr-only">Numbers that changed: </span>
-                    {changes.join(' · ')}
+                {v.moved && (
+                  <p className="mt-1 font-sans text-sm text-copper-strong">
+                    <span className="sr-only">What moved since version {v.number - 1}: </span>
+                    {v.moved}
                   </p>
                 )}
                 <p className="mt-1 font-sans text-sm">

@@ -51,7 +51,7 @@ export function LineagePicture({ recipes, currentId }: { recipes: LineageRecipe[
       aria-labelledby="lineage-title"
       className="max-w-none font-sans"
     >
-      <title id="lineage-title">Family tree of forks and their versions</title>
+      <title id="lineage-title">Forks and their versions</title>
       {placed.map(({ recipe }) =>
         recipe.forkedFromVersionId && versionAt.has(recipe.forkedFromVersionId) && recipe.versions[0] ? (
           <path
