@@ -24,3 +24,17 @@ export function setServerErrors<T extends FieldValues>(
 export function onlyFields(...names: string[]): (path: string) => string | undefined {
   return (path) => (names.includes(path) ? path : undefined);
 }
+
+/**
+ * Marks a refusal's field messages on the form and returns what the form itself should say: the
+ * messages no field shows, or the refusal's own message when it named no field.
+ */
+export function showRefusal<T extends FieldValues>(
+  setError: UseFormSetError<T>,
+  failure: { message: string; fields: readonly FieldIssue[] },
+  fieldFor?: (path: string) => string | undefined,
+): string | undefined {
+  const unplaced = setServerErrors(setError, failure.fields, fieldFor);
+  if (unplaced.length > 0) return unplaced.map((issue) => issue.message).join(' ');
+  return failure.fields.length === 0 ? failure.message : undefined;
+}

@@ -41,6 +41,14 @@ export const forkSchema = z.object({
   visibility: visibilitySchema.default('public'),
 });
 
+/** POST /api/import and the import page: a BeerXML or BeerJSON file's text, read for a preview. */
+export const importFileSchema = z.object({
+  format: z.enum(['beerxml', 'beerjson'], { error: 'Format must be beerxml or beerjson.' }).optional(),
+  text: z
+    .string({ error: 'Paste the text of a BeerXML or BeerJSON file.' })
+    .min(1, 'Paste the text of a BeerXML or BeerJSON file.'),
+});
+
 export const updateRecipeSchema = z.object({ visibility: visibilitySchema });
 
 export const computeStatsSchema = z.object({ document: recipeDocumentSchema });
