@@ -51,7 +51,9 @@ describe('planning a brew day back from the pour date', () => {
     const events = components.filter((c) => c.name === 'VEVENT');
     expect(events).toHaveLength(res.body.events.length);
     expect(events[0].props['DTSTART;VALUE=DATE']).toBe(today(1).replaceAll('-', ''));
-    for (const e of events) expect(e.props.UID).toBeTruthy();
+    // RFC 5545 (iCalendar, 2009), 3.8.4.7: every event has a UID, unique to it.
+    for (const e of events) expect(e.props.UID).toMatch(/\S/);
+    expect(new Set(events.map((e) => e.props.UID)).size).toBe(events.length);
   });
 
   it('refuses a pour date in the past, naming the field, and keeps the saved plan', async () => {
