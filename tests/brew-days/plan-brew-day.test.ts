@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { signedInClient } from '../helpers/users';
 import { brewDayRow, brewDayVia, today } from './fixtures';
+import type { FieldIssue } from '@/lib/errors';
 
-type ErrorBody = { error: { message: string; fields: { path: string; message: string }[] } };
+type ErrorBody = { error: { message: string; fields: FieldIssue[] } };
 
 /** Unfolds an iCalendar text (RFC 5545 §3.1) into its content lines, checking each component closes. */
 function parseIcs(text: string): { name: string; props: Record<string, string> }[] {
