@@ -33,6 +33,10 @@ describe('forms show refusals beside their fields in a real browser', { timeout:
     await s.page.getByText('Give your fork a title.').waitFor();
     expect(await s.page.locator('#fork-title').getAttribute('aria-invalid')).toBe('true');
     expect(await describedText(s, '#fork-title')).toBe('Give your fork a title.');
+    await s.shot('fork-title-refused');
+    await s.page.setViewportSize({ width: 390, height: 844 });
+    await s.shot('fork-title-refused-phone');
+    await s.page.setViewportSize({ width: 1280, height: 900 });
 
     const comment = `Mashed at 67 °C and it finished drier than I expected ${Date.now()}`;
     await s.page.getByLabel('Add a comment').fill(comment);
@@ -68,6 +72,8 @@ describe('forms show refusals beside their fields in a real browser', { timeout:
     expect(await s.page.locator('#settings-volume-error').textContent()).toBe('A batch is at most 2,000 litres.');
     expect(await s.page.locator('#settings-volume').getAttribute('aria-invalid')).toBe('true');
     expect(await describedText(s, '#settings-volume')).toBe('A batch is at most 2,000 litres.');
+    await s.page.setViewportSize({ width: 390, height: 844 });
+    await s.shot('settings-volume-refused-phone');
     expect(s.problems.filter((p) => !/^HTTP 400: .*\/api\/me\/settings$/.test(p))).toEqual([]);
   });
 
