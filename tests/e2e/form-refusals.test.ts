@@ -72,6 +72,9 @@ describe('forms show refusals beside their fields in a real browser', { timeout:
     expect(await s.page.locator('#settings-volume-error').textContent()).toBe('A batch is at most 2,000 litres.');
     expect(await s.page.locator('#settings-volume').getAttribute('aria-invalid')).toBe('true');
     expect(await describedText(s, '#settings-volume')).toBe('A batch is at most 2,000 litres.');
+    // The message sits beside its field once; the API's own field name never reaches the page.
+    expect(await s.page.getByText('A batch is at most 2,000 litres.').count()).toBe(1);
+    expect(await s.page.locator('main').textContent()).not.toContain('defaultBatchVolumeL');
     await s.page.setViewportSize({ width: 390, height: 844 });
     await s.shot('settings-volume-refused-phone');
     expect(s.problems.filter((p) => !/^HTTP 400: .*\/api\/me\/settings$/.test(p))).toEqual([]);

@@ -7,7 +7,7 @@ import { useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { toast } from 'sonner';
 import { z } from 'zod';
-import { setServerErrors } from '@/components/form-errors';
+import { showRefusal } from '@/components/form-errors';
 import { describedBy, FormField } from '@/components/form-field';
 import { meKeys } from '@/hooks/use-me';
 import { gallonsToLitres, litresToGallons } from '@/lib/brewing/units';
@@ -22,6 +22,12 @@ const formSchema = settingsSchema.omit({ defaultBatchVolumeL: true }).extend({
     .positive('The batch volume must be more than zero.'),
 });
 type FormValues = z.infer<typeof formSchema>;
+
+/** The input that shows a server message; the rest (the e-mail choices) go above the button. */
+function settingsFieldFor(path: string): string | undefined {
+  if (path === 'defaultBatchVolumeL') return 'batchVolume';
+  return ['name', 'bio', 'units', 'defaultEfficiencyPct'].includes(path) ? path : undefined;
+}
 
 const round = (n: number, places = 2) => Math.round(n * 10 ** places) / 10 ** places;
 
@@ -54,8 +60,7 @@ export function SettingsForm({ initial }: { initial: SettingsInput }) {
     };
     const result = await requestJson('/api/me/settings', 'PUT', body);
     if (!result.ok) {
-      setServerErrors(setError, result.fields, (path) => (path === 'defaultBatchVolumeL' ? 'batchVolume' : path));
-      setFormError(result.message);
+      setFormError(showRefusal(setError, result, settingsFieldFor));
       return;
     }
     toast.success('Settings saved.');
