@@ -2,16 +2,14 @@
 
 import { useQuery } from '@tanstack/react-query';
 import type { Viewer } from '@/lib/auth/session';
+import { sendJson } from '@/lib/http/client';
 
 export const meKeys = { all: ['me'] as const };
 
 export function useMe() {
   return useQuery({
     queryKey: meKeys.all,
-    queryFn: async (): Promise<Viewer | null> => {
-      const res = await fetch('/api/me', { cache: 'no-store' });
-      if (!res.ok) throw new Error('Could not load your session.');
-      return ((await res.json()) as { viewer: Viewer | null }).viewer;
-    },
+    queryFn: async ({ signal }): Promise<Viewer | null> =>
+      (await sendJson<{ viewer: Viewer | null }>('/api/me', 'GET', undefined, { signal, cache: 'no-store' })).viewer,
   });
 }

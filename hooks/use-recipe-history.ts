@@ -1,6 +1,7 @@
 'use client';
 
 import { useQuery } from '@tanstack/react-query';
+import { sendJson } from '@/lib/http/client';
 
 export interface HistoryItem {
   id: string;
@@ -27,11 +28,9 @@ const recipeHistoryKeys = {
 export function useRecipeHistory(recipeId: string, initialData?: HistoryItem[]) {
   return useQuery({
     queryKey: recipeHistoryKeys.byRecipe(recipeId),
-    queryFn: async (): Promise<HistoryItem[]> => {
-      const res = await fetch(`/api/recipes/${recipeId}/versions`);
-      if (!res.ok) throw new Error('Could not load the history.');
-      return ((await res.json()) as { versions: HistoryItem[] }).versions;
-    },
+    queryFn: async ({ signal }): Promise<HistoryItem[]> =>
+      (await sendJson<{ versions: HistoryItem[] }>(`/api/recipes/${recipeId}/versions`, 'GET', undefined, { signal }))
+        .versions,
     initialData,
   });
 }

@@ -1,4 +1,8 @@
 import type { z } from 'zod';
+import { formatIssues, type FieldIssue } from '@/lib/brewing/schema';
+
+/** A message for one field of a request (`hops.2.alphaPct`); the API, the forms and the engine share it. */
+export type { FieldIssue };
 
 export type AppErrorCode =
   | 'bad_request'
@@ -32,11 +36,6 @@ const defaultMessage: Record<AppErrorCode, (subject: string) => string> = {
   unavailable: () => 'Kettlefork is briefly unavailable; please try again in a moment.',
 };
 
-export interface FieldIssue {
-  path: string;
-  message: string;
-}
-
 /** The one error type the app throws on purpose; it maps to an HTTP status and a message for people. */
 export class AppError extends Error {
   readonly status: number;
@@ -53,13 +52,9 @@ export class AppError extends Error {
   }
 }
 
-/** Every issue of a zod error, with dotted paths (`hops.2.alphaPct`). */
-function zodFieldIssues(error: z.ZodError): FieldIssue[] {
-  return error.issues.map((i) => ({ path: i.path.map(String).join('.') || '(root)', message: i.message }));
-}
-
 export function invalidInput(error: z.ZodError, subject = 'request'): AppError {
-  const fields = zodFieldIssues(error);
+  // A problem with the body as a whole has no field; the API names it `(root)`.
+  const fields = formatIssues(error).map((f) => (f.path ? f : { ...f, path: '(root)' }));
   const summary = fields
     .slice(0, 3)
     .map((f) => `${f.path}: ${f.message}`)

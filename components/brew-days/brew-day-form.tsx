@@ -6,16 +6,17 @@ import { useState } from 'react';
 import { Controller, useForm, useWatch, type Control, type FieldErrors, type Path } from 'react-hook-form';
 import { toast } from 'sonner';
 import { z } from 'zod';
+import { setServerErrors } from '@/components/form-errors';
 import { describedBy } from '@/components/form-field';
 import { fieldUnit, plainUnit, type FieldUnit } from '@/components/recipe-editor/field-units';
 import { UnitNumberInput } from '@/components/recipe-editor/unit-number-input';
 import { createBrewDaySchema, TYPICAL_KEG_RATING_KPA } from '@/lib/brew-days/schemas';
 import { fromDisplayUnits, toDisplayUnits, type UnitSystem } from '@/lib/brewing/units';
+import { requestJson } from '@/lib/http/client';
 import { Caution, CAUTIONS } from './caution';
 
 type FormInput = z.input<typeof createBrewDaySchema>;
 type FormOutput = z.output<typeof createBrewDaySchema>;
-type ServerError = { error?: { message: string; fields?: { path: string; message: string }[] } };
 
 const SG = plainUnit('SG', 3);
 const PH = plainUnit('pH', 2);
@@ -190,19 +191,17 @@ export function BrewDayForm({ units, mode, defaults }: BrewDayFormProps) {
   const onSubmit = async (values: FormOutput) => {
     setFormError(undefined);
     const { versionId: _version, ...fields } = values;
-    const res = await fetch(mode.kind === 'create' ? '/api/brew-days' : `/api/brew-days/${mode.brewDayId}`, {
-      method: mode.kind === 'create' ? 'POST' : 'PATCH',
-      headers: { 'content-type': 'application/json' },
-      body: JSON.stringify(mode.kind === 'create' ? { versionId: _version, ...fields } : fields),
-    });
-    const body = (await res.json().catch(() => ({}))) as ServerError & { id?: string };
-    if (!res.ok) {
-      for (const f of body.error?.fields ?? []) setError(f.path as Path<FormInput>, { message: f.message });
-      setFormError(body.error?.message ?? 'Saving did not work; please try again.');
+    const result =
+      mode.kind === 'create'
+        ? await requestJson<{ id: string }>('/api/brew-days', 'POST', { versionId: _version, ...fields })
+        : await requestJson<{ id?: string }>(`/api/brew-days/${mode.brewDayId}`, 'PATCH', fields);
+    if (!result.ok) {
+      setServerErrors(setError, result.fields);
+      setFormError(result.message);
       return;
     }
     toast.success(mode.kind === 'create' ? 'Brew day logged.' : 'Brew day saved.');
-    router.push(`/brew-days/${body.id ?? (mode.kind === 'edit' ? mode.brewDayId : '')}`);
+    router.push(`/brew-days/${result.data.id ?? (mode.kind === 'edit' ? mode.brewDayId : '')}`);
     router.refresh();
   };
 

@@ -3,6 +3,7 @@
 import { useRouter } from 'next/navigation';
 import { useRef, useState } from 'react';
 import { toast } from 'sonner';
+import { requestJson } from '@/lib/http/client';
 
 export interface GalleryPhoto {
   id: string;
@@ -29,11 +30,10 @@ export function PhotoGallery({ photos, canDelete }: { photos: GalleryPhoto[]; ca
   const remove = async (photo: GalleryPhoto) => {
     if (!window.confirm('Delete this photo for good?')) return;
     setDeleting(true);
-    const res = await fetch(`/api/photos/${photo.id}`, { method: 'DELETE' });
+    const result = await requestJson(`/api/photos/${photo.id}`, 'DELETE');
     setDeleting(false);
-    if (!res.ok) {
-      const body = (await res.json().catch(() => ({}))) as { error?: { message?: string } };
-      toast.error(body.error?.message ?? 'The photo was not deleted.');
+    if (!result.ok) {
+      toast.error(result.message);
       return;
     }
     close();

@@ -3,6 +3,7 @@
 import { useRouter } from 'next/navigation';
 import { useRef, useState } from 'react';
 import { toast } from 'sonner';
+import { uploadForm } from '@/lib/http/client';
 
 type State =
   | { kind: 'idle' }
@@ -10,10 +11,7 @@ type State =
   | { kind: 'processing' }
   | { kind: 'error'; message: string };
 
-/**
- * The brewer uploads a photo. XMLHttpRequest rather than fetch, because only it reports upload
- * progress; the server checks and re-encodes the picture, so the page waits for that too.
- */
+/** The brewer uploads a photo, with its progress; the server checks and re-encodes the picture, so the page waits for that too. */
 export function PhotoUploader({ brewDayId, maxMb }: { brewDayId: string; maxMb: number }) {
   const router = useRouter();
   const fileRef = useRef<HTMLInputElement>(null);
@@ -21,7 +19,7 @@ export function PhotoUploader({ brewDayId, maxMb }: { brewDayId: string; maxMb: 
   const [state, setState] = useState<State>({ kind: 'idle' });
   const busy = state.kind === 'uploading' || state.kind === 'processing';
 
-  const upload = () => {
+  const upload = async () => {
     const file = fileRef.current?.files?.[0];
     if (!file) {
       setState({ kind: 'error', message: 'Choose a photo first.' });
@@ -34,32 +32,23 @@ export function PhotoUploader({ brewDayId, maxMb }: { brewDayId: string; maxMb: 
     const form = new FormData();
     form.append('photo', file);
     form.append('caption', caption);
-    const xhr = new XMLHttpRequest();
-    xhr.open('POST', `/api/brew-days/${brewDayId}/photos`);
-    xhr.upload.onprogress = (e) => {
-      if (e.lengthComputable) setState({ kind: 'uploading', percent: Math.round((e.loaded / e.total) * 100) });
-    };
-    xhr.upload.onload = () => setState({ kind: 'processing' });
-    xhr.onload = () => {
-      if (xhr.status === 201) {
-        setState({ kind: 'idle' });
-        setCaption('');
-        if (fileRef.current) fileRef.current.value = '';
-        toast.success('Photo added.');
-        router.refresh();
-        return;
-      }
-      let message = 'The photo was not saved.';
-      try {
-        message = (JSON.parse(xhr.responseText) as { error?: { message?: string } }).error?.message ?? message;
-      } catch {
-        // Not JSON (a proxy's page): keep the plain message.
-      }
-      setState({ kind: 'error', message });
-    };
-    xhr.onerror = () => setState({ kind: 'error', message: 'The upload was interrupted; please try again.' });
     setState({ kind: 'uploading', percent: 0 });
-    xhr.send(form);
+    const result = await uploadForm(`/api/brew-days/${brewDayId}/photos`, form, {
+      onProgress: (percent) => setState({ kind: 'uploading', percent }),
+      onSent: () => setState({ kind: 'processing' }),
+    });
+    if (!result.ok) {
+      setState({
+        kind: 'error',
+        message: result.status === 0 ? 'The upload was interrupted; please try again.' : result.message,
+      });
+      return;
+    }
+    setState({ kind: 'idle' });
+    setCaption('');
+    if (fileRef.current) fileRef.current.value = '';
+    toast.success('Photo added.');
+    router.refresh();
   };
 
   return (
@@ -68,7 +57,7 @@ export function PhotoUploader({ brewDayId, maxMb }: { brewDayId: string; maxMb: 
       aria-labelledby="photo-upload-title"
       onSubmit={(e) => {
         e.preventDefault();
-        upload();
+        void upload();
       }}
     >
       <h3 id="photo-upload-title" className="font-semibold">

@@ -3,9 +3,10 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
-import { Controller, useForm, useWatch, type Path } from 'react-hook-form';
+import { Controller, useForm, useWatch } from 'react-hook-form';
 import { toast } from 'sonner';
 import type { z } from 'zod';
+import { setServerErrors } from '@/components/form-errors';
 import { describedBy } from '@/components/form-field';
 import { fieldUnit, plainUnit } from '@/components/recipe-editor/field-units';
 import { UnitNumberInput } from '@/components/recipe-editor/unit-number-input';
@@ -41,7 +42,7 @@ export function ReadingForm({
     setFormError(undefined);
     const result = await requestJson(`/api/brew-days/${brewDayId}/readings`, 'POST', values);
     if (!result.ok) {
-      for (const f of result.fields) setError(f.path as Path<Input>, { message: f.message });
+      setServerErrors(setError, result.fields);
       setFormError(result.message);
       return;
     }

@@ -3,9 +3,10 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
-import { useForm, type Path } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { toast } from 'sonner';
 import type { z } from 'zod';
+import { setServerErrors } from '@/components/form-errors';
 import { tastingSchema } from '@/lib/brew-days/schemas';
 import { requestJson } from '@/lib/http/client';
 
@@ -33,7 +34,7 @@ export function TastingForm({ brewDayId }: { brewDayId: string }) {
     setFormError(undefined);
     const result = await requestJson(`/api/brew-days/${brewDayId}/tastings`, 'POST', values);
     if (!result.ok) {
-      for (const f of result.fields) setError(f.path as Path<Input>, { message: f.message });
+      setServerErrors(setError, result.fields);
       setFormError(result.message);
       return;
     }

@@ -1,10 +1,17 @@
 'use client';
 
-import { useMutation } from '@tanstack/react-query';
+import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'next/navigation';
 import { useId, useState } from 'react';
+import { useForm, useWatch, type Resolver } from 'react-hook-form';
 import { toast } from 'sonner';
-import { sendJson } from '@/lib/http/client';
+import type { z } from 'zod';
+import { onlyFields, showRefusal } from '@/components/form-errors';
+import { editCommentSchema, newCommentSchema } from '@/lib/community/schemas';
+import { requestJson } from '@/lib/http/client';
+
+type Input = z.input<typeof newCommentSchema>;
+type Output = z.output<typeof newCommentSchema>;
 
 interface Props {
   recipeId: string;
@@ -20,36 +27,41 @@ interface Props {
 export function CommentForm({ recipeId, versionNumber, parentId, edit, onDone, label }: Props) {
   const id = useId();
   const router = useRouter();
-  const [body, setBody] = useState(edit?.body ?? '');
-  const [error, setError] = useState<string>();
-  const send = useMutation({
-    mutationFn: () =>
-      edit
-        ? sendJson<{ held: boolean }>(`/api/comments/${edit.commentId}`, 'PATCH', { body })
-        : sendJson<{ held: boolean }>(`/api/recipes/${recipeId}/comments`, 'POST', { body, parentId, versionNumber }),
-    onSuccess: (res) => {
-      setBody('');
-      toast.success(
-        res.held
-          ? 'Thanks! Your comment waits for a moderator, because it contains a link and your account is new.'
-          : edit
-            ? 'Comment updated.'
-            : 'Comment posted.',
-      );
-      onDone?.();
-      router.refresh();
-    },
-    onError: (err) => setError(err.message),
+  const [formError, setFormError] = useState<string>();
+  const { register, handleSubmit, setError, reset, control, formState } = useForm<Input, unknown, Output>({
+    // An edit changes the text only (its schema is the body alone); a new comment also says what it answers.
+    resolver: edit
+      ? (zodResolver(editCommentSchema) as Resolver<Input, unknown, Output>)
+      : zodResolver(newCommentSchema),
+    defaultValues: { body: edit?.body ?? '', parentId, versionNumber },
   });
+  const { errors, isSubmitting } = formState;
+  const body = useWatch({ control, name: 'body' });
+  const error = errors.body?.message ?? formError;
+
+  const onSubmit = handleSubmit(async (values) => {
+    setFormError(undefined);
+    const result = edit
+      ? await requestJson<{ held: boolean }>(`/api/comments/${edit.commentId}`, 'PATCH', { body: values.body })
+      : await requestJson<{ held: boolean }>(`/api/recipes/${recipeId}/comments`, 'POST', values);
+    if (!result.ok) {
+      setFormError(showRefusal(setError, result, onlyFields('body')));
+      return;
+    }
+    reset({ body: '', parentId, versionNumber });
+    toast.success(
+      result.data.held
+        ? 'Thanks! Your comment waits for a moderator, because it contains a link and your account is new.'
+        : edit
+          ? 'Comment updated.'
+          : 'Comment posted.',
+    );
+    onDone?.();
+    router.refresh();
+  });
+
   return (
-    <form
-      className="mt-3"
-      onSubmit={(e) => {
-        e.preventDefault();
-        setError(undefined);
-        send.mutate();
-      }}
-    >
+    <form className="mt-3" noValidate onSubmit={onSubmit}>
       <label htmlFor={`${id}-body`} className="kf-label">
         {label ?? (edit ? 'Edit your comment' : parentId ? 'Your reply' : 'Add a comment')}
       </label>
@@ -58,10 +70,9 @@ export function CommentForm({ recipeId, versionNumber, parentId, edit, onDone, l
         className="kf-input"
         rows={parentId || edit ? 3 : 4}
         maxLength={5000}
-        value={body}
-        onChange={(e) => setBody(e.target.value)}
-        aria-invalid={Boolean(error)}
+        aria-invalid={Boolean(errors.body) || undefined}
         aria-describedby={`${id}-hint${error ? ` ${id}-error` : ''}`}
+        {...register('body')}
       />
       <p id={`${id}-hint`} className="mt-1 font-sans text-xs text-muted">
         Markdown works: **bold**, _italic_, lists and links.
@@ -72,8 +83,8 @@ export function CommentForm({ recipeId, versionNumber, parentId, edit, onDone, l
         </p>
       )}
       <div className="mt-2 flex gap-2 font-sans text-sm">
-        <button type="submit" className="kf-btn" disabled={send.isPending || body.trim() === ''}>
-          {send.isPending ? 'Sending…' : edit ? 'Save' : parentId ? 'Reply' : 'Post comment'}
+        <button type="submit" className="kf-btn" disabled={isSubmitting || !body || body.trim() === ''}>
+          {isSubmitting ? 'Sending…' : edit ? 'Save' : parentId ? 'Reply' : 'Post comment'}
         </button>
         {onDone && (
           <button type="button" className="kf-btn-quiet" onClick={onDone}>

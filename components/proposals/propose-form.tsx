@@ -1,10 +1,20 @@
 'use client';
 
-import { useMutation } from '@tanstack/react-query';
+import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'next/navigation';
 import { useId, useState } from 'react';
+import { useForm, useWatch } from 'react-hook-form';
 import { toast } from 'sonner';
-import { sendJson } from '@/lib/http/client';
+import type { z } from 'zod';
+import { onlyFields, showRefusal } from '@/components/form-errors';
+import { describedBy } from '@/components/form-field';
+import { requestJson } from '@/lib/http/client';
+import { openProposalSchema } from '@/lib/proposals/schemas';
+
+type Input = z.input<typeof openProposalSchema>;
+type Output = z.output<typeof openProposalSchema>;
+
+const MARKDOWN_HINT = 'Markdown works: **bold**, _italic_, lists and links.';
 
 export interface ProposeTarget {
   recipeId: string;
@@ -25,19 +35,33 @@ export function ProposeForm({
   const id = useId();
   const router = useRouter();
   const [open, setOpen] = useState(false);
-  const [sourceRecipeId, setSourceRecipeId] = useState(targets[0].recipeId);
-  const [title, setTitle] = useState('');
-  const [description, setDescription] = useState('');
-  const [error, setError] = useState<string>();
-  const send = useMutation({
-    mutationFn: () =>
-      sendJson<{ id: string }>('/api/proposals', 'POST', { versionId, sourceRecipeId, title, description }),
-    onSuccess: (res) => {
-      toast.success('Proposed. The owner has been told.');
-      router.push(`/proposals/${res.id}`);
-    },
-    onError: (err) => setError(err.message),
+  const [formError, setFormError] = useState<string>();
+  const { register, handleSubmit, setError, control, formState } = useForm<Input, unknown, Output>({
+    resolver: zodResolver(openProposalSchema),
+    defaultValues: { versionId, sourceRecipeId: targets[0].recipeId, title: '', description: '' },
   });
+  const { errors, isSubmitting } = formState;
+  const title = useWatch({ control, name: 'title' });
+  const placeable = targets.length > 1 ? ['sourceRecipeId', 'title', 'description'] : ['title', 'description'];
+
+  const onSubmit = handleSubmit(async (values) => {
+    setFormError(undefined);
+    const result = await requestJson<{ id: string }>('/api/proposals', 'POST', values);
+    if (!result.ok) {
+      setFormError(showRefusal(setError, result, onlyFields(...placeable)));
+      return;
+    }
+    toast.success('Proposed. The owner has been told.');
+    router.push(`/proposals/${result.data.id}`);
+  });
+
+  const fieldError = (name: 'sourceRecipeId' | 'title' | 'description') =>
+    errors[name] && (
+      <p id={`${id}-${name}-error`} role="alert" className="kf-field-error">
+        {errors[name].message}
+      </p>
+    );
+
   return (
     <div className="font-sans text-sm">
       <button
@@ -50,28 +74,21 @@ export function ProposeForm({
         Propose to the original
       </button>
       {open && (
-        <form
-          id={`${id}-form`}
-          className="kf-card mt-3 max-w-xl"
-          onSubmit={(e) => {
-            e.preventDefault();
-            setError(undefined);
-            send.mutate();
-          }}
-        >
+        <form id={`${id}-form`} className="kf-card mt-3 max-w-xl" noValidate onSubmit={onSubmit}>
           <p className="text-muted">
             Offer version {number} back. The owner sees exactly what changed and can take it in, with you credited.
           </p>
           {targets.length > 1 ? (
             <>
-              <label htmlFor={`${id}-target`} className="kf-label mt-3">
+              <label htmlFor={`${id}-sourceRecipeId`} className="kf-label mt-3">
                 Propose to
               </label>
               <select
-                id={`${id}-target`}
+                id={`${id}-sourceRecipeId`}
                 className="kf-input"
-                value={sourceRecipeId}
-                onChange={(e) => setSourceRecipeId(e.target.value)}
+                aria-invalid={Boolean(errors.sourceRecipeId) || undefined}
+                aria-describedby={describedBy(`${id}-sourceRecipeId`, errors.sourceRecipeId?.message)}
+                {...register('sourceRecipeId')}
               >
                 {targets.map((t) => (
                   <option key={t.recipeId} value={t.recipeId}>
@@ -79,6 +96,7 @@ export function ProposeForm({
                   </option>
                 ))}
               </select>
+              {fieldError('sourceRecipeId')}
             </>
           ) : (
             <p className="mt-3">
@@ -91,12 +109,14 @@ export function ProposeForm({
           <input
             id={`${id}-title`}
             className="kf-input"
-            value={title}
-            onChange={(e) => setTitle(e.target.value)}
             maxLength={120}
             required
             placeholder="A hotter mash for more body"
+            aria-invalid={Boolean(errors.title) || undefined}
+            aria-describedby={describedBy(`${id}-title`, errors.title?.message)}
+            {...register('title')}
           />
+          {fieldError('title')}
           <label htmlFor={`${id}-description`} className="kf-label mt-3">
             What changed and why
           </label>
@@ -105,17 +125,21 @@ export function ProposeForm({
             className="kf-input"
             rows={4}
             maxLength={5000}
-            value={description}
-            onChange={(e) => setDescription(e.target.value)}
+            aria-invalid={Boolean(errors.description) || undefined}
+            aria-describedby={describedBy(`${id}-description`, errors.description?.message, MARKDOWN_HINT)}
+            {...register('description')}
           />
-          <p className="mt-1 text-xs text-muted">Markdown works: **bold**, _italic_, lists and links.</p>
-          {error && (
+          <p id={`${id}-description-hint`} className="mt-1 text-xs text-muted">
+            {MARKDOWN_HINT}
+          </p>
+          {fieldError('description')}
+          {formError && (
             <p role="alert" className="kf-field-error">
-              {error}
+              {formError}
             </p>
           )}
-          <button type="submit" className="kf-btn mt-3" disabled={send.isPending || title.trim() === ''}>
-            {send.isPending ? 'Sending…' : 'Send proposal'}
+          <button type="submit" className="kf-btn mt-3" disabled={isSubmitting || !title || title.trim() === ''}>
+            {isSubmitting ? 'Sending…' : 'Send proposal'}
           </button>
         </form>
       )}

@@ -1,22 +1,28 @@
 import { describe, expect, it } from 'vitest';
 import paleAle from '@/lib/brewing/examples/pale-ale.json';
-import { editorFormSchema, newHop, placeServerIssues, withoutEmpty } from './editor-form';
+import { setServerErrors } from '@/components/form-errors';
+import { editorFieldFor, editorFormSchema, newHop, withoutEmpty } from './editor-form';
 
-describe('placeServerIssues', () => {
-  it('keeps paths that name an input and sends the rest to the summary', () => {
-    const { placed, unplaced } = placeServerIssues([
-      { path: 'document.hops.2.alphaPct', message: 'Alpha acid must be at most 30%' },
-      { path: 'document.fermentables', message: 'Fermentables total 40 kg, too much' },
-      { path: 'message', message: 'Say in a few words what changed.' },
-      { path: 'document.style.code', message: 'Style code cannot be empty' },
-      { path: 'document', message: 'Recipe must be an object' },
-      { path: 'baseVersionId', message: 'The version you started from must be a version id.' },
-    ]);
-    expect(placed.map((issue) => issue.path)).toEqual([
-      'document.hops.2.alphaPct',
-      'document.fermentables',
-      'message',
-      'document.style',
+describe('editorFieldFor with setServerErrors', () => {
+  it('marks paths that name an input and sends the rest to the summary', () => {
+    const marked: Array<[string, string | undefined]> = [];
+    const unplaced = setServerErrors(
+      (name, error) => marked.push([name, error.message]),
+      [
+        { path: 'document.hops.2.alphaPct', message: 'Alpha acid must be at most 30%' },
+        { path: 'document.fermentables', message: 'Fermentables total 40 kg, too much' },
+        { path: 'message', message: 'Say in a few words what changed.' },
+        { path: 'document.style.code', message: 'Style code cannot be empty' },
+        { path: 'document', message: 'Recipe must be an object' },
+        { path: 'baseVersionId', message: 'The version you started from must be a version id.' },
+      ],
+      editorFieldFor,
+    );
+    expect(marked).toEqual([
+      ['document.hops.2.alphaPct', 'Alpha acid must be at most 30%'],
+      ['document.fermentables', 'Fermentables total 40 kg, too much'],
+      ['message', 'Say in a few words what changed.'],
+      ['document.style', 'Style code cannot be empty'],
     ]);
     expect(unplaced.map((issue) => issue.path)).toEqual(['document', 'baseVersionId']);
   });

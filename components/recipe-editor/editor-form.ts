@@ -95,11 +95,6 @@ export function newCarbonation(): NonNullable<RecipeDocumentInput['carbonation']
   return { volumesCO2: emptyNumber(), servingTempC: emptyNumber() };
 }
 
-export interface ServerFieldIssue {
-  path: string;
-  message: string;
-}
-
 /** Paths the editor shows an input (or a list) for; anything else goes into the summary. */
 const PLACEABLE_PATHS: readonly RegExp[] = [
   /^(message|visibility)$/,
@@ -119,22 +114,9 @@ const PLACEABLE_PATHS: readonly RegExp[] = [
   /^document\.carbonation\.(volumesCO2|servingTempC)$/,
 ];
 
-/** The style's code and name are one choice in the editor. */
-function editorPath(path: string): string {
-  return path.startsWith('document.style.') ? 'document.style' : path;
-}
-
-/** Splits a server's field issues into those an input can show and those only the summary can. */
-export function placeServerIssues(issues: readonly ServerFieldIssue[]): {
-  placed: ServerFieldIssue[];
-  unplaced: ServerFieldIssue[];
-} {
-  const placed: ServerFieldIssue[] = [];
-  const unplaced: ServerFieldIssue[] = [];
-  for (const issue of issues) {
-    const path = editorPath(issue.path);
-    if (PLACEABLE_PATHS.some((pattern) => pattern.test(path))) placed.push({ path, message: issue.message });
-    else unplaced.push(issue);
-  }
-  return { placed, unplaced };
+/** The editor field that shows a server path's message, or undefined when only the summary can. */
+export function editorFieldFor(serverPath: string): string | undefined {
+  // The style's code and name are one choice in the editor.
+  const path = serverPath.startsWith('document.style.') ? 'document.style' : serverPath;
+  return PLACEABLE_PATHS.some((pattern) => pattern.test(path)) ? path : undefined;
 }

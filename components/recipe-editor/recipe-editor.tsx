@@ -6,28 +6,30 @@ import { useRouter } from 'next/navigation';
 import { useEffect, useRef, useState, useSyncExternalStore } from 'react';
 import { FormProvider, useForm, useFormContext, useFormState, useWatch, type Resolver } from 'react-hook-form';
 import { toast } from 'sonner';
+import { setServerErrors } from '@/components/form-errors';
 import { describedBy } from '@/components/form-field';
 import type { RecipeDocumentInput } from '@/lib/brewing/schema';
 import type { UnitSystem } from '@/lib/brewing/units';
+import type { FieldIssue } from '@/lib/errors';
+import { ApiError } from '@/lib/http/client';
 import type { Visibility } from '@/lib/recipes/schemas';
 import { ConflictPanel } from './conflict-panel';
-import { EditorSection, TextField, fieldId, useErrorAt, type EditorPath } from './editor-fields';
+import { EditorSection, TextField, fieldId, useErrorAt } from './editor-fields';
 import {
   MESSAGE_MAX_LENGTH,
+  editorFieldFor,
   editorFormSchema,
-  placeServerIssues,
   withoutEmpty,
   type CreateBody,
   type EditBody,
   type EditorValues,
-  type ServerFieldIssue,
 } from './editor-form';
 import { CarbonationSection, NotesSection, WaterSection } from './extra-sections';
 import { FitToBrewhouse } from './fit-section';
 import { FermentablesSection, HopsSection, YeastsSection } from './ingredient-sections';
 import { LiveNumbers, NumbersBar, useLiveStats } from './live-numbers';
 import { BatchSection, FermentationSection, MashSection, StyleField } from './process-sections';
-import { SaveError, saveRecipe, type HeadVersion, type SaveRequest } from './save-recipe';
+import { conflictingHead, saveRecipe, type HeadVersion, type SaveRequest } from './save-recipe';
 
 export interface RecipeEditorProps {
   mode: 'create' | 'edit';
@@ -60,23 +62,13 @@ const VISIBILITY_CHOICES: readonly { value: Visibility; label: string; hint: str
   { value: 'private', label: 'Only you', hint: 'You can share it later.' },
 ];
 
-function alertFor(error: SaveError): FormAlert | null {
-  const serverMessage = error.body?.error?.message;
-  switch (error.status) {
-    case 401:
-      return {
-        message: 'You are signed out. Sign in again in a new tab, then save here: your changes stay in this form.',
-        signIn: true,
-      };
-    case 403:
-      return { message: serverMessage ?? 'You cannot save changes to this recipe.' };
-    case 404:
-      return { message: serverMessage ?? 'This recipe no longer exists, or is no longer visible to you.' };
-    default:
-      return error.status >= 400 && error.status < 500
-        ? { message: serverMessage ?? 'The recipe could not be saved.' }
-        : null;
-  }
+function alertFor(error: ApiError): FormAlert | null {
+  if (error.status === 401)
+    return {
+      message: 'You are signed out. Sign in again in a new tab, then save here: your changes stay in this form.',
+      signIn: true,
+    };
+  return error.status >= 400 && error.status < 500 ? { message: error.summary } : null;
 }
 
 // false in the server's HTML and while hydrating, true once React runs in the browser.
@@ -134,15 +126,13 @@ export function RecipeEditor({
     if (alert) alertBox.current?.focus();
   }, [alert]);
 
-  const showServerIssues = (fields: ServerFieldIssue[], message: string | undefined) => {
-    const { placed, unplaced } = placeServerIssues(fields);
-    for (const issue of placed) form.setError(issue.path as EditorPath, { type: 'server', message: issue.message });
+  const showServerIssues = (fields: FieldIssue[], message: string) => {
+    const unplaced = setServerErrors(form.setError, fields, editorFieldFor);
+    const placed = fields.length - unplaced.length;
     setAlert({
-      message: message ?? 'Some fields need a fix before the recipe can be saved.',
+      message,
       details: [
-        ...(placed.length > 0
-          ? [`${placed.length === 1 ? 'One field is' : `${placed.length} fields are`} marked below.`]
-          : []),
+        ...(placed > 0 ? [`${placed === 1 ? 'One field is' : `${placed} fields are`} marked below.`] : []),
         ...unplaced.map((issue) => issue.message),
       ],
     });
@@ -158,20 +148,20 @@ export function RecipeEditor({
       );
     },
     onError: (error) => {
-      if (!(error instanceof SaveError) || error.status === 0 || error.status >= 500) {
+      if (!(error instanceof ApiError) || error.status === 0 || error.status >= 500) {
         toast.error(
           'Saving did not work: the server did not answer. Your changes are still here; try again in a moment.',
         );
         return;
       }
-      const body = error.body?.error;
       if (error.status === 400) {
-        showServerIssues(body?.fields ?? [], body?.message);
+        showServerIssues(error.fields, error.summary);
         return;
       }
-      if (error.status === 409 && body?.details?.head) {
+      const head = conflictingHead(error);
+      if (head) {
         setBase(attemptedBase.current);
-        setConflict(body.details.head);
+        setConflict(head);
         return;
       }
       setAlert(alertFor(error));

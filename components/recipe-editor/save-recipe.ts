@@ -1,6 +1,6 @@
 import type { RecipeDocument } from '@/lib/brewing/schema';
+import { ApiError, sendJson } from '@/lib/http/client';
 import type { Visibility } from '@/lib/recipes/schemas';
-import type { ServerFieldIssue } from './editor-form';
 
 export interface SavedVersion {
   recipe: { id: string; slug: string };
@@ -17,46 +17,20 @@ export interface HeadVersion {
   document: RecipeDocument;
 }
 
-export interface ApiErrorBody {
-  error?: {
-    code?: string;
-    message?: string;
-    fields?: ServerFieldIssue[];
-    details?: { head?: HeadVersion };
-  };
-}
-
-/** A refused save; status 0 when the request never got an answer. */
-export class SaveError extends Error {
-  constructor(
-    readonly status: number,
-    readonly body: ApiErrorBody | null,
-  ) {
-    super(
-      body?.error?.message ?? (status === 0 ? 'The network did not answer' : `Saving failed with status ${status}`),
-    );
-    this.name = 'SaveError';
-  }
-}
-
 export type SaveRequest =
   | { mode: 'create'; body: { document: RecipeDocument; visibility: Visibility; message: string } }
   | { mode: 'edit'; recipeId: string; body: { document: RecipeDocument; baseVersionId: string; message: string } };
 
-export async function saveRecipe(request: SaveRequest): Promise<SavedVersion> {
+/** Saves a new recipe or version; a refusal throws an `ApiError` (status 0 when nothing answered). */
+export function saveRecipe(request: SaveRequest): Promise<SavedVersion> {
   const url =
     request.mode === 'create' ? '/api/recipes' : `/api/recipes/${encodeURIComponent(request.recipeId)}/versions`;
-  let response: Response;
-  try {
-    response = await fetch(url, {
-      method: 'POST',
-      headers: { 'content-type': 'application/json' },
-      body: JSON.stringify(request.body),
-    });
-  } catch {
-    throw new SaveError(0, null);
-  }
-  if (!response.ok)
-    throw new SaveError(response.status, (await response.json().catch(() => null)) as ApiErrorBody | null);
-  return (await response.json()) as SavedVersion;
+  return sendJson<SavedVersion>(url, 'POST', request.body);
+}
+
+/** The head a refused save (409) names: the version saved meanwhile, which the editor compares against. */
+export function conflictingHead(error: ApiError): HeadVersion | undefined {
+  if (error.status !== 409) return undefined;
+  const head = (error.details as { head?: HeadVersion } | null | undefined)?.head;
+  return head && typeof head.id === 'string' ? head : undefined;
 }

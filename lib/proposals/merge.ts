@@ -1,5 +1,6 @@
 import type { RecipeDocument } from '@/lib/brewing';
 import { describeMergePath } from './merge-words';
+import type { FieldIssue } from '@/lib/errors';
 
 /**
  * A field-level three-way merge of two recipe documents that share an ancestor: `base` (the
@@ -41,14 +42,9 @@ export interface MergeResult {
   inputs: { base: RecipeDocument; ours: RecipeDocument; theirs: RecipeDocument };
 }
 
-export interface MergePickIssue {
-  path: string;
-  message: string;
-}
-
 /** A pick that names no conflict, or a conflict left without a pick. */
 export class MergePickError extends Error {
-  constructor(readonly issues: MergePickIssue[]) {
+  constructor(readonly issues: FieldIssue[]) {
     super(issues.map((i) => `${i.path}: ${i.message}`).join('; '));
     this.name = 'MergePickError';
   }
@@ -275,7 +271,7 @@ export function mergeDocuments(base: RecipeDocument, ours: RecipeDocument, their
  */
 export function resolveMerge(result: MergeResult, picks: Readonly<Record<string, string>>): RecipeDocument {
   const open = new Set(result.conflicts.map((c) => c.path));
-  const issues: MergePickIssue[] = [];
+  const issues: FieldIssue[] = [];
   for (const [path, side] of Object.entries(picks)) {
     if (!open.has(path))
       issues.push({

@@ -39,6 +39,16 @@ export const forkSchema = z.object({
     .min(1, 'Give your fork a title.')
     .max(120, 'Keep the title under 120 characters.'),
   visibility: visibilitySchema.default('public'),
+  /** The copy fitted to the member's brewhouse, saved as the fork's second version in the same transaction. */
+  fitted: recipeDocumentSchema.optional(),
+});
+
+/** POST /api/import and the import page: a BeerXML or BeerJSON file's text, read for a preview. */
+export const importFileSchema = z.object({
+  format: z.enum(['beerxml', 'beerjson'], { error: 'Format must be beerxml or beerjson.' }).optional(),
+  text: z
+    .string({ error: 'Paste the text of a BeerXML or BeerJSON file.' })
+    .min(1, 'Paste the text of a BeerXML or BeerJSON file.'),
 });
 
 export const updateRecipeSchema = z.object({ visibility: visibilitySchema });

@@ -416,7 +416,7 @@ export async function getVersionsByRecipeId({ recipeId }: { recipeId: string }):
 export async function forkRecipe(
   viewer: Viewer,
   versionId: string,
-  input: { title: string; visibility: Visibility },
+  input: { title: string; visibility: Visibility; fitted?: RecipeDocument },
 ): Promise<SavedVersion> {
   const source = await getVersionById(viewer, versionId);
   const document = recipeDocumentSchema.parse({ ...source.version.document, title: input.title });
@@ -433,11 +433,19 @@ export async function forkRecipe(
       .set({ forkCount: sql`${recipes.forkCount} + 1` })
       .where(eq(recipes.id, source.recipe.id));
     await recordRecipeChange(tx, source.recipe.id);
-    return created;
+    if (!input.fitted) return created;
+    // The fork first holds the version as it was, so its history shows what fitting changed.
+    return saveVersionInTransaction(tx, viewer, created.recipe.id, {
+      document: { ...input.fitted, title: input.title },
+      baseVersionId: created.version.id,
+      message: FITTED_MESSAGE,
+    });
   });
   afterRecipeCommit();
   return saved;
 }
+
+const FITTED_MESSAGE = 'Fitted to my brewhouse';
 
 /** The owner changes who can see a recipe. */
 export async function setVisibility(viewer: Viewer, recipeId: string, visibility: Visibility): Promise<void> {

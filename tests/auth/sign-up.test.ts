@@ -6,8 +6,9 @@ import { TestClient } from '../helpers/http';
 import { appLog } from '../helpers/env';
 import { waitForMail } from '../helpers/mail';
 import { uniqueEmail } from '../helpers/users';
+import type { FieldIssue } from '@/lib/errors';
 
-type ApiError = { error: { code: string; message: string; fields: { path: string; message: string }[] } };
+type ApiError = { error: { code: string; message: string; fields: FieldIssue[] } };
 
 async function userCount(): Promise<number> {
   const [{ n }] = await db.select({ n: count() }).from(users);

@@ -7,6 +7,7 @@ import { brewDays, photos } from '@/db/schema';
 import { eq, sql } from 'drizzle-orm';
 import type { TestClient } from '../helpers/http';
 import { createRecipeVia, paleAle } from '../helpers/recipes';
+import type { FieldIssue } from '@/lib/errors';
 
 const S3_ENDPOINT = process.env.S3_ENDPOINT ?? 'http://127.0.0.1:4570';
 const bucket = process.env.S3_BUCKET ?? 'kettlefork-photos';
@@ -119,7 +120,7 @@ export async function uploadVia(
   if (opts.caption !== undefined) form.append('caption', opts.caption);
   const res = await client.fetch(`/api/brew-days/${brewDayId}/photos`, { method: 'POST', body: form });
   const text = await res.text();
-  let body: { id?: string; error?: { message: string; fields?: { path: string; message: string }[] } } = {};
+  let body: { id?: string; error?: { message: string; fields?: FieldIssue[] } } = {};
   try {
     body = JSON.parse(text);
   } catch {

@@ -10,8 +10,9 @@ import { signedInClient } from '../helpers/users';
 import { createRecipeVia, paleAle, saveVia } from '../helpers/recipes';
 import { TestClient } from '../helpers/http';
 import { brewDayRow, brewDayVia, today } from './fixtures';
+import type { FieldIssue } from '@/lib/errors';
 
-type Fields = { path: string; message: string }[];
+type Fields = FieldIssue[];
 type ErrorBody = { error: { message: string; fields: Fields } };
 const paths = (body: unknown) => ((body as ErrorBody).error?.fields ?? []).map((f) => f.path);
 

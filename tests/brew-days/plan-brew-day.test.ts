@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { signedInClient } from '../helpers/users';
 import { brewDayRow, brewDayVia, today } from './fixtures';
+import type { FieldIssue } from '@/lib/errors';
 
-type ErrorBody = { error: { message: string; fields: { path: string; message: string }[] } };
+type ErrorBody = { error: { message: string; fields: FieldIssue[] } };
 
 /** Unfolds an iCalendar text (RFC 5545 §3.1) into its content lines, checking each component closes. */
 function parseIcs(text: string): { name: string; props: Record<string, string> }[] {
@@ -51,7 +52,9 @@ describe('planning a brew day back from the pour date', () => {
     const events = components.filter((c) => c.name === 'VEVENT');
     expect(events).toHaveLength(res.body.events.length);
     expect(events[0].props['DTSTART;VALUE=DATE']).toBe(today(1).replaceAll('-', ''));
-    for (const e of events) expect(e.props.UID).toBeTruthy();
+    // RFC 5545 (iCalendar, 2009), 3.8.4.7: every event has a UID, unique to it.
+    for (const e of events) expect(e.props.UID).toMatch(/\S/);
+    expect(new Set(events.map((e) => e.props.UID)).size).toBe(events.length);
   });
 
   it('refuses a pour date in the past, naming the field, and keeps the saved plan', async () => {

@@ -4,7 +4,6 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { db } from '@/db';
 import { moderationActions, photos } from '@/db/schema';
 import { PHOTO_QUOTA_COUNT, uploadPhoto } from '@/lib/brew-days/photos';
-import { BASE_URL } from '../helpers/env';
 import { TestClient } from '../helpers/http';
 import { signedInClient } from '../helpers/users';
 import {
@@ -278,6 +277,11 @@ describe('photo uploads', () => {
     expect(page).toContain(`/api/photos/${up.body.id}/thumb`);
     const member = await (await new TestClient().fetch(`/members/${owner.user.handle}`)).text();
     expect(member).toContain(`/brew-days/${day}`);
-    expect(BASE_URL).toBeTruthy();
+    expect(member).toContain(`/api/photos/${up.body.id}/thumb`);
+    // The thumbnail both pages show is served to a reader who is not signed in, as a JPEG.
+    const thumb = await new TestClient().fetch(`/api/photos/${up.body.id}/thumb`);
+    expect(thumb.status).toBe(200);
+    expect(thumb.headers.get('content-type')).toBe('image/jpeg');
+    expect([...new Uint8Array(await thumb.arrayBuffer()).slice(0, 3)]).toEqual([0xff, 0xd8, 0xff]);
   });
 });

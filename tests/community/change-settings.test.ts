@@ -5,6 +5,7 @@ import { users } from '@/db/schema';
 import { TestClient } from '../helpers/http';
 import { signedInClient } from '../helpers/users';
 import { textOf } from './helpers';
+import type { FieldIssue } from '@/lib/errors';
 
 const valid = {
   name: 'Settled Brewer',
@@ -46,7 +47,7 @@ describe('member settings', () => {
 
   it('refuses bad input with a message per field and changes nothing', async () => {
     const { client, user } = await signedInClient();
-    const res = await client.put<{ error: { fields: { path: string; message: string }[] } }>('/api/me/settings', {
+    const res = await client.put<{ error: { fields: FieldIssue[] } }>('/api/me/settings', {
       ...valid,
       name: '',
       units: 'imperial',

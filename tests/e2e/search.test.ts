@@ -15,6 +15,9 @@ function brews(word: string): Record<'pale' | 'strong' | 'lager', RecipeDocument
   return { pale: paleAle({ title: `Tidewater ${word} Pale` }), strong, lager };
 }
 
+/** New results follow a search request and a render; on a busy two-core machine that takes more than poll's default second. */
+const RESULTS_WAIT = { timeout: 10_000 };
+
 describe('finding recipes in a real browser', { timeout: 120_000 }, () => {
   let s: BrowserSession;
   const word = uniqueWord('tw');
@@ -38,7 +41,7 @@ describe('finding recipes in a real browser', { timeout: 120_000 }, () => {
     await page.goto('/search');
     await page.getByLabel('Search recipes').pressSequentially(word, { delay: 30 });
     await page.waitForURL((url) => url.searchParams.get('q') === word);
-    await expect.poll(() => heading().textContent()).toBe('3 recipes');
+    await expect.poll(() => heading().textContent(), RESULTS_WAIT).toBe('3 recipes');
 
     const hops = page.locator('section', { has: page.getByRole('heading', { name: 'Hops', exact: true }) });
     // The box follows the address, which changes a moment after the click: click, then wait for both.
@@ -46,12 +49,12 @@ describe('finding recipes in a real browser', { timeout: 120_000 }, () => {
     await cascade.click();
     await page.waitForURL((url) => url.searchParams.getAll('hop').includes('Cascade'));
     await expect.poll(() => cascade.isChecked()).toBe(true);
-    await expect.poll(() => heading().textContent()).toBe('2 recipes');
+    await expect.poll(() => heading().textContent(), RESULTS_WAIT).toBe('2 recipes');
 
     await page.getByLabel('ABV from').fill('6.5');
     await page.getByLabel('ABV from').press('Enter');
     await page.waitForURL((url) => url.searchParams.get('abvMin') === '6.5');
-    await expect.poll(() => heading().textContent()).toBe('1 recipe');
+    await expect.poll(() => heading().textContent(), RESULTS_WAIT).toBe('1 recipe');
     await s.shot('search-narrowed');
     const sharedUrl = page.url();
     expect(new URL(sharedUrl).searchParams.getAll('hop')).toEqual(['Cascade']);
@@ -60,7 +63,7 @@ describe('finding recipes in a real browser', { timeout: 120_000 }, () => {
     await page.waitForURL(`**/recipes/${strongSlug}`);
     await page.goBack();
     await page.waitForURL(sharedUrl);
-    await expect.poll(() => heading().textContent()).toBe('1 recipe');
+    await expect.poll(() => heading().textContent(), RESULTS_WAIT).toBe('1 recipe');
     expect(await page.getByLabel('Search recipes').inputValue()).toBe(word);
     expect(await hops.getByRole('checkbox', { name: /^Cascade\b/ }).isChecked()).toBe(true);
     expect(await page.getByLabel('ABV from').inputValue()).toBe('6.5');
@@ -70,11 +73,11 @@ describe('finding recipes in a real browser', { timeout: 120_000 }, () => {
     await page.waitForURL(
       (url) => url.searchParams.get('abvMin') === null && url.searchParams.get('hop') === 'Cascade',
     );
-    await expect.poll(() => heading().textContent()).toBe('2 recipes');
+    await expect.poll(() => heading().textContent(), RESULTS_WAIT).toBe('2 recipes');
 
     // The shared address, opened afresh, shows the same search.
     await page.goto(sharedUrl);
-    await expect.poll(() => heading().textContent()).toBe('1 recipe');
+    await expect.poll(() => heading().textContent(), RESULTS_WAIT).toBe('1 recipe');
     await page.getByRole('link', { name: `Tidewater ${word} Strong Pale` }).waitFor();
     expect(s.problems).toEqual([]);
   });
@@ -82,18 +85,18 @@ describe('finding recipes in a real browser', { timeout: 120_000 }, () => {
   it('offers a way out of an empty search and a plain note for a broken address', async () => {
     const { page } = s;
     await page.goto(`/search?q=${word}&hop=Saaz&hop=Cascade`);
-    await expect.poll(() => heading().textContent()).toBe('0 recipes');
+    await expect.poll(() => heading().textContent(), RESULTS_WAIT).toBe('0 recipes');
     const loosen = page.getByRole('button', { name: /^Remove the Cascade filter: 1 recipe$/ });
     await loosen.waitFor();
     await s.shot('search-empty');
     await loosen.click();
-    await expect.poll(() => heading().textContent()).toBe('1 recipe');
+    await expect.poll(() => heading().textContent(), RESULTS_WAIT).toBe('1 recipe');
     expect(new URL(page.url()).searchParams.getAll('hop')).toEqual(['Saaz']);
 
     await page.goto(`/search?q=${word}&abvMin=9&abvMax=3`);
     await page.getByText('could not be used').waitFor();
     expect(await page.getByText('Lowest ABV must not be greater than highest ABV').count()).toBe(1);
-    await expect.poll(() => heading().textContent()).toBe('3 recipes');
+    await expect.poll(() => heading().textContent(), RESULTS_WAIT).toBe('3 recipes');
     expect(s.problems).toEqual([]);
   });
 

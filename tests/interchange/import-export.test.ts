@@ -5,6 +5,7 @@ import { checkBeerJsonSchema } from '@/lib/interchange/beerjson/schema';
 import { TestClient } from '../helpers/http';
 import { createRecipeVia, paleAle } from '../helpers/recipes';
 import { signedInClient } from '../helpers/users';
+import type { FieldIssue } from '@/lib/errors';
 
 const example = (name: string) =>
   readFileSync(new URL(`../../lib/interchange/examples/${name}`, import.meta.url), 'utf8');
@@ -14,7 +15,7 @@ interface Preview {
   recipes: { document: RecipeDocument; stats: RecipeStats; dropped: string[]; guessed: string[] }[];
 }
 interface ErrorBody {
-  error: { code: string; message: string; fields?: { path: string; message: string }[] };
+  error: { code: string; message: string; fields?: FieldIssue[] };
 }
 
 async function recipeCount(client: TestClient, handle: string): Promise<number> {

@@ -2,12 +2,13 @@ import type { RecipeDocumentInput } from '@/lib/brewing';
 import type { TestClient } from '../helpers/http';
 import { createRecipeVia, paleAle, saveVia, type Saved } from '../helpers/recipes';
 import { signedInClient } from '../helpers/users';
+import type { FieldIssue } from '@/lib/errors';
 
 export interface ApiError {
   error: {
     code: string;
     message: string;
-    fields?: { path: string; message: string }[];
+    fields?: FieldIssue[];
     details?: { head?: { id: string; number: number } };
   };
 }

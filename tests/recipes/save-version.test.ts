@@ -5,6 +5,7 @@ import { recipeVersions, recipes } from '@/db/schema';
 import { computeStats, recipeDocumentSchema } from '@/lib/brewing';
 import { createRecipeVia, paleAle, saveVia } from '../helpers/recipes';
 import { signedInClient } from '../helpers/users';
+import type { FieldIssue } from '@/lib/errors';
 
 describe('saving versions', () => {
   it('numbers versions 1, 2, 3 and moves the head, storing the numbers the engine computes', async () => {
@@ -88,7 +89,7 @@ describe('saving versions', () => {
     (bad.fermentables[0] as { amountKg: unknown }).amountKg = 'lots';
     const res = await saveVia(client, created.recipe.id, created.version.id, bad, '');
     expect(res.status).toBe(400);
-    const fields = (res.body as unknown as { error: { fields: { path: string; message: string }[] } }).error.fields;
+    const fields = (res.body as unknown as { error: { fields: FieldIssue[] } }).error.fields;
     const byPath = Object.fromEntries(fields.map((f) => [f.path, f.message]));
     expect(byPath['document.hops.0.alphaPct']).toMatch(/at most 30%/);
     expect(byPath['document.batch.volumeL']).toMatch(/at least 0.1 L/);

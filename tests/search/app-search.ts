@@ -1,8 +1,9 @@
 import type { RecipeSearchResponse } from '@/lib/search/client';
 import type { TestClient } from '../helpers/http';
+import type { FieldIssue } from '@/lib/errors';
 
 export type SearchBody = RecipeSearchResponse & {
-  error?: { code: string; message: string; fields: Array<{ path: string; message: string }> };
+  error?: { code: string; message: string; fields: FieldIssue[] };
 };
 
 /** A word no other test's recipe holds, so searches for it see only this test's recipes. */

@@ -2,8 +2,9 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import type { TestClient } from '../helpers/http';
 import { createRecipeVia, paleAle, saveVia, type Saved } from '../helpers/recipes';
 import { signedInClient } from '../helpers/users';
+import type { FieldIssue } from '@/lib/errors';
 
-type ApiError = { error: { code: string; fields?: { path: string; message: string }[] } };
+type ApiError = { error: { code: string; fields?: FieldIssue[] } };
 
 // PostgreSQL stores neither a NUL character in text or JSONB nor a lone UTF-16 surrogate; either
 // in any field must be a 400 naming the field, never a 500, and must save nothing.

@@ -1,19 +1,12 @@
 import { NextResponse } from 'next/server';
-import { z } from 'zod';
 import { computeStats } from '@/lib/brewing';
 import { AppError, invalidInput } from '@/lib/errors';
 import { route } from '@/lib/http/route';
 import { InterchangeError, MAX_IMPORT_BYTES, parseRecipeFile, readLimitedText } from '@/lib/interchange';
+import { importFileSchema } from '@/lib/recipes/schemas';
 
 /** The JSON wrapping (quotes and escapes around the file's text) may add a little to the file's own size. */
 const MAX_BODY_BYTES = Math.ceil(MAX_IMPORT_BYTES * 1.25);
-
-const importSchema = z.object({
-  format: z.enum(['beerxml', 'beerjson'], { error: 'Format must be beerxml or beerjson.' }).optional(),
-  text: z
-    .string({ error: 'Paste the text of a BeerXML or BeerJSON file.' })
-    .min(1, 'Paste the text of a BeerXML or BeerJSON file.'),
-});
 
 // POST /api/import – read a BeerXML or BeerJSON file and preview its recipes with recomputed numbers (nothing is saved)
 export const POST = route({ access: 'user' }, async ({ req }) => {
@@ -32,7 +25,7 @@ export const POST = route({ access: 'user' }, async ({ req }) => {
   } catch {
     throw new AppError('bad_request', 'request body', 'The request body is not valid JSON.');
   }
-  const parsed = importSchema.safeParse(json);
+  const parsed = importFileSchema.safeParse(json);
   if (!parsed.success) throw invalidInput(parsed.error);
   try {
     const { format, recipes } = parseRecipeFile(parsed.data.text, parsed.data.format);

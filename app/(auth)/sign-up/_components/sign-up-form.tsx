@@ -6,6 +6,7 @@ import { signIn } from 'next-auth/react';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
+import { onlyFields, setServerErrors } from '@/components/form-errors';
 import { FormField, describedBy } from '@/components/form-field';
 import { meKeys } from '@/hooks/use-me';
 import { requestJson } from '@/lib/http/client';
@@ -22,9 +23,7 @@ export function SignUpForm() {
     setFormError(undefined);
     const result = await requestJson('/api/accounts', 'POST', values);
     if (!result.ok) {
-      for (const f of result.fields) {
-        if (f.path === 'name' || f.path === 'email' || f.path === 'password') setError(f.path, { message: f.message });
-      }
+      setServerErrors(setError, result.fields, onlyFields('name', 'email', 'password'));
       if (!result.fields.length) setFormError(result.message);
       return;
     }

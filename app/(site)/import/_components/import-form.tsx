@@ -1,13 +1,19 @@
 'use client';
 
-import { useMutation } from '@tanstack/react-query';
+import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
+import { useForm, useWatch, type Resolver } from 'react-hook-form';
 import { toast } from 'sonner';
+import { z } from 'zod';
+import { onlyFields, setServerErrors } from '@/components/form-errors';
+import { describedBy } from '@/components/form-field';
 import { Markdown } from '@/components/markdown';
 import { RecipeDocumentView } from '@/components/recipe-document';
 import { StatsPanel } from '@/components/stats-panel';
 import type { RecipeDocument, RecipeStats, UnitSystem } from '@/lib/brewing';
+import { requestJson } from '@/lib/http/client';
+import { importFileSchema, updateRecipeSchema } from '@/lib/recipes/schemas';
 
 interface PreviewRecipe {
   document: RecipeDocument;
@@ -21,22 +27,24 @@ interface Preview {
   recipes: PreviewRecipe[];
 }
 
-interface ApiError {
-  error?: { message: string; fields?: { path: string; message: string }[] };
-}
+/** The preview form: "work it out" is an empty choice, which the request leaves out. */
+type FileValues = { text: string; format: '' | 'beerxml' | 'beerjson' };
+type FileRequest = z.output<typeof importFileSchema>;
+
+/** Where to save: a new recipe (with who may see it), or a new version of one of the member's recipes. */
+const saveChoiceSchema = updateRecipeSchema.extend({ target: z.string() });
+type SaveChoice = z.infer<typeof saveChoiceSchema>;
 
 const FORMAT_WORDS = { beerxml: 'BeerXML 1.0', beerjson: 'BeerJSON 1.0' } as const;
 
-async function postJson<T>(url: string, body: unknown): Promise<T> {
-  const res = await fetch(url, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json' },
-    body: JSON.stringify(body),
-  });
-  const json = (await res.json().catch(() => ({}))) as T & ApiError;
-  if (!res.ok) throw new Error(json.error?.message ?? `The request did not work (HTTP ${res.status}).`);
-  return json;
-}
+const schemaResolver = zodResolver(importFileSchema);
+/** The empty choice is sent as no format; the options only name the form's fields, which both shapes share. */
+const fileResolver: Resolver<FileValues, unknown, FileRequest> = (values, context, options) =>
+  schemaResolver(
+    { ...values, format: values.format || undefined },
+    context,
+    options as unknown as Parameters<typeof schemaResolver>[2],
+  );
 
 /** Paste or upload, preview with our numbers, choose a recipe, save it. */
 export function ImportForm({
@@ -49,38 +57,71 @@ export function ImportForm({
   ownRecipes: { id: string; title: string; headNumber: number }[];
 }) {
   const router = useRouter();
-  const [text, setText] = useState('');
-  const [format, setFormat] = useState<'' | 'beerxml' | 'beerjson'>('');
   const [fileError, setFileError] = useState<string>();
+  const [preview, setPreview] = useState<Preview>();
+  const [previewError, setPreviewError] = useState<string>();
   const [chosen, setChosen] = useState(0);
-  const [target, setTarget] = useState('new');
-  const [visibility, setVisibility] = useState<'public' | 'unlisted' | 'private'>('private');
+  const [saveError, setSaveError] = useState<string>();
 
-  const preview = useMutation({
-    mutationFn: () => postJson<Preview>('/api/import', { text, ...(format ? { format } : {}) }),
-    onSuccess: () => setChosen(0),
+  const fileForm = useForm<FileValues, unknown, FileRequest>({
+    resolver: fileResolver,
+    defaultValues: { text: '', format: '' },
+  });
+  const text = useWatch({ control: fileForm.control, name: 'text' });
+  const fileErrors = fileForm.formState.errors;
+
+  const saveForm = useForm<SaveChoice>({
+    resolver: zodResolver(saveChoiceSchema),
+    defaultValues: { target: 'new', visibility: 'private' },
+  });
+  const target = useWatch({ control: saveForm.control, name: 'target' });
+  const saveErrors = saveForm.formState.errors;
+
+  const onPreview = fileForm.handleSubmit(async (values) => {
+    setPreviewError(undefined);
+    setSaveError(undefined);
+    const result = await requestJson<Preview>('/api/import', 'POST', values);
+    if (!result.ok) {
+      setServerErrors(fileForm.setError, result.fields, onlyFields('text', 'format'));
+      setPreviewError(result.message);
+      return;
+    }
+    setPreview(result.data);
+    setChosen(0);
   });
 
-  const save = useMutation({
-    mutationFn: async () => {
-      const result = preview.data!;
-      const document = result.recipes[chosen].document;
-      const message = `Imported from ${FORMAT_WORDS[result.format]}`;
-      if (target === 'new')
-        return postJson<{ recipe: { slug: string } }>('/api/recipes', { document, visibility, message });
-      const history = await fetch(`/api/recipes/${target}/versions`).then(
-        (r) => r.json() as Promise<{ versions: { id: string }[] }>,
-      );
-      return postJson<{ recipe: { slug: string } }>(`/api/recipes/${target}/versions`, {
+  const onSave = saveForm.handleSubmit(async ({ target, visibility }) => {
+    setSaveError(undefined);
+    if (!preview) return;
+    const document = preview.recipes[chosen].document;
+    const message = `Imported from ${FORMAT_WORDS[preview.format]}`;
+    let result;
+    if (target === 'new') {
+      result = await requestJson<{ recipe: { slug: string } }>('/api/recipes', 'POST', {
         document,
-        baseVersionId: history.versions[0].id,
+        visibility,
         message,
       });
-    },
-    onSuccess: (saved) => {
-      toast.success('Imported and saved.');
-      router.push(`/recipes/${saved.recipe.slug}`);
-    },
+    } else {
+      const history = await requestJson<{ versions: { id: string }[] }>(`/api/recipes/${target}/versions`, 'GET');
+      if (!history.ok || !history.data.versions[0]) {
+        setSaveError(history.ok ? 'That recipe has no version to build on.' : history.message);
+        return;
+      }
+      result = await requestJson<{ recipe: { slug: string } }>(`/api/recipes/${target}/versions`, 'POST', {
+        document,
+        baseVersionId: history.data.versions[0].id,
+        message,
+      });
+    }
+    if (!result.ok) {
+      // Only who may see it is the member's choice here; the rest belongs to the file.
+      setServerErrors(saveForm.setError, result.fields, onlyFields('visibility'));
+      setSaveError(result.message);
+      return;
+    }
+    toast.success('Imported and saved.');
+    router.push(`/recipes/${result.data.recipe.slug}`);
   });
 
   async function readFile(file: File | undefined) {
@@ -92,24 +133,16 @@ export function ImportForm({
       );
       return;
     }
-    setText(await file.text());
-    if (/\.xml$/i.test(file.name)) setFormat('beerxml');
-    else if (/\.json$/i.test(file.name)) setFormat('beerjson');
+    fileForm.setValue('text', await file.text(), { shouldDirty: true });
+    if (/\.xml$/i.test(file.name)) fileForm.setValue('format', 'beerxml');
+    else if (/\.json$/i.test(file.name)) fileForm.setValue('format', 'beerjson');
   }
 
-  const recipes = preview.data?.recipes ?? [];
+  const recipes = preview?.recipes ?? [];
   const current = recipes[chosen];
   return (
     <div className="mt-6 space-y-8">
-      <form
-        className="kf-card space-y-4"
-        aria-label="Recipe file"
-        onSubmit={(e) => {
-          e.preventDefault();
-          save.reset();
-          preview.mutate();
-        }}
-      >
+      <form className="kf-card space-y-4" aria-label="Recipe file" noValidate onSubmit={onPreview}>
         <div>
           <label htmlFor="import-file" className="kf-label">
             Choose a file
@@ -138,11 +171,17 @@ export function ImportForm({
           <textarea
             id="import-text"
             className="kf-input min-h-48 font-mono text-sm"
-            value={text}
-            onChange={(e) => setText(e.target.value)}
             spellCheck={false}
+            aria-invalid={Boolean(fileErrors.text) || undefined}
+            aria-describedby={fileErrors.text ? 'import-text-error' : previewError ? 'import-preview-error' : undefined}
             placeholder='<RECIPES> … </RECIPES>  or  { "beerjson": … }'
+            {...fileForm.register('text')}
           />
+          {fileErrors.text && (
+            <p id="import-text-error" role="alert" className="kf-field-error">
+              {fileErrors.text.message}
+            </p>
+          )}
         </div>
         <div className="max-w-xs">
           <label htmlFor="import-format" className="kf-label">
@@ -151,21 +190,31 @@ export function ImportForm({
           <select
             id="import-format"
             className="kf-input"
-            value={format}
-            onChange={(e) => setFormat(e.target.value as typeof format)}
+            aria-invalid={Boolean(fileErrors.format) || undefined}
+            aria-describedby={describedBy('import-format', fileErrors.format?.message)}
+            {...fileForm.register('format')}
           >
             <option value="">Work it out from the text</option>
             <option value="beerxml">BeerXML 1.0</option>
             <option value="beerjson">BeerJSON 1.0</option>
           </select>
+          {fileErrors.format && (
+            <p id="import-format-error" role="alert" className="kf-field-error">
+              {fileErrors.format.message}
+            </p>
+          )}
         </div>
-        {preview.error && (
-          <p role="alert" className="rounded-md border border-danger/40 bg-danger/5 p-3 font-sans text-sm text-danger">
-            {preview.error.message}
+        {previewError && (
+          <p
+            id="import-preview-error"
+            role="alert"
+            className="rounded-md border border-danger/40 bg-danger/5 p-3 font-sans text-sm text-danger"
+          >
+            {previewError}
           </p>
         )}
-        <button type="submit" className="kf-btn" disabled={!text.trim() || preview.isPending}>
-          {preview.isPending ? 'Reading…' : 'Preview'}
+        <button type="submit" className="kf-btn" disabled={!text.trim() || fileForm.formState.isSubmitting}>
+          {fileForm.formState.isSubmitting ? 'Reading…' : 'Preview'}
         </button>
       </form>
 
@@ -208,25 +257,13 @@ export function ImportForm({
                 items={current.dropped}
               />
               <ChangeList title="Assumed" empty="Nothing: the file gave every value we need." items={current.guessed} />
-              <form
-                className="kf-card space-y-3"
-                aria-label="Save the imported recipe"
-                onSubmit={(e) => {
-                  e.preventDefault();
-                  save.mutate();
-                }}
-              >
+              <form className="kf-card space-y-3" aria-label="Save the imported recipe" noValidate onSubmit={onSave}>
                 <h3 className="text-lg font-semibold">Save it</h3>
                 <div>
                   <label htmlFor="import-target" className="kf-label">
                     Save as
                   </label>
-                  <select
-                    id="import-target"
-                    className="kf-input"
-                    value={target}
-                    onChange={(e) => setTarget(e.target.value)}
-                  >
+                  <select id="import-target" className="kf-input" {...saveForm.register('target')}>
                     <option value="new">A new recipe</option>
                     {ownRecipes.map((r) => (
                       <option key={r.id} value={r.id}>
@@ -243,22 +280,28 @@ export function ImportForm({
                     <select
                       id="import-visibility"
                       className="kf-input"
-                      value={visibility}
-                      onChange={(e) => setVisibility(e.target.value as typeof visibility)}
+                      aria-invalid={Boolean(saveErrors.visibility) || undefined}
+                      aria-describedby={describedBy('import-visibility', saveErrors.visibility?.message)}
+                      {...saveForm.register('visibility')}
                     >
                       <option value="private">Only me (you can share it later)</option>
                       <option value="unlisted">Only people with the link</option>
                       <option value="public">Everyone</option>
                     </select>
+                    {saveErrors.visibility && (
+                      <p id="import-visibility-error" role="alert" className="kf-field-error">
+                        {saveErrors.visibility.message}
+                      </p>
+                    )}
                   </div>
                 )}
-                {save.error && (
+                {saveError && (
                   <p role="alert" className="kf-field-error">
-                    {save.error.message}
+                    {saveError}
                   </p>
                 )}
-                <button type="submit" className="kf-btn" disabled={save.isPending}>
-                  {save.isPending ? 'Saving…' : 'Save'}
+                <button type="submit" className="kf-btn" disabled={saveForm.formState.isSubmitting}>
+                  {saveForm.formState.isSubmitting ? 'Saving…' : 'Save'}
                 </button>
               </form>
             </aside>

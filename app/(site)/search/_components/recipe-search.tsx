@@ -2,7 +2,8 @@
 
 import { useSearchParams } from 'next/navigation';
 import { useEffect, useMemo, useRef, useState, type FormEvent } from 'react';
-import { RecipeSearchError, useRecipeSearch } from '@/hooks/use-recipe-search';
+import { searchUnavailable, useRecipeSearch } from '@/hooks/use-recipe-search';
+import { ApiError } from '@/lib/http/client';
 import type { StyleCategory } from '@/lib/brewing/styles';
 import {
   MAX_QUERY_LENGTH,
@@ -93,13 +94,8 @@ export function RecipeSearch({ categories, unavailableAtFirst }: RecipeSearchPro
     [categories],
   );
   const filterCount = activeFilterCount(query);
-  const error =
-    search.error instanceof RecipeSearchError
-      ? search.error
-      : search.error
-        ? new RecipeSearchError(0, 'internal', search.error.message)
-        : null;
-  const unavailable = !search.data && ((unavailableAtFirst && !retried) || error?.unavailable === true);
+  const error = search.error;
+  const unavailable = !search.data && ((unavailableAtFirst && !retried) || searchUnavailable(error));
   const updating = search.isFetching && search.isPlaceholderData;
 
   function retry() {
@@ -109,7 +105,8 @@ export function RecipeSearch({ categories, unavailableAtFirst }: RecipeSearchPro
 
   let body;
   if (unavailable) body = <SearchUnavailable onRetry={retry} retrying={search.isFetching} />;
-  else if (error && !search.data) body = <SearchFailed message={error.message} onRetry={retry} />;
+  else if (error && !search.data)
+    body = <SearchFailed message={error instanceof ApiError ? error.summary : error.message} onRetry={retry} />;
   else if (!search.data) body = <ResultsSkeleton />;
   else
     body = (

@@ -7,9 +7,11 @@ import { useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { toast } from 'sonner';
 import { z } from 'zod';
+import { showRefusal } from '@/components/form-errors';
 import { describedBy, FormField } from '@/components/form-field';
 import { meKeys } from '@/hooks/use-me';
 import { gallonsToLitres, litresToGallons } from '@/lib/brewing/units';
+import { requestJson } from '@/lib/http/client';
 import { settingsSchema, type SettingsInput } from '@/lib/community/schemas';
 import { KIND_LABELS, NOTIFICATION_KINDS } from '@/lib/notifications/kinds';
 
@@ -21,11 +23,13 @@ const formSchema = settingsSchema.omit({ defaultBatchVolumeL: true }).extend({
 });
 type FormValues = z.infer<typeof formSchema>;
 
-const round = (n: number, places = 2) => Math.round(n * 10 ** places) / 10 ** places;
-
-interface ApiError {
-  error?: { message?: string; fields?: { path: string; message: string }[] };
+/** The input that shows a server message; the rest (the e-mail choices) go above the button. */
+function settingsFieldFor(path: string): string | undefined {
+  if (path === 'defaultBatchVolumeL') return 'batchVolume';
+  return ['name', 'bio', 'units', 'defaultEfficiencyPct'].includes(path) ? path : undefined;
 }
+
+const round = (n: number, places = 2) => Math.round(n * 10 ** places) / 10 ** places;
 
 export function SettingsForm({ initial }: { initial: SettingsInput }) {
   const router = useRouter();
@@ -54,19 +58,9 @@ export function SettingsForm({ initial }: { initial: SettingsInput }) {
       ...values,
       defaultBatchVolumeL: round(values.units === 'us' ? gallonsToLitres(batchVolume) : batchVolume, 3),
     };
-    const res = await fetch('/api/me/settings', {
-      method: 'PUT',
-      headers: { 'content-type': 'application/json' },
-      body: JSON.stringify(body),
-    });
-    if (!res.ok) {
-      const data = (await res.json().catch(() => ({}))) as ApiError;
-      const fields = data.error?.fields ?? [];
-      for (const f of fields) {
-        const path = f.path === 'defaultBatchVolumeL' ? 'batchVolume' : f.path;
-        setError(path as keyof FormValues, { message: f.message });
-      }
-      setFormError(data.error?.message ?? 'Saving did not work. Please try again.');
+    const result = await requestJson('/api/me/settings', 'PUT', body);
+    if (!result.ok) {
+      setFormError(showRefusal(setError, result, settingsFieldFor));
       return;
     }
     toast.success('Settings saved.');

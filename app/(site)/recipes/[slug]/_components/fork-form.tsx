@@ -1,20 +1,26 @@
 'use client';
 
-import { useMutation } from '@tanstack/react-query';
+import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
+import { useForm } from 'react-hook-form';
 import { toast } from 'sonner';
+import type { z } from 'zod';
 import { FitChanges, useBrewhouseFit } from '@/components/fit-to-brewhouse';
+import { onlyFields, showRefusal } from '@/components/form-errors';
+import { describedBy } from '@/components/form-field';
 import { useVersionDocument } from '@/hooks/use-version-document';
 import type { UnitSystem } from '@/lib/brewing/units';
-import { requestJson, sendJson } from '@/lib/http/client';
+import { requestJson } from '@/lib/http/client';
+import { forkSchema } from '@/lib/recipes/schemas';
+
+type Input = z.input<typeof forkSchema>;
+type Output = z.output<typeof forkSchema>;
 
 interface Saved {
   recipe: { id: string; slug: string };
   version: { id: string; number: number };
 }
-
-const FIT_MESSAGE = 'Fitted to my brewhouse';
 
 export function ForkForm({
   versionId,
@@ -28,45 +34,33 @@ export function ForkForm({
   units: UnitSystem;
 }) {
   const router = useRouter();
-  const [title, setTitle] = useState(defaultTitle);
-  const [visibility, setVisibility] = useState<'public' | 'unlisted' | 'private'>('public');
-  const [error, setError] = useState<string>();
+  const [formError, setFormError] = useState<string>();
   const [fitting, setFitting] = useState(false);
   const source = useVersionDocument(versionId, fitting);
   const fit = useBrewhouseFit(source.data, fitting);
   const fitted = fitting && fit.state === 'ready' && fit.changes.length > 0 ? fit.fitted : null;
-  const fork = useMutation({
-    mutationFn: async () => {
-      const saved = await sendJson<Saved>(`/api/versions/${versionId}/fork`, 'POST', { title, visibility });
-      if (!fitted) return { saved, fitError: null };
-      // The fork first copies the version as it is; the fit is its second version, so the history shows it.
-      const result = await requestJson<Saved>(`/api/recipes/${saved.recipe.id}/versions`, 'POST', {
-        document: fitted,
-        baseVersionId: saved.version.id,
-        message: FIT_MESSAGE,
-      });
-      return { saved, fitError: result.ok ? null : (result.fields[0]?.message ?? result.message) };
-    },
-    onSuccess: ({ saved, fitError }) => {
-      if (fitError) {
-        toast.error(`Forked, but the fit was not saved (${fitError}). Use “Fit to my brewhouse” in the editor.`);
-      } else {
-        toast.success(fitted ? 'Forked and fitted to your brewhouse.' : 'Forked. This recipe is yours to change.');
-      }
-      router.push(`/recipes/${saved.recipe.slug}/edit`);
-    },
-    onError: (err) => setError(err.message),
-  });
   const waitingForFit = fitting && (fit.state === 'loading' || source.isLoading);
+  const { register, handleSubmit, setError, formState } = useForm<Input, unknown, Output>({
+    resolver: zodResolver(forkSchema),
+    defaultValues: { title: defaultTitle, visibility: 'public' },
+  });
+  const { errors, isSubmitting } = formState;
+
+  const onSubmit = handleSubmit(async (values) => {
+    setFormError(undefined);
+    // The fork and its fitted second version are saved together, or neither is.
+    const body = fitted ? { ...values, fitted } : values;
+    const result = await requestJson<Saved>(`/api/versions/${versionId}/fork`, 'POST', body);
+    if (!result.ok) {
+      setFormError(showRefusal(setError, result, onlyFields('title', 'visibility')));
+      return;
+    }
+    toast.success(fitted ? 'Forked and fitted to your brewhouse.' : 'Forked. This recipe is yours to change.');
+    router.push(`/recipes/${result.data.recipe.slug}/edit`);
+  });
+
   return (
-    <form
-      className="kf-card"
-      onSubmit={(e) => {
-        e.preventDefault();
-        setError(undefined);
-        fork.mutate();
-      }}
-    >
+    <form className="kf-card" noValidate onSubmit={onSubmit}>
       <h2 className="text-lg font-semibold">Brew it your way</h2>
       <p className="mt-1 font-sans text-sm text-muted">
         Forking copies version {number} into a recipe of your own that remembers where it came from.
@@ -77,24 +71,36 @@ export function ForkForm({
       <input
         id="fork-title"
         className="kf-input"
-        value={title}
-        onChange={(e) => setTitle(e.target.value)}
         maxLength={120}
         required
+        aria-invalid={Boolean(errors.title) || undefined}
+        aria-describedby={describedBy('fork-title', errors.title?.message)}
+        {...register('title')}
       />
+      {errors.title && (
+        <p id="fork-title-error" role="alert" className="kf-field-error">
+          {errors.title.message}
+        </p>
+      )}
       <label htmlFor="fork-visibility" className="kf-label mt-3">
         Who can see it
       </label>
       <select
         id="fork-visibility"
         className="kf-input"
-        value={visibility}
-        onChange={(e) => setVisibility(e.target.value as typeof visibility)}
+        aria-invalid={Boolean(errors.visibility) || undefined}
+        aria-describedby={describedBy('fork-visibility', errors.visibility?.message)}
+        {...register('visibility')}
       >
         <option value="public">Everyone</option>
         <option value="unlisted">Only people with the link</option>
         <option value="private">Only me</option>
       </select>
+      {errors.visibility && (
+        <p id="fork-visibility-error" role="alert" className="kf-field-error">
+          {errors.visibility.message}
+        </p>
+      )}
       <div className="mt-4 flex items-start gap-2">
         <input
           id="fork-fit"
@@ -124,17 +130,17 @@ export function ForkForm({
           )}
         </div>
       )}
-      {error && (
+      {formError && (
         <p role="alert" className="kf-field-error">
-          {error}
+          {formError}
         </p>
       )}
       <button
         type="submit"
         className="kf-btn mt-4 w-full"
-        disabled={fork.isPending || waitingForFit || (fitting && fit.state === 'refused')}
+        disabled={isSubmitting || waitingForFit || (fitting && fit.state === 'refused')}
       >
-        {fork.isPending ? 'Forking…' : fitted ? 'Fork and fit this version' : 'Fork this version'}
+        {isSubmitting ? 'Forking…' : fitted ? 'Fork and fit this version' : 'Fork this version'}
       </button>
     </form>
   );
