@@ -4,7 +4,7 @@ import { InterchangeError, type ImportResult, type InterchangeFormat } from './t
 
 export { toBeerJson } from './beerjson/write';
 export { toBeerXml } from './beerxml/write';
-export { MAX_IMPORT_BYTES, readLimitedText } from './limits';
+export { MAX_IMPORT_BYTES } from './limits';
 export { InterchangeError, type ImportResult, type InterchangeFormat } from './types';
 
 /** Which format a text is in, by its first meaningful character: `<` for XML, `{` for JSON. */

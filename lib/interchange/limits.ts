@@ -17,34 +17,6 @@ export function assertWithinLimit(text: string, maxBytes = MAX_IMPORT_BYTES): vo
   }
 }
 
-/**
- * Reads a request body stream as text, stopping as soon as it passes `maxBytes`, so an
- * oversized upload is refused without ever being held whole in memory.
- */
-export async function readLimitedText(stream: ReadableStream<Uint8Array> | null, maxBytes: number): Promise<string> {
-  if (!stream) return '';
-  const reader = stream.getReader();
-  const chunks: Uint8Array[] = [];
-  let total = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    total += value.byteLength;
-    if (total > maxBytes) {
-      await reader.cancel();
-      throw new InterchangeError(`The upload is larger than ${formatMb(maxBytes)}.`, '', 'too_large');
-    }
-    chunks.push(value);
-  }
-  const joined = new Uint8Array(total);
-  let offset = 0;
-  for (const chunk of chunks) {
-    joined.set(chunk, offset);
-    offset += chunk.byteLength;
-  }
-  return new TextDecoder('utf-8').decode(joined);
-}
-
 function formatMb(bytes: number): string {
   return `${(bytes / (1024 * 1024)).toFixed(1)} MB`;
 }

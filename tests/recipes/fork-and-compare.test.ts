@@ -41,6 +41,36 @@ describe('forks, lineage and compare', () => {
     expect(firstOfFork.body.version.parentVersionId).toBe(v2.body.version.id);
   });
 
+  it('saves a fork fitted to a brewhouse as its second version, or nothing when the fitted copy is refused', async () => {
+    const { client: a } = await signedInClient();
+    const { client: b, user } = await signedInClient();
+    const source = await createRecipeVia(a);
+    const base = paleAle();
+    const bigger = { ...base, batch: { ...base.batch, volumeL: 40 } };
+    const res = await b.post<Saved>(`/api/versions/${source.version.id}/fork`, {
+      title: 'Hillside, forty litres',
+      visibility: 'public',
+      fitted: bigger,
+    });
+    expect(res.status).toBe(201);
+    expect(res.body.version.number).toBe(2);
+    const second = await b.get<{
+      version: { message: string; document: { title: string; batch: { volumeL: number } } };
+    }>(`/api/versions/${res.body.version.id}`);
+    expect(second.body.version.message).toBe('Fitted to my brewhouse');
+    expect(second.body.version.document).toMatchObject({ title: 'Hillside, forty litres', batch: { volumeL: 40 } });
+
+    const refused = await b.post<{ error: { fields: { path: string }[] } }>(`/api/versions/${source.version.id}/fork`, {
+      title: 'Never saved',
+      visibility: 'public',
+      fitted: { ...base, batch: { ...base.batch, volumeL: -1 } },
+    });
+    expect(refused.status).toBe(400);
+    expect(refused.body.error.fields.map((f) => f.path)).toContain('fitted.batch.volumeL');
+    const listing = await new TestClient().get<{ recipes: { title: string }[] }>(`/api/recipes?owner=${user.handle}`);
+    expect(listing.body.recipes.map((r) => r.title)).toEqual(['Hillside, forty litres']);
+  });
+
   it('leaves a private fork out of the lineage others see', async () => {
     const { client: a } = await signedInClient();
     const { client: b } = await signedInClient();

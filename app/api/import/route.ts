@@ -2,7 +2,8 @@ import { NextResponse } from 'next/server';
 import { computeStats } from '@/lib/brewing';
 import { AppError, invalidInput } from '@/lib/errors';
 import { route } from '@/lib/http/route';
-import { InterchangeError, MAX_IMPORT_BYTES, parseRecipeFile, readLimitedText } from '@/lib/interchange';
+import { readBodyWithin } from '@/lib/http/body';
+import { InterchangeError, MAX_IMPORT_BYTES, parseRecipeFile } from '@/lib/interchange';
 import { importFileSchema } from '@/lib/recipes/schemas';
 
 /** The JSON wrapping (quotes and escapes around the file's text) may add a little to the file's own size. */
@@ -12,16 +13,11 @@ const MAX_BODY_BYTES = Math.ceil(MAX_IMPORT_BYTES * 1.25);
 export const POST = route({ access: 'user' }, async ({ req }) => {
   const declared = Number(req.headers.get('content-length') ?? '0');
   if (declared > MAX_BODY_BYTES) throw tooLarge();
-  let raw: string;
-  try {
-    raw = await readLimitedText(req.body, MAX_BODY_BYTES);
-  } catch (err) {
-    if (err instanceof InterchangeError) throw tooLarge();
-    throw err;
-  }
+  const bytes = await readBodyWithin(req.body, MAX_BODY_BYTES);
+  if (!bytes) throw tooLarge();
   let json: unknown;
   try {
-    json = JSON.parse(raw);
+    json = JSON.parse(bytes.toString('utf8'));
   } catch {
     throw new AppError('bad_request', 'request body', 'The request body is not valid JSON.');
   }
