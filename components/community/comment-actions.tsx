@@ -29,10 +29,21 @@ interface Props {
  * shared by every reader, so what this reader may do is worked out here from /api/me (the server
  * checks each action again). The row keeps its height while that answer is on its way.
  */
-export function CommentActions({ recipeId, commentId, threadId, body, authorHandle, state, editableUntil, open }: Props) {
+export function CommentActions({
+  recipeId,
+  commentId,
+  threadId,
+  body,
+  authorHandle,
+  state,
+  editableUntil,
+  open,
+}: Props) {
   const { data: viewer } = useMe();
   const router = useRouter();
   const [mode, setMode] = useState<'idle' | 'reply' | 'edit' | 'confirm-delete'>('idle');
+  // The edit window as of when the page was opened; the server refuses a late edit with its own message.
+  const [openedAt] = useState(() => Date.now());
   const remove = useMutation({
     mutationFn: () => sendJson(`/api/comments/${commentId}`, 'DELETE'),
     onSuccess: () => {
@@ -44,7 +55,7 @@ export function CommentActions({ recipeId, commentId, threadId, body, authorHand
   if (!viewer) return <div className="mt-1 min-h-5" />;
   const own = viewer.handle === authorHandle;
   const canReply = open && state === 'published';
-  const canEdit = own && state !== 'hidden' && Date.now() < Date.parse(editableUntil);
+  const canEdit = own && state !== 'hidden' && openedAt < Date.parse(editableUntil);
   const canDelete = own || hasRole(viewer, 'moderator');
   const canReport = !own && state === 'published';
   return (

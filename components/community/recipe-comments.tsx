@@ -113,7 +113,9 @@ export function RecipeComments({
               <CommentForm recipeId={recipe.id} versionNumber={versionNumber} />
             </div>
           ) : (
-            <p className="font-sans text-sm text-muted">Comments are closed while moderators have this recipe hidden.</p>
+            <p className="font-sans text-sm text-muted">
+              Comments are closed while moderators have this recipe hidden.
+            </p>
           )
         }
         signedOut={
