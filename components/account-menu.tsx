@@ -33,7 +33,7 @@ export function AccountMenu() {
       <Link href="/import">Import</Link>
       <span className="text-muted">
         Signed in as{' '}
-        <Link href={`/members/${viewer.handle}`} className="font-semibold text-ink" title="Your member page">
+        <Link href={`/members/${viewer.handle}`} className="font-semibold text-ink underline" title="Your member page">
           {viewer.name}
         </Link>
         {viewer.role !== 'member' && (

@@ -167,9 +167,14 @@ async function recipeState(slug: string, sessionId: string | null): Promise<Reci
   return rows[0] ?? null;
 }
 
-/** Drops the nonce attributes a normal render put in, and hashes every inline script that is left. */
-function prepare(html: string): Entry {
-  const clean = html.replace(/(<(?:script|link)\b[^>]*?)\s+nonce="[^"]*"/g, '$1');
+/**
+ * Drops the nonce a normal render put in (the attributes, and its copies in the framework's inline
+ * payload, so every worker keeps the very same bytes for one state) and hashes every inline script
+ * that is left.
+ */
+function prepare(html: string, nonce: string | undefined): Entry {
+  const stripped = html.replace(/(<(?:script|link)\b[^>]*?)\s+nonce="[^"]*"/g, '$1');
+  const clean = nonce ? stripped.split(nonce).join('') : stripped;
   const hashes = new Set<string>();
   for (const m of clean.matchAll(/<script\b([^>]*)>([\s\S]*?)<\/script>/g)) {
     if (/\bsrc=/.test(m[1])) continue;
@@ -196,7 +201,8 @@ async function render(path: string): Promise<Entry | null> {
     redirect: 'manual',
   });
   if (res.status !== 200 || !(res.headers.get('content-type') ?? '').includes('text/html')) return null;
-  return prepare(await res.text());
+  const nonce = /'nonce-([^']+)'/.exec(res.headers.get('content-security-policy') ?? '')?.[1];
+  return prepare(await res.text(), nonce);
 }
 
 /**
