@@ -278,4 +278,37 @@ describe('a signed-in reader of a kept page', () => {
       }
     }
   });
+
+  it('shows the owner their Edit and visibility controls on the same kept copy, and nobody else', async () => {
+    const { user, client: owner } = await signedInClient();
+    const saved = await createRecipeVia(owner, { document: paleAle({ title: 'Owner Islands Pale' }) });
+    const head = `/recipes/${saved.recipe.slug}`;
+    const anon = await new TestClient().fetch(head);
+    const shared = await expectKept(anon, head);
+    const s = await openBrowser();
+    try {
+      await signInThroughPage(s, user.email);
+      const res = await s.page.goto(head);
+      expect(await res!.text()).toBe(shared);
+      await s.page.getByRole('link', { name: 'Edit', exact: true }).waitFor();
+      await s.page.getByLabel('Who can see this recipe').waitFor();
+      // Their own recipe: no follow or report buttons, and the star is theirs to give.
+      await s.page.getByRole('button', { name: /^Star \(/ }).waitFor();
+      expect(await s.page.getByRole('button', { name: /^Follow/ }).count()).toBe(0);
+      expect(await s.page.getByRole('button', { name: /Report this recipe/ }).count()).toBe(0);
+      expect(s.problems).toEqual([]);
+    } finally {
+      await s.close();
+    }
+    const stranger = await openBrowser();
+    try {
+      await stranger.page.goto(head);
+      await stranger.page.getByRole('link', { name: 'Sign in' }).first().waitFor();
+      expect(await stranger.page.getByRole('link', { name: 'Edit', exact: true }).count()).toBe(0);
+      expect(await stranger.page.getByLabel('Who can see this recipe').count()).toBe(0);
+      expect(stranger.problems).toEqual([]);
+    } finally {
+      await stranger.close();
+    }
+  });
 });
