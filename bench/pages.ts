@@ -4,6 +4,7 @@
 // (it is a copy from memory, lib/page-cache.ts), the busiest recipe's head page at least 0.8 of
 // /about's (a page with no data at all), and a signed-in reader's version page as the first.
 import { execFileSync } from 'node:child_process';
+import { rmSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { Client } from 'pg';
 import { DEMO_PASSWORD } from '../db/seed/people';
@@ -12,6 +13,7 @@ import { busiestRecipe, measureSpeed } from './page-speed';
 import type { BenchRow } from './types';
 
 const PORT = 3910;
+const S3_PORT = 4910;
 const BASE = `http://127.0.0.1:${PORT}`;
 const DATABASE = 'kettlefork_pages';
 const SECONDS = Number(process.env.KF_SPEED_SECONDS ?? 10);
@@ -40,19 +42,26 @@ export async function benchPages(): Promise<BenchRow[]> {
     KF_SEARCH_SYNC: 'off',
     KF_EMAIL_SENDER: 'off',
     KF_DIST_DIR: '.next-bench',
+    // The demo's brew-day photos go to the local S3 fake; search and mail are not needed here.
+    S3_ENDPOINT: `http://127.0.0.1:${S3_PORT}`,
+    S3_FAKE_PORT: String(S3_PORT),
+    S3_FAKE_DIR: '.data/s3-bench',
     TRUST_PROXY: '1',
     NEXT_TELEMETRY_DISABLED: '1',
   } as NodeJS.ProcessEnv;
   const tsx = ['--conditions=react-server', '--import', 'tsx'];
-  runQuiet('node', [...tsx, 'db/migrate.ts'], env);
-  runQuiet('node', [...tsx, 'db/seed.ts'], env);
-  console.log('bench pages: building into .next-bench');
-  runQuiet('npx', ['next', 'build'], env);
   // tests/helpers/http reads the app's address once, when first loaded.
   process.env.KF_BASE_URL = BASE;
   const { TestClient } = await import('../tests/helpers/http');
   const sql = new Client({ connectionString: databaseUrl });
   try {
+    rmSync(env.S3_FAKE_DIR!, { recursive: true, force: true });
+    startChild(['--import', 'tsx', 'scripts/s3-fake.ts'], env);
+    await waitFor(`http://127.0.0.1:${S3_PORT}/`, 30);
+    runQuiet('node', [...tsx, 'db/migrate.ts'], env);
+    runQuiet('node', [...tsx, 'db/seed.ts'], env);
+    console.log('bench pages: building into .next-bench');
+    runQuiet('npx', ['next', 'build'], env);
     startChild(['scripts/serve.mjs', '-H', '127.0.0.1', '-p', String(PORT)], env);
     await waitFor(`${BASE}/api/health`, 120);
     await sql.connect();

@@ -18,6 +18,9 @@ const benches: Bench[] = [
 const RESULTS = new URL('./RESULTS.md', import.meta.url);
 const HEADER = ['| bench | area | measure | value | target | | measured |', '|---|---|---|---|---|---|---|'];
 
+/** A note fit for one table cell: no line breaks or pipes, and not a whole stack trace. */
+const oneLine = (text: string) => text.replace(/\s+/g, ' ').replace(/\|/g, '/').slice(0, 400);
+
 function verdict(row: BenchRow): string {
   if (!row.target) return '';
   const ok = row.target.op === '<' ? row.value < row.target.value : row.value > row.target.value;
@@ -63,7 +66,7 @@ for (const bench of benches) {
   for (const r of rows) {
     ran.push({
       bench: bench.name,
-      line: `| ${bench.name} | ${r.area} | ${r.metric}${r.note ? ` (${r.note})` : ''} | ${r.value} ${r.unit} | ${r.target ? `${r.target.op} ${r.target.value} ${r.unit}` : ''} | ${verdict(r)} | ${measured} |`,
+      line: `| ${bench.name} | ${r.area} | ${r.metric}${r.note ? ` (${oneLine(r.note)})` : ''} | ${r.value} ${r.unit} | ${r.target ? `${r.target.op} ${r.target.value} ${r.unit}` : ''} | ${verdict(r)} | ${measured} |`,
     });
   }
   console.log(`bench: ${bench.name} done in ${((Date.now() - started) / 1000).toFixed(0)} s`);
