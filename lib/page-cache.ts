@@ -163,7 +163,9 @@ interface RecipeState {
 
 /** The recipe's visibility, whether this reader sees the shared page, and the fingerprint of everything its pages show. */
 async function recipeState(slug: string, sessionId: string | null): Promise<RecipeState | null> {
-  const { rows } = await pool().query(STATE_SQL, [slug, sessionId]);
+  // A named statement: each connection plans this many-part query once (planning it cost several
+  // times its 0.5 ms run on every request) and then only runs it.
+  const { rows } = await pool().query({ name: 'kf-recipe-page-state', text: STATE_SQL, values: [slug, sessionId] });
   return rows[0] ?? null;
 }
 
