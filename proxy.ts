@@ -23,8 +23,9 @@ function pagePolicy(scripts: string): string {
 
 /**
  * Every page gets a Content-Security-Policy that lets no inline script run unless the framework
- * wrote it. Signed-out readers of a public recipe page get a kept copy (lib/page-cache.ts) whose
- * policy lists the hash of each of its inline scripts; every other page is rendered per request with
+ * wrote it. Readers of a public or unlisted recipe page get a kept copy (lib/page-cache.ts) whose
+ * policy lists the hash of each of its inline scripts (signed-in ones too, unless the page would show
+ * them something it shows nobody else); every other page is rendered per request with
  * a fresh nonce that Next.js puts on its own scripts. Styles may be inline (React style attributes
  * and chart libraries set them); scripts may not.
  */

@@ -31,7 +31,7 @@ export async function benchLoad(): Promise<BenchRow[]> {
     },
   ];
   const { speed } = result;
-  const each = (name: keyof typeof speed.targets) =>
+  const each = (name: 'static asset' | '/about' | 'busiest head page' | 'busiest version 1 page') =>
     `${speed.targets[name].rps} req/s, p97.5 ${speed.targets[name].p975} ms`;
   const setup = `20 signed-out clients with gzip, ${speed.seconds} s each, one after another; the busiest demo recipe is ${speed.busiest.slug} with ${speed.busiest.activity} brew days, comments and proposals`;
   rows.push(

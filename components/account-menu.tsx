@@ -29,8 +29,13 @@ export function AccountMenu() {
         </>
       )}
       <MemberLinks role={viewer.role} />
+      <Link href="/brew-days">My brew days</Link>
+      <Link href="/import">Import</Link>
       <span className="text-muted">
-        Signed in as <strong className="text-ink">{viewer.name}</strong>
+        Signed in as{' '}
+        <Link href={`/members/${viewer.handle}`} className="font-semibold text-ink underline" title="Your member page">
+          {viewer.name}
+        </Link>
         {viewer.role !== 'member' && (
           <span className="ml-1 rounded bg-bine/15 px-1.5 py-0.5 text-xs text-bine">{viewer.role}</span>
         )}

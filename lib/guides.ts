@@ -2,7 +2,7 @@ import 'server-only';
 import { readdir, readFile } from 'node:fs/promises';
 import path from 'node:path';
 import { compileMDX } from 'next-mdx-remote/rsc';
-import type { ReactElement } from 'react';
+import { cache, type ReactElement } from 'react';
 import { guideComponents } from '@/components/guides/mdx-components';
 
 const GUIDES_DIR = path.join(process.cwd(), 'content', 'guides');
@@ -22,9 +22,10 @@ export async function listGuideSlugs(): Promise<string[]> {
 
 /**
  * One guide compiled from MDX. JavaScript in the content is never run: next-mdx-remote's
- * blockJS and blockDangerousJS stay on, so only Markdown and plain tags render.
+ * blockJS and blockDangerousJS stay on, so only Markdown and plain tags render. Cached per request,
+ * so a guide's page and its metadata compile it once.
  */
-export async function loadGuide(slug: string): Promise<{ meta: GuideMeta; content: ReactElement } | null> {
+export const loadGuide = cache(async (slug: string): Promise<{ meta: GuideMeta; content: ReactElement } | null> => {
   if (!/^[a-z0-9-]+$/.test(slug)) return null;
   let source: string;
   try {
@@ -41,10 +42,10 @@ export async function loadGuide(slug: string): Promise<{ meta: GuideMeta; conten
     meta: { slug, title: frontmatter.title, summary: frontmatter.summary, order: frontmatter.order ?? 99 },
     content,
   };
-}
+});
 
 export async function listGuides(): Promise<GuideMeta[]> {
-  const guides = await Promise.all((await listGuideSlugs()).map(loadGuide));
+  const guides = await Promise.all((await listGuideSlugs()).map((slug) => loadGuide(slug)));
   return guides
     .filter((g): g is NonNullable<typeof g> => g !== null)
     .map((g) => g.meta)

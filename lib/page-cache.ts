@@ -1,17 +1,22 @@
 import { createHash, createHmac } from 'node:crypto';
+import { decode } from 'next-auth/jwt';
 import { Pool } from 'pg';
+import { authSecret } from '@/lib/env';
 
 /**
- * Recipe pages for signed-out readers, rendered once and kept: a recipe's head page and its version
- * pages look the same to everyone who is not signed in, so each worker renders one copy per state of
- * the recipe and answers every later reader from memory.
+ * Recipe pages rendered once and kept: a public or unlisted recipe's head page and its version pages
+ * look the same to everyone in the server's HTML (who is signed in, their stars and follows, the
+ * owner's actions and the forms are client islands that ask /api/me and friends), so each worker
+ * renders one copy per state of the recipe, signed out, and answers every later reader from memory:
+ * signed-out readers, and signed-in ones for whom the state query finds nothing only they may see.
  *
  * The cache key is the page's path plus a fingerprint of every row the page shows (the recipe, its
  * owner, comments, stars, brew days, photos and their moderation, proposals, versions, the fork
  * source), read in one query per request. Any change (a new version, comment, star, fork, brew day,
  * proposal, a moderator hiding something, the owner making the recipe private) gives a new
  * fingerprint, so the next request renders afresh: moderation and privacy win at once, on every
- * worker, with no message between them. Private and hidden recipes are never kept.
+ * worker, with no message between them. Private and hidden recipes are never kept, and nothing
+ * only the owner, a moderator or one member may see is ever in a kept page.
  *
  * Kept pages carry no nonce: their policy lists the SHA-256 hash of each inline script the framework
  * wrote into that exact HTML, so no other inline script can run.
@@ -50,34 +55,96 @@ function pool(): Pool {
 
 /** The header that marks the cache's own render request; the same in every worker, unguessable outside. */
 export function renderToken(): string {
-  return createHmac('sha256', process.env.NEXTAUTH_SECRET ?? 'dev')
-    .update('kettlefork page render')
-    .digest('hex');
+  return createHmac('sha256', authSecret()).update('kettlefork page render').digest('hex');
 }
 
-/** A signed-out, plain GET of a recipe page (not a client navigation or prefetch), or null. */
-export function cacheablePage(request: Request & { nextUrl: URL }): { path: string; slug: string } | null {
+/** The next-auth session cookie, under either of the names next-auth gives it. */
+const SESSION_COOKIE = /(?:^|;\s*)(?:__Secure-)?next-auth\.session-token=([^;]+)/;
+
+interface PageRequest {
+  path: string;
+  slug: string;
+  /** The reader's session cookie (an encrypted token naming their server-side session), if any. */
+  sessionCookie: string | null;
+}
+
+/** A plain GET of a recipe page (not a client navigation, prefetch or form action), or null. */
+export function cacheablePage(request: Request & { nextUrl: URL }): PageRequest | null {
   if (request.method !== 'GET' || request.nextUrl.search) return null;
   const h = request.headers;
   if (h.get('rsc') || h.get('next-router-prefetch') || h.get('next-router-state-tree') || h.get('next-action'))
     return null;
-  if ((h.get('cookie') ?? '').includes('next-auth.session-token')) return null;
   const match = PAGE.exec(request.nextUrl.pathname);
-  return match ? { path: request.nextUrl.pathname, slug: match[1] } : null;
+  if (!match) return null;
+  const cookies = h.get('cookie') ?? '';
+  const session = SESSION_COOKIE.exec(cookies);
+  // A session cookie in a shape we do not read (split in chunks, say) is one we cannot vouch for: ''.
+  const sessionCookie = session
+    ? decodeURIComponent(session[1])
+    : cookies.includes('next-auth.session-token')
+      ? ''
+      : null;
+  return { path: request.nextUrl.pathname, slug: match[1], sessionCookie };
 }
 
+/**
+ * The server-side session id a session cookie names, null when there is no cookie, or undefined
+ * when the cookie cannot be read (so the reader gets a render of their own, as before).
+ */
+async function sessionIdOf(cookie: string | null): Promise<string | null | undefined> {
+  if (cookie === null) return null;
+  const token = await decode({ token: cookie, secret: authSecret() }).catch(() => null);
+  return typeof token?.sid === 'string' ? token.sid : undefined;
+}
+
+/** The columns of a member a recipe page shows (their name and handle); never e-mail, password hash or settings. */
+const shownUser = (alias: string) => `json_build_array(${alias}.name, ${alias}.handle)::text`;
+
+/**
+ * The recipe's state, and whether the signed-in reader named by `$2` (a session id, or null) sees
+ * exactly what a signed-out reader sees apart from the client islands (header, star and follow,
+ * owner actions, comment and fork forms). Anything only they or the moderators would see in the
+ * server's part of the page sends them to a render of their own: moderators and admins; readers who
+ * show US units; their own held or hidden comments, hidden photos, unlisted, private or hidden forks
+ * (which their fork count includes), a private or hidden fork source of theirs, proposals they see
+ * because they offered or own one side; and the owner of a fork (who gets the proposal form with
+ * the recipes it may go to). An unknown, ended or suspended session is a signed-out reader.
+ */
 const STATE_SQL = `
-with r as (select * from recipes where slug = $1)
-select r.visibility, r.hidden_at is not null as hidden, md5(concat_ws('|',
+with r as (select * from recipes where slug = $1),
+reader as (
+  select u.id, u.role, u.units from sessions s join users u on u.id = s.user_id
+  where $2::text is not null and s.session_token = $2::text and s.expires > now() and u.suspended_at is null
+)
+select r.visibility, r.hidden_at is not null as hidden,
+  (not exists (select 1 from reader) or exists (select 1 from reader v where v.role = 'member' and v.units = 'metric'
+    and not (r.owner_id = v.id and r.forked_from_version_id is not null)
+    and not exists (select 1 from comments c where c.recipe_id = r.id and c.author_id = v.id
+      and c.deleted_at is null and (c.status <> 'published' or c.hidden_at is not null))
+    and not exists (select 1 from photos p join brew_days b on b.id = p.brew_day_id
+      join hidden_photos hp on hp.photo_id = p.id where b.recipe_id = r.id and p.uploader_id = v.id)
+    and not exists (select 1 from recipes fk join recipe_versions fv on fv.id = fk.forked_from_version_id
+      where fv.recipe_id = r.id and fk.owner_id = v.id and (fk.visibility <> 'public' or fk.hidden_at is not null))
+    and not exists (select 1 from recipe_versions sv join recipes sr on sr.id = sv.recipe_id
+      where sv.id = r.forked_from_version_id and sr.owner_id = v.id and (sr.visibility = 'private' or sr.hidden_at is not null))
+    and not exists (select 1 from proposals pr join recipes ps on ps.id = pr.source_recipe_id
+      join recipes pf on pf.id = pr.fork_recipe_id
+      where (pr.source_recipe_id = r.id or pr.fork_recipe_id = r.id)
+        and v.id in (pr.proposer_id, ps.owner_id, pf.owner_id)
+        and (pr.hidden_at is not null or ps.visibility = 'private' or ps.hidden_at is not null
+          or pf.visibility = 'private' or pf.hidden_at is not null))
+  )) as shared,
+  md5(concat_ws('|',
   (select row_to_json(r)::text),
-  (select row_to_json(u)::text from users u where u.id = r.owner_id),
+  (select ${shownUser('u')} from users u where u.id = r.owner_id),
   (select count(*)::text from recipe_versions v where v.recipe_id = r.id),
   (select count(*)::text from stars s where s.recipe_id = r.id),
-  (select row_to_json(fr)::text from recipe_versions fv join recipes fr on fr.id = fv.recipe_id
+  (select row_to_json(fr)::text || ${shownUser('fu')} from recipe_versions fv
+     join recipes fr on fr.id = fv.recipe_id join users fu on fu.id = fr.owner_id
      where fv.id = r.forked_from_version_id),
-  (select string_agg(row_to_json(c)::text || coalesce(row_to_json(cu)::text, ''), ',' order by c.id)
+  (select string_agg(row_to_json(c)::text || coalesce(${shownUser('cu')}, ''), ',' order by c.id)
      from comments c left join users cu on cu.id = c.author_id where c.recipe_id = r.id),
-  (select string_agg(row_to_json(b)::text || row_to_json(bu)::text, ',' order by b.id)
+  (select string_agg(row_to_json(b)::text || ${shownUser('bu')}, ',' order by b.id)
      from brew_days b join users bu on bu.id = b.brewer_id where b.recipe_id = r.id),
   (select string_agg(row_to_json(p)::text || coalesce(hp.hidden_at::text, ''), ',' order by p.id)
      from photos p join brew_days b on b.id = p.brew_day_id left join hidden_photos hp on hp.photo_id = p.id
@@ -86,15 +153,30 @@ select r.visibility, r.hidden_at is not null as hidden, md5(concat_ws('|',
      from proposals pr where pr.source_recipe_id = r.id or pr.fork_recipe_id = r.id)
 )) as stamp from r`;
 
-/** The recipe's visibility and the fingerprint of everything its pages show. */
-async function recipeState(slug: string): Promise<{ visibility: string; hidden: boolean; stamp: string } | null> {
-  const { rows } = await pool().query(STATE_SQL, [slug]);
+interface RecipeState {
+  visibility: string;
+  hidden: boolean;
+  /** The reader sees the page everyone shares (always so for a signed-out one). */
+  shared: boolean;
+  stamp: string;
+}
+
+/** The recipe's visibility, whether this reader sees the shared page, and the fingerprint of everything its pages show. */
+async function recipeState(slug: string, sessionId: string | null): Promise<RecipeState | null> {
+  // A named statement: each connection plans this many-part query once (planning it cost several
+  // times its 0.5 ms run on every request) and then only runs it.
+  const { rows } = await pool().query({ name: 'kf-recipe-page-state', text: STATE_SQL, values: [slug, sessionId] });
   return rows[0] ?? null;
 }
 
-/** Drops the nonce attributes a normal render put in, and hashes every inline script that is left. */
-function prepare(html: string): Entry {
-  const clean = html.replace(/(<(?:script|link)\b[^>]*?)\s+nonce="[^"]*"/g, '$1');
+/**
+ * Drops the nonce a normal render put in (the attributes, and its copies in the framework's inline
+ * payload, so every worker keeps the very same bytes for one state) and hashes every inline script
+ * that is left.
+ */
+function prepare(html: string, nonce: string | undefined): Entry {
+  const stripped = html.replace(/(<(?:script|link)\b[^>]*?)\s+nonce="[^"]*"/g, '$1');
+  const clean = nonce ? stripped.split(nonce).join('') : stripped;
   const hashes = new Set<string>();
   for (const m of clean.matchAll(/<script\b([^>]*)>([\s\S]*?)<\/script>/g)) {
     if (/\bsrc=/.test(m[1])) continue;
@@ -121,16 +203,20 @@ async function render(path: string): Promise<Entry | null> {
     redirect: 'manual',
   });
   if (res.status !== 200 || !(res.headers.get('content-type') ?? '').includes('text/html')) return null;
-  return prepare(await res.text());
+  const nonce = /'nonce-([^']+)'/.exec(res.headers.get('content-security-policy') ?? '')?.[1];
+  return prepare(await res.text(), nonce);
 }
 
 /**
- * The kept copy of a signed-out recipe page (rendering it first if this state is new), or null when
- * the page must be rendered per request: a private or hidden recipe, a missing one, a failed render.
+ * The kept copy of a public or unlisted recipe page (rendering it first if this state is new), or
+ * null when the page must be rendered for this request: a private or hidden recipe, a missing one,
+ * a failed render, or a signed-in reader who would see more than the shared page shows.
  */
-export async function keptPage(page: { path: string; slug: string }): Promise<Entry | null> {
-  const state = await recipeState(page.slug);
-  if (!state || state.visibility === 'private' || state.hidden) return null;
+export async function keptPage(page: PageRequest): Promise<Entry | null> {
+  const sessionId = await sessionIdOf(page.sessionCookie);
+  if (sessionId === undefined) return null;
+  const state = await recipeState(page.slug, sessionId);
+  if (!state || state.visibility === 'private' || state.hidden || !state.shared) return null;
   const key = `${page.path}|${state.stamp}`;
   const hit = globalForPages.kfPages?.get(key);
   if (hit) return hit;

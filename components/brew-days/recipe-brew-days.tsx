@@ -1,5 +1,6 @@
 import Link from 'next/link';
 import type { getBrewDaysByRecipeId } from '@/lib/brew-days/brew-days';
+import { SignedInOnly } from '@/components/viewer-gate';
 import { BrewDayList } from './brew-day-list';
 
 /** The recipe page's section: how it came out for everyone who brewed it, across all versions. */
@@ -8,6 +9,7 @@ export function RecipeBrewDays({
   brewHref,
 }: {
   days: Awaited<ReturnType<typeof getBrewDaysByRecipeId>>;
+  /** Where a signed-in reader logs a brew of this version (null while moderators hide the recipe). */
   brewHref: string | null;
 }) {
   return (
@@ -17,9 +19,11 @@ export function RecipeBrewDays({
           Brew days ({days.length})
         </h2>
         {brewHref && (
-          <Link href={brewHref} className="kf-btn-quiet font-sans text-sm">
-            Log a brew day
-          </Link>
+          <SignedInOnly>
+            <Link href={brewHref} className="kf-btn-quiet font-sans text-sm">
+              Log a brew day
+            </Link>
+          </SignedInOnly>
         )}
       </div>
       {days.length === 0 ? (

@@ -6,6 +6,8 @@ import { useState } from 'react';
 import { toast } from 'sonner';
 import { CommentForm } from './comment-form';
 import { ReportButton } from './report-button';
+import { useMe } from '@/hooks/use-me';
+import { hasRole } from '@/lib/auth/roles';
 import { sendJson } from '@/lib/http/client';
 
 interface Props {
@@ -14,24 +16,34 @@ interface Props {
   /** The thread a reply joins (the comment itself, or its parent for a reply). */
   threadId: string;
   body: string;
-  canReply: boolean;
-  canEdit: boolean;
-  canDelete: boolean;
-  canReport: boolean;
+  authorHandle: string;
+  state: 'published' | 'held' | 'hidden';
+  /** When the author's edit window closes (ISO time). */
+  editableUntil: string;
+  /** Whether the recipe takes comments (moderators have not hidden it). */
+  open: boolean;
 }
 
+/**
+ * Reply, edit, delete and report under a comment, as a client island: the recipe page's HTML is
+ * shared by every reader, so what this reader may do is worked out here from /api/me (the server
+ * checks each action again). The row keeps its height while that answer is on its way.
+ */
 export function CommentActions({
   recipeId,
   commentId,
   threadId,
   body,
-  canReply,
-  canEdit,
-  canDelete,
-  canReport,
+  authorHandle,
+  state,
+  editableUntil,
+  open,
 }: Props) {
+  const { data: viewer } = useMe();
   const router = useRouter();
   const [mode, setMode] = useState<'idle' | 'reply' | 'edit' | 'confirm-delete'>('idle');
+  // The edit window as of when the page was opened; the server refuses a late edit with its own message.
+  const [openedAt] = useState(() => Date.now());
   const remove = useMutation({
     mutationFn: () => sendJson(`/api/comments/${commentId}`, 'DELETE'),
     onSuccess: () => {
@@ -40,8 +52,14 @@ export function CommentActions({
     },
     onError: (err) => toast.error(err.message),
   });
+  if (!viewer) return <div className="mt-1 min-h-5" />;
+  const own = viewer.handle === authorHandle;
+  const canReply = open && state === 'published';
+  const canEdit = own && state !== 'hidden' && openedAt < Date.parse(editableUntil);
+  const canDelete = own || hasRole(viewer, 'moderator');
+  const canReport = !own && state === 'published';
   return (
-    <div className="mt-1">
+    <div className="mt-1 min-h-5">
       <div className="flex flex-wrap items-center gap-3 font-sans text-sm">
         {canReply && (
           <button

@@ -1,22 +1,21 @@
 import Link from 'next/link';
 import type { Viewer } from '@/lib/auth/session';
-import { isFollowing } from '@/lib/community/follows';
-import { getMemberCommunity } from '@/lib/community/profile';
+import type { MemberCommunity as MemberCommunityInfo } from '@/lib/community/profile';
 import { FollowButton } from './follow-button';
 import { ReportButton } from './report-button';
 
 /** A member page's community part: stars received, followers, follow and report, and their forks. */
-export async function MemberCommunity({
+export function MemberCommunity({
   member,
   viewer,
+  community: info,
+  following,
 }: {
   member: { id: string; name: string | null; handle: string };
   viewer: Viewer | null;
+  community: MemberCommunityInfo;
+  following: boolean;
 }) {
-  const [info, following] = await Promise.all([
-    getMemberCommunity(member.id, viewer),
-    isFollowing(viewer, 'member', member.id),
-  ]);
   const name = member.name ?? member.handle;
   const own = viewer?.id === member.id;
   return (

@@ -1,8 +1,8 @@
 import { format } from 'date-fns';
 import Link from 'next/link';
 import { Markdown } from '@/components/markdown';
-import type { Viewer } from '@/lib/auth/session';
-import type { CommentView } from '@/lib/community/comments';
+import { ViewerSwitch } from '@/components/viewer-gate';
+import { COMMENT_EDIT_WINDOW_MIN, type CommentView } from '@/lib/community/comments';
 import { CommentActions } from './comment-actions';
 import { CommentForm } from './comment-form';
 
@@ -12,13 +12,11 @@ function countShown(list: CommentView[]): number {
 
 function CommentBlock({
   comment,
-  viewer,
   recipeId,
   threadId,
   open,
 }: {
   comment: CommentView;
-  viewer: Viewer | null;
   recipeId: string;
   threadId: string;
   open: boolean;
@@ -58,30 +56,26 @@ function CommentBlock({
         </p>
       )}
       <Markdown source={comment.body} className="mt-1" />
-      {viewer && (
-        <CommentActions
-          recipeId={recipeId}
-          commentId={comment.id}
-          threadId={threadId}
-          body={comment.body}
-          canReply={open && comment.state === 'published'}
-          canEdit={comment.canEdit}
-          canDelete={comment.canDelete}
-          canReport={viewer.id !== comment.authorId && comment.state === 'published'}
-        />
-      )}
+      <CommentActions
+        recipeId={recipeId}
+        commentId={comment.id}
+        threadId={threadId}
+        body={comment.body}
+        authorHandle={comment.authorHandle}
+        state={comment.state === 'deleted' ? 'hidden' : comment.state}
+        editableUntil={new Date(comment.createdAt.getTime() + COMMENT_EDIT_WINDOW_MIN * 60_000).toISOString()}
+        open={open}
+      />
     </>
   );
 }
 
 /** The comments under a recipe, with replies one level deep and the form to add one. */
 export function RecipeComments({
-  viewer,
   recipe,
   versionNumber,
   comments,
 }: {
-  viewer: Viewer | null;
   recipe: { id: string; slug: string; hiddenAt: Date | null };
   versionNumber: number;
   comments: CommentView[];
@@ -98,12 +92,12 @@ export function RecipeComments({
       <ol className="mt-4 space-y-6">
         {comments.map((c) => (
           <li key={c.id} id={`comment-${c.id}`} className="border-l-2 border-line pl-4">
-            <CommentBlock comment={c} viewer={viewer} recipeId={recipe.id} threadId={c.id} open={open} />
+            <CommentBlock comment={c} recipeId={recipe.id} threadId={c.id} open={open} />
             {c.replies.length > 0 && (
               <ol className="mt-4 space-y-4 pl-4" aria-label="Replies">
                 {c.replies.map((r) => (
                   <li key={r.id} id={`comment-${r.id}`} className="border-l-2 border-line/60 pl-4">
-                    <CommentBlock comment={r} viewer={viewer} recipeId={recipe.id} threadId={c.id} open={open} />
+                    <CommentBlock comment={r} recipeId={recipe.id} threadId={c.id} open={open} />
                   </li>
                 ))}
               </ol>
@@ -111,22 +105,26 @@ export function RecipeComments({
           </li>
         ))}
       </ol>
-      {viewer && open && (
-        <div className="kf-card mt-6">
-          <CommentForm recipeId={recipe.id} versionNumber={versionNumber} />
-        </div>
-      )}
-      {viewer && !open && (
-        <p className="mt-6 font-sans text-sm text-muted">
-          Comments are closed while moderators have this recipe hidden.
-        </p>
-      )}
-      {!viewer && (
-        <p className="kf-card mt-6 font-sans text-sm">
-          <Link href={`/sign-in?callbackUrl=${encodeURIComponent(`/recipes/${recipe.slug}`)}`}>Sign in</Link> to join
-          the conversation.
-        </p>
-      )}
+      <ViewerSwitch
+        className="mt-6"
+        signedIn={
+          open ? (
+            <div className="kf-card">
+              <CommentForm recipeId={recipe.id} versionNumber={versionNumber} />
+            </div>
+          ) : (
+            <p className="font-sans text-sm text-muted">
+              Comments are closed while moderators have this recipe hidden.
+            </p>
+          )
+        }
+        signedOut={
+          <p className="kf-card font-sans text-sm">
+            <Link href={`/sign-in?callbackUrl=${encodeURIComponent(`/recipes/${recipe.slug}`)}`}>Sign in</Link> to join
+            the conversation.
+          </p>
+        }
+      />
     </section>
   );
 }

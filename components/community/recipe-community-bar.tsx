@@ -1,34 +1,32 @@
+'use client';
+
+import { useQueryClient } from '@tanstack/react-query';
 import Link from 'next/link';
-import type { Viewer } from '@/lib/auth/session';
-import { isFollowing } from '@/lib/community/follows';
-import { hasStarred } from '@/lib/community/stars';
+import { useMe } from '@/hooks/use-me';
+import { recipeStandingKeys, useRecipeStanding } from '@/hooks/use-recipe-standing';
+import type { RecipeStanding } from '@/lib/community/recipe-standing';
+import { plural } from '@/lib/recipes/fields';
 import { FollowButton } from './follow-button';
 import { ReportButton } from './report-button';
 import { StarButton } from './star-button';
-import { plural } from '@/lib/recipes/fields';
 
-/** Star, follow and report for a recipe page; signed-out readers see the star count. */
-export async function loadCommunityState(
-  viewer: Viewer | null,
-  recipeId: string,
-): Promise<{ starred: boolean; following: boolean }> {
-  if (!viewer) return { starred: false, following: false };
-  const [starred, following] = await Promise.all([
-    hasStarred(viewer, recipeId),
-    isFollowing(viewer, 'recipe', recipeId),
-  ]);
-  return { starred, following };
+interface Props {
+  recipe: { id: string; slug: string; title: string; ownerHandle: string; starCount: number; hidden: boolean };
 }
 
-export function RecipeCommunityBar({
-  viewer,
-  recipe,
-  state: { starred, following },
-}: {
-  viewer: Viewer | null;
-  recipe: { id: string; slug: string; title: string; ownerId: string; starCount: number; hiddenAt: Date | null };
-  state: { starred: boolean; following: boolean };
-}) {
+/**
+ * Star, follow and report for a recipe page, as a client island: the server's HTML (shared by every
+ * reader) has the signed-out star count, and a signed-in reader's own star and follow fill in from
+ * /api/me/recipes/[id] in the same place.
+ */
+export function RecipeCommunityBar({ recipe }: Props) {
+  const queryClient = useQueryClient();
+  const { data: viewer } = useMe();
+  const standing = useRecipeStanding(recipe.id, Boolean(viewer) && !recipe.hidden);
+  const update = (next: Partial<RecipeStanding>) =>
+    queryClient.setQueryData<RecipeStanding>(recipeStandingKeys.byRecipe(recipe.id), (old) =>
+      old ? { ...old, ...next } : old,
+    );
   if (!viewer) {
     return (
       <Link
@@ -40,18 +38,31 @@ export function RecipeCommunityBar({
       </Link>
     );
   }
-  const own = viewer.id === recipe.ownerId;
+  const own = viewer.handle === recipe.ownerHandle;
+  const state = standing.data;
   return (
     <>
-      {recipe.hiddenAt ? (
+      {recipe.hidden ? (
         <span className="kf-btn-quiet" aria-label={plural(recipe.starCount, 'star')}>
           ★ <span className="kf-data">{recipe.starCount}</span>
         </span>
+      ) : state ? (
+        <StarButton recipeId={recipe.id} starred={state.starred} starCount={state.starCount} onChange={update} />
       ) : (
-        <StarButton recipeId={recipe.id} starred={starred} starCount={recipe.starCount} />
+        <button type="button" className="kf-btn-quiet" disabled aria-busy="true">
+          <span aria-hidden="true">☆</span> Star <span className="kf-data">({recipe.starCount})</span>
+        </button>
       )}
-      {!own && !recipe.hiddenAt && (
-        <FollowButton type="recipe" id={recipe.id} following={following} label={recipe.title} />
+      {!own && !recipe.hidden && (
+        <FollowButton
+          key={state ? 'known' : 'loading'}
+          type="recipe"
+          id={recipe.id}
+          following={state?.following ?? false}
+          disabled={!state}
+          onChange={(following) => update({ following })}
+          label={recipe.title}
+        />
       )}
       {!own && <ReportButton targetType="recipe" targetId={recipe.id} />}
     </>

@@ -10,10 +10,12 @@ export function StarButton({
   recipeId,
   starred,
   starCount,
+  onChange,
 }: {
   recipeId: string;
   starred: boolean;
   starCount: number;
+  onChange?: (next: { starred: boolean; starCount: number }) => void;
 }) {
   const router = useRouter();
   const [state, setState] = useState({ starred, starCount });
@@ -25,6 +27,7 @@ export function StarButton({
       ),
     onSuccess: (next) => {
       setState(next);
+      onChange?.(next);
       router.refresh();
     },
     onError: (err) => toast.error(err.message),

@@ -1,8 +1,6 @@
 import Link from 'next/link';
-import type { Recipe } from '@/db/schema';
-import type { Viewer } from '@/lib/auth/session';
-import { getProposalsByRecipeId, getProposalTargets } from '@/lib/proposals/proposals';
-import { isOwner } from '@/lib/recipes/access';
+import { SignedInOnly } from '@/components/viewer-gate';
+import type { RecipeProposalsSection } from '@/lib/recipes/pages';
 import { ProposalList } from './proposal-list';
 import { ProposeForm } from './propose-form';
 
@@ -10,26 +8,12 @@ import { ProposeForm } from './propose-form';
  * The recipe page's section: changes offered to this recipe by its forks, and (on a fork) the ones
  * it offered upstream, with "Propose to the original" for the fork's owner.
  */
-/** The section's data; `any` says whether the recipe has proposals at all, so an empty list is not queried. */
-export async function loadRecipeProposals(viewer: Viewer | null, recipe: Recipe, any: boolean) {
-  const owner = isOwner(recipe, viewer);
-  const [items, targets] = await Promise.all([
-    any ? getProposalsByRecipeId({ viewer, recipeId: recipe.id }) : Promise.resolve([]),
-    owner && recipe.forkedFromVersionId && !recipe.hiddenAt
-      ? getProposalTargets(viewer, recipe.id)
-      : Promise.resolve([]),
-  ]);
-  return { items, targets };
-}
-
 export function RecipeProposals({
-  viewer,
   version,
   proposals: { items, targets },
 }: {
-  viewer: Viewer | null;
   version: { id: string; number: number };
-  proposals: Awaited<ReturnType<typeof loadRecipeProposals>>;
+  proposals: RecipeProposalsSection;
 }) {
   if (items.length === 0 && targets.length === 0) return null;
   const openCount = items.filter((p) => p.status === 'open' || p.status === 'changes_requested').length;
@@ -61,11 +45,11 @@ export function RecipeProposals({
           <ProposalList items={outgoing} empty="" />
         </>
       )}
-      {viewer && (
+      <SignedInOnly>
         <p className="mt-3 font-sans text-sm">
           <Link href="/proposals">All your proposals</Link>
         </p>
-      )}
+      </SignedInOnly>
     </section>
   );
 }

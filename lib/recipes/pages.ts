@@ -1,8 +1,11 @@
 import 'server-only';
 import { notFound } from 'next/navigation';
-import { getViewer } from '@/lib/auth/session';
-import { AppError } from '@/lib/errors';
 import { cache } from 'react';
+import type { Recipe } from '@/db/schema';
+import { getViewer, type Viewer } from '@/lib/auth/session';
+import { AppError } from '@/lib/errors';
+import { getProposalTargets, getProposalsByRecipeId } from '@/lib/proposals/proposals';
+import { isOwner } from './access';
 import { getVersionWithActivityBySlug } from './versions';
 
 /** For pages: a missing or hidden-from-you row becomes the plain 404 page. */
@@ -31,3 +34,21 @@ export const loadRecipePage = cache(async (slug: string, number?: number) => {
   const view = await orNotFound(() => getVersionWithActivityBySlug(viewer, slug, number));
   return { viewer, ...view };
 });
+
+/**
+ * The recipe page's proposals section: the proposals on this recipe the viewer may see (`any` says
+ * whether it has any at all, so an empty list is not queried) and, for the owner of a fork, the
+ * recipes upstream it may propose to.
+ */
+export async function loadRecipeProposals(viewer: Viewer | null, recipe: Recipe, any: boolean) {
+  const owner = isOwner(recipe, viewer);
+  const [items, targets] = await Promise.all([
+    any ? getProposalsByRecipeId({ viewer, recipeId: recipe.id }) : Promise.resolve([]),
+    owner && recipe.forkedFromVersionId && !recipe.hiddenAt
+      ? getProposalTargets(viewer, recipe.id)
+      : Promise.resolve([]),
+  ]);
+  return { items, targets };
+}
+
+export type RecipeProposalsSection = Awaited<ReturnType<typeof loadRecipeProposals>>;

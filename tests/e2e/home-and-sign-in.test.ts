@@ -37,6 +37,18 @@ describe('home and sign-in in a real browser', { timeout: 120_000 }, () => {
     expect(s.problems).toEqual([]);
   });
 
+  it('reaches brew days, import and the member page from the header', async () => {
+    const header = s.page.getByRole('banner');
+    await header.getByRole('link', { name: 'My brew days' }).click();
+    await s.page.getByRole('heading', { level: 1, name: 'My brew days' }).waitFor();
+    await header.getByRole('link', { name: 'Import' }).click();
+    await s.page.waitForURL('/import');
+    await header.getByRole('link', { name: 'Form Tester' }).click();
+    await s.page.getByRole('heading', { level: 1, name: 'Form Tester' }).waitFor();
+    expect(s.page.url()).toMatch(/\/members\/[^/]+$/);
+    expect(s.problems).toEqual([]);
+  });
+
   it('tells a member when the password is wrong, without saying which part', async () => {
     const user = await createUser();
     const fresh = await openBrowser();

@@ -13,10 +13,10 @@ import http from 'node:http';
 import { readFileSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import { pathToFileURL } from 'node:url';
-import autocannon from 'autocannon';
 import { drizzle } from 'drizzle-orm/node-postgres';
 import { Client, Pool } from 'pg';
 import { bulkLoadRecipes } from '../../bench/generate';
+import { measureSpeed, type SpeedResult } from '../../bench/page-speed';
 import { quantile, round } from '../../bench/stats';
 import * as schema from '../../db/schema';
 import { db, sleep, startChild, stopChildren, waitFor } from './processes';
@@ -123,64 +123,6 @@ export interface LoadResult {
   /** Throughput of single pages under 20 signed-out clients, one after another, before the mixed run. */
   speed: SpeedResult;
   markdown: string;
-}
-
-export interface SpeedResult {
-  busiest: { slug: string; activity: number };
-  seconds: number;
-  /** Requests per second and p97.5 latency for each target, by name. */
-  targets: Record<
-    'static asset' | '/about' | 'busiest head page' | 'busiest version 1 page',
-    { rps: number; p975: number; non2xx: number }
-  >;
-  versionToStatic: number;
-  headToAbout: number;
-}
-
-/**
- * Side-by-side throughput on the same build: a built script file, /about, and the head and version 1
- * pages of the demo recipe with the most brew days, comments and proposals, each for `seconds` under
- * 20 signed-out clients with gzip, one after another.
- */
-async function measureSpeed(sql: Client, seconds: number): Promise<SpeedResult> {
-  const busiest = (
-    await sql.query(`
-      select r.slug, (select count(*) from brew_days b where b.recipe_id = r.id)
-        + (select count(*) from comments c where c.recipe_id = r.id)
-        + (select count(*) from proposals p where p.source_recipe_id = r.id) as activity
-      from recipes r join users u on u.id = r.owner_id
-      where r.visibility = 'public' and r.hidden_at is null and u.handle <> 'loadbrewer'
-      order by activity desc, r.slug limit 1`)
-  ).rows[0] as { slug: string; activity: string };
-  const about = await (await fetch(`${BASE}/about`)).text();
-  const asset = about.match(/<script[^>]*src="(\/_next\/static\/[^"]+\.js)"/)?.[1];
-  if (!asset) throw new Error('no built script on /about to measure against');
-  const paths = {
-    'static asset': asset,
-    '/about': '/about',
-    'busiest head page': `/recipes/${busiest.slug}`,
-    'busiest version 1 page': `/recipes/${busiest.slug}/v/1`,
-  } as const;
-  const targets = {} as SpeedResult['targets'];
-  for (const [name, path] of Object.entries(paths) as [keyof typeof paths, string][]) {
-    const warm = await fetch(`${BASE}${path}`);
-    await warm.arrayBuffer();
-    if (!warm.ok) throw new Error(`${name} (${path}) answered ${warm.status}`);
-    const result = await autocannon({
-      url: `${BASE}${path}`,
-      connections: 20,
-      duration: seconds,
-      headers: { 'accept-encoding': 'gzip' },
-    });
-    targets[name] = { rps: round(result.requests.average, 0), p975: result.latency.p97_5, non2xx: result.non2xx };
-  }
-  return {
-    busiest: { slug: busiest.slug, activity: Number(busiest.activity) },
-    seconds,
-    targets,
-    versionToStatic: round(targets['busiest version 1 page'].rps / targets['static asset'].rps, 2),
-    headToAbout: round(targets['busiest head page'].rps / targets['/about'].rps, 2),
-  };
 }
 
 interface RecipeTarget {
@@ -408,7 +350,7 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
       throw new Error(`search reports ${indexed} of ${generated} generated recipes after 2 minutes`);
     log(`load: search holds the ${generated} generated recipes`);
 
-    const speed = await measureSpeed(sql, Number(process.env.KF_SPEED_SECONDS ?? 10));
+    const speed = await measureSpeed(BASE, sql, Number(process.env.KF_SPEED_SECONDS ?? 10));
     log(
       `load: version page ${speed.targets['busiest version 1 page'].rps} req/s against static ${speed.targets['static asset'].rps} (×${speed.versionToStatic}); head page ${speed.targets['busiest head page'].rps} against /about ${speed.targets['/about'].rps} (×${speed.headToAbout})`,
     );

@@ -16,14 +16,17 @@ function scriptSrc(policy: string): string {
 describe('security headers', () => {
   it('gives every page a fresh script nonce that all of its scripts carry, and no inline scripts without it', async () => {
     const { client } = await signedInClient();
+    const { client: moderator } = await signedInClient('moderator');
     const recipe = await createRecipeVia(client);
+    const secret = await createRecipeVia(client, { visibility: 'private' });
     const anon = new TestClient();
-    // Signed-out readers of a public recipe get a kept copy allowed by script hashes instead
-    // (tests/recipes/page-cache.test.ts); its owner's own view is rendered per request.
+    // Readers of a public recipe who see what everyone sees get a kept copy allowed by script hashes
+    // instead (tests/recipes/page-cache.test.ts); a private recipe and a moderator's view are rendered per request.
     const pages: [TestClient, string][] = [
       [anon, '/'],
       [anon, '/sign-in'],
-      [client, `/recipes/${recipe.recipe.slug}`],
+      [client, `/recipes/${secret.recipe.slug}`],
+      [moderator, `/recipes/${recipe.recipe.slug}`],
       [anon, '/no-such-page'],
     ];
     for (const [reader, path] of pages) {
@@ -74,7 +77,7 @@ describe('security headers', () => {
           expect(whole.slice(0, whole.indexOf('>') + 1), label).toContain(`nonce="${nonce}"`);
       } else {
         expect(src, label).toContain("'sha256-");
-        // A signed-out reader's kept recipe page: each inline script is allowed by its hash.
+        // A kept recipe page: each inline script is allowed by its hash.
         for (const [, attrs, body] of scripts.filter((m) => !/\bsrc=/.test(m[1])))
           expect(src, `${label}: ${attrs}`).toContain(`'sha256-${createHash('sha256').update(body).digest('base64')}'`);
       }

@@ -9,25 +9,18 @@ import { PhotoGallery } from '@/components/brew-days/photo-gallery';
 import { PhotoUploader } from '@/components/brew-days/photo-uploader';
 import { ReadingForm } from '@/components/brew-days/reading-form';
 import { TastingForm } from '@/components/brew-days/tasting-form';
-import { getViewer } from '@/lib/auth/session';
-import { getBrewDayById, type BrewDayView } from '@/lib/brew-days/brew-days';
+import type { BrewDayView } from '@/lib/brew-days/brew-days';
+import { loadBrewDayPage } from '@/lib/brew-days/pages';
 import type { Comparison } from '@/lib/brew-days/measure';
 import { TYPICAL_KEG_RATING_KPA } from '@/lib/brew-days/schemas';
 import { toDisplayUnits, type UnitSystem } from '@/lib/brewing/units';
 import { formatAmount } from '@/lib/format';
-import { orNotFound } from '@/lib/recipes/pages';
 import { MAX_PHOTO_BYTES } from '@/lib/storage/images';
 
 type Props = { params: Promise<{ id: string }> };
 
-async function load(id: string) {
-  const viewer = await getViewer();
-  const view = await orNotFound(() => getBrewDayById(viewer, id));
-  return { viewer, view };
-}
-
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
-  const { view } = await load((await params).id);
+  const { view } = await loadBrewDayPage((await params).id);
   return {
     title: `${view.recipe.title}: brewed ${format(parseISO(view.day.brewedOn), 'd MMM yyyy')} by ${view.brewer.name}`,
   };
@@ -133,7 +126,7 @@ function readingText(r: BrewDayView['readings'][number], units: UnitSystem): str
 }
 
 export default async function BrewDayPage({ params }: Props) {
-  const { viewer, view } = await load((await params).id);
+  const { viewer, view } = await loadBrewDayPage((await params).id);
   const units: UnitSystem = viewer?.units ?? 'metric';
   const { day, outcome, version } = view;
   const points = chartPoints(view, units);

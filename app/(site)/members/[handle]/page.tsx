@@ -1,21 +1,12 @@
 import { format } from 'date-fns';
 import type { Metadata } from 'next';
-import { notFound } from 'next/navigation';
 import { MemberBrewDays } from '@/components/brew-days/member-brew-days';
 import { MemberCommunity } from '@/components/community/member-community';
 import { Markdown } from '@/components/markdown';
 import { RecipeCard } from '@/components/recipe-card';
-import { getViewer } from '@/lib/auth/session';
-import { getMemberByHandle } from '@/lib/community/profile';
-import { listRecipes } from '@/lib/recipes/listing';
+import { loadMember, loadMemberPage } from '@/lib/community/member-page';
 
 type Props = { params: Promise<{ handle: string }> };
-
-async function loadMember(handle: string) {
-  const member = await getMemberByHandle({ handle });
-  if (!member) notFound();
-  return member;
-}
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
   const member = await loadMember((await params).handle);
@@ -23,9 +14,7 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
 }
 
 export default async function MemberPage({ params }: Props) {
-  const member = await loadMember((await params).handle);
-  const viewer = await getViewer();
-  const { cards } = await listRecipes(viewer, { ownerHandle: member.handle });
+  const { member, viewer, cards, community, following, brewDays } = await loadMemberPage((await params).handle);
   return (
     <div>
       <h1 className="text-3xl font-semibold">{member.name ?? member.handle}</h1>
@@ -33,7 +22,7 @@ export default async function MemberPage({ params }: Props) {
         @{member.handle} · brewing with Kettlefork since {format(member.createdAt, 'MMMM yyyy')}
       </p>
       {member.bio && <Markdown source={member.bio} className="mt-3 max-w-2xl" />}
-      <MemberCommunity member={member} viewer={viewer} />
+      <MemberCommunity member={member} viewer={viewer} community={community} following={following} />
       <h2 className="mt-8 text-xl font-semibold">Recipes</h2>
       {cards.length === 0 ? (
         <p className="mt-2 text-muted">No public recipes yet.</p>
@@ -44,7 +33,7 @@ export default async function MemberPage({ params }: Props) {
           ))}
         </ul>
       )}
-      <MemberBrewDays memberId={member.id} viewer={viewer} />
+      <MemberBrewDays own={viewer?.id === member.id} days={brewDays} />
     </div>
   );
 }

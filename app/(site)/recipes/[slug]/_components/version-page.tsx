@@ -1,15 +1,17 @@
 import { format } from 'date-fns';
 import Link from 'next/link';
 import { RecipeBrewDays } from '@/components/brew-days/recipe-brew-days';
-import { RecipeCommunityBar, loadCommunityState } from '@/components/community/recipe-community-bar';
+import { RecipeCommunityBar } from '@/components/community/recipe-community-bar';
 import { RecipeComments } from '@/components/community/recipe-comments';
 import { Markdown } from '@/components/markdown';
-import { RecipeProposals, loadRecipeProposals } from '@/components/proposals/recipe-proposals';
+import { RecipeProposals } from '@/components/proposals/recipe-proposals';
 import { VersionDocument, VersionStats } from '@/components/version-body';
+import { OwnerOnly, SignedInOnly, ViewerSwitch } from '@/components/viewer-gate';
 import type { Viewer } from '@/lib/auth/session';
 import { getBrewDaysByRecipeId } from '@/lib/brew-days/brew-days';
 import { listComments } from '@/lib/community/comments';
 import { isOwner } from '@/lib/recipes/access';
+import { loadRecipeProposals } from '@/lib/recipes/pages';
 import type { RecipeActivity, VersionView } from '@/lib/recipes/versions';
 import { getForkSource } from '@/lib/recipes/versions';
 import { ForkForm } from './fork-form';
@@ -22,7 +24,13 @@ const VISIBILITY_WORDS = {
   private: 'Private: only you',
 } as const;
 
-/** A recipe version, read-only, with what its owner and readers can do from here. */
+/**
+ * A recipe version, read-only, with what its owner and readers can do from here. A public or
+ * unlisted recipe's page is rendered signed out once and shared with every reader who would see
+ * the same (lib/page-cache.ts), so what depends on the reader (their star and follow, the owner's
+ * actions, the fork and comment forms) is a client island that asks /api/me; the server's part
+ * uses the viewer only for what the state query there sends to a render of its own.
+ */
 export async function VersionPage({
   viewer,
   recipe,
@@ -34,9 +42,8 @@ export async function VersionPage({
   const isHead = version.id === recipe.headVersionId;
   // Everything else the page shows, read at once rather than one section after another; a list the
   // version query already knows to be empty is not asked for.
-  const [source, community, days, proposals, comments] = await Promise.all([
+  const [source, days, proposals, comments] = await Promise.all([
     recipe.forkedFromVersionId ? getForkSource(viewer, recipe.forkedFromVersionId) : null,
-    loadCommunityState(viewer, recipe.id),
     activity.brewDays ? getBrewDaysByRecipeId({ recipeId: recipe.id, viewer }) : [],
     loadRecipeProposals(viewer, recipe, activity.proposals),
     activity.comments ? listComments(viewer, recipe.id) : [],
@@ -99,29 +106,32 @@ export async function VersionPage({
           </p>
         </div>
         <nav aria-label="Recipe actions" className="flex flex-wrap items-center gap-2 font-sans text-sm">
-          {owner && isHead && (
-            <Link href={`${base}/edit`} className="kf-btn">
-              Edit
-            </Link>
-          )}
-          {owner && !isHead && (
-            <RestoreButton
-              recipeId={recipe.id}
-              versionId={version.id}
-              number={version.number}
-              headVersionId={recipe.headVersionId!}
-            />
-          )}
+          <OwnerOnly ownerHandle={recipe.ownerHandle}>
+            {isHead ? (
+              <Link href={`${base}/edit`} className="kf-btn">
+                Edit
+              </Link>
+            ) : (
+              <RestoreButton
+                recipeId={recipe.id}
+                versionId={version.id}
+                number={version.number}
+                headVersionId={recipe.headVersionId!}
+              />
+            )}
+          </OwnerOnly>
           <Link href={`${base}/history`} className="kf-btn-quiet">
             History ({recipe.headNumber})
           </Link>
           <Link href={`${base}/lineage`} className="kf-btn-quiet">
             Forks ({recipe.forkCount})
           </Link>
-          {viewer && !recipe.hiddenAt && (
-            <Link href={`${base}/v/${version.number}/brew`} className="kf-btn-quiet">
-              Log a brew day
-            </Link>
+          {!recipe.hiddenAt && (
+            <SignedInOnly>
+              <Link href={`${base}/v/${version.number}/brew`} className="kf-btn-quiet">
+                Log a brew day
+              </Link>
+            </SignedInOnly>
           )}
           <Link href={`/print/recipes/${recipe.slug}/v/${version.number}`} className="kf-btn-quiet">
             Print brew sheet
@@ -134,7 +144,16 @@ export async function VersionPage({
               </a>
             ))}
           </span>
-          <RecipeCommunityBar viewer={viewer} recipe={recipe} state={community} />
+          <RecipeCommunityBar
+            recipe={{
+              id: recipe.id,
+              slug: recipe.slug,
+              title: recipe.title,
+              ownerHandle: recipe.ownerHandle,
+              starCount: recipe.starCount,
+              hidden: Boolean(recipe.hiddenAt),
+            }}
+          />
         </nav>
       </header>
 
@@ -146,26 +165,32 @@ export async function VersionPage({
         />
         <aside className="space-y-6">
           <VersionStats stats={version.stats} units={units} />
-          {viewer && !recipe.hiddenAt && (
-            <ForkForm
-              versionId={version.id}
-              defaultTitle={`${version.document.title} (my take)`}
-              number={version.number}
-              units={units}
-            />
-          )}
-          {!viewer && (
-            <p className="kf-card font-sans text-sm">
-              <Link href={`/sign-in?callbackUrl=${encodeURIComponent(`${base}/v/${version.number}`)}`}>Sign in</Link> to
-              fork this recipe and brew it your way.
-            </p>
-          )}
-          {owner && <VisibilitySelect recipeId={recipe.id} visibility={recipe.visibility} />}
+          <ViewerSwitch
+            signedIn={
+              !recipe.hiddenAt && (
+                <ForkForm
+                  versionId={version.id}
+                  defaultTitle={`${version.document.title} (my take)`}
+                  number={version.number}
+                  units={units}
+                />
+              )
+            }
+            signedOut={
+              <p className="kf-card font-sans text-sm">
+                <Link href={`/sign-in?callbackUrl=${encodeURIComponent(`${base}/v/${version.number}`)}`}>Sign in</Link>{' '}
+                to fork this recipe and brew it your way.
+              </p>
+            }
+          />
+          <OwnerOnly ownerHandle={recipe.ownerHandle}>
+            <VisibilitySelect recipeId={recipe.id} visibility={recipe.visibility} />
+          </OwnerOnly>
         </aside>
       </div>
-      <RecipeBrewDays days={days} brewHref={viewer && !recipe.hiddenAt ? `${base}/v/${version.number}/brew` : null} />
-      <RecipeProposals viewer={viewer} version={version} proposals={proposals} />
-      <RecipeComments viewer={viewer} recipe={recipe} versionNumber={version.number} comments={comments} />
+      <RecipeBrewDays days={days} brewHref={recipe.hiddenAt ? null : `${base}/v/${version.number}/brew`} />
+      <RecipeProposals version={version} proposals={proposals} />
+      <RecipeComments recipe={recipe} versionNumber={version.number} comments={comments} />
     </article>
   );
 }
