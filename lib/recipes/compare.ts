@@ -215,6 +215,39 @@ function push(
   return full;
 }
 
+/** An ingredient only one side has: added in the newer version, or removed from it. */
+function pushOneSided(
+  builder: Builder,
+  section: SectionName,
+  apply: AppliedChange['apply'] | null,
+  side: {
+    added: boolean;
+    label: string;
+    /** How the summary names it, when not by its label alone ("yeast Kveik"). */
+    named?: string;
+    amount?: string;
+    cause: string;
+    details: ItemComparison['details'];
+  },
+): ItemComparison {
+  const verb = side.added ? 'Added' : 'Removed';
+  const named = side.named ?? side.label;
+  return push(
+    builder,
+    section,
+    {
+      label: side.label,
+      status: side.added ? 'added' : 'removed',
+      kind: null,
+      summary: side.amount ? `${verb} ${named}, ${side.amount}` : `${verb} ${named}`,
+      cause: side.cause,
+      details: side.details,
+      changes: [],
+    },
+    apply,
+  );
+}
+
 function fermentableItems(a: RecipeDocument, b: RecipeDocument, builder: Builder): ItemComparison[] {
   const { units } = builder;
   const pairs = match(a.fermentables, b.fermentables, [
@@ -262,20 +295,13 @@ function fermentableItems(a: RecipeDocument, b: RecipeDocument, builder: Builder
     }
     const one = (before ?? after)!;
     const added = !before;
-    return push(
-      builder,
-      'fermentables',
-      {
-        label: one.name,
-        status: added ? 'added' : 'removed',
-        kind: null,
-        summary: `${added ? 'Added' : 'Removed'} ${one.name}, ${showAmount(one.amountKg, 'mass', units)}`,
-        cause: added ? `adding ${one.name}` : `removing ${one.name}`,
-        details: describeFields(FERMENTABLE_FIELDS, asRow(one), units),
-        changes: [],
-      },
-      apply,
-    );
+    return pushOneSided(builder, 'fermentables', apply, {
+      added,
+      label: one.name,
+      amount: showAmount(one.amountKg, 'mass', units),
+      cause: added ? `adding ${one.name}` : `removing ${one.name}`,
+      details: describeFields(FERMENTABLE_FIELDS, asRow(one), units),
+    });
   });
 }
 
@@ -338,20 +364,13 @@ function hopItems(a: RecipeDocument, b: RecipeDocument, builder: Builder): ItemC
         : one.use === 'boil' || one.use === 'first_wort'
           ? `the new ${trimNumber(one.timeMin, 0)}-minute ${one.name} addition`
           : `the new ${one.name} ${hopUseWord(one.use)} addition`;
-    return push(
-      builder,
-      'hops',
-      {
-        label: hopLabel(one),
-        status: added ? 'added' : 'removed',
-        kind: null,
-        summary: `${added ? 'Added' : 'Removed'} ${hopLabel(one)}, ${showAmount(one.amountG, 'hopMass', units)}`,
-        cause: added ? newAddition : `removing ${hopLabel(one)}`,
-        details: describeFields(HOP_FIELDS, asRow(one), units, ['use']),
-        changes: [],
-      },
-      apply,
-    );
+    return pushOneSided(builder, 'hops', apply, {
+      added,
+      label: hopLabel(one),
+      amount: showAmount(one.amountG, 'hopMass', units),
+      cause: added ? newAddition : `removing ${hopLabel(one)}`,
+      details: describeFields(HOP_FIELDS, asRow(one), units, ['use']),
+    });
   });
 }
 
@@ -394,20 +413,13 @@ function yeastItems(a: RecipeDocument, b: RecipeDocument, builder: Builder): Ite
     }
     const one = (before ?? after)!;
     const added = !before;
-    return push(
-      builder,
-      'yeasts',
-      {
-        label: one.name,
-        status: added ? 'added' : 'removed',
-        kind: null,
-        summary: `${added ? 'Added' : 'Removed'} yeast ${one.name}`,
-        cause: added ? `adding ${one.name}` : `removing ${one.name}`,
-        details: describeFields(YEAST_FIELDS, asRow(one), units),
-        changes: [],
-      },
-      apply,
-    );
+    return pushOneSided(builder, 'yeasts', apply, {
+      added,
+      label: one.name,
+      named: `yeast ${one.name}`,
+      cause: added ? `adding ${one.name}` : `removing ${one.name}`,
+      details: describeFields(YEAST_FIELDS, asRow(one), units),
+    });
   });
 }
 
