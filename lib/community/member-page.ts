@@ -1,29 +1,16 @@
 import 'server-only';
-import { eq } from 'drizzle-orm';
 import { notFound } from 'next/navigation';
 import { cache } from 'react';
-import { db } from '@/db';
-import { users } from '@/db/schema';
 import { getViewer } from '@/lib/auth/session';
 import { getBrewDaysByBrewerId } from '@/lib/brew-days/brew-days';
 import { listRecipes } from '@/lib/recipes/listing';
 import { isFollowing } from './follows';
-import { getMemberCommunity } from './profile';
+import { getMemberByHandle, getMemberCommunity } from './profile';
 
 /** The member a page is about (404 for an unknown or suspended one); cached per request for the page and its metadata. */
 export const loadMember = cache(async (handle: string) => {
-  const [member] = await db
-    .select({
-      id: users.id,
-      name: users.name,
-      handle: users.handle,
-      bio: users.bio,
-      createdAt: users.createdAt,
-      suspendedAt: users.suspendedAt,
-    })
-    .from(users)
-    .where(eq(users.handle, handle.slice(0, 40)));
-  if (!member || member.suspendedAt) notFound();
+  const member = await getMemberByHandle({ handle });
+  if (!member) notFound();
   return member;
 });
 
