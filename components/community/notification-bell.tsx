@@ -2,6 +2,7 @@
 
 import { useQuery } from '@tanstack/react-query';
 import Link from 'next/link';
+import { requestJson } from '@/lib/http/client';
 
 export const notificationKeys = { unread: ['notifications', 'unread'] as const };
 
@@ -10,9 +11,11 @@ export function NotificationBell() {
   const { data: unread = 0 } = useQuery({
     queryKey: notificationKeys.unread,
     queryFn: async (): Promise<number> => {
-      const res = await fetch('/api/notifications/unread', { cache: 'no-store' });
-      if (!res.ok) return 0;
-      return ((await res.json()) as { unread: number }).unread;
+      // A count that cannot be read shows as none; the bell is a hint, not a place to report errors.
+      const result = await requestJson<{ unread: number }>('/api/notifications/unread', 'GET', undefined, {
+        cache: 'no-store',
+      });
+      return result.ok ? result.data.unread : 0;
     },
     refetchInterval: 60_000,
   });
