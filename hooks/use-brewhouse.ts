@@ -3,6 +3,7 @@
 import { useQuery } from '@tanstack/react-query';
 import { fitTargetFor, type FitTarget } from '@/lib/brewing/fit-target';
 import type { MemberBrewhouse } from '@/lib/community/brewhouse-schema';
+import { requestJson } from '@/lib/http/client';
 
 export const brewhouseKeys = { all: ['me', 'brewhouse'] as const, averages: ['me', 'brew-averages'] as const };
 
@@ -11,10 +12,10 @@ interface BrewAverages {
 }
 
 async function getJson<T>(url: string, what: string): Promise<T> {
-  const res = await fetch(url, { cache: 'no-store' });
-  if (res.status === 401) throw new Error(`Sign in to use your ${what}.`);
-  if (!res.ok) throw new Error(`Your ${what} could not be loaded. Try again in a moment.`);
-  return (await res.json()) as T;
+  const result = await requestJson<T>(url, 'GET', undefined, { cache: 'no-store' });
+  if (result.ok) return result.data;
+  if (result.status === 401) throw new Error(`Sign in to use your ${what}.`);
+  throw new Error(`Your ${what} could not be loaded. Try again in a moment.`);
 }
 
 /** The signed-in member's brewhouse: batch volume, efficiency, losses and water report from settings. */
