@@ -8,6 +8,7 @@ import { formatIssues, recipeDocumentSchema, type FieldIssue, type RecipeDocumen
 import { computeStats, restTempForTargetFg, type RecipeStats } from '@/lib/brewing/stats';
 import { toDisplayUnits, type UnitSystem } from '@/lib/brewing/units';
 import { fieldId } from './editor-fields';
+import { OwnAttenuation } from './own-attenuation';
 import { withoutEmpty, type EditorValues } from './editor-form';
 
 /** Long enough to skip most keystrokes in a burst, short enough to feel live. */
@@ -88,6 +89,7 @@ export function LiveNumbers({ live, units }: { live: LiveStats; units: UnitSyste
       {live.stats ? (
         <div className={live.current ? '' : 'opacity-60'}>
           <StatsPanel stats={live.stats} units={units} />
+          {live.document && <OwnAttenuation doc={live.document} og={live.stats.og} fg={live.stats.fg} />}
           {live.document && <RestForFgTool doc={live.document} units={units} />}
         </div>
       ) : (

@@ -6,6 +6,7 @@ import { BASE_URL } from '../helpers/env';
 import type { TestClient } from '../helpers/http';
 import { createRecipeVia, paleAle } from '../helpers/recipes';
 import { signedInClient } from '../helpers/users';
+import { brewDayVia, today } from '../brew-days/fixtures';
 
 const US_GALLON_L = 3.785411784;
 /** The example target: 128 Ca / 10 Mg / 39 Na / 219 Cl / 130 SO4 / 0 HCO3 mg/L. */
@@ -60,6 +61,32 @@ describe('designing a pale ale in the editor', { timeout: 240_000 }, () => {
   afterEach(async () => {
     await s?.close();
     s = undefined;
+  });
+
+  it('shows the FG the member’s own measured attenuation would give, once two brews of that yeast kind have one', async () => {
+    const { client } = await signedInClient();
+    const reading = (value: number) => ({ method: 'hydrometer', value });
+    // Apparent attenuation (OG − FG)/(OG − 1): 1.050 → 1.010 is 80 %, 1.048 → 1.012 is 75 % (common practice).
+    await brewDayVia(client, { fields: { brewedOn: today(-40), og: reading(1.05), fg: reading(1.01) } });
+    const created = await createRecipeVia(client, { document: paleAle({ title: 'Own attenuation pale' }) });
+    s = await browserAs(client);
+    const { page } = s;
+    await page.goto(`/recipes/${created.recipe.slug}/edit`, { waitUntil: 'networkidle' });
+    await editorReady(page);
+    // One brew teaches nothing yet.
+    expect(await page.getByTestId('own-attenuation').count()).toBe(0);
+
+    await brewDayVia(client, { fields: { brewedOn: today(-10), og: reading(1.048), fg: reading(1.012) } });
+    await page.reload({ waitUntil: 'networkidle' });
+    await editorReady(page);
+    const own = page.getByTestId('own-attenuation');
+    await own.waitFor({ timeout: 10_000 });
+    const text = (await own.textContent()) ?? '';
+    // Weighted towards the newer brew, the mean lies between the two brews' 75 % and 80 %.
+    const pct = Number(/\((\d+) % over 2 brews/.exec(text)?.[1]);
+    expect(pct).toBeGreaterThanOrEqual(75);
+    expect(pct).toBeLessThanOrEqual(80);
+    expect(text).toMatch(/FG 1\.0\d\d, against the recipe’s 1\.0\d\d|FG 1\.0\d\d, against the recipe's 1\.0\d\d/);
   });
 
   it('proposes salts for a target, writes them in with one button, and the ions, mash pH, rest and spunding follow', async () => {
