@@ -44,6 +44,10 @@ describe('scaleRecipe', () => {
     });
     expect(changes.find((c) => c.what === doc.fermentables[0].name)?.to).toBe(scaled.fermentables[0].amountKg);
     expect(changes.some((c) => c.what === 'Mash thickness')).toBe(false);
+    // A dry hop is named by its days in contact, a boil addition by its minutes.
+    const whats = changes.map((c) => c.what);
+    expect(whats).toContain('Cascade (dry hop, 3 days)');
+    expect(whats).toContain('Magnum (boil, 60 min)');
   });
 
   it('scales extracts and sugars by volume only', () => {

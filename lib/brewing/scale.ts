@@ -132,6 +132,16 @@ export interface FitChange {
 }
 
 /** What `scaleRecipe` changed between two documents of the same shape: batch numbers and every amount. */
+/** A hop's time as brewers say it: a dry hop in days, a boil or stand in minutes. */
+function hopTimeWords(timeMin: number, use: string): string {
+  const MINUTES_PER_DAY = 24 * 60;
+  if (use === 'dry_hop' && timeMin >= MINUTES_PER_DAY) {
+    const days = Math.round((timeMin / MINUTES_PER_DAY) * 10) / 10;
+    return `${days} day${days === 1 ? '' : 's'}`;
+  }
+  return `${timeMin} min`;
+}
+
 export function describeFit(before: RecipeDocument, after: RecipeDocument): FitChange[] {
   const changes: FitChange[] = [];
   const push = (what: string, from: number, to: number, unit: string) => {
@@ -145,7 +155,12 @@ export function describeFit(before: RecipeDocument, after: RecipeDocument): FitC
   push('Mash thickness', before.batch.mashWaterLPerKg, after.batch.mashWaterLPerKg, 'L/kg');
   before.fermentables.forEach((f, i) => push(f.name, f.amountKg, after.fermentables[i]?.amountKg ?? 0, 'kg'));
   before.hops.forEach((h, i) =>
-    push(`${h.name} (${h.use.replace('_', ' ')}, ${h.timeMin} min)`, h.amountG, after.hops[i]?.amountG ?? 0, 'g'),
+    push(
+      `${h.name} (${h.use.replace('_', ' ')}, ${hopTimeWords(h.timeMin, h.use)})`,
+      h.amountG,
+      after.hops[i]?.amountG ?? 0,
+      'g',
+    ),
   );
   if (before.water && after.water) {
     push('Water', before.water.volumeL, after.water.volumeL, 'L');
