@@ -47,6 +47,31 @@ function versionRow(
   };
 }
 
+/**
+ * The recipe row under a fresh slug. Many recipes share a title, so a random tail can clash with
+ * one already taken; the clash is skipped without aborting the transaction and another tail drawn.
+ */
+async function insertRecipeRow(
+  tx: Transaction,
+  opts: { ownerId: string; doc: RecipeDocument; visibility: Visibility; forkedFromVersionId: string | null },
+): Promise<{ id: string; slug: string }> {
+  for (let attempt = 0; attempt < 5; attempt++) {
+    const [row] = await tx
+      .insert(recipes)
+      .values({
+        slug: slugFor(opts.doc.title),
+        ownerId: opts.ownerId,
+        title: opts.doc.title,
+        visibility: opts.visibility,
+        forkedFromVersionId: opts.forkedFromVersionId,
+      })
+      .onConflictDoNothing({ target: recipes.slug })
+      .returning({ id: recipes.id, slug: recipes.slug });
+    if (row) return row;
+  }
+  throw new AppError('conflict', 'recipe', 'Could not find a free address for this recipe. Please try again.');
+}
+
 async function insertRecipeWithFirstVersion(
   tx: Transaction,
   opts: {
@@ -57,16 +82,7 @@ async function insertRecipeWithFirstVersion(
     forkedFromVersionId: string | null;
   },
 ): Promise<SavedVersion> {
-  const [recipe] = await tx
-    .insert(recipes)
-    .values({
-      slug: slugFor(opts.doc.title),
-      ownerId: opts.ownerId,
-      title: opts.doc.title,
-      visibility: opts.visibility,
-      forkedFromVersionId: opts.forkedFromVersionId,
-    })
-    .returning({ id: recipes.id, slug: recipes.slug });
+  const recipe = await insertRecipeRow(tx, opts);
   const [version] = await tx
     .insert(recipeVersions)
     .values(
