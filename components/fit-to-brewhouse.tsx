@@ -2,9 +2,9 @@
 
 import { useFitTarget } from '@/hooks/use-brewhouse';
 import type { FitTarget } from '@/lib/brewing/fit-target';
-import { describeFit, scaleRecipe, type FitChange } from '@/lib/brewing/scale';
+import { describeFit, scaleRecipe, type FitChange, type FitUnit } from '@/lib/brewing/scale';
 import { formatIssues, recipeDocumentSchema, type FieldIssue, type RecipeDocument } from '@/lib/brewing/schema';
-import type { UnitSystem } from '@/lib/brewing/units';
+import { litresPerKgToQuartsPerLb, type UnitSystem } from '@/lib/brewing/units';
 import { formatAmount } from '@/lib/format';
 
 export type BrewhouseFit =
@@ -28,16 +28,22 @@ export function useBrewhouseFit(doc: RecipeDocument | null | undefined, enabled:
   return { state: 'ready', fit, fitted: parsed.data, changes: describeFit(doc, parsed.data) };
 }
 
-function amount(value: number, unit: string, units: UnitSystem): string {
+function amount(value: number, unit: FitUnit, units: UnitSystem): string {
   switch (unit) {
     case 'L':
       return formatAmount(value, 'volume', units, 2);
     case 'kg':
       return formatAmount(value, 'mass', units, 3);
+    case 'hop g':
+      return formatAmount(value, 'hopMass', units, units === 'us' ? 2 : 1);
     case 'L/h':
       return `${formatAmount(value, 'volume', units, 2)} per hour`;
-    default:
-      return `${+value.toFixed(2)} ${unit}`;
+    case 'L/kg':
+      return units === 'us' ? `${+litresPerKgToQuartsPerLb(value).toFixed(2)} qt/lb` : `${+value.toFixed(2)} L/kg`;
+    case '%':
+      return `${+value.toFixed(1)}%`;
+    case 'g':
+      return `${+value.toFixed(2)} g`;
   }
 }
 

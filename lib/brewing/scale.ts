@@ -123,15 +123,20 @@ function colourKeepingRatios(doc: RecipeDocument, volumeRatio: number, grainRati
   return sensible(base) && sensible(specialty) ? { base, specialty } : same;
 }
 
+/**
+ * The stored unit of a fit line. `hop g` is a hop's weight (shown in ounces to US members); `g` is
+ * a water salt, weighed in grams in every system (common practice).
+ */
+export type FitUnit = 'L' | '%' | 'L/h' | 'L/kg' | 'kg' | 'hop g' | 'g';
+
 /** One line of what a fit changes, for showing before it is applied. */
 export interface FitChange {
   what: string;
   from: number;
   to: number;
-  unit: string;
+  unit: FitUnit;
 }
 
-/** What `scaleRecipe` changed between two documents of the same shape: batch numbers and every amount. */
 /** A hop's time as brewers say it: a dry hop in days, a boil or stand in minutes. */
 function hopTimeWords(timeMin: number, use: string): string {
   const MINUTES_PER_DAY = 24 * 60;
@@ -142,9 +147,10 @@ function hopTimeWords(timeMin: number, use: string): string {
   return `${timeMin} min`;
 }
 
+/** What `scaleRecipe` changed between two documents of the same shape: batch numbers and every amount. */
 export function describeFit(before: RecipeDocument, after: RecipeDocument): FitChange[] {
   const changes: FitChange[] = [];
-  const push = (what: string, from: number, to: number, unit: string) => {
+  const push = (what: string, from: number, to: number, unit: FitUnit) => {
     if (from !== to) changes.push({ what, from, to, unit });
   };
   push('Batch volume', before.batch.volumeL, after.batch.volumeL, 'L');
@@ -159,7 +165,7 @@ export function describeFit(before: RecipeDocument, after: RecipeDocument): FitC
       `${h.name} (${h.use.replace('_', ' ')}, ${hopTimeWords(h.timeMin, h.use)})`,
       h.amountG,
       after.hops[i]?.amountG ?? 0,
-      'g',
+      'hop g',
     ),
   );
   if (before.water && after.water) {
