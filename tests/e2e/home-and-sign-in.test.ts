@@ -1,5 +1,11 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { SCREENSHOT_DIR, openBrowser, type BrowserSession } from '../helpers/browser';
+import {
+  SCREENSHOT_DIR,
+  accountMenuButton,
+  openAccountMenu,
+  openBrowser,
+  type BrowserSession,
+} from '../helpers/browser';
 import { BASE_URL } from '../helpers/env';
 import { TEST_PASSWORD, createUser } from '../helpers/users';
 
@@ -31,9 +37,13 @@ describe('home and sign-in in a real browser', { timeout: 120_000 }, () => {
     await s.page.getByLabel('Password', { exact: true }).fill(TEST_PASSWORD);
     await s.page.getByRole('button', { name: 'Sign in' }).click();
     await s.page.waitForURL('/');
-    await s.page.getByText('Signed in as').waitFor();
-    expect(await s.page.getByText('Signed in as').textContent()).toContain('Form Tester');
+    expect(await accountMenuButton(s.page).textContent()).toContain('Form Tester');
     await s.shot('signed-in-home');
+    const menu = await openAccountMenu(s.page);
+    expect(await menu.textContent()).toContain('Signed in as Form Tester');
+    await s.shot('account-menu-open');
+    await s.page.keyboard.press('Escape');
+    await menu.waitFor({ state: 'hidden' });
     expect(s.problems).toEqual([]);
   });
 
@@ -41,9 +51,11 @@ describe('home and sign-in in a real browser', { timeout: 120_000 }, () => {
     const header = s.page.getByRole('banner');
     await header.getByRole('link', { name: 'My brew days' }).click();
     await s.page.getByRole('heading', { level: 1, name: 'My brew days' }).waitFor();
-    await header.getByRole('link', { name: 'Import' }).click();
+    await (await openAccountMenu(s.page)).getByRole('link', { name: 'Import' }).click();
     await s.page.waitForURL('/import');
-    await header.getByRole('link', { name: 'Form Tester' }).click();
+    // Moving to another page closes the menu.
+    expect(await accountMenuButton(s.page).getAttribute('aria-expanded')).toBe('false');
+    await (await openAccountMenu(s.page)).getByRole('link', { name: 'Your member page' }).click();
     await s.page.getByRole('heading', { level: 1, name: 'Form Tester' }).waitFor();
     expect(s.page.url()).toMatch(/\/members\/[^/]+$/);
     expect(s.problems).toEqual([]);
@@ -80,7 +92,7 @@ describe('home and sign-in in a real browser', { timeout: 120_000 }, () => {
         await fresh.page.waitForURL((url) => url.pathname === '/' || url.origin !== new URL(BASE_URL).origin);
         expect(new URL(fresh.page.url()).origin).toBe(new URL(BASE_URL).origin);
         expect(new URL(fresh.page.url()).pathname).toBe('/');
-        await fresh.page.getByText('Signed in as').waitFor();
+        await accountMenuButton(fresh.page).waitFor();
         expect(fresh.problems).toEqual([]);
       } finally {
         await fresh.close();

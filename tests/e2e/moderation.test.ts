@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { User } from '@/db/schema';
-import { openBrowser, signInThroughPage, type BrowserSession } from '../helpers/browser';
+import { openAccountMenu, openBrowser, signInThroughPage, type BrowserSession } from '../helpers/browser';
 import { TestClient } from '../helpers/http';
 import { createRecipeVia, paleAle } from '../helpers/recipes';
 import { TEST_PASSWORD, createUser } from '../helpers/users';
@@ -66,7 +66,7 @@ describe('the moderator story in a real browser', { timeout: 120_000 }, () => {
     const mod = await openBrowser();
     sessions.push(mod);
     await signIn(mod, moderator);
-    await mod.page.getByRole('link', { name: 'Moderation' }).click();
+    await (await openAccountMenu(mod.page)).getByRole('link', { name: 'Moderation' }).click();
     await mod.page.waitForURL('/admin/moderation');
     const item = mod.page.getByTestId('report-item').filter({ hasText: title });
     await item.getByText('Advertises watches; not a beer.').waitFor();

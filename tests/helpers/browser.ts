@@ -95,5 +95,19 @@ export async function signInThroughPage(s: BrowserSession, email: string, passwo
   await s.page.locator('#signin-email').fill(email);
   await s.page.getByLabel('Password', { exact: true }).fill(password);
   await s.page.getByRole('button', { name: 'Sign in' }).click();
-  await s.page.getByText('Signed in as').waitFor();
+  await accountMenuButton(s.page).waitFor();
+}
+
+/** The header's button that opens the signed-in member's menu (their name). */
+export function accountMenuButton(page: Page) {
+  return page.getByRole('banner').getByRole('button', { name: /^Account menu for / });
+}
+
+/** Opens the signed-in member's menu in the header, and gives its panel. */
+export async function openAccountMenu(page: Page) {
+  const button = accountMenuButton(page);
+  if ((await button.getAttribute('aria-expanded')) !== 'true') await button.click();
+  const panel = page.locator(`[id="${await button.getAttribute('aria-controls')}"]`);
+  await panel.waitFor();
+  return panel;
 }
