@@ -324,19 +324,19 @@ function doneWord(checked: boolean): string {
 }
 
 /**
- * Whether nothing changed a step since the write a tick follows: `null` means the step was never
- * written, a key one of this brew day's writes to the step (saved or kept as a conflict). A key the
- * server does not know, or none at all, cannot show that.
+ * Whether nothing changed a step since the write a tick follows: `null` (or none named, as a field
+ * write without `knownValue` is taken to have seen it empty) means the step was never written, a key
+ * one of this brew day's writes to the step (saved or kept as a conflict). A key the server does not
+ * know cannot show that.
  */
 async function unchangedSince(tx: Transaction, day: BrewDay, stepId: string, basedOn: string | null | undefined) {
-  if (basedOn === undefined) return false;
   const onStep = and(
     eq(brewDayEntries.brewDayId, day.id),
     eq(brewDayEntries.kind, 'step'),
     eq(brewDayEntries.name, stepId),
   );
   const changes = and(onStep, eq(brewDayEntries.outcome, 'saved'), eq(brewDayEntries.changesValue, true));
-  if (basedOn === null) {
+  if (basedOn === null || basedOn === undefined) {
     const [any] = await tx.select({ id: brewDayEntries.id }).from(brewDayEntries).where(changes).limit(1);
     return !any;
   }

@@ -208,8 +208,9 @@ const idempotencyKey = z.uuid({ error: 'Idempotency key must be a UUID made by t
 const stepId = z.string({ error: 'Step is required' }).regex(/^[a-z0-9-]{1,40}$/, 'No such step');
 /**
  * The write a tick follows: the idempotency key of the step's last saved write as the device saw it,
- * or of its own tick still waiting before this one (null when the step was never ticked). A tick
- * that follows something else has missed another device's tick or untick, and is a conflict.
+ * or of its own tick still waiting before this one (null, or left out, when the step was never
+ * ticked). A tick that follows something else has missed another device's tick or untick, and is a
+ * conflict.
  */
 const basedOn = z.uuid({ error: 'Based on must be the idempotency key of an earlier write' }).nullable().optional();
 
