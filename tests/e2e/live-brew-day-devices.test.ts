@@ -155,6 +155,29 @@ describe('brew-day mode across devices and members', { timeout: 240_000 }, () =>
       expect((await brewDayRow(brewDayId)).og).toBeCloseTo(1.048, 4);
       await phone.page.getByText('Online · everything entered is saved').waitFor();
       await phone.shot('live-conflict-settled-phone');
+
+      // Offline, the phone ticks the chill; the tablet ticks it and unticks it again meanwhile.
+      await phone.context.setOffline(true);
+      await phone.page.getByRole('checkbox', { name: 'Done: Chill to 18 °C' }).check();
+      await phone.page.getByText('Offline. 1 waiting on this phone until the connection returns.').waitFor();
+      const tabletChill = tablet.page.getByRole('checkbox', { name: 'Done: Chill to 18 °C' });
+      await tabletChill.check();
+      await tablet.page.getByText('Online · everything entered is saved').waitFor();
+      await tabletChill.uncheck();
+      await tablet.page.getByText('Online · everything entered is saved').waitFor();
+      await expect.poll(async () => (await brewDayRow(brewDayId)).checkedSteps).toEqual({});
+
+      // Back online, the phone's tick does not undo the untick silently: it asks.
+      await phone.context.setOffline(false);
+      const chill = phone.page.getByTestId('conflict-chill');
+      await chill.getByText('“Chill to 18 °C”: done or not done?').waitFor({ timeout: 30_000 });
+      await chill.getByText(/Saved: not done/).waitFor();
+      await chill.getByText(/Also entered: done .* on this device/).waitFor();
+      expect(await phone.page.getByRole('checkbox', { name: 'Done: Chill to 18 °C' }).isChecked()).toBe(false);
+      await phone.shot('live-step-conflict-phone');
+      await chill.getByRole('button', { name: 'Keep not done' }).click();
+      await chill.waitFor({ state: 'detached' });
+      expect((await brewDayRow(brewDayId)).checkedSteps).toEqual({});
       expect(realProblems(phone)).toEqual([]);
       expect(realProblems(tablet)).toEqual([]);
     } finally {
