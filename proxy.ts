@@ -1,4 +1,5 @@
 import { NextResponse, type NextRequest } from 'next/server';
+import { setOfflineTag } from '@/lib/auth/offline-tag';
 import { databaseReachable } from '@/lib/db-health';
 import { PAGE_CACHE_CONTROL, cacheablePage, keptPage, renderToken } from '@/lib/page-cache';
 
@@ -58,6 +59,7 @@ export async function proxy(request: NextRequest) {
   requestHeaders.set('Content-Security-Policy', policy);
   const response = NextResponse.next({ request: { headers: requestHeaders } });
   response.headers.set('Content-Security-Policy', policy);
+  await setOfflineTag(request, response);
   return response;
 }
 

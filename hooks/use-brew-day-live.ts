@@ -2,7 +2,7 @@
 
 import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { useCallback, useEffect, useRef, useState, useSyncExternalStore } from 'react';
-import type { LiveState, LiveValue } from '@/lib/brew-days/live-steps';
+import type { LiveConflict, LiveState, LiveValue } from '@/lib/brew-days/live-steps';
 import {
   addToOutbox,
   listOutbox,
@@ -18,10 +18,15 @@ const brewDayLiveKeys = { state: (id: string) => ['brew-day-live', id] as const 
 
 /** While anything waits, sending is tried again this often (and at once when the connection returns). */
 const RETRY_MS = 15_000;
+/** How often the saved state is read while online, so a value or conflict from another device shows. */
+const POLL_MS = 20_000;
 
 type Saved =
   | { outcome: 'saved'; kind: 'field'; field: LiveField; value: LiveValue; savedAt: string }
-  | { outcome: 'saved'; kind: 'step'; stepId: string; checked: boolean; savedAt: string };
+  | { outcome: 'saved'; kind: 'step'; stepId: string; checked: boolean; savedAt: string }
+  | ({ outcome: 'saved'; kind: 'resolve'; conflictId: string; savedAt: string } & (
+      { field: LiveField; value: LiveValue } | { stepId: string; checked: boolean }
+    ));
 
 function subscribeOnline(onChange: () => void): () => void {
   window.addEventListener('online', onChange);
@@ -36,13 +41,38 @@ function newKey(): string {
   return crypto.randomUUID();
 }
 
+/** A step ticked or unticked in a copy of the state. */
+function withStep(state: LiveState, stepId: string, checked: boolean, at: string, key: string): LiveState {
+  const checkedSteps = { ...state.checkedSteps };
+  if (checked) checkedSteps[stepId] ??= at;
+  else delete checkedSteps[stepId];
+  return { ...state, checkedSteps, stepRevisions: { ...state.stepRevisions, [stepId]: key } };
+}
+
+function withSaved(state: LiveState, saved: Saved, key: string): LiveState {
+  const conflicts = state.conflicts.filter((c) => saved.kind !== 'resolve' || c.id !== saved.conflictId);
+  const base = { ...state, conflicts };
+  if ('field' in saved)
+    return {
+      ...base,
+      fields: { ...base.fields, [saved.field]: { value: saved.value, savedAt: saved.savedAt, savedBy: null } },
+    };
+  return withStep(base, saved.stepId, saved.checked, saved.savedAt, key);
+}
+
 /**
  * Brew-day mode's link to the server: the saved state (read through the service worker, so a kept
- * copy answers offline) and the outbox of writes waiting in IndexedDB, sent in order whenever the
- * connection is there, each with its own idempotency key so a retry never saves twice.
+ * copy answers offline, and read again every little while so another device's values and conflicts
+ * show) and the outbox of writes waiting in IndexedDB, sent in order whenever the connection is
+ * there, each with its own idempotency key so a retry never saves twice.
  */
 export function useBrewDayLive(brewDayId: string, initialState: LiveState) {
   const queryClient = useQueryClient();
+  const online = useSyncExternalStore(
+    subscribeOnline,
+    () => navigator.onLine,
+    () => true,
+  );
   const { data: server = initialState, refetch } = useQuery({
     queryKey: brewDayLiveKeys.state(brewDayId),
     queryFn: async (): Promise<LiveState> => {
@@ -52,13 +82,9 @@ export function useBrewDayLive(brewDayId: string, initialState: LiveState) {
     },
     initialData: initialState,
     staleTime: 10_000,
+    refetchInterval: online ? POLL_MS : false,
   });
   const [items, setItems] = useState<OutboxItem[]>([]);
-  const online = useSyncExternalStore(
-    subscribeOnline,
-    () => navigator.onLine,
-    () => true,
-  );
   const [sending, setSending] = useState(false);
   /** The last try found no way through (a phone can say it is online behind a dead connection). */
   const [unreachable, setUnreachable] = useState(false);
@@ -69,18 +95,9 @@ export function useBrewDayLive(brewDayId: string, initialState: LiveState) {
     setItems(await listOutbox(brewDayId));
   }, [brewDayId]);
 
-  const applySaved = useCallback(
-    (saved: Saved) => {
-      queryClient.setQueryData<LiveState>(brewDayLiveKeys.state(brewDayId), (old) => {
-        const base = old ?? initialState;
-        if (saved.kind === 'field')
-          return { ...base, fields: { ...base.fields, [saved.field]: { value: saved.value, savedAt: saved.savedAt } } };
-        const checkedSteps = { ...base.checkedSteps };
-        if (saved.checked) checkedSteps[saved.stepId] ??= saved.savedAt;
-        else delete checkedSteps[saved.stepId];
-        return { ...base, checkedSteps };
-      });
-    },
+  const update = useCallback(
+    (change: (state: LiveState) => LiveState) =>
+      queryClient.setQueryData<LiveState>(brewDayLiveKeys.state(brewDayId), (old) => change(old ?? initialState)),
     [queryClient, brewDayId, initialState],
   );
 
@@ -88,21 +105,34 @@ export function useBrewDayLive(brewDayId: string, initialState: LiveState) {
     if (flushing.current) return;
     flushing.current = true;
     setSending(true);
-    let conflicted = false;
+    let answered = false;
     try {
       for (const item of await listOutbox(brewDayId)) {
         if (item.state !== 'waiting') continue;
         const result = await requestJson<Saved>(`/api/brew-days/${brewDayId}/live`, 'POST', item.request);
         setUnreachable(result.status === 0);
+        // No connection, the server briefly down, or signed out: keep it waiting and try later.
+        if (
+          !result.ok &&
+          (result.status === 0 || result.status === 401 || result.status === 429 || result.status >= 500)
+        )
+          break;
+        answered = true;
         if (result.ok) {
           await removeFromOutbox(item.idempotencyKey);
-          applySaved(result.data);
+          update((state) => withSaved(state, result.data, item.idempotencyKey));
           continue;
         }
-        // No connection, the server briefly down, or signed out: keep it waiting and try later.
-        if (result.status === 0 || result.status === 401 || result.status === 429 || result.status >= 500) break;
-        const isConflict = result.status === 409 && result.fields.some((f) => f.path === 'value');
-        conflicted ||= isConflict;
+        const details = result.details as { conflict?: LiveConflict } | undefined;
+        const isConflict =
+          result.status === 409 && result.fields.some((f) => f.path === 'value' || f.path === 'checked');
+        // The server keeps the conflict and lists it for every device; it shows here at once.
+        const conflict = details?.conflict;
+        if (isConflict && conflict)
+          update((state) => ({
+            ...state,
+            conflicts: [...state.conflicts.filter((c) => c.id !== conflict.id), conflict],
+          }));
         await updateOutboxItem({ ...item, state: isConflict ? 'conflict' : 'refused', message: result.message });
       }
     } catch {
@@ -111,9 +141,9 @@ export function useBrewDayLive(brewDayId: string, initialState: LiveState) {
       flushing.current = false;
       setSending(false);
       await reload().catch(() => undefined);
-      if (conflicted) void refetch();
+      if (answered) void refetch();
     }
-  }, [brewDayId, applySaved, reload, refetch]);
+  }, [brewDayId, update, reload, refetch]);
 
   useEffect(() => {
     const resume = () => {
@@ -125,6 +155,16 @@ export function useBrewDayLive(brewDayId: string, initialState: LiveState) {
     window.addEventListener('online', resume);
     return () => window.removeEventListener('online', resume);
   }, [flush, refetch]);
+
+  // A conflict settled on another device is no longer listed: this device's copy of it goes too.
+  const openKeys = server.conflicts.map((c) => c.enteredKey).join(',');
+  useEffect(() => {
+    const stale = items.filter((i) => i.state === 'conflict' && !openKeys.split(',').includes(i.idempotencyKey));
+    if (stale.length === 0) return;
+    void Promise.all(stale.map((i) => removeFromOutbox(i.idempotencyKey)))
+      .then(reload)
+      .catch(() => undefined);
+  }, [openKeys, items, reload]);
 
   const waiting = items.filter((i) => i.state === 'waiting').length;
   useEffect(() => {
@@ -154,28 +194,38 @@ export function useBrewDayLive(brewDayId: string, initialState: LiveState) {
   /** A field's new value, based on the value this device last knew (the saved one, or one still waiting). */
   const enterField = useCallback(
     (field: LiveField, value: LiveValue) => {
-      const pending = items.filter((i) => i.request.kind === 'field' && i.request.field === field);
-      const last = pending.at(-1)?.request;
+      const last = items
+        .filter((i) => i.state === 'waiting' && i.request.kind === 'field' && i.request.field === field)
+        .at(-1)?.request;
       const knownValue = last && last.kind === 'field' ? last.value : server.fields[field].value;
       return enqueue({ idempotencyKey: newKey(), kind: 'field', field, value, knownValue });
     },
     [items, server, enqueue],
   );
 
+  /** A tick or untick, naming the write it follows: this device's own tick still waiting, or the last one saved. */
   const tickStep = useCallback(
-    (stepId: string, checked: boolean) => enqueue({ idempotencyKey: newKey(), kind: 'step', stepId, checked }),
-    [enqueue],
+    (stepId: string, checked: boolean) => {
+      const last = items
+        .filter((i) => i.state === 'waiting' && i.request.kind === 'step' && i.request.stepId === stepId)
+        .at(-1);
+      const basedOn = last?.idempotencyKey ?? server.stepRevisions[stepId] ?? null;
+      return enqueue({ idempotencyKey: newKey(), kind: 'step', stepId, checked, basedOn });
+    },
+    [items, server, enqueue],
   );
 
-  /** After a conflict: send this device's value again, now knowing the other one, or let it go. */
-  const keepMine = useCallback(
-    async (item: OutboxItem) => {
-      if (item.request.kind !== 'field') return;
-      const theirs = server.fields[item.request.field].value;
-      await removeFromOutbox(item.idempotencyKey);
-      await enqueue({ ...item.request, idempotencyKey: newKey(), knownValue: theirs });
-    },
-    [server, enqueue],
+  /** The brewer's choice between a conflict's two values, sent like any other write (and kept while offline). */
+  const choose = useCallback(
+    (conflict: LiveConflict, keep: 'entered' | 'saved') =>
+      enqueue({
+        idempotencyKey: newKey(),
+        kind: 'resolve',
+        conflictId: conflict.id,
+        keep,
+        savedToken: conflict.savedToken,
+      }),
+    [enqueue],
   );
 
   const discard = useCallback(
@@ -195,7 +245,7 @@ export function useBrewDayLive(brewDayId: string, initialState: LiveState) {
     storageError,
     enterField,
     tickStep,
-    keepMine,
+    choose,
     discard,
     sendNow: flush,
   };

@@ -3,6 +3,7 @@
 import Link from 'next/link';
 import { useCallback, useEffect, useRef, useState, useSyncExternalStore } from 'react';
 import { Caution, CAUTIONS } from '@/components/brew-days/caution';
+import { LiveConflicts } from '@/components/brew-days/live-conflicts';
 import { LiveFieldInput, shownValue } from '@/components/brew-days/live-field';
 import { useBrewDayLive } from '@/hooks/use-brew-day-live';
 import { elapsedMs, useBrewDayTimers, type Announcement } from '@/hooks/use-brew-day-timers';
@@ -132,6 +133,8 @@ function useOfflineCopy(brewDayId: string): 'ready' | 'unavailable' | 'pending' 
 function describeItem(item: OutboxItem, steps: LiveStep[], units: UnitSystem): string {
   const r = item.request;
   if (r.kind === 'field') return `${LIVE_FIELD_LABELS[r.field]} ${shownValue(r.field, r.value, units)}`;
+  if (r.kind === 'resolve')
+    return `Your choice between two values: keep the ${r.keep === 'saved' ? 'saved' : 'other'} one`;
   const title = steps.find((s) => s.id === r.stepId)?.title ?? r.stepId;
   return `${r.checked ? 'Done' : 'Not done'}: ${title}`;
 }
@@ -210,7 +213,7 @@ export function LiveBrewDay({
   };
 
   const waiting = live.items.filter((i) => i.state === 'waiting');
-  const needsChoice = live.items.filter((i) => i.state !== 'waiting');
+  const needsChoice = live.server.conflicts.length + live.items.filter((i) => i.state === 'refused').length;
   const timer = timers.timers[current.id];
   const ran = elapsedMs(timer, timers.now);
   const left = current.timerMin === null ? 0 : current.timerMin * 60_000 - ran;
@@ -239,9 +242,7 @@ export function LiveBrewDay({
           ) : (
             <span className="text-bine">Online · everything entered is saved</span>
           )}
-          {needsChoice.length > 0 && (
-            <span className="ml-1 font-semibold text-danger">· {needsChoice.length} need your choice</span>
-          )}
+          {needsChoice > 0 && <span className="ml-1 font-semibold text-danger">· {needsChoice} need your choice</span>}
         </div>
         <p className="text-xs text-muted">
           {!wake.supported
@@ -274,6 +275,14 @@ export function LiveBrewDay({
           ))}
         </div>
       )}
+
+      <LiveConflicts
+        conflicts={live.server.conflicts}
+        items={live.items}
+        steps={steps}
+        units={units}
+        onChoose={(conflict, keep) => void live.choose(conflict, keep)}
+      />
 
       <section aria-labelledby="current-step" className="mt-4 rounded-xl border border-line bg-card p-4">
         <p className="text-xs uppercase tracking-wide text-muted">
@@ -339,7 +348,7 @@ export function LiveBrewDay({
                 saved={live.server.fields[field]}
                 pending={live.items.filter((i) => i.request.kind === 'field' && i.request.field === field)}
                 onEnter={(value) => live.enterField(field, value)}
-                onKeepMine={(item) => void live.keepMine(item)}
+                conflicted={live.server.conflicts.some((c) => c.kind === 'field' && c.field === field)}
                 onDiscard={(item) => void live.discard(item)}
               />
             ))}

@@ -39,7 +39,7 @@ export function LiveFieldInput({
   saved,
   pending,
   onEnter,
-  onKeepMine,
+  conflicted,
   onDiscard,
 }: {
   field: LiveField;
@@ -47,7 +47,8 @@ export function LiveFieldInput({
   saved: LiveFieldState;
   pending: OutboxItem[];
   onEnter: (value: LiveValue) => Promise<string | null>;
-  onKeepMine: (item: OutboxItem) => void;
+  /** Another value for this field waits for the brewer's choice (shown above the step). */
+  conflicted: boolean;
   onDiscard: (item: OutboxItem) => void;
 }) {
   const id = useId();
@@ -79,7 +80,6 @@ export function LiveFieldInput({
   };
 
   const waiting = pending.filter((p) => p.state === 'waiting');
-  const conflicts = pending.filter((p) => p.state === 'conflict');
   const refused = pending.filter((p) => p.state === 'refused');
   const valueOf = (item: OutboxItem) => (item.request.kind === 'field' ? item.request.value : null);
 
@@ -151,10 +151,15 @@ export function LiveFieldInput({
         </p>
       )}
       <div className="mt-2 space-y-1 font-sans text-sm" aria-live="polite">
-        {saved.value !== null && waiting.length === 0 && conflicts.length === 0 && (
+        {saved.value !== null && waiting.length === 0 && !conflicted && (
           <p className="text-bine" data-testid={`saved-${field}`}>
             Saved: <span className="kf-data font-semibold">{shownValue(field, saved.value, units)}</span>
-            {saved.savedAt && <> at {time(saved.savedAt)}</>}
+            {saved.savedAt && (
+              <>
+                {' '}
+                {saved.savedBy && `by ${saved.savedBy} `}at {time(saved.savedAt)}
+              </>
+            )}
           </p>
         )}
         {waiting.map((item) => (
@@ -163,32 +168,11 @@ export function LiveFieldInput({
             (entered {time(item.createdAt)})
           </p>
         ))}
-        {conflicts.map((item) => (
-          <div
-            key={item.idempotencyKey}
-            role="group"
-            aria-label={`${label}: two values`}
-            className="rounded-md border border-caution bg-caution/10 p-2"
-            data-testid={`conflict-${field}`}
-          >
-            <p className="font-semibold">Two values for {label}: which is right?</p>
-            <p>
-              Saved from another device:{' '}
-              <span className="kf-data font-semibold">{shownValue(field, saved.value, units)}</span>
-            </p>
-            <p>
-              Entered here: <span className="kf-data font-semibold">{shownValue(field, valueOf(item), units)}</span>
-            </p>
-            <div className="mt-2 flex flex-wrap gap-2">
-              <button type="button" className="kf-btn min-h-12" onClick={() => onKeepMine(item)}>
-                Keep the one entered here
-              </button>
-              <button type="button" className="kf-btn-quiet min-h-12" onClick={() => onDiscard(item)}>
-                Keep the saved one
-              </button>
-            </div>
-          </div>
-        ))}
+        {conflicted && (
+          <p className="font-semibold text-danger" data-testid={`conflicted-${field}`}>
+            Two values for {label}: choose one above.
+          </p>
+        )}
         {refused.map((item) => (
           <p key={item.idempotencyKey} className="text-danger">
             Not saved: {item.message}{' '}

@@ -1,4 +1,5 @@
 import {
+  boolean,
   date,
   index,
   integer,
@@ -84,7 +85,8 @@ export const brewDayEntryOutcome = pgEnum('brew_day_entry_outcome', ['saved', 'c
 
 // Every write from brew-day mode, keyed by the idempotency key the device made for it: a retry with
 // the same key gets the answer kept here instead of writing again. A conflicting write is kept too,
-// so both values stay on record while the brewer chooses.
+// so both values stay on record while the brewer chooses; it stays open (every device is shown it)
+// until a choice is saved or a later write agrees with it.
 export const brewDayEntries = pgTable(
   'brew_day_entries',
   {
@@ -96,6 +98,7 @@ export const brewDayEntries = pgTable(
       .notNull()
       .references(() => users.id),
     idempotencyKey: uuid('idempotency_key').notNull(),
+    /** What it writes to (a choice between two values: what the conflict was on). */
     kind: brewDayEntryKind('kind').notNull(),
     /** The brew-day field (`og`, `mashPh`…) or the checklist step id. */
     name: varchar('name', { length: 40 }).notNull(),
@@ -106,6 +109,12 @@ export const brewDayEntries = pgTable(
     status: smallint('status').notNull(),
     response: jsonb('response').notNull(),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    /** Whether the write changed the stored value (false for a conflict, or a value the server already held). */
+    changesValue: boolean('changes_value').notNull().default(true),
+    /** A conflict is settled when the brewer chose, or a later write agreed with it; null while open. */
+    resolvedAt: timestamp('resolved_at', { withTimezone: true }),
+    /** The entry that settled it: the choice, or the agreeing write. */
+    resolvedByEntryId: uuid('resolved_by_entry_id'),
   },
   (t) => [
     uniqueIndex('brew_day_entries_key_idx').on(t.idempotencyKey),

@@ -224,24 +224,52 @@ export type LiveValue =
 
 /** Two values the same to six significant figures (stored reals come back rounded). */
 export function sameLiveValue(a: LiveValue | undefined, b: LiveValue | undefined): boolean {
-  const key = (v: LiveValue | undefined) => {
-    if (v === undefined) return 'unknown';
-    if (v === null) return 'null';
-    const n = (x: number | null | undefined) => (x === null || x === undefined ? null : Number(x.toPrecision(6)));
-    return typeof v === 'number' ? JSON.stringify(n(v)) : JSON.stringify([v.method, n(v.value), n(v.sampleTempC)]);
-  };
-  return key(a) === key(b);
+  return liveValueKey(a) === liveValueKey(b);
+}
+
+/** A value as a string that two equal values share (to six significant figures). */
+export function liveValueKey(v: LiveValue | undefined): string {
+  if (v === undefined) return 'unknown';
+  if (v === null) return 'null';
+  const n = (x: number | null | undefined) => (x === null || x === undefined ? null : Number(x.toPrecision(6)));
+  return typeof v === 'number' ? JSON.stringify(n(v)) : JSON.stringify([v.method, n(v.value), n(v.sampleTempC)]);
 }
 
 export interface LiveFieldState {
   value: LiveValue;
   /** When brew-day mode last saved it (null when it came from the form, or is empty). */
   savedAt: string | null;
+  /** Who saved it there (null as for savedAt). */
+  savedBy: string | null;
 }
 
-/** What the server holds of a brew day in brew-day mode: each field, and the steps ticked off. */
+interface LiveConflictSides<T> {
+  /** The conflict entry's id, which a choice names. */
+  id: string;
+  /** The value that arrived second, kept aside, with who entered it, when, and its idempotency key. */
+  entered: T;
+  enteredBy: string | null;
+  enteredAt: string;
+  enteredKey: string;
+  /** What the server holds now, with who saved it there and when (null: the form, or never). */
+  saved: T;
+  savedBy: string | null;
+  savedAt: string | null;
+  /** Names the saved side as shown; a choice sent with a token that no longer matches is refused. */
+  savedToken: string;
+}
+
+/** Two values for one field or step, open until the brewer chooses; every device is shown it. */
+export type LiveConflict =
+  | ({ kind: 'field'; field: LiveField } & LiveConflictSides<LiveValue>)
+  | ({ kind: 'step'; stepId: string } & LiveConflictSides<boolean>);
+
+/** What the server holds of a brew day in brew-day mode: each field, the steps ticked off, and open conflicts. */
 export interface LiveState {
   brewDayId: string;
   fields: Record<LiveField, LiveFieldState>;
   checkedSteps: Record<string, string>;
+  /** Each step's last saved write (its idempotency key), which the device's next tick names as `basedOn`. */
+  stepRevisions: Record<string, string>;
+  conflicts: LiveConflict[];
 }

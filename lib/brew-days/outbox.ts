@@ -7,14 +7,19 @@ import { liveEntrySchema, type LiveField } from './schemas';
 
 export type OutboxRequest =
   | { idempotencyKey: string; kind: 'field'; field: LiveField; value: LiveValue; knownValue: LiveValue }
-  | { idempotencyKey: string; kind: 'step'; stepId: string; checked: boolean };
+  | { idempotencyKey: string; kind: 'step'; stepId: string; checked: boolean; basedOn: string | null }
+  | { idempotencyKey: string; kind: 'resolve'; conflictId: string; keep: 'entered' | 'saved'; savedToken: string };
 
 export interface OutboxItem {
   idempotencyKey: string;
   brewDayId: string;
   request: OutboxRequest;
   createdAt: number;
-  /** waiting: not answered yet; conflict: another device saved a different value; refused: the server said no. */
+  /**
+   * waiting: not answered yet; conflict: kept by the server beside another device's value (the
+   * server's state lists it until the brewer chooses; kept here to say which value this device
+   * entered); refused: the server said no.
+   */
   state: 'waiting' | 'conflict' | 'refused';
   message: string | null;
 }
@@ -23,15 +28,35 @@ interface OutboxDb extends DBSchema {
   outbox: { key: string; value: OutboxItem; indexes: { byBrewDay: string } };
 }
 
+export const OUTBOX_DATABASE = 'kettlefork-brew-day';
+
 let opened: Promise<IDBPDatabase<OutboxDb>> | null = null;
 
 function outboxDb(): Promise<IDBPDatabase<OutboxDb>> {
-  opened ??= openDB<OutboxDb>('kettlefork-brew-day', 1, {
+  opened ??= openDB<OutboxDb>(OUTBOX_DATABASE, 1, {
     upgrade(db) {
       db.createObjectStore('outbox', { keyPath: 'idempotencyKey' }).createIndex('byBrewDay', 'brewDayId');
     },
+    // Another tab is deleting the outbox (signing out): let go, so it can.
+    blocking() {
+      void closeOutbox();
+    },
   });
   return opened;
+}
+
+/** Closes this tab's connection, so the outbox can be deleted. */
+export async function closeOutbox(): Promise<void> {
+  const db = opened;
+  opened = null;
+  if (db) (await db.catch(() => null))?.close();
+}
+
+/** How many writes wait unsent on this device, across every brew day; null when there is no outbox yet. */
+export async function countUnsent(): Promise<number | null> {
+  if (indexedDB.databases && !(await indexedDB.databases()).some((d) => d.name === OUTBOX_DATABASE)) return null;
+  const items = await (await outboxDb()).getAll('outbox');
+  return items.filter((i) => i.state === 'waiting').length;
 }
 
 /** Stores a write for later sending, after checking it with the same schema the server uses. */

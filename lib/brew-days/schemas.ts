@@ -205,11 +205,20 @@ export function parseLiveFieldValue(field: LiveField, value: unknown) {
 }
 
 const idempotencyKey = z.uuid({ error: 'Idempotency key must be a UUID made by the device' });
+const stepId = z.string({ error: 'Step is required' }).regex(/^[a-z0-9-]{1,40}$/, 'No such step');
+/**
+ * The write a tick follows: the idempotency key of the step's last saved write as the device saw it,
+ * or of its own tick still waiting before this one (null, or left out, when the step was never
+ * ticked). A tick that follows something else has missed another device's tick or untick, and is a
+ * conflict.
+ */
+const basedOn = z.uuid({ error: 'Based on must be the idempotency key of an earlier write' }).nullable().optional();
 
 /**
- * A write from brew-day mode: a field measured at its step, or a step ticked off. `knownValue` is
- * the field's value on the server as the device last saw it (null when it was empty), so a value
- * entered meanwhile on another device is a conflict rather than overwritten.
+ * A write from brew-day mode: a field measured at its step, a step ticked or unticked, or the
+ * brewer's choice between two values. `knownValue` is the field's value on the server as the device
+ * last saw it (null when it was empty), so a value entered meanwhile on another device is a
+ * conflict rather than overwritten; a tick names the write it follows (`basedOn`) for the same end.
  */
 export const liveEntrySchema = z.discriminatedUnion(
   'kind',
@@ -233,10 +242,19 @@ export const liveEntrySchema = z.discriminatedUnion(
     z.object({
       idempotencyKey,
       kind: z.literal('step'),
-      stepId: z.string({ error: 'Step is required' }).regex(/^[a-z0-9-]{1,40}$/, 'No such step'),
+      stepId,
       checked: z.boolean({ error: 'Checked must be true or false' }),
+      basedOn,
+    }),
+    z.object({
+      idempotencyKey,
+      kind: z.literal('resolve'),
+      conflictId: z.uuid({ error: 'Conflict must be the id of a conflict' }),
+      keep: z.enum(['entered', 'saved'], { error: 'Keep must be entered or saved' }),
+      /** The saved side as the device showed it (`LiveConflict.savedToken`): a choice made against a value that has moved since is refused. */
+      savedToken: z.string({ error: 'Saved token is required' }).min(1, 'Saved token is required').max(400),
     }),
   ],
-  { error: 'Kind must be field or step' },
+  { error: 'Kind must be field, step or resolve' },
 );
 export type LiveEntryInput = z.output<typeof liveEntrySchema>;
