@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { openBrowser, signInThroughPage, type BrowserSession } from '../helpers/browser';
+import { openAccountMenu, openBrowser, signInThroughPage, type BrowserSession } from '../helpers/browser';
 import { BASE_URL } from '../helpers/env';
 import { TestClient } from '../helpers/http';
 import { signedInClient, TEST_PASSWORD } from '../helpers/users';
@@ -66,7 +66,7 @@ describe('brew-day mode across devices and members', { timeout: 240_000 }, () =>
       // Back online (the tick still cannot get through), the member signs out from the site's header.
       await context.setOffline(false);
       await page.goto('/brew-days');
-      await page.getByRole('button', { name: 'Sign out' }).click();
+      await (await openAccountMenu(page)).getByRole('button', { name: 'Sign out' }).click();
       await page.getByText('1 brew-day entry has not been sent from this device.').waitFor();
       await s.shot('sign-out-unsent-phone');
       await page.getByRole('button', { name: 'Sign out anyway' }).click();
