@@ -95,9 +95,13 @@ export function useBrewDayLive(brewDayId: string, initialState: LiveState) {
     setItems(await listOutbox(brewDayId));
   }, [brewDayId]);
 
+  // A read already on its way was answered before this write: cancel it first, or it would land
+  // after this change and take it back (and a conflict this device entered would be forgotten).
   const update = useCallback(
-    (change: (state: LiveState) => LiveState) =>
-      queryClient.setQueryData<LiveState>(brewDayLiveKeys.state(brewDayId), (old) => change(old ?? initialState)),
+    async (change: (state: LiveState) => LiveState) => {
+      await queryClient.cancelQueries({ queryKey: brewDayLiveKeys.state(brewDayId) });
+      queryClient.setQueryData<LiveState>(brewDayLiveKeys.state(brewDayId), (old) => change(old ?? initialState));
+    },
     [queryClient, brewDayId, initialState],
   );
 
@@ -120,7 +124,7 @@ export function useBrewDayLive(brewDayId: string, initialState: LiveState) {
         answered = true;
         if (result.ok) {
           await removeFromOutbox(item.idempotencyKey);
-          update((state) => withSaved(state, result.data, item.idempotencyKey));
+          await update((state) => withSaved(state, result.data, item.idempotencyKey));
           continue;
         }
         const details = result.details as { conflict?: LiveConflict } | undefined;
@@ -129,7 +133,7 @@ export function useBrewDayLive(brewDayId: string, initialState: LiveState) {
         // The server keeps the conflict and lists it for every device; it shows here at once.
         const conflict = details?.conflict;
         if (isConflict && conflict)
-          update((state) => ({
+          await update((state) => ({
             ...state,
             conflicts: [...state.conflicts.filter((c) => c.id !== conflict.id), conflict],
           }));
