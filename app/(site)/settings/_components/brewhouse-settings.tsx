@@ -3,11 +3,11 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
-import { Controller, useForm, useWatch, type Control, type FieldPath } from 'react-hook-form';
+import { useForm, useWatch, type Control, type FieldPath } from 'react-hook-form';
 import { toast } from 'sonner';
 import { FormField, describedBy } from '@/components/form-field';
 import { fieldUnit, plainUnit, type FieldUnit } from '@/components/recipe-editor/field-units';
-import { UnitNumberInput } from '@/components/recipe-editor/unit-number-input';
+import { UnitNumberField } from '@/components/unit-number-field';
 import { brewhouseKeys } from '@/hooks/use-brewhouse';
 import { ION_NAMES } from '@/lib/brewing/constants';
 import type { IonName } from '@/lib/brewing/schema';
@@ -52,27 +52,7 @@ function NumberSetting({
   error?: string;
 }) {
   const id = `brewhouse-${path.replace(/\./g, '-')}`;
-  return (
-    <FormField id={id} label={`${label} (${unit.label})`} error={error} hint={hint}>
-      <Controller
-        control={control}
-        name={path}
-        render={({ field }) => (
-          <UnitNumberInput
-            id={id}
-            name={field.name}
-            value={field.value as number | null}
-            onChange={field.onChange}
-            onBlur={field.onBlur}
-            inputRef={field.ref}
-            unit={unit}
-            invalid={Boolean(error)}
-            describedBy={describedBy(id, error, hint)}
-          />
-        )}
-      />
-    </FormField>
-  );
+  return <UnitNumberField control={control} name={path} id={id} label={label} unit={unit} hint={hint} error={error} />;
 }
 
 /**

@@ -1,0 +1,66 @@
+'use client';
+
+import { Controller, type Control, type FieldPath, type FieldValues } from 'react-hook-form';
+import { FormField, describedBy } from '@/components/form-field';
+import type { FieldUnit } from '@/components/recipe-editor/field-units';
+import { UnitNumberInput } from '@/components/recipe-editor/unit-number-input';
+
+/** "Boil-off rate (L/h)"; a unit with no label adds nothing. */
+function labelWithUnit(label: string, unit?: FieldUnit): string {
+  return unit?.label ? `${label} (${unit.label})` : label;
+}
+
+/**
+ * A labelled number field of a react-hook-form form that shows the member's unit and stores
+ * metric: the recipe editor's numbers and the brewhouse settings use it alike.
+ */
+export function UnitNumberField<T extends FieldValues>({
+  control,
+  name,
+  id,
+  label,
+  unit,
+  error,
+  hint,
+  className,
+  announce,
+}: {
+  control: Control<T>;
+  name: FieldPath<T>;
+  id: string;
+  label: string;
+  unit: FieldUnit;
+  error?: string;
+  hint?: string;
+  className?: string;
+  announce?: boolean;
+}) {
+  return (
+    <FormField
+      id={id}
+      label={labelWithUnit(label, unit)}
+      error={error}
+      hint={hint}
+      className={className}
+      announce={announce}
+    >
+      <Controller
+        control={control}
+        name={name}
+        render={({ field }) => (
+          <UnitNumberInput
+            id={id}
+            name={field.name}
+            value={field.value as number | null | undefined}
+            onChange={field.onChange}
+            onBlur={field.onBlur}
+            inputRef={field.ref}
+            unit={unit}
+            invalid={Boolean(error)}
+            describedBy={describedBy(id, error, hint)}
+          />
+        )}
+      />
+    </FormField>
+  );
+}
