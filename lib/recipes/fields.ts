@@ -173,6 +173,24 @@ export const CARBONATION_FIELDS: FieldSpec[] = [
 
 export const saltName = (salt: string): string => SALT_LABEL[salt as keyof typeof SALT_LABEL] ?? salt;
 
+/** A salt addition in words: "Gypsum 5 g". */
+export function saltLine(salt: string, grams: number): string {
+  return `${saltName(salt)} ${trimNumber(grams, 1)} g`;
+}
+
+/** Each part of the recipe document with field specs, by its path in the document. */
+export const SECTION_FIELDS = {
+  batch: BATCH_FIELDS,
+  fermentables: FERMENTABLE_FIELDS,
+  hops: HOP_FIELDS,
+  yeasts: YEAST_FIELDS,
+  'mash.steps': MASH_STEP_FIELDS,
+  'fermentation.steps': FERMENTATION_STEP_FIELDS,
+  'water.salts': SALT_FIELDS,
+  water: WATER_FIELDS,
+  carbonation: CARBONATION_FIELDS,
+} as const satisfies Record<string, readonly FieldSpec[]>;
+
 /** "Cascade (boil, 10 min)", "Cascade (dry hop, 3 days)". */
 export function hopLabel(hop: RecipeDocument['hops'][number]): string {
   return `${hop.name} (${HOP_USE_LABEL[hop.use]}, ${hopTime(hop.timeMin, hop.use)})`;
