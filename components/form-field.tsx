@@ -15,7 +15,7 @@ export function FormField({
   children,
 }: {
   id: string;
-  label: string;
+  label: ReactNode;
   error?: string;
   hint?: string;
   className?: string;

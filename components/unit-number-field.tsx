@@ -1,13 +1,20 @@
 'use client';
 
+import type { ReactNode } from 'react';
 import { Controller, type Control, type FieldPath, type FieldValues } from 'react-hook-form';
 import { FormField, describedBy } from '@/components/form-field';
 import type { FieldUnit } from '@/components/recipe-editor/field-units';
 import { UnitNumberInput } from '@/components/recipe-editor/unit-number-input';
 
-/** "Boil-off rate (L/h)"; a unit with no label adds nothing. */
-function labelWithUnit(label: string, unit?: FieldUnit): string {
-  return unit?.label ? `${label} (${unit.label})` : label;
+/** "Boil-off rate (L/h)", the unit greyed when `muted`; a unit with no label adds nothing. */
+function labelWithUnit(label: string, unit: FieldUnit, muted: boolean): ReactNode {
+  if (!unit.label) return label;
+  if (!muted) return `${label} (${unit.label})`;
+  return (
+    <>
+      {label} <span className="text-muted">({unit.label})</span>
+    </>
+  );
 }
 
 /**
@@ -24,6 +31,7 @@ export function UnitNumberField<T extends FieldValues>({
   hint,
   className,
   announce,
+  mutedUnit = false,
 }: {
   control: Control<T>;
   name: FieldPath<T>;
@@ -34,11 +42,13 @@ export function UnitNumberField<T extends FieldValues>({
   hint?: string;
   className?: string;
   announce?: boolean;
+  /** Greys the unit after the label, as the brew-day forms show it. */
+  mutedUnit?: boolean;
 }) {
   return (
     <FormField
       id={id}
-      label={labelWithUnit(label, unit)}
+      label={labelWithUnit(label, unit, mutedUnit)}
       error={error}
       hint={hint}
       className={className}
