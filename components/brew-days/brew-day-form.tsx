@@ -7,13 +7,14 @@ import { Controller, useForm, useWatch, type Control, type FieldErrors, type Pat
 import { toast } from 'sonner';
 import { z } from 'zod';
 import { setServerErrors } from '@/components/form-errors';
+import { FormSubmit } from '@/components/form-field';
 import { fieldUnit, plainUnit, type FieldUnit } from '@/components/recipe-editor/field-units';
 import { UnitNumberField } from '@/components/unit-number-field';
 import { createBrewDaySchema, TYPICAL_KEG_RATING_KPA } from '@/lib/brew-days/schemas';
 import { fromDisplayUnits, toDisplayUnits, type UnitSystem } from '@/lib/brewing/units';
 import { requestJson } from '@/lib/http/client';
 import { Caution, CAUTIONS } from './caution';
-import { DateField, SubmitRow } from './entry-form';
+import { DateField } from './entry-form';
 
 type FormInput = z.input<typeof createBrewDaySchema>;
 type FormOutput = z.output<typeof createBrewDaySchema>;
@@ -312,8 +313,9 @@ export function BrewDayForm({ units, mode, defaults }: BrewDayFormProps) {
         <Caution>{CAUTIONS.chemicals}</Caution>
       </section>
 
-      <SubmitRow
+      <FormSubmit
         formError={formError}
+        errorClassName="font-sans text-sm text-danger"
         submitting={isSubmitting}
         idle={mode.kind === 'create' ? 'Log this brew day' : 'Save brew day'}
         busy="Saving…"

@@ -5,7 +5,7 @@ import { useState, type FormEventHandler, type ReactNode } from 'react';
 import type { FieldValues, UseFormRegisterReturn, UseFormSetError } from 'react-hook-form';
 import { toast } from 'sonner';
 import { setServerErrors } from '@/components/form-errors';
-import { FormField, describedBy } from '@/components/form-field';
+import { FormField, FormSubmit, describedBy } from '@/components/form-field';
 import { requestJson } from '@/lib/http/client';
 
 /**
@@ -40,37 +40,6 @@ export function useAddToBrewDay<T extends FieldValues, Output>({
     router.refresh();
   };
   return { formError, onSubmit };
-}
-
-/**
- * A brew-day form's own message, then its button (`busy` while it is sent). `spaced` sets them
- * apart from the fields, for a form that does not space its children itself.
- */
-export function SubmitRow({
-  formError,
-  submitting,
-  idle,
-  busy,
-  spaced = false,
-}: {
-  formError?: string;
-  submitting: boolean;
-  idle: string;
-  busy: string;
-  spaced?: boolean;
-}) {
-  return (
-    <>
-      {formError && (
-        <p role="alert" className={`${spaced ? 'mt-2 ' : ''}font-sans text-sm text-danger`}>
-          {formError}
-        </p>
-      )}
-      <button type="submit" className={spaced ? 'kf-btn mt-3' : 'kf-btn'} disabled={submitting}>
-        {submitting ? busy : idle}
-      </button>
-    </>
-  );
 }
 
 /** A date of a brew-day form, with its message beside it. */
@@ -129,7 +98,14 @@ export function EntryCard({
         {title}
       </h3>
       <div className="mt-2 grid gap-3 sm:grid-cols-2">{children}</div>
-      <SubmitRow formError={formError} submitting={submitting} idle={idle} busy="Adding…" spaced />
+      <FormSubmit
+        formError={formError}
+        errorClassName="mt-2 font-sans text-sm text-danger"
+        submitting={submitting}
+        idle={idle}
+        busy="Adding…"
+        buttonClassName="kf-btn mt-3"
+      />
     </form>
   );
 }

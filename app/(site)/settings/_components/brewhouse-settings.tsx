@@ -5,7 +5,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { useForm, useWatch, type Control, type FieldPath } from 'react-hook-form';
 import { toast } from 'sonner';
-import { FormField, describedBy } from '@/components/form-field';
+import { FormSubmit, InputField } from '@/components/form-field';
 import { fieldUnit, plainUnit, type FieldUnit } from '@/components/recipe-editor/field-units';
 import { UnitNumberField } from '@/components/unit-number-field';
 import { brewhouseKeys } from '@/hooks/use-brewhouse';
@@ -141,24 +141,13 @@ export function BrewhouseSettings({ initial, units }: { initial: BrewhouseInput;
         </div>
         {report !== null && (
           <div className="mt-2">
-            <FormField
+            <InputField
               id="brewhouse-report-name"
               label="Name of this water"
               error={errors.waterReport?.name?.message}
               hint="Shown in the recipe editor as a source water."
-            >
-              <input
-                id="brewhouse-report-name"
-                className="kf-input"
-                aria-invalid={Boolean(errors.waterReport?.name)}
-                aria-describedby={describedBy(
-                  'brewhouse-report-name',
-                  errors.waterReport?.name?.message,
-                  'Shown in the recipe editor as a source water.',
-                )}
-                {...register('waterReport.name')}
-              />
-            </FormField>
+              registration={register('waterReport.name')}
+            />
             <div className="grid grid-cols-2 gap-x-4 sm:grid-cols-3">
               {ION_NAMES.map((ion) => (
                 <NumberSetting
@@ -173,14 +162,14 @@ export function BrewhouseSettings({ initial, units }: { initial: BrewhouseInput;
             </div>
           </div>
         )}
-        {formError && (
-          <p role="alert" className="kf-field-error mt-4">
-            {formError}
-          </p>
-        )}
-        <button type="submit" className="kf-btn mt-4" disabled={isSubmitting}>
-          {isSubmitting ? 'Saving…' : 'Save losses and water'}
-        </button>
+        <FormSubmit
+          formError={formError}
+          errorClassName="kf-field-error mt-4"
+          submitting={isSubmitting}
+          idle="Save losses and water"
+          busy="Saving…"
+          buttonClassName="kf-btn mt-4"
+        />
       </fieldset>
     </form>
   );
