@@ -34,7 +34,7 @@ export function ibuFromUtilisation(utilisation: number, amountG: number, alphaPc
  * Through the Brewing Process: The Quest for Consistency", MBAA Technical
  * Quarterly 55 (3), 2018).
  */
-export const MASH_HOP_FRACTION = 0.2;
+const MASH_HOP_FRACTION = 0.2;
 
 /** Temperature assumed for a hop stand that gives none (common practice for a whirlpool rest). */
 export const DEFAULT_HOP_STAND_TEMP_C = 80;

@@ -93,7 +93,7 @@ const SALT_PATTERNS: [RegExp, SaltName][] = [
   [/table salt|sodium chloride|nacl|^salt$|canning salt|non-iodi[sz]ed salt/i, 'table_salt'],
 ];
 
-export function saltFromName(name: string): SaltName | null {
+function saltFromName(name: string): SaltName | null {
   for (const [pattern, salt] of SALT_PATTERNS) if (pattern.test(name.trim())) return salt;
   return null;
 }
