@@ -1,6 +1,6 @@
-import type { RecipeDocument } from '@/lib/brewing/schema';
+import { ION_NAMES, type IonName, type RecipeDocument } from '@/lib/brewing/schema';
 import { toDisplayUnits, type Quantity, type UnitSystem } from '@/lib/brewing/units';
-import { HOP_USE_LABEL, SALT_LABEL, formatAmount } from '@/lib/format';
+import { HOP_USE_LABEL, ION_LABEL, SALT_LABEL, formatAmount } from '@/lib/format';
 
 /**
  * The one set of field labels and value formatters for every place that shows a difference between
@@ -143,16 +143,7 @@ export const FERMENTATION_STEP_FIELDS: FieldSpec[] = [
   { key: 'days', label: 'Days', ...plain('days', 1) },
 ];
 
-const ION_LABEL: Record<string, string> = {
-  calcium: 'Calcium',
-  magnesium: 'Magnesium',
-  sodium: 'Sodium',
-  chloride: 'Chloride',
-  sulfate: 'Sulfate',
-  bicarbonate: 'Bicarbonate',
-};
-
-const ion = (key: string): FieldSpec => ({
+const ion = (key: IonName): FieldSpec => ({
   key,
   label: ION_LABEL[key],
   show: (v, units) => (typeof v === 'number' ? `${trimNumber(v, 0)} ${units === 'us' ? 'ppm' : 'mg/L'}` : none(v)),
@@ -161,7 +152,7 @@ const ion = (key: string): FieldSpec => ({
 
 export const WATER_FIELDS: FieldSpec[] = [
   { key: 'volumeL', label: 'Water volume', ...amount('volume') },
-  ...Object.keys(ION_LABEL).map(ion),
+  ...ION_NAMES.map(ion),
 ];
 
 export const SALT_FIELDS: FieldSpec[] = [{ key: 'grams', label: 'Amount', ...plain('g', 1) }];

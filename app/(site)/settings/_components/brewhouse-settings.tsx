@@ -10,19 +10,10 @@ import { fieldUnit, plainUnit, type FieldUnit } from '@/components/recipe-editor
 import { UnitNumberField } from '@/components/unit-number-field';
 import { brewhouseKeys } from '@/hooks/use-brewhouse';
 import { ION_NAMES } from '@/lib/brewing/constants';
-import type { IonName } from '@/lib/brewing/schema';
 import { DISPLAY_UNITS, type UnitSystem } from '@/lib/brewing/units';
+import { ION_LABEL } from '@/lib/format';
 import { brewhouseSchema, type BrewhouseInput } from '@/lib/community/brewhouse-schema';
 import { requestJson } from '@/lib/http/client';
-
-const ION_WORDS: Record<IonName, string> = {
-  calcium: 'Calcium',
-  magnesium: 'Magnesium',
-  sodium: 'Sodium',
-  chloride: 'Chloride',
-  sulfate: 'Sulfate',
-  bicarbonate: 'Bicarbonate',
-};
 
 const EMPTY_REPORT: NonNullable<BrewhouseInput['waterReport']> = {
   name: '',
@@ -154,7 +145,7 @@ export function BrewhouseSettings({ initial, units }: { initial: BrewhouseInput;
                   key={ion}
                   control={control}
                   path={`waterReport.${ion}`}
-                  label={ION_WORDS[ion]}
+                  label={ION_LABEL[ion]}
                   unit={plainUnit(DISPLAY_UNITS[units].concentration, 1)}
                   error={errors.waterReport?.[ion]?.message}
                 />
