@@ -5,6 +5,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { useForm, useWatch, type Control, type FieldPath } from 'react-hook-form';
 import { toast } from 'sonner';
+import { setServerErrors } from '@/components/form-errors';
 import { FormSubmit, InputField } from '@/components/form-field';
 import { fieldUnit, plainUnit, type FieldUnit } from '@/components/recipe-editor/field-units';
 import { UnitNumberField } from '@/components/unit-number-field';
@@ -26,6 +27,14 @@ const EMPTY_REPORT: NonNullable<BrewhouseInput['waterReport']> = {
 };
 
 type Path = FieldPath<BrewhouseInput>;
+
+/** The losses "Fit to my brewhouse" uses, each in the member's unit for its quantity. */
+const LOSSES = [
+  { path: 'boilOffLPerHour', label: 'Boil-off rate', quantity: 'volumePerHour' },
+  { path: 'trubLossL', label: 'Kettle trub loss', quantity: 'volume' },
+  { path: 'grainAbsorptionLPerKg', label: 'Grain absorption', quantity: 'litresPerKg' },
+  { path: 'mashWaterLPerKg', label: 'Mash thickness', quantity: 'litresPerKg' },
+] as const;
 
 function NumberSetting({
   control,
@@ -61,13 +70,12 @@ export function BrewhouseSettings({ initial, units }: { initial: BrewhouseInput;
   const { errors, isSubmitting } = formState;
   const report = useWatch({ control, name: 'waterReport' });
   const [keptReport, setKeptReport] = useState(initial.waterReport ?? EMPTY_REPORT);
-  const thickness = fieldUnit('litresPerKg', units);
 
   const onSubmit = handleSubmit(async (values) => {
     setFormError(undefined);
     const result = await requestJson<{ brewhouse: BrewhouseInput }>('/api/me/brewhouse', 'PUT', values);
     if (!result.ok) {
-      for (const field of result.fields) setError(field.path as Path, { message: field.message });
+      setServerErrors(setError, result.fields);
       setFormError(result.message);
       return;
     }
@@ -86,34 +94,16 @@ export function BrewhouseSettings({ initial, units }: { initial: BrewhouseInput;
           recipe’s own.
         </p>
         <div className="grid gap-x-4 sm:grid-cols-2">
-          <NumberSetting
-            control={control}
-            path="boilOffLPerHour"
-            label="Boil-off rate"
-            unit={fieldUnit('volumePerHour', units)}
-            error={errors.boilOffLPerHour?.message}
-          />
-          <NumberSetting
-            control={control}
-            path="trubLossL"
-            label="Kettle trub loss"
-            unit={fieldUnit('volume', units)}
-            error={errors.trubLossL?.message}
-          />
-          <NumberSetting
-            control={control}
-            path="grainAbsorptionLPerKg"
-            label="Grain absorption"
-            unit={thickness}
-            error={errors.grainAbsorptionLPerKg?.message}
-          />
-          <NumberSetting
-            control={control}
-            path="mashWaterLPerKg"
-            label="Mash thickness"
-            unit={thickness}
-            error={errors.mashWaterLPerKg?.message}
-          />
+          {LOSSES.map(({ path, label, quantity }) => (
+            <NumberSetting
+              key={path}
+              control={control}
+              path={path}
+              label={label}
+              unit={fieldUnit(quantity, units)}
+              error={errors[path]?.message}
+            />
+          ))}
         </div>
         <div className="mt-6 flex items-center gap-2">
           <input
