@@ -1,11 +1,12 @@
 import type { ReactNode } from 'react';
 import { SrmSwatch } from '@/components/srm-swatch';
 import { ION_NAMES } from '@/lib/brewing/constants';
-import type { HopUse, IonName } from '@/lib/brewing/schema';
+import type { HopUse } from '@/lib/brewing/schema';
 import type { RecipeStats } from '@/lib/brewing/stats';
 import { fitStyle, type RangeFit, type StyleFit, type StyleVital } from '@/lib/brewing/styles';
 import { DISPLAY_UNITS, toDisplayUnits, type UnitSystem } from '@/lib/brewing/units';
 import { MASH_PH_TARGET } from '@/lib/brewing/water';
+import { ION_LABEL } from '@/lib/format';
 
 /** Above this keg pressure most homebrew kegs and regulators are near their limits. */
 const HIGH_KEG_PRESSURE_KPA = 200;
@@ -18,18 +19,9 @@ const HOP_USE_WORDS: Record<HopUse, string> = {
   dry_hop: 'dry hop',
 };
 
-const ION_WORDS: Record<IonName, string> = {
-  calcium: 'Calcium',
-  magnesium: 'Magnesium',
-  sodium: 'Sodium',
-  chloride: 'Chloride',
-  sulfate: 'Sulfate',
-  bicarbonate: 'Bicarbonate',
-};
-
 const VITAL_WORDS: Record<StyleVital, string> = { og: 'OG', fg: 'FG', abv: 'ABV', ibu: 'IBU', srm: 'SRM' };
 
-const POSITION_WORDS = { below: 'below the range', within: 'within the range', above: 'above the range' } as const;
+const POSITION_LABEL = { below: 'below the range', within: 'within the range', above: 'above the range' } as const;
 
 type GuideAnchor = 'og' | 'fg' | 'abv' | 'ibu' | 'colour' | 'water' | 'carbonation' | 'style-fit';
 
@@ -196,7 +188,7 @@ function WaterBlock({ water, units }: { water: NonNullable<RecipeStats['water']>
       <dl className="kf-data mt-2 grid grid-cols-2 gap-x-4 gap-y-1 text-sm @md:grid-cols-3">
         {ION_NAMES.map((ion) => (
           <div key={ion} className="flex justify-between gap-2 border-b border-line/60 py-0.5">
-            <dt className="text-muted">{ION_WORDS[ion]}</dt>
+            <dt className="text-muted">{ION_LABEL[ion]}</dt>
             <dd className="whitespace-nowrap">
               {fixed(water[ion], 0)} {unit}
             </dd>
@@ -275,7 +267,7 @@ function RangeBar({ vital, fit }: { vital: StyleVital; fit: RangeFit | null }) {
         </span>
         <span className={inside ? 'text-bine' : 'font-semibold text-caution'}>
           {!inside && <span aria-hidden="true">⚠ </span>}
-          {POSITION_WORDS[fit.position]}
+          {POSITION_LABEL[fit.position]}
         </span>
       </div>
       <div className="relative mt-1 h-3" aria-hidden="true">

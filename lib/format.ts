@@ -1,3 +1,4 @@
+import type { IonName } from '@/lib/brewing/schema';
 import { DISPLAY_UNITS, toDisplayUnits, type Quantity, type UnitSystem } from '@/lib/brewing/units';
 
 const UNIT_LABEL: Record<string, string> = {
@@ -39,6 +40,16 @@ export const HOP_USE_LABEL = {
   whirlpool: 'whirlpool',
   dry_hop: 'dry hop',
 } as const;
+/** The six ions of a water report, in brewers' words. */
+export const ION_LABEL: Record<IonName, string> = {
+  calcium: 'Calcium',
+  magnesium: 'Magnesium',
+  sodium: 'Sodium',
+  chloride: 'Chloride',
+  sulfate: 'Sulfate',
+  bicarbonate: 'Bicarbonate',
+};
+
 export const SALT_LABEL = {
   gypsum: 'Gypsum',
   epsom: 'Epsom salt',

@@ -7,13 +7,14 @@ import { Controller, useForm, useWatch, type Control, type FieldErrors, type Pat
 import { toast } from 'sonner';
 import { z } from 'zod';
 import { setServerErrors } from '@/components/form-errors';
-import { describedBy } from '@/components/form-field';
+import { FormSubmit } from '@/components/form-field';
 import { fieldUnit, plainUnit, type FieldUnit } from '@/components/recipe-editor/field-units';
-import { UnitNumberInput } from '@/components/recipe-editor/unit-number-input';
+import { UnitNumberField } from '@/components/unit-number-field';
 import { createBrewDaySchema, TYPICAL_KEG_RATING_KPA } from '@/lib/brew-days/schemas';
 import { fromDisplayUnits, toDisplayUnits, type UnitSystem } from '@/lib/brewing/units';
 import { requestJson } from '@/lib/http/client';
 import { Caution, CAUTIONS } from './caution';
+import { DateField } from './entry-form';
 
 type FormInput = z.input<typeof createBrewDaySchema>;
 type FormOutput = z.output<typeof createBrewDaySchema>;
@@ -52,40 +53,18 @@ function NumberField({
   errors: FieldErrors<FormInput>;
   hint?: string;
 }) {
-  const id = `bd-${name.replace(/\./g, '-')}`;
-  const error = errorAt(errors, name);
   return (
-    <div>
-      <label htmlFor={id} className="kf-label">
-        {label} <span className="text-muted">({unit.label})</span>
-      </label>
-      <Controller
-        control={control}
-        name={name}
-        render={({ field }) => (
-          <UnitNumberInput
-            id={id}
-            name={name}
-            value={typeof field.value === 'number' ? field.value : undefined}
-            onChange={(v) => field.onChange(v)}
-            onBlur={field.onBlur}
-            unit={unit}
-            invalid={Boolean(error)}
-            describedBy={describedBy(id, error, hint)}
-          />
-        )}
-      />
-      {hint && !error && (
-        <p id={`${id}-hint`} className="mt-1 font-sans text-xs text-muted">
-          {hint}
-        </p>
-      )}
-      {error && (
-        <p id={`${id}-error`} role="alert" className="kf-field-error">
-          {error}
-        </p>
-      )}
-    </div>
+    <UnitNumberField
+      control={control}
+      name={name}
+      id={`bd-${name.replace(/\./g, '-')}`}
+      label={label}
+      unit={unit}
+      error={errorAt(errors, name)}
+      hint={hint}
+      className=""
+      mutedUnit
+    />
   );
 }
 
@@ -213,24 +192,13 @@ export function BrewDayForm({ units, mode, defaults }: BrewDayFormProps) {
       <input type="hidden" {...register('versionId')} />
       <section className="kf-card space-y-3">
         <h2 className="text-lg font-semibold">The day</h2>
-        <div className="max-w-xs">
-          <label htmlFor={id('brewedOn')} className="kf-label">
-            Brew date
-          </label>
-          <input
-            id={id('brewedOn')}
-            type="date"
-            className="kf-input"
-            {...register('brewedOn')}
-            aria-invalid={Boolean(errors.brewedOn) || undefined}
-            aria-describedby={describedBy(id('brewedOn'), errors.brewedOn?.message)}
-          />
-          {errors.brewedOn && (
-            <p id={`${id('brewedOn')}-error`} role="alert" className="kf-field-error">
-              {errors.brewedOn.message}
-            </p>
-          )}
-        </div>
+        <DateField
+          id={id('brewedOn')}
+          label="Brew date"
+          registration={register('brewedOn')}
+          error={errors.brewedOn?.message}
+          className="max-w-xs"
+        />
       </section>
 
       <section className="kf-card">
@@ -280,24 +248,12 @@ export function BrewDayForm({ units, mode, defaults }: BrewDayFormProps) {
         <h2 className="text-lg font-semibold">Finish and packaging</h2>
         <GravityField control={control} name="fg" label="Final gravity (FG)" units={units} errors={errors} />
         <div className="grid gap-3 sm:grid-cols-2">
-          <div>
-            <label htmlFor={id('packagedOn')} className="kf-label">
-              Packaging date
-            </label>
-            <input
-              id={id('packagedOn')}
-              type="date"
-              className="kf-input"
-              {...register('packagedOn')}
-              aria-invalid={Boolean(errors.packagedOn) || undefined}
-              aria-describedby={describedBy(id('packagedOn'), errors.packagedOn?.message)}
-            />
-            {errors.packagedOn && (
-              <p id={`${id('packagedOn')}-error`} role="alert" className="kf-field-error">
-                {errors.packagedOn.message}
-              </p>
-            )}
-          </div>
+          <DateField
+            id={id('packagedOn')}
+            label="Packaging date"
+            registration={register('packagedOn')}
+            error={errors.packagedOn?.message}
+          />
           <div>
             <label htmlFor={id('packaging')} className="kf-label">
               Packaged in
@@ -357,14 +313,13 @@ export function BrewDayForm({ units, mode, defaults }: BrewDayFormProps) {
         <Caution>{CAUTIONS.chemicals}</Caution>
       </section>
 
-      {formError && (
-        <p role="alert" className="font-sans text-sm text-danger">
-          {formError}
-        </p>
-      )}
-      <button type="submit" className="kf-btn" disabled={isSubmitting}>
-        {isSubmitting ? 'Saving…' : mode.kind === 'create' ? 'Log this brew day' : 'Save brew day'}
-      </button>
+      <FormSubmit
+        formError={formError}
+        errorClassName="font-sans text-sm text-danger"
+        submitting={isSubmitting}
+        idle={mode.kind === 'create' ? 'Log this brew day' : 'Save brew day'}
+        busy="Saving…"
+      />
     </form>
   );
 }

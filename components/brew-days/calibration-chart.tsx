@@ -1,5 +1,6 @@
 import { format, parseISO } from 'date-fns';
 import type { CalibrationBrew } from '@/lib/brew-days/calibration';
+import { ColumnHeads } from '@/components/column-heads';
 
 // Predicted beside measured for each brew over time, drawn as plain SVG: one small panel per number.
 
@@ -153,15 +154,7 @@ export function CalibrationChart({ brews }: { brews: CalibrationBrew[] }) {
       <details className="mt-2 font-sans text-sm">
         <summary>The numbers as a table</summary>
         <table className="mt-2 w-full text-left text-xs">
-          <thead>
-            <tr className="text-muted">
-              <th scope="col">Brewed</th>
-              <th scope="col">Recipe</th>
-              <th scope="col">OG</th>
-              <th scope="col">FG</th>
-              <th scope="col">Efficiency</th>
-            </tr>
-          </thead>
+          <ColumnHeads names={['Brewed', 'Recipe', 'OG', 'FG', 'Efficiency']} className="text-muted" />
           <tbody className="kf-data">
             {brews.map((b) => (
               <tr key={b.brewDayId}>

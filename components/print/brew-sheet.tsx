@@ -10,6 +10,7 @@ import {
   type UnitSystem,
 } from '@/lib/brewing';
 import { HOP_USE_LABEL, SALT_LABEL, formatAmount, formatGravity } from '@/lib/format';
+import { ColumnHeads } from '@/components/column-heads';
 
 /** Grain temperature the strike temperature is worked out for; the sheet says so beside it. */
 const GRAIN_TEMP_C = 20;
@@ -129,14 +130,7 @@ export function BrewSheet({
 
       <Section title="Fermentables">
         <table>
-          <thead>
-            <tr>
-              <th scope="col">Weighed</th>
-              <th scope="col">Fermentable</th>
-              <th scope="col">Amount</th>
-              <th scope="col">Share</th>
-            </tr>
-          </thead>
+          <ColumnHeads names={['Weighed', 'Fermentable', 'Amount', 'Share']} />
           <tbody className="kf-data">
             {doc.fermentables.map((f, i) => (
               <tr key={i}>
@@ -158,13 +152,7 @@ export function BrewSheet({
             <p>No salts.</p>
           ) : (
             <table>
-              <thead>
-                <tr>
-                  <th scope="col">Added</th>
-                  <th scope="col">Salt</th>
-                  <th scope="col">Amount</th>
-                </tr>
-              </thead>
+              <ColumnHeads names={['Added', 'Salt', 'Amount']} />
               <tbody className="kf-data">
                 {doc.water.salts.map((s, i) => (
                   <tr key={i}>
@@ -186,15 +174,7 @@ export function BrewSheet({
           <p>No mash: an extract brew.</p>
         ) : (
           <table>
-            <thead>
-              <tr>
-                <th scope="col">Done</th>
-                <th scope="col">Rest</th>
-                <th scope="col">Temperature</th>
-                <th scope="col">Time</th>
-                <th scope="col">Measured</th>
-              </tr>
-            </thead>
+            <ColumnHeads names={['Done', 'Rest', 'Temperature', 'Time', 'Measured']} />
             <tbody className="kf-data">
               {doc.mash.steps.map((s, i) => (
                 <tr key={i}>
@@ -241,15 +221,7 @@ export function BrewSheet({
         </ul>
         {doc.fermentation.steps.length > 0 && (
           <table className="mt-2">
-            <thead>
-              <tr>
-                <th scope="col">Done</th>
-                <th scope="col">Step</th>
-                <th scope="col">Temperature</th>
-                <th scope="col">Days</th>
-                <th scope="col">Started on</th>
-              </tr>
-            </thead>
+            <ColumnHeads names={['Done', 'Step', 'Temperature', 'Days', 'Started on']} />
             <tbody className="kf-data">
               {doc.fermentation.steps.map((s, i) => (
                 <tr key={i}>
@@ -287,13 +259,7 @@ export function BrewSheet({
 
       <Section title="Measured on the day">
         <table className="kf-keep">
-          <thead>
-            <tr>
-              <th scope="col">Reading</th>
-              <th scope="col">Expected</th>
-              <th scope="col">Measured</th>
-            </tr>
-          </thead>
+          <ColumnHeads names={['Reading', 'Expected', 'Measured']} />
           <tbody className="kf-data">
             {measured.map(([reading, expected]) => (
               <tr key={reading}>

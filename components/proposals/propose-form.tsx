@@ -7,7 +7,7 @@ import { useForm, useWatch } from 'react-hook-form';
 import { toast } from 'sonner';
 import type { z } from 'zod';
 import { onlyFields, showRefusal } from '@/components/form-errors';
-import { describedBy } from '@/components/form-field';
+import { FormSubmit, describedBy } from '@/components/form-field';
 import { requestJson } from '@/lib/http/client';
 import { openProposalSchema } from '@/lib/proposals/schemas';
 
@@ -133,14 +133,14 @@ export function ProposeForm({
             {MARKDOWN_HINT}
           </p>
           {fieldError('description')}
-          {formError && (
-            <p role="alert" className="kf-field-error">
-              {formError}
-            </p>
-          )}
-          <button type="submit" className="kf-btn mt-3" disabled={isSubmitting || !title || title.trim() === ''}>
-            {isSubmitting ? 'Sending…' : 'Send proposal'}
-          </button>
+          <FormSubmit
+            formError={formError}
+            submitting={isSubmitting}
+            disabled={!title || title.trim() === ''}
+            idle="Send proposal"
+            busy="Sending…"
+            buttonClassName="kf-btn mt-3"
+          />
         </form>
       )}
     </div>

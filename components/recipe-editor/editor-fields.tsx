@@ -1,11 +1,11 @@
 'use client';
 
 import type { ReactNode } from 'react';
-import { Controller, get, useFormContext, useFormState, type FieldErrors, type FieldPath } from 'react-hook-form';
-import { describedBy } from '@/components/form-field';
+import { get, useFormContext, useFormState, type FieldErrors, type FieldPath } from 'react-hook-form';
+import { FormField, describedBy } from '@/components/form-field';
+import { UnitNumberField } from '@/components/unit-number-field';
 import type { EditorValues } from './editor-form';
 import type { FieldUnit } from './field-units';
-import { UnitNumberInput } from './unit-number-input';
 
 export type EditorPath = FieldPath<EditorValues>;
 
@@ -27,10 +27,7 @@ export function useErrorAt(path: string): string | undefined {
   return errorMessageAt(errors, path);
 }
 
-function labelWithUnit(label: string, unit?: FieldUnit): string {
-  return unit?.label ? `${label} (${unit.label})` : label;
-}
-
+/** The editor's fields sit in grids (`min-w-0`) and leave their errors to be read with the field. */
 function FieldShell({
   id,
   label,
@@ -47,22 +44,9 @@ function FieldShell({
   children: ReactNode;
 }) {
   return (
-    <div className={`min-w-0 ${className}`}>
-      <label htmlFor={id} className="kf-label">
-        {label}
-      </label>
+    <FormField id={id} label={label} error={error} hint={hint} className={`min-w-0 ${className}`} announce={false}>
       {children}
-      {hint && !error && (
-        <p id={`${id}-hint`} className="mt-1 font-sans text-xs text-muted">
-          {hint}
-        </p>
-      )}
-      {error && (
-        <p id={`${id}-error`} className="kf-field-error">
-          {error}
-        </p>
-      )}
-    </div>
+    </FormField>
   );
 }
 
@@ -71,7 +55,7 @@ export function NumberField({
   label,
   unit,
   hint,
-  className,
+  className = '',
 }: {
   path: EditorPath;
   label: string;
@@ -81,27 +65,18 @@ export function NumberField({
 }) {
   const { control } = useFormContext<EditorValues>();
   const error = useErrorAt(path);
-  const id = fieldId(path);
   return (
-    <FieldShell id={id} label={labelWithUnit(label, unit)} error={error} hint={hint} className={className}>
-      <Controller
-        control={control}
-        name={path}
-        render={({ field }) => (
-          <UnitNumberInput
-            id={id}
-            name={field.name}
-            value={field.value as number | undefined}
-            onChange={field.onChange}
-            onBlur={field.onBlur}
-            inputRef={field.ref}
-            unit={unit}
-            invalid={Boolean(error)}
-            describedBy={describedBy(id, error, hint)}
-          />
-        )}
-      />
-    </FieldShell>
+    <UnitNumberField
+      control={control}
+      name={path}
+      id={fieldId(path)}
+      label={label}
+      unit={unit}
+      error={error}
+      hint={hint}
+      className={`min-w-0 ${className}`}
+      announce={false}
+    />
   );
 }
 

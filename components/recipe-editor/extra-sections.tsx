@@ -5,11 +5,12 @@ import { useFieldArray, useFormContext, useWatch } from 'react-hook-form';
 import { describedBy } from '@/components/form-field';
 import { ION_NAMES } from '@/lib/brewing/schema';
 import { DISPLAY_UNITS, type UnitSystem } from '@/lib/brewing/units';
+import { ION_LABEL } from '@/lib/format';
 import { EditorSection, NumberField, SelectField, fieldId, useErrorAt } from './editor-fields';
 import { emptyNumber, newCarbonation, newWater, type EditorValues } from './editor-form';
 import { fieldUnit, plainUnit } from './field-units';
 import { RowList } from './row-list';
-import { AcidPanel, ION_WORDS, SaltPlanPanel, SourceWaterPicker, TargetPicker } from './water-design';
+import { AcidPanel, SaltPlanPanel, SourceWaterPicker, TargetPicker } from './water-design';
 
 const SALT_OPTIONS = [
   ['gypsum', 'Gypsum (calcium sulfate)'],
@@ -103,7 +104,7 @@ function WaterFields({ units }: { units: UnitSystem }) {
         </p>
         <div className="mt-2 grid grid-cols-2 gap-3 sm:grid-cols-3">
           {ION_NAMES.map((ion) => (
-            <NumberField key={ion} path={`document.water.source.${ion}`} label={ION_WORDS[ion]} unit={concentration} />
+            <NumberField key={ion} path={`document.water.source.${ion}`} label={ION_LABEL[ion]} unit={concentration} />
           ))}
         </div>
       </fieldset>

@@ -18,19 +18,10 @@ import {
   type SaltPlan,
 } from '@/lib/brewing/water';
 import { SOURCE_WATER_PRESETS, WATER_TARGET_PRESETS, matchingPreset } from '@/lib/brewing/water-targets';
-import { SALT_LABEL } from '@/lib/format';
+import { ION_LABEL, SALT_LABEL } from '@/lib/format';
 import { NumberField, SelectField } from './editor-fields';
 import type { EditorValues } from './editor-form';
 import { plainUnit } from './field-units';
-
-export const ION_WORDS: Record<IonName, string> = {
-  calcium: 'Calcium',
-  magnesium: 'Magnesium',
-  sodium: 'Sodium',
-  chloride: 'Chloride',
-  sulfate: 'Sulfate',
-  bicarbonate: 'Bicarbonate',
-};
 
 const ACID_OPTIONS = [
   ['lactic_88', 'Lactic acid 88 %'],
@@ -162,7 +153,7 @@ export function TargetPicker({ units }: { units: UnitSystem }) {
               <NumberField
                 key={ion}
                 path={`document.water.target.${ion}`}
-                label={`Target ${ION_WORDS[ion].toLowerCase()}`}
+                label={`Target ${ION_LABEL[ion].toLowerCase()}`}
                 unit={concentration}
               />
             ))}
@@ -192,7 +183,7 @@ function IonBar({
   return (
     <li className="font-sans text-sm" data-ion={ion}>
       <div className="flex flex-wrap justify-between gap-x-2">
-        <span className="font-semibold">{ION_WORDS[ion]}</span>
+        <span className="font-semibold">{ION_LABEL[ion]}</span>
         <span className={`kf-data ${off ? 'text-caution' : 'text-bine'}`}>
           <span data-testid={`ion-now-${ion}`}>{fixed(now)}</span> of {fixed(target)} {unit}
           {off && <span className="sr-only"> (off target)</span>}
@@ -220,11 +211,11 @@ function ratioReading(ratio: number): string {
 function missSentence(miss: SaltPlan['misses'][number], unit: string): string {
   const amount = `${fixed(Math.abs(miss.offMgPerL), 1)} ${unit}`;
   if (miss.fromSource) {
-    return `${ION_WORDS[miss.ion]} stays ${amount} above target: your source water already has more than the target, and salts only add ions. Dilute with distilled water to bring it down.`;
+    return `${ION_LABEL[miss.ion]} stays ${amount} above target: your source water already has more than the target, and salts only add ions. Dilute with distilled water to bring it down.`;
   }
   return miss.offMgPerL > 0
-    ? `${ION_WORDS[miss.ion]} ends ${amount} above target: the salts that bring the other ions up carry it along.`
-    : `${ION_WORDS[miss.ion]} ends ${amount} below target: no mix of these salts reaches it without overshooting others.`;
+    ? `${ION_LABEL[miss.ion]} ends ${amount} above target: the salts that bring the other ions up carry it along.`
+    : `${ION_LABEL[miss.ion]} ends ${amount} below target: no mix of these salts reaches it without overshooting others.`;
 }
 
 /** Salts proposed for the target, the ions now and with them, and a button that writes them into the recipe. */

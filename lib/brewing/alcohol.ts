@@ -34,8 +34,10 @@ export function realAttenuationPct(og: number, fg: number): number {
 
 /**
  * kcal in 355 mL (12 US fl oz): [6.9 ABW + 4.0 (RE − 0.1)] × FG × 3.55,
- * alcohol at 6.9 kcal/g and remaining carbohydrate at 4 kcal/g (a formula
- * widely reprinted by brewing writers; secondary source). Never negative.
+ * alcohol at 6.9 kcal/g and remaining extract less 0.1 for ash at 4 kcal/g
+ * (The Oxford Companion to Beer, ed. Garrett Oliver, 2011, "calories"; an EBC
+ * analysis committee fit, as George Fix reported it in 1992). Never negative:
+ * the ash term alone would make water −1.4 kcal.
  */
 export function caloriesPer355mL(og: number, fg: number): number {
   const kcal = (6.9 * abwHall(og, fg) + 4.0 * (realExtractPlato(og, fg) - 0.1)) * fg * 3.55;

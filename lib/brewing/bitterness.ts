@@ -29,9 +29,12 @@ export function ibuFromUtilisation(utilisation: number, amountG: number, alphaPc
 /**
  * Mash hops: most alpha acid stays in the grain bed and mash heat isomerises
  * little; a rule of thumb credits them about a fifth of a full-boil addition
- * (common practice, from memory).
+ * (common practice). Measured at brewery scale, mash hops averaged 9.1%
+ * utilisation against 44.0% for 60-minute additions (Justus, "Tracking IBU
+ * Through the Brewing Process: The Quest for Consistency", MBAA Technical
+ * Quarterly 55 (3), 2018).
  */
-export const MASH_HOP_FRACTION = 0.2;
+const MASH_HOP_FRACTION = 0.2;
 
 /** Temperature assumed for a hop stand that gives none (common practice for a whirlpool rest). */
 export const DEFAULT_HOP_STAND_TEMP_C = 80;

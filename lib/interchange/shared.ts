@@ -24,6 +24,40 @@ export function newDraft(): Draft {
   return { dropped: [], guessed: [], kept: [] };
 }
 
+/** Where in the file each part of the document was read from, by document path (`hops.2`, `water.salts`). */
+export type Origins<R> = Map<string, R>;
+
+/**
+ * The file's own words for a document path: the nearest part of the path that `origins` knows,
+ * then the rest of the path as the format names that field (`fieldName`, given the path's first
+ * part, such as `hops`, and the rest), put together by `join`. Undefined when no part of the
+ * path was read from a recorded element, so the reader can name the recipe's own field.
+ */
+export function describeFromOrigins<R extends { path: string }>(
+  origins: Origins<R>,
+  path: string,
+  fieldName: (section: string, field: string) => string,
+  join: (originPath: string, name: string) => string,
+): string | undefined {
+  const parts = path.split('.');
+  for (let n = parts.length; n > 0; n--) {
+    const origin = origins.get(parts.slice(0, n).join('.'));
+    if (!origin) continue;
+    const field = parts.slice(n).join('.');
+    return field ? join(origin.path, fieldName(parts[0], field)) : origin.path;
+  }
+  return undefined;
+}
+
+/**
+ * The brewer and co-brewer a file credits: listed as dropped, since an imported recipe is saved
+ * under the importing member's name.
+ */
+export function dropCredits(draft: Draft, at: string, names: (string | undefined)[]): void {
+  const credit = names.filter(Boolean).join(' and ');
+  if (credit) draft.dropped.push(`${at}: ${credit} (the recipe is saved under your name)`);
+}
+
 /** The notes of an imported recipe: the file's own notes, then what we kept from the rest of it. */
 function notesWith(notes: string, kept: readonly string[], formatName: string): string {
   const parts = [notes.trim()];
@@ -59,7 +93,7 @@ const SALT_PATTERNS: [RegExp, SaltName][] = [
   [/table salt|sodium chloride|nacl|^salt$|canning salt|non-iodi[sz]ed salt/i, 'table_salt'],
 ];
 
-export function saltFromName(name: string): SaltName | null {
+function saltFromName(name: string): SaltName | null {
   for (const [pattern, salt] of SALT_PATTERNS) if (pattern.test(name.trim())) return salt;
   return null;
 }
@@ -139,7 +173,7 @@ export function recipeType(doc: Pick<RecipeDocument, 'fermentables'>): BrewMetho
  */
 export function mixWaters(
   readings: { ions: WaterProfile; volumeL: number }[],
-  salts: { salt: SaltName; grams: number }[],
+  salts: SaltAddition[],
   draft: Draft,
   fallbackVolumeL: number,
 ) {
@@ -157,11 +191,36 @@ export function mixWaters(
   return { volumeL: tidy(volumeL), source, salts };
 }
 
+export interface SaltAddition {
+  salt: SaltName;
+  grams: number;
+}
+
 /** Adds a salt to the list, summing repeats of the same salt. */
-export function addSalt(salts: { salt: SaltName; grams: number }[], salt: SaltName, grams: number): void {
+function addSalt(salts: SaltAddition[], salt: SaltName, grams: number): void {
   const existing = salts.find((s) => s.salt === salt);
   if (existing) existing.grams = tidy(existing.grams + grams);
   else salts.push({ salt, grams });
+}
+
+/**
+ * Reads one of a file's miscellaneous additions as a brewing salt when its name is a salt's and
+ * it is given by weight (`weighedGrams` answers undefined otherwise): summed into `salts`, and
+ * the element kept as where the water's salts came from. False when it is something else.
+ */
+export function takeSalt<R>(
+  salts: SaltAddition[],
+  origins: Origins<R>,
+  record: R,
+  name: string,
+  weighedGrams: () => number | undefined,
+): boolean {
+  const salt = saltFromName(name);
+  const grams = salt ? weighedGrams() : undefined;
+  if (!salt || grams === undefined) return false;
+  addSalt(salts, salt, tidy(grams));
+  origins.set('water.salts', record);
+  return true;
 }
 
 /** The yeast a recipe without one gets, so its numbers can be worked out. */

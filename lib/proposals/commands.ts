@@ -181,6 +181,36 @@ export async function withdrawProposal(viewer: Viewer, id: string): Promise<{ st
   });
 }
 
+type Decision =
+  | { status: 'declined' | 'changes_requested'; decisionComment: string }
+  | { status: 'accepted'; acceptedVersionId: string };
+
+/**
+ * Closes or returns a proposal on the source owner's word and tells the proposer, inside the
+ * caller's transaction.
+ */
+async function recordDecision(
+  tx: Transaction,
+  viewer: Viewer,
+  { proposal, source }: { proposal: Proposal; source: { id: string } },
+  decision: Decision,
+  excerpt: string,
+): Promise<void> {
+  const now = new Date();
+  await tx
+    .update(proposals)
+    .set({ ...decision, decidedById: viewer.id, decidedAt: now, updatedAt: now })
+    .where(eq(proposals.id, proposal.id));
+  await notify(tx, {
+    userId: proposal.proposerId,
+    kind: 'proposal_decision',
+    actorId: viewer.id,
+    recipeId: source.id,
+    url: `/proposals/${proposal.id}`,
+    excerpt,
+  });
+}
+
 /** The source's owner declines or asks for changes, with a comment the proposer is sent. */
 export async function decideProposal(
   viewer: Viewer,
@@ -192,24 +222,13 @@ export async function decideProposal(
     if (!isOwner(source, viewer))
       throw new AppError('forbidden', 'proposal', `Only the owner of “${source.title}” can decide on this proposal.`);
     refuseUnlessLive(proposal);
-    await tx
-      .update(proposals)
-      .set({
-        status: input.decision,
-        decisionComment: input.comment,
-        decidedById: viewer.id,
-        decidedAt: new Date(),
-        updatedAt: new Date(),
-      })
-      .where(eq(proposals.id, proposal.id));
-    await notify(tx, {
-      userId: proposal.proposerId,
-      kind: 'proposal_decision',
-      actorId: viewer.id,
-      recipeId: source.id,
-      url: `/proposals/${proposal.id}`,
-      excerpt: `${input.decision === 'declined' ? 'Declined' : 'Changes asked for'}: ${input.comment}`,
-    });
+    await recordDecision(
+      tx,
+      viewer,
+      { proposal, source },
+      { status: input.decision, decisionComment: input.comment },
+      `${input.decision === 'declined' ? 'Declined' : 'Changes asked for'}: ${input.comment}`,
+    );
     return { status: input.decision };
   });
 }
@@ -302,24 +321,13 @@ export async function acceptProposal(
       message: input.message || `Accepted “${proposal.title}” from ${proposer.name ?? proposer.handle}`,
       coAuthorId: proposal.proposerId,
     });
-    await tx
-      .update(proposals)
-      .set({
-        status: 'accepted',
-        acceptedVersionId: result.version.id,
-        decidedById: viewer.id,
-        decidedAt: new Date(),
-        updatedAt: new Date(),
-      })
-      .where(eq(proposals.id, proposal.id));
-    await notify(tx, {
-      userId: proposal.proposerId,
-      kind: 'proposal_decision',
-      actorId: viewer.id,
-      recipeId: source.id,
-      url: `/proposals/${proposal.id}`,
-      excerpt: `Accepted as version ${result.version.number} of ${source.title}.`,
-    });
+    await recordDecision(
+      tx,
+      viewer,
+      { proposal, source },
+      { status: 'accepted', acceptedVersionId: result.version.id },
+      `Accepted as version ${result.version.number} of ${source.title}.`,
+    );
     return result;
   });
   afterRecipeCommit();

@@ -1,16 +1,9 @@
 import type { UnitSystem } from '@/lib/brewing/units';
 import { HOP_USE_LABEL } from '@/lib/format';
 import {
-  BATCH_FIELDS,
-  CARBONATION_FIELDS,
-  FERMENTABLE_FIELDS,
-  FERMENTATION_STEP_FIELDS,
-  HOP_FIELDS,
-  MASH_STEP_FIELDS,
-  SALT_FIELDS,
-  WATER_FIELDS,
-  YEAST_FIELDS,
+  SECTION_FIELDS,
   describeFields,
+  saltLine,
   saltName,
   showAmount,
   showField,
@@ -35,17 +28,17 @@ interface PathParts {
 }
 
 const SECTIONS: Record<string, { word: string; specs: readonly FieldSpec[] }> = {
-  batch: { word: 'Batch', specs: BATCH_FIELDS },
-  fermentables: { word: 'Fermentable', specs: FERMENTABLE_FIELDS },
-  hops: { word: 'Hop', specs: HOP_FIELDS },
-  yeasts: { word: 'Yeast', specs: YEAST_FIELDS },
-  'mash.steps': { word: 'Mash step', specs: MASH_STEP_FIELDS },
-  'fermentation.steps': { word: 'Fermentation step', specs: FERMENTATION_STEP_FIELDS },
-  'water.salts': { word: 'Water salt', specs: SALT_FIELDS },
-  'water.source': { word: 'Source water', specs: WATER_FIELDS },
-  'water.target': { word: 'Target water', specs: WATER_FIELDS },
-  water: { word: 'Water', specs: WATER_FIELDS },
-  carbonation: { word: 'Carbonation', specs: CARBONATION_FIELDS },
+  batch: { word: 'Batch', specs: SECTION_FIELDS.batch },
+  fermentables: { word: 'Fermentable', specs: SECTION_FIELDS.fermentables },
+  hops: { word: 'Hop', specs: SECTION_FIELDS.hops },
+  yeasts: { word: 'Yeast', specs: SECTION_FIELDS.yeasts },
+  'mash.steps': { word: 'Mash step', specs: SECTION_FIELDS['mash.steps'] },
+  'fermentation.steps': { word: 'Fermentation step', specs: SECTION_FIELDS['fermentation.steps'] },
+  'water.salts': { word: 'Water salt', specs: SECTION_FIELDS['water.salts'] },
+  'water.source': { word: 'Source water', specs: SECTION_FIELDS.water },
+  'water.target': { word: 'Target water', specs: SECTION_FIELDS.water },
+  water: { word: 'Water', specs: SECTION_FIELDS.water },
+  carbonation: { word: 'Carbonation', specs: SECTION_FIELDS.carbonation },
   notes: { word: 'Notes', specs: [] },
   style: { word: 'Style', specs: [] },
 };
@@ -114,17 +107,21 @@ function showWhole(section: string, value: Row, units: UnitSystem): string {
   if (section === 'water') {
     const source = (value.source ?? {}) as Row;
     const salts = Array.isArray(value.salts)
-      ? (value.salts as Row[]).map((s) => `${saltName(String(s.salt))} ${trimNumber(Number(s.grams), 1)} g`)
+      ? (value.salts as Row[]).map((s) => saltLine(String(s.salt), Number(s.grams)))
       : [];
     return [
-      describeFields(WATER_FIELDS, { volumeL: value.volumeL as Scalar, ...(source as Record<string, Scalar>) }, units),
+      describeFields(
+        SECTION_FIELDS.water,
+        { volumeL: value.volumeL as Scalar, ...(source as Record<string, Scalar>) },
+        units,
+      ),
       ...salts,
     ]
       .filter(Boolean)
       .join(' · ');
   }
   if (section === 'water.salts') {
-    return `${saltName(String(value.salt))} ${trimNumber(Number(value.grams), 1)} g`;
+    return saltLine(String(value.salt), Number(value.grams));
   }
   const specs = SECTIONS[section]?.specs ?? [];
   const named = typeof value.name === 'string' && section !== 'mash.steps' ? `${value.name}: ` : '';
@@ -138,7 +135,7 @@ function showOther(field: string, value: unknown, units: UnitSystem): string {
     return `${showAmount(row.pressureKPa, 'pressure', units)} at ${showAmount(row.tempC, 'temperature', units)}`;
   if (field === 'acid' && typeof row.mL === 'number')
     return `${String(row.kind).startsWith('lactic') ? 'Lactic acid 88%' : 'Phosphoric acid 10%'}, ${trimNumber(row.mL, 1)} mL`;
-  if (field === 'target') return describeFields(WATER_FIELDS, row as Record<string, Scalar>, units);
+  if (field === 'target') return describeFields(SECTION_FIELDS.water, row as Record<string, Scalar>, units);
   return 'set';
 }
 

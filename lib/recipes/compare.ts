@@ -16,6 +16,7 @@ import {
   describeFields,
   hopLabel,
   hopTime,
+  saltLine,
   saltName,
   showAmount,
   showField,
@@ -586,7 +587,7 @@ function waterItems(a: RecipeDocument, b: RecipeDocument, builder: Builder): Ite
   if (!a.water || !b.water) {
     const one = (a.water ?? b.water)!;
     const added = !a.water;
-    const salts = one.salts.map((s) => `${saltName(s.salt)} ${trimNumber(s.grams, 1)} g`).join(', ');
+    const salts = one.salts.map((s) => saltLine(s.salt, s.grams)).join(', ');
     return [
       push(
         builder,

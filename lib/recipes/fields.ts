@@ -1,6 +1,6 @@
-import type { RecipeDocument } from '@/lib/brewing/schema';
+import { ION_NAMES, type IonName, type RecipeDocument } from '@/lib/brewing/schema';
 import { toDisplayUnits, type Quantity, type UnitSystem } from '@/lib/brewing/units';
-import { HOP_USE_LABEL, SALT_LABEL, formatAmount } from '@/lib/format';
+import { HOP_USE_LABEL, ION_LABEL, SALT_LABEL, formatAmount } from '@/lib/format';
 
 /**
  * The one set of field labels and value formatters for every place that shows a difference between
@@ -143,16 +143,7 @@ export const FERMENTATION_STEP_FIELDS: FieldSpec[] = [
   { key: 'days', label: 'Days', ...plain('days', 1) },
 ];
 
-const ION_LABEL: Record<string, string> = {
-  calcium: 'Calcium',
-  magnesium: 'Magnesium',
-  sodium: 'Sodium',
-  chloride: 'Chloride',
-  sulfate: 'Sulfate',
-  bicarbonate: 'Bicarbonate',
-};
-
-const ion = (key: string): FieldSpec => ({
+const ion = (key: IonName): FieldSpec => ({
   key,
   label: ION_LABEL[key],
   show: (v, units) => (typeof v === 'number' ? `${trimNumber(v, 0)} ${units === 'us' ? 'ppm' : 'mg/L'}` : none(v)),
@@ -161,7 +152,7 @@ const ion = (key: string): FieldSpec => ({
 
 export const WATER_FIELDS: FieldSpec[] = [
   { key: 'volumeL', label: 'Water volume', ...amount('volume') },
-  ...Object.keys(ION_LABEL).map(ion),
+  ...ION_NAMES.map(ion),
 ];
 
 export const SALT_FIELDS: FieldSpec[] = [{ key: 'grams', label: 'Amount', ...plain('g', 1) }];
@@ -172,6 +163,24 @@ export const CARBONATION_FIELDS: FieldSpec[] = [
 ];
 
 export const saltName = (salt: string): string => SALT_LABEL[salt as keyof typeof SALT_LABEL] ?? salt;
+
+/** A salt addition in words: "Gypsum 5 g". */
+export function saltLine(salt: string, grams: number): string {
+  return `${saltName(salt)} ${trimNumber(grams, 1)} g`;
+}
+
+/** Each part of the recipe document with field specs, by its path in the document. */
+export const SECTION_FIELDS = {
+  batch: BATCH_FIELDS,
+  fermentables: FERMENTABLE_FIELDS,
+  hops: HOP_FIELDS,
+  yeasts: YEAST_FIELDS,
+  'mash.steps': MASH_STEP_FIELDS,
+  'fermentation.steps': FERMENTATION_STEP_FIELDS,
+  'water.salts': SALT_FIELDS,
+  water: WATER_FIELDS,
+  carbonation: CARBONATION_FIELDS,
+} as const satisfies Record<string, readonly FieldSpec[]>;
 
 /** "Cascade (boil, 10 min)", "Cascade (dry hop, 3 days)". */
 export function hopLabel(hop: RecipeDocument['hops'][number]): string {

@@ -3,6 +3,7 @@
  * this module parses URLSearchParams into a checked query and serializes it back.
  */
 import { z } from 'zod';
+import { isStorableText } from '@/lib/validation/text';
 
 export const SEARCH_SORTS = ['relevance', 'newest', 'stars', 'forks'] as const;
 export type SearchSort = (typeof SEARCH_SORTS)[number];
@@ -29,6 +30,13 @@ type ListField = (typeof LIST_FIELDS)[number];
 
 const STYLE_CODE = /^[0-9A-Za-z][0-9A-Za-z.-]{0,15}$/;
 
+/** Text a search can hold: no NUL byte, no broken character (as every stored field, lib/validation/text.ts). */
+function searchText(label: string) {
+  return z
+    .string({ error: `${label} must be text` })
+    .refine(isStorableText, { error: `${label} contains a NUL byte or a broken character`, abort: true });
+}
+
 function valueList(field: ListField, item: z.ZodString) {
   return z
     .array(item, { error: `${field} must be a list of values` })
@@ -37,8 +45,7 @@ function valueList(field: ListField, item: z.ZodString) {
 }
 
 function ingredientName(field: ListField) {
-  return z
-    .string({ error: `${field} values must be text` })
+  return searchText(`${field} values`)
     .trim()
     .min(1, `${field} values must not be empty`)
     .max(MAX_FILTER_VALUE_LENGTH, `${field} values must be at most ${MAX_FILTER_VALUE_LENGTH} characters`);
@@ -55,15 +62,10 @@ function bound(field: string, min: number, max: number) {
 const PAGE_MESSAGE = `page must be a whole number from 1 to ${MAX_SEARCH_PAGE}`;
 
 const baseSchema = z.object({
-  q: z
-    .string({ error: 'q must be text' })
-    .trim()
-    .max(MAX_QUERY_LENGTH, `q must be at most ${MAX_QUERY_LENGTH} characters`)
-    .default(''),
+  q: searchText('q').trim().max(MAX_QUERY_LENGTH, `q must be at most ${MAX_QUERY_LENGTH} characters`).default(''),
   style: valueList(
     'style',
-    z
-      .string({ error: 'style values must be text' })
+    searchText('style values')
       .trim()
       .regex(
         STYLE_CODE,
@@ -147,9 +149,18 @@ export function parseRecipeSearchQuery(input: unknown): SearchQueryParseResult {
   return { success: false, fieldErrors: fieldErrors as Partial<Record<SearchQueryField, string[]>>, formErrors };
 }
 
-/** Parses a search page's URL query; repeated keys (`hop=Cascade&hop=Saaz`) make lists. */
+/**
+ * The search as a URL query, checked in one schema: repeated keys (`hop=Cascade&hop=Saaz`) make
+ * lists and numbers arrive as text, then the query schema names any field it refuses.
+ */
+export const searchParamsSchema = z.instanceof(URLSearchParams).transform(rawFromParams).pipe(recipeSearchQuerySchema);
+
+/** Parses a search page's URL query, returning every field's messages. */
 export function parseSearchParams(params: URLSearchParams): SearchQueryParseResult {
-  return parseRecipeSearchQuery(rawFromParams(params));
+  const result = searchParamsSchema.safeParse(params);
+  if (result.success) return { success: true, data: result.data };
+  const { fieldErrors, formErrors } = z.flattenError(result.error);
+  return { success: false, fieldErrors: fieldErrors as Partial<Record<SearchQueryField, string[]>>, formErrors };
 }
 
 /** Writes a query back to a URL query string, leaving out defaults so links stay short. */

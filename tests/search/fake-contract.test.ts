@@ -1,25 +1,8 @@
 import { MeilisearchApiError } from 'meilisearch';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startFake, type FakeHarness } from './fixtures';
+import { describe, expect, it } from 'vitest';
+import { apiError, fakeAroundTests } from './fixtures';
 
-let fake: FakeHarness;
-
-beforeAll(async () => {
-  fake = await startFake();
-});
-
-afterAll(async () => {
-  await fake.server.close();
-});
-
-async function apiError(promise: Promise<unknown>): Promise<MeilisearchApiError> {
-  const error = await promise.then(
-    () => null,
-    (caught: unknown) => caught,
-  );
-  expect(error).toBeInstanceOf(MeilisearchApiError);
-  return error as MeilisearchApiError;
-}
+const fake = fakeAroundTests();
 
 describe('health and version', () => {
   it('reports itself available', async () => {
@@ -193,15 +176,7 @@ describe('tasks', () => {
 });
 
 describe('authorization', () => {
-  let locked: FakeHarness;
-
-  beforeAll(async () => {
-    locked = await startFake('brewing-secret');
-  });
-
-  afterAll(async () => {
-    await locked.server.close();
-  });
+  const locked = fakeAroundTests({ apiKey: 'brewing-secret' });
 
   it('accepts the configured key and leaves /health open', async () => {
     expect((await locked.client.createIndex('locked').waitTask()).status).toBe('succeeded');

@@ -1,8 +1,6 @@
 import { MeilisearchApiError, type Filter } from 'meilisearch';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startFake, type FakeHarness } from './fixtures';
-
-let fake: FakeHarness;
+import { describe, expect, it } from 'vitest';
+import { fakeAroundTests } from './fixtures';
 
 const BEERS = [
   {
@@ -48,15 +46,12 @@ const BEERS = [
   { id: 'quote', title: 'Odd Name', style: 'Say "hi" \\ bye', hops: [], abv: 3.9, ibu: 18, dry: false },
 ];
 
-beforeAll(async () => {
-  fake = await startFake();
-  const index = fake.client.index('filters');
-  await index.updateSettings({ filterableAttributes: ['style', 'hops', 'abv', 'ibu', 'dry', 'notes'] }).waitTask();
-  await index.addDocuments(BEERS, { primaryKey: 'id' }).waitTask();
-});
-
-afterAll(async () => {
-  await fake.server.close();
+const fake = fakeAroundTests({
+  setup: async ({ client }) => {
+    const index = client.index('filters');
+    await index.updateSettings({ filterableAttributes: ['style', 'hops', 'abv', 'ibu', 'dry', 'notes'] }).waitTask();
+    await index.addDocuments(BEERS, { primaryKey: 'id' }).waitTask();
+  },
 });
 
 async function ids(filter: Filter): Promise<string[]> {

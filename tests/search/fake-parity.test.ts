@@ -3,33 +3,10 @@
  * and status — never accepts a request and quietly drops part of it. Driven through the official
  * `meilisearch` client against a fake on a free loopback port.
  */
-import { MeilisearchApiError } from 'meilisearch';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startFake, type FakeHarness } from './fixtures';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { apiError, fakeAroundTests, refusal } from './fixtures';
 
-let fake: FakeHarness;
-
-beforeAll(async () => {
-  fake = await startFake();
-});
-
-afterAll(async () => {
-  await fake.server.close();
-});
-
-async function apiError(promise: Promise<unknown>): Promise<MeilisearchApiError> {
-  const error = await promise.then(
-    () => null,
-    (caught: unknown) => caught,
-  );
-  expect(error).toBeInstanceOf(MeilisearchApiError);
-  return error as MeilisearchApiError;
-}
-
-async function refusal(promise: Promise<unknown>): Promise<{ status: number; code: string | undefined }> {
-  const error = await apiError(promise);
-  return { status: error.response.status, code: error.cause?.code };
-}
+const fake = fakeAroundTests();
 
 const ids = (hits: Array<Record<string, unknown>>) => hits.map((hit) => hit.id);
 

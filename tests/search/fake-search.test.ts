@@ -1,8 +1,7 @@
 import { MeilisearchApiError } from 'meilisearch';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startFake, type FakeHarness } from './fixtures';
+import { describe, expect, it } from 'vitest';
+import { fakeAroundTests } from './fixtures';
 
-let fake: FakeHarness;
 const index = () => fake.client.index('beers');
 
 const BEERS = [
@@ -62,20 +61,17 @@ const BEERS = [
   },
 ];
 
-beforeAll(async () => {
-  fake = await startFake();
-  await index()
-    .updateSettings({
-      searchableAttributes: ['title', 'hops', 'malts', 'category'],
-      filterableAttributes: ['category', 'hops', 'malts', 'abv', 'stars'],
-      sortableAttributes: ['abv', 'stars', 'title'],
-    })
-    .waitTask();
-  await index().addDocuments(BEERS, { primaryKey: 'id' }).waitTask();
-});
-
-afterAll(async () => {
-  await fake.server.close();
+const fake = fakeAroundTests({
+  setup: async () => {
+    await index()
+      .updateSettings({
+        searchableAttributes: ['title', 'hops', 'malts', 'category'],
+        filterableAttributes: ['category', 'hops', 'malts', 'abv', 'stars'],
+        sortableAttributes: ['abv', 'stars', 'title'],
+      })
+      .waitTask();
+    await index().addDocuments(BEERS, { primaryKey: 'id' }).waitTask();
+  },
 });
 
 const hitIds = (hits: Array<Record<string, unknown>>) => hits.map((hit) => hit.id);

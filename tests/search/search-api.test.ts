@@ -78,12 +78,31 @@ describe('GET /api/search: refusals', () => {
     expect(await refusedFields({ page: '0' })).toEqual(['page']);
     expect(await refusedFields({ page: 'two' })).toEqual(['page']);
     expect(await refusedFields({ ibuMax: 'lots' })).toEqual(['ibuMax']);
-    expect(await refusedFields({ style: 'not a style code!' })).toEqual(['style']);
+    // A list's refused value is named by its place: the second `hop` given is `hop.1`.
+    expect(await refusedFields({ style: 'not a style code!' })).toEqual(['style.0']);
+    expect(await refusedFields({ hop: ['Cascade', 'x'.repeat(101)] })).toEqual(['hop.1']);
+    expect(await refusedFields({ malt: Array.from({ length: 21 }, (_, i) => `Malt ${i}`) })).toEqual(['malt']);
+    expect(await refusedFields({ q: 'pale\u0000ale' })).toEqual(['q']);
+    expect(await refusedFields({ ogMin: '1.3' })).toEqual(['ogMin']);
     expect((await refusedFields({ q: 'x'.repeat(201), sort: 'oldest', page: '-1' })).sort()).toEqual([
       'page',
       'q',
       'sort',
     ]);
+  });
+
+  it('answers each refused field with its path and message, as every route does', async () => {
+    for (const [params, path, message] of [
+      [{ sort: 'oldest' }, 'sort', 'sort must be one of relevance, newest, stars, forks'],
+      [{ page: 'two' }, 'page', 'page must be a whole number from 1 to 1000'],
+      [{ page: '1.5' }, 'page', 'page must be a whole number from 1 to 1000'],
+      [{ srmMax: '101' }, 'srmMax', 'srmMax must be at most 100'],
+    ] as const) {
+      const res = await searchVia(anon, params);
+      expect(res.status, JSON.stringify(params)).toBe(400);
+      expect(res.body.error?.fields).toEqual([{ path, message }]);
+      expect(res.body.error?.message).toBe(`Please check these fields: ${path}: ${message}`);
+    }
   });
 
   it('gives people a message, never a stack', async () => {

@@ -3,7 +3,6 @@ import type {
   HopForm,
   HopUse,
   RecipeDocumentInput,
-  SaltName,
   WaterProfile,
   YeastKind,
 } from '@/lib/brewing/schema';
@@ -14,16 +13,19 @@ import {
   DEFAULT_ATTENUATION_PCT,
   DEFAULT_BOIL_TIME_MIN,
   DEFAULT_SERVING_TEMP_C,
-  addSalt,
   defaultYeast,
+  describeFromOrigins,
+  dropCredits,
   finishRecipe,
   mashedKg,
   matchStyle,
   mixWaters,
   newDraft,
-  saltFromName,
+  takeSalt,
   unnamedStep,
   type Draft,
+  type Origins as SharedOrigins,
+  type SaltAddition,
 } from '../shared';
 import { InterchangeError, type ImportResult, type ImportedRecipe } from '../types';
 import {
@@ -155,23 +157,21 @@ const FIELD_NAMES: Record<string, string> = {
   days: 'step_time',
 };
 
-type Origins = Map<string, Node>;
+type Origins = SharedOrigins<Node>;
 
 function describer(recipe: Node, origins: Origins) {
-  return (path: string): string => {
-    const parts = path.split('.');
-    for (let n = parts.length; n > 0; n--) {
-      const origin = origins.get(parts.slice(0, n).join('.'));
-      if (!origin) continue;
-      const field = parts.slice(n).join('.');
-      let name = FIELD_NAMES[field] ?? field;
-      if (parts[0] === 'hops' && field === 'timeMin') name = 'timing.duration';
-      if (parts[0] === 'hops' && field === 'tempC') name = 'hop stand step temperature';
-      if (parts[0] === 'fermentation' && field === 'tempC') name = 'start_temperature';
-      return field ? `${origin.path}.${name}` : origin.path;
-    }
-    return recipe.at(FIELD_NAMES[path] ?? path);
-  };
+  return (path: string): string =>
+    describeFromOrigins(
+      origins,
+      path,
+      (section, field) => {
+        if (section === 'hops' && field === 'timeMin') return 'timing.duration';
+        if (section === 'hops' && field === 'tempC') return 'hop stand step temperature';
+        if (section === 'fermentation' && field === 'tempC') return 'start_temperature';
+        return FIELD_NAMES[field] ?? field;
+      },
+      (originPath, name) => `${originPath}.${name}`,
+    ) ?? recipe.at(FIELD_NAMES[path] ?? path);
 }
 
 function readRecipe(data: Json, basePath: string, library: Library): ImportedRecipe {
@@ -581,18 +581,13 @@ function readFermentation(recipe: Node, draft: Draft, origins: Origins) {
   return steps;
 }
 
-function readMiscs(ingredients: Node, draft: Draft, origins: Origins): { salt: SaltName; grams: number }[] {
-  const salts: { salt: SaltName; grams: number }[] = [];
+function readMiscs(ingredients: Node, draft: Draft, origins: Origins): SaltAddition[] {
+  const salts: SaltAddition[] = [];
   for (const m of ingredients.list('miscellaneous_additions')) {
     const name = String(m.data.name);
-    const salt = saltFromName(name);
     const amount = m.measured('amount');
-    if (salt && amount && isMassUnit(amount.unit)) {
-      const grams = tidy(toKg(amount, m.at('amount')) * 1000);
-      addSalt(salts, salt, grams);
-      origins.set('water.salts', m);
-      continue;
-    }
+    const weighedGrams = () => (amount && isMassUnit(amount.unit) ? toKg(amount, m.at('amount')) * 1000 : undefined);
+    if (takeSalt(salts, origins, m, name, weighedGrams)) continue;
     draft.dropped.push(`${m.path}: ${String(m.data.type)} ingredients are not modelled`);
     const use = m.child('timing')?.str('use');
     draft.kept.push(
@@ -602,7 +597,7 @@ function readMiscs(ingredients: Node, draft: Draft, origins: Origins): { salt: S
   return salts;
 }
 
-function readWater(ingredients: Node, salts: { salt: SaltName; grams: number }[], draft: Draft, batchL: number) {
+function readWater(ingredients: Node, salts: SaltAddition[], draft: Draft, batchL: number) {
   const waters = ingredients.list('water_additions');
   if (waters.length === 0 && salts.length === 0) return undefined;
   const readings = waters.map((w) => {
@@ -642,8 +637,7 @@ function readStyle(recipe: Node, draft: Draft) {
 }
 
 function readKeptExtras(recipe: Node, draft: Draft): void {
-  const author = [recipe.str('author'), recipe.str('coauthor')].filter(Boolean).join(' and ');
-  if (author) draft.dropped.push(`${recipe.at('author')}: ${author} (the recipe is saved under your name)`);
+  dropCredits(draft, recipe.at('author'), [recipe.str('author'), recipe.str('coauthor')]);
   const measured = (key: string) => {
     const m = recipe.data[key] as Measured | undefined;
     return m && typeof m === 'object' ? `${plain(m.value, 3)} ${m.unit}` : undefined;

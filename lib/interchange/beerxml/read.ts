@@ -3,7 +3,6 @@ import type {
   HopForm,
   HopUse,
   RecipeDocumentInput,
-  SaltName,
   WaterProfile,
   YeastKind,
 } from '@/lib/brewing/schema';
@@ -13,16 +12,19 @@ import {
   DEFAULT_BOIL_TIME_MIN,
   DEFAULT_EFFICIENCY_PCT,
   DEFAULT_SERVING_TEMP_C,
-  addSalt,
   defaultYeast,
+  describeFromOrigins,
+  dropCredits,
   finishRecipe,
   mashedKg,
   matchStyle,
   mixWaters,
   newDraft,
-  saltFromName,
+  takeSalt,
   unnamedStep,
   type Draft,
+  type Origins as SharedOrigins,
+  type SaltAddition,
 } from '../shared';
 import { InterchangeError, type ImportResult, type ImportedRecipe } from '../types';
 import { plain, round, srmToLovibondClamped, tidy, yieldPctToPpg } from '../units';
@@ -64,7 +66,7 @@ function relabel(record: XmlRecord, index: number): XmlRecord {
 }
 
 /** Where each part of our document came from, so a refusal can name the file's element. */
-type Origins = Map<string, XmlRecord>;
+type Origins = SharedOrigins<XmlRecord>;
 
 const FIELD_TAGS: Record<string, string> = {
   title: 'NAME',
@@ -102,16 +104,17 @@ const FIELD_TAGS: Record<string, string> = {
 
 function describer(recipe: XmlRecord, origins: Origins) {
   return (path: string): string => {
-    const parts = path.split('.');
-    for (let n = parts.length; n > 0; n--) {
-      const origin = origins.get(parts.slice(0, n).join('.'));
-      if (!origin) continue;
-      const field = parts.slice(n).join('.');
-      let tag = FIELD_TAGS[field] ?? field;
-      if (parts[0] === 'hops' && field === 'timeMin') tag = 'TIME';
-      if (parts[0] === 'hops' && field === 'tempC') tag = 'NOTES (hop stand temperature)';
-      return field ? `${origin.path} › ${tag}` : origin.path;
-    }
+    const described = describeFromOrigins(
+      origins,
+      path,
+      (section, field) => {
+        if (section === 'hops' && field === 'timeMin') return 'TIME';
+        if (section === 'hops' && field === 'tempC') return 'NOTES (hop stand temperature)';
+        return FIELD_TAGS[field] ?? field;
+      },
+      (originPath, tag) => `${originPath} › ${tag}`,
+    );
+    if (described) return described;
     const tag = FIELD_TAGS[path] ?? path;
     return tag ? recipe.at(tag) : recipe.path;
   };
@@ -463,11 +466,11 @@ function readStyle(recipe: XmlRecord, draft: Draft) {
 }
 
 interface MiscReading {
-  salts: { salt: SaltName; grams: number }[];
+  salts: SaltAddition[];
 }
 
 function readMiscs(recipe: XmlRecord, draft: Draft, origins: Origins): MiscReading {
-  const salts: { salt: SaltName; grams: number }[] = [];
+  const salts: SaltAddition[] = [];
   recipe.list('MISCS', 'MISC').forEach((m) => {
     const name = m.text('NAME', { required: true })!;
     const type = m.text('TYPE') ?? '';
@@ -476,12 +479,7 @@ function readMiscs(recipe: XmlRecord, draft: Draft, origins: Origins): MiscReadi
     const use = m.text('USE') ?? '';
     const time = m.num('TIME', { min: 0 });
     m.markRead('USE_FOR', 'NOTES', 'VERSION');
-    const salt = saltFromName(name);
-    if (salt && isWeight) {
-      addSalt(salts, salt, tidy(amount * 1000));
-      origins.set('water.salts', m);
-      return;
-    }
+    if (takeSalt(salts, origins, m, name, () => (isWeight ? amount * 1000 : undefined))) return;
     const amountText = isWeight ? `${plain(amount * 1000, 2)} g` : `${plain(amount * 1000, 1)} mL`;
     draft.dropped.push(`${m.path}: ${type || 'miscellaneous'} ingredients are not modelled`);
     draft.kept.push(`${name} (${type || 'other'}): ${amountText}${use ? `, ${use}` : ''}${time ? ` ${time} min` : ''}`);
@@ -508,8 +506,7 @@ function readWater(recipe: XmlRecord, draft: Draft, salts: MiscReading['salts'],
 
 function readKeptExtras(recipe: XmlRecord, draft: Draft): void {
   recipe.markRead('VERSION', 'DATE', 'TASTE_RATING', 'NOTES', 'TASTE_NOTES');
-  const brewer = [recipe.text('BREWER'), recipe.text('ASST_BREWER')].filter(Boolean).join(' and ');
-  if (brewer) draft.dropped.push(`${recipe.at('BREWER')}: ${brewer} (the recipe is saved under your name)`);
+  dropCredits(draft, recipe.at('BREWER'), [recipe.text('BREWER'), recipe.text('ASST_BREWER')]);
   const og = recipe.num('OG');
   const fg = recipe.num('FG');
   if (og !== undefined || fg !== undefined) {

@@ -6,7 +6,7 @@ import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
-import { FormField, describedBy } from '@/components/form-field';
+import { FormSubmit, InputField } from '@/components/form-field';
 import { emailSchema } from '@/lib/auth/schemas';
 import { safeCallbackPath } from '@/lib/auth/callback';
 
@@ -31,25 +31,21 @@ export function MagicLinkForm({ callbackUrl }: { callbackUrl: string }) {
 
   return (
     <form onSubmit={onSubmit} noValidate>
-      <FormField id="link-email" label="E-mail" error={errors.email?.message}>
-        <input
-          id="link-email"
-          type="email"
-          autoComplete="email"
-          className="kf-input"
-          aria-invalid={Boolean(errors.email)}
-          aria-describedby={describedBy('link-email', errors.email?.message)}
-          {...register('email')}
-        />
-      </FormField>
-      {formError && (
-        <p role="alert" className="kf-field-error">
-          {formError}
-        </p>
-      )}
-      <button type="submit" className="kf-btn-quiet mt-5 w-full" disabled={isSubmitting}>
-        {isSubmitting ? 'Sending…' : 'E-mail me a sign-in link'}
-      </button>
+      <InputField
+        id="link-email"
+        label="E-mail"
+        type="email"
+        autoComplete="email"
+        error={errors.email?.message}
+        registration={register('email')}
+      />
+      <FormSubmit
+        formError={formError}
+        submitting={isSubmitting}
+        idle="E-mail me a sign-in link"
+        busy="Sending…"
+        buttonClassName="kf-btn-quiet mt-5 w-full"
+      />
     </form>
   );
 }

@@ -7,7 +7,7 @@ import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
-import { FormField, describedBy } from '@/components/form-field';
+import { FormSubmit, InputField } from '@/components/form-field';
 import { emailSchema } from '@/lib/auth/schemas';
 import { meKeys } from '@/hooks/use-me';
 import { safeCallbackPath } from '@/lib/auth/callback';
@@ -38,36 +38,30 @@ export function PasswordSignInForm({ callbackUrl }: { callbackUrl: string }) {
 
   return (
     <form onSubmit={onSubmit} noValidate aria-describedby={formError ? 'signin-error' : undefined}>
-      <FormField id="signin-email" label="E-mail" error={errors.email?.message}>
-        <input
-          id="signin-email"
-          type="email"
-          autoComplete="email"
-          className="kf-input"
-          aria-invalid={Boolean(errors.email)}
-          aria-describedby={describedBy('signin-email', errors.email?.message)}
-          {...register('email')}
-        />
-      </FormField>
-      <FormField id="signin-password" label="Password" error={errors.password?.message}>
-        <input
-          id="signin-password"
-          type="password"
-          autoComplete="current-password"
-          className="kf-input"
-          aria-invalid={Boolean(errors.password)}
-          aria-describedby={describedBy('signin-password', errors.password?.message)}
-          {...register('password')}
-        />
-      </FormField>
-      {formError && (
-        <p id="signin-error" role="alert" className="kf-field-error">
-          {formError}
-        </p>
-      )}
-      <button type="submit" className="kf-btn mt-5 w-full" disabled={isSubmitting}>
-        {isSubmitting ? 'Signing in…' : 'Sign in'}
-      </button>
+      <InputField
+        id="signin-email"
+        label="E-mail"
+        type="email"
+        autoComplete="email"
+        error={errors.email?.message}
+        registration={register('email')}
+      />
+      <InputField
+        id="signin-password"
+        label="Password"
+        type="password"
+        autoComplete="current-password"
+        error={errors.password?.message}
+        registration={register('password')}
+      />
+      <FormSubmit
+        formError={formError}
+        errorId="signin-error"
+        submitting={isSubmitting}
+        idle="Sign in"
+        busy="Signing in…"
+        buttonClassName="kf-btn mt-5 w-full"
+      />
     </form>
   );
 }

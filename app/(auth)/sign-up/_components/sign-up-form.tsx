@@ -7,7 +7,7 @@ import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { onlyFields, setServerErrors } from '@/components/form-errors';
-import { FormField, describedBy } from '@/components/form-field';
+import { FormField, FormSubmit, describedBy } from '@/components/form-field';
 import { meKeys } from '@/hooks/use-me';
 import { requestJson } from '@/lib/http/client';
 import { PASSWORD_MIN_LENGTH, signUpSchema, type SignUpInput } from '@/lib/auth/schemas';
@@ -65,14 +65,13 @@ export function SignUpForm() {
         'new-password',
         `At least ${PASSWORD_MIN_LENGTH} characters. A few unrelated words work well.`,
       )}
-      {formError && (
-        <p role="alert" className="kf-field-error">
-          {formError}
-        </p>
-      )}
-      <button type="submit" className="kf-btn mt-5 w-full" disabled={isSubmitting}>
-        {isSubmitting ? 'Creating your account…' : 'Create account'}
-      </button>
+      <FormSubmit
+        formError={formError}
+        submitting={isSubmitting}
+        idle="Create account"
+        busy="Creating your account…"
+        buttonClassName="kf-btn mt-5 w-full"
+      />
     </form>
   );
 }

@@ -3,26 +3,18 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
-import { Controller, useForm, useWatch, type Control, type FieldPath } from 'react-hook-form';
+import { useForm, useWatch, type Control, type FieldPath } from 'react-hook-form';
 import { toast } from 'sonner';
-import { FormField, describedBy } from '@/components/form-field';
+import { setServerErrors } from '@/components/form-errors';
+import { FormSubmit, InputField } from '@/components/form-field';
 import { fieldUnit, plainUnit, type FieldUnit } from '@/components/recipe-editor/field-units';
-import { UnitNumberInput } from '@/components/recipe-editor/unit-number-input';
+import { UnitNumberField } from '@/components/unit-number-field';
 import { brewhouseKeys } from '@/hooks/use-brewhouse';
 import { ION_NAMES } from '@/lib/brewing/constants';
-import type { IonName } from '@/lib/brewing/schema';
 import { DISPLAY_UNITS, type UnitSystem } from '@/lib/brewing/units';
+import { ION_LABEL } from '@/lib/format';
 import { brewhouseSchema, type BrewhouseInput } from '@/lib/community/brewhouse-schema';
 import { requestJson } from '@/lib/http/client';
-
-const ION_WORDS: Record<IonName, string> = {
-  calcium: 'Calcium',
-  magnesium: 'Magnesium',
-  sodium: 'Sodium',
-  chloride: 'Chloride',
-  sulfate: 'Sulfate',
-  bicarbonate: 'Bicarbonate',
-};
 
 const EMPTY_REPORT: NonNullable<BrewhouseInput['waterReport']> = {
   name: '',
@@ -35,6 +27,14 @@ const EMPTY_REPORT: NonNullable<BrewhouseInput['waterReport']> = {
 };
 
 type Path = FieldPath<BrewhouseInput>;
+
+/** The losses "Fit to my brewhouse" uses, each in the member's unit for its quantity. */
+const LOSSES = [
+  { path: 'boilOffLPerHour', label: 'Boil-off rate', quantity: 'volumePerHour' },
+  { path: 'trubLossL', label: 'Kettle trub loss', quantity: 'volume' },
+  { path: 'grainAbsorptionLPerKg', label: 'Grain absorption', quantity: 'litresPerKg' },
+  { path: 'mashWaterLPerKg', label: 'Mash thickness', quantity: 'litresPerKg' },
+] as const;
 
 function NumberSetting({
   control,
@@ -52,27 +52,7 @@ function NumberSetting({
   error?: string;
 }) {
   const id = `brewhouse-${path.replace(/\./g, '-')}`;
-  return (
-    <FormField id={id} label={`${label} (${unit.label})`} error={error} hint={hint}>
-      <Controller
-        control={control}
-        name={path}
-        render={({ field }) => (
-          <UnitNumberInput
-            id={id}
-            name={field.name}
-            value={field.value as number | null}
-            onChange={field.onChange}
-            onBlur={field.onBlur}
-            inputRef={field.ref}
-            unit={unit}
-            invalid={Boolean(error)}
-            describedBy={describedBy(id, error, hint)}
-          />
-        )}
-      />
-    </FormField>
-  );
+  return <UnitNumberField control={control} name={path} id={id} label={label} unit={unit} hint={hint} error={error} />;
 }
 
 /**
@@ -90,13 +70,12 @@ export function BrewhouseSettings({ initial, units }: { initial: BrewhouseInput;
   const { errors, isSubmitting } = formState;
   const report = useWatch({ control, name: 'waterReport' });
   const [keptReport, setKeptReport] = useState(initial.waterReport ?? EMPTY_REPORT);
-  const thickness = fieldUnit('litresPerKg', units);
 
   const onSubmit = handleSubmit(async (values) => {
     setFormError(undefined);
     const result = await requestJson<{ brewhouse: BrewhouseInput }>('/api/me/brewhouse', 'PUT', values);
     if (!result.ok) {
-      for (const field of result.fields) setError(field.path as Path, { message: field.message });
+      setServerErrors(setError, result.fields);
       setFormError(result.message);
       return;
     }
@@ -115,34 +94,16 @@ export function BrewhouseSettings({ initial, units }: { initial: BrewhouseInput;
           recipe’s own.
         </p>
         <div className="grid gap-x-4 sm:grid-cols-2">
-          <NumberSetting
-            control={control}
-            path="boilOffLPerHour"
-            label="Boil-off rate"
-            unit={fieldUnit('volumePerHour', units)}
-            error={errors.boilOffLPerHour?.message}
-          />
-          <NumberSetting
-            control={control}
-            path="trubLossL"
-            label="Kettle trub loss"
-            unit={fieldUnit('volume', units)}
-            error={errors.trubLossL?.message}
-          />
-          <NumberSetting
-            control={control}
-            path="grainAbsorptionLPerKg"
-            label="Grain absorption"
-            unit={thickness}
-            error={errors.grainAbsorptionLPerKg?.message}
-          />
-          <NumberSetting
-            control={control}
-            path="mashWaterLPerKg"
-            label="Mash thickness"
-            unit={thickness}
-            error={errors.mashWaterLPerKg?.message}
-          />
+          {LOSSES.map(({ path, label, quantity }) => (
+            <NumberSetting
+              key={path}
+              control={control}
+              path={path}
+              label={label}
+              unit={fieldUnit(quantity, units)}
+              error={errors[path]?.message}
+            />
+          ))}
         </div>
         <div className="mt-6 flex items-center gap-2">
           <input
@@ -161,31 +122,20 @@ export function BrewhouseSettings({ initial, units }: { initial: BrewhouseInput;
         </div>
         {report !== null && (
           <div className="mt-2">
-            <FormField
+            <InputField
               id="brewhouse-report-name"
               label="Name of this water"
               error={errors.waterReport?.name?.message}
               hint="Shown in the recipe editor as a source water."
-            >
-              <input
-                id="brewhouse-report-name"
-                className="kf-input"
-                aria-invalid={Boolean(errors.waterReport?.name)}
-                aria-describedby={describedBy(
-                  'brewhouse-report-name',
-                  errors.waterReport?.name?.message,
-                  'Shown in the recipe editor as a source water.',
-                )}
-                {...register('waterReport.name')}
-              />
-            </FormField>
+              registration={register('waterReport.name')}
+            />
             <div className="grid grid-cols-2 gap-x-4 sm:grid-cols-3">
               {ION_NAMES.map((ion) => (
                 <NumberSetting
                   key={ion}
                   control={control}
                   path={`waterReport.${ion}`}
-                  label={ION_WORDS[ion]}
+                  label={ION_LABEL[ion]}
                   unit={plainUnit(DISPLAY_UNITS[units].concentration, 1)}
                   error={errors.waterReport?.[ion]?.message}
                 />
@@ -193,14 +143,14 @@ export function BrewhouseSettings({ initial, units }: { initial: BrewhouseInput;
             </div>
           </div>
         )}
-        {formError && (
-          <p role="alert" className="kf-field-error mt-4">
-            {formError}
-          </p>
-        )}
-        <button type="submit" className="kf-btn mt-4" disabled={isSubmitting}>
-          {isSubmitting ? 'Saving…' : 'Save losses and water'}
-        </button>
+        <FormSubmit
+          formError={formError}
+          errorClassName="kf-field-error mt-4"
+          submitting={isSubmitting}
+          idle="Save losses and water"
+          busy="Saving…"
+          buttonClassName="kf-btn mt-4"
+        />
       </fieldset>
     </form>
   );

@@ -8,7 +8,7 @@ import { useForm, useWatch } from 'react-hook-form';
 import { toast } from 'sonner';
 import { z } from 'zod';
 import { showRefusal } from '@/components/form-errors';
-import { describedBy, FormField } from '@/components/form-field';
+import { describedBy, FormField, FormSubmit, InputField } from '@/components/form-field';
 import { meKeys } from '@/hooks/use-me';
 import { gallonsToLitres, litresToGallons } from '@/lib/brewing/units';
 import { requestJson } from '@/lib/http/client';
@@ -122,43 +122,25 @@ export function SettingsForm({ initial }: { initial: SettingsInput }) {
             <option value="us">US (lb, gal, °F)</option>
           </select>
         </FormField>
-        <FormField
+        <InputField
           id="settings-volume"
           label={`Usual batch volume (${volumeUnit})`}
+          type="number"
+          step="any"
+          inputMode="decimal"
           error={errors.batchVolume?.message}
           hint="New recipes start from this volume."
-        >
-          <input
-            id="settings-volume"
-            type="number"
-            step="any"
-            inputMode="decimal"
-            className="kf-input"
-            aria-invalid={Boolean(errors.batchVolume)}
-            aria-describedby={describedBy(
-              'settings-volume',
-              errors.batchVolume?.message,
-              'New recipes start from this volume.',
-            )}
-            {...register('batchVolume', { valueAsNumber: true })}
-          />
-        </FormField>
-        <FormField
+          registration={register('batchVolume', { valueAsNumber: true })}
+        />
+        <InputField
           id="settings-efficiency"
           label="Brewhouse efficiency (%)"
+          type="number"
+          step="any"
+          inputMode="decimal"
           error={errors.defaultEfficiencyPct?.message}
-        >
-          <input
-            id="settings-efficiency"
-            type="number"
-            step="any"
-            inputMode="decimal"
-            className="kf-input"
-            aria-invalid={Boolean(errors.defaultEfficiencyPct)}
-            aria-describedby={describedBy('settings-efficiency', errors.defaultEfficiencyPct?.message)}
-            {...register('defaultEfficiencyPct', { valueAsNumber: true })}
-          />
-        </FormField>
+          registration={register('defaultEfficiencyPct', { valueAsNumber: true })}
+        />
       </fieldset>
 
       <fieldset className="kf-card mt-6">
@@ -178,14 +160,14 @@ export function SettingsForm({ initial }: { initial: SettingsInput }) {
         </ul>
       </fieldset>
 
-      {formError && (
-        <p role="alert" className="kf-field-error mt-4">
-          {formError}
-        </p>
-      )}
-      <button type="submit" className="kf-btn mt-6" disabled={isSubmitting}>
-        {isSubmitting ? 'Saving…' : 'Save settings'}
-      </button>
+      <FormSubmit
+        formError={formError}
+        errorClassName="kf-field-error mt-4"
+        submitting={isSubmitting}
+        idle="Save settings"
+        busy="Saving…"
+        buttonClassName="kf-btn mt-6"
+      />
     </form>
   );
 }
