@@ -23,12 +23,15 @@ export async function proxy(request: NextRequest) {
   const nonce = Buffer.from(crypto.getRandomValues(new Uint8Array(16))).toString('base64');
   const policy = pagePolicy(`'nonce-${nonce}' 'strict-dynamic'`);
   if (!(await databaseReachable())) return unavailable(policy);
-  const kept = await keptAnswer({
-    method: request.method,
-    pathname: request.nextUrl.pathname,
-    search: request.nextUrl.search,
-    header: (name) => request.headers.get(name),
-  }).catch(() => null);
+  const kept = await keptAnswer(
+    {
+      method: request.method,
+      pathname: request.nextUrl.pathname,
+      search: request.nextUrl.search,
+      header: (name) => request.headers.get(name),
+    },
+    { encoded: false },
+  ).catch(() => null);
   if (kept) {
     const body = kept.body && new Uint8Array(kept.body);
     return new NextResponse(body, { status: kept.status, headers: kept.headers });

@@ -17,16 +17,17 @@ import { SECURITY_HEADERS } from '@/lib/http/security-headers';
  * signed-out readers, and signed-in ones for whom the state query finds nothing only they may see.
  *
  * The cache key is the page's path plus a fingerprint of every row the page shows (the recipe, its
- * owner, comments, stars, brew days, photos and their moderation, proposals, versions, the fork
- * source), read in one query per request. Any change (a new version, comment, star, fork, brew day,
+ * owner, comments, stars, brew days, photos and their moderation, proposals with both their recipes
+ * and their proposer, versions and the names of everyone who wrote one, the listed forks' count,
+ * the fork source), read in one query per request. Any change (a new version, comment, star, fork, brew day,
  * proposal, a moderator hiding something, the owner making the recipe private) gives a new
  * fingerprint, so the next request renders afresh: moderation and privacy win at once, on every
  * worker, with no message between them. Private and hidden recipes are never kept, and nothing
  * only the owner, a moderator or one member may see is ever in a kept page.
  *
  * Kept pages carry no nonce: their policy lists the SHA-256 hash of each inline script the framework
- * wrote into that exact HTML, so no other inline script can run. Each is kept gzipped and
- * brotli-compressed as well, so a reader's answer is a copy of bytes, never a compression.
+ * wrote into that exact HTML, so no other inline script can run. Each is kept gzipped (and
+ * brotli-compressed once a reader asks for that), so a reader's answer is a copy of bytes.
  *
  * `keptAnswer` is the whole answer; proxy.ts gives it, and so does scripts/request-guard.mjs
  * (through `KEPT_PAGE_HOOK`, set in instrumentation.ts) before Next.js routes the request at all.
@@ -38,10 +39,11 @@ const MAX_ENTRIES = 400;
 export const PAGE_CACHE_CONTROL = 'public, max-age=0, s-maxage=10, must-revalidate';
 
 interface Entry {
-  /** The page as UTF-8, and the same bytes gzipped and brotli-compressed. */
+  /** The page as UTF-8, and the same bytes gzipped. */
   body: Buffer;
   gzip: Buffer;
-  br: Buffer;
+  /** Brotli-compressed, made when a reader first asks for it (the benchmarks and many clients ask only gzip). */
+  br?: Promise<Buffer>;
   hashes: string[];
   etag: string;
 }
@@ -177,6 +179,11 @@ select r.visibility, r.hidden_at is not null as hidden,
   (select row_to_json(r)::text),
   (select ${shownUser('u')} from users u where u.id = r.owner_id),
   (select count(*)::text from recipe_versions v where v.recipe_id = r.id),
+  (select string_agg(${shownUser('vu')}, ',' order by vu.id) from users vu where vu.id in (
+     select v.author_id from recipe_versions v where v.recipe_id = r.id
+     union select v.co_author_id from recipe_versions v where v.recipe_id = r.id)),
+  (select count(*)::text from recipes fk join recipe_versions fv on fv.id = fk.forked_from_version_id
+     where fv.recipe_id = r.id and fk.visibility = 'public' and fk.hidden_at is null),
   (select count(*)::text from stars s where s.recipe_id = r.id),
   (select row_to_json(fr)::text || ${shownUser('fu')} from recipe_versions fv
      join recipes fr on fr.id = fv.recipe_id join users fu on fu.id = fr.owner_id
@@ -188,8 +195,12 @@ select r.visibility, r.hidden_at is not null as hidden,
   (select string_agg(row_to_json(p)::text || coalesce(hp.hidden_at::text, ''), ',' order by p.id)
      from photos p join brew_days b on b.id = p.brew_day_id left join hidden_photos hp on hp.photo_id = p.id
      where b.recipe_id = r.id),
-  (select string_agg(row_to_json(pr)::text, ',' order by pr.id)
-     from proposals pr where pr.source_recipe_id = r.id or pr.fork_recipe_id = r.id)
+  (select string_agg(row_to_json(pr)::text || json_build_array(ps.slug, ps.title, ps.owner_id, ps.visibility,
+       ps.hidden_at, pf.slug, pf.title, pf.owner_id, pf.visibility, pf.hidden_at)::text || ${shownUser('pu')},
+       ',' order by pr.id)
+     from proposals pr join recipes ps on ps.id = pr.source_recipe_id join recipes pf on pf.id = pr.fork_recipe_id
+     join users pu on pu.id = pr.proposer_id
+     where pr.source_recipe_id = r.id or pr.fork_recipe_id = r.id)
 )) as stamp from r`;
 
 interface RecipeState {
@@ -214,7 +225,7 @@ const brotliAsync = promisify(brotliCompress);
 /**
  * Drops the nonce a normal render put in (the attributes, and its copies in the framework's inline
  * payload, so every worker keeps the very same bytes for one state), hashes every inline script
- * that is left, and compresses the page once for all its readers (off the event loop, in zlib's threads).
+ * that is left, and gzips the page once for all its readers (off the event loop, in zlib's threads).
  */
 async function prepare(html: string, nonce: string | undefined): Promise<Entry> {
   const stripped = html.replace(/(<(?:script|link)\b[^>]*?)\s+nonce="[^"]*"/g, '$1');
@@ -225,20 +236,26 @@ async function prepare(html: string, nonce: string | undefined): Promise<Entry> 
     hashes.add(`'sha256-${createHash('sha256').update(m[2]).digest('base64')}'`);
   }
   const body = Buffer.from(clean, 'utf8');
-  const [gzipped, brotli] = await Promise.all([
-    gzipAsync(body, { level: 9 }),
-    // Quality 6: within a tenth of the best size at a fiftieth of its time (measured on the busiest demo page).
-    brotliAsync(body, {
-      params: { [constants.BROTLI_PARAM_QUALITY]: 6, [constants.BROTLI_PARAM_SIZE_HINT]: body.length },
-    }),
-  ]);
   return {
     body,
-    gzip: gzipped,
-    br: brotli,
+    gzip: await gzipAsync(body),
     hashes: [...hashes],
     etag: `"${createHash('sha256').update(body).digest('base64url').slice(0, 27)}"`,
   };
+}
+
+/**
+ * The kept page brotli-compressed, made once per entry. Quality 6: within a tenth of the best
+ * size at a fiftieth of its time (measured on the busiest demo page).
+ */
+function brotliOf(entry: Entry): Promise<Buffer> {
+  entry.br ??= brotliAsync(entry.body, {
+    params: { [constants.BROTLI_PARAM_QUALITY]: 6, [constants.BROTLI_PARAM_SIZE_HINT]: entry.body.length },
+  }).catch((err: unknown) => {
+    entry.br = undefined;
+    throw err;
+  });
+  return entry.br;
 }
 
 function remember(key: string, entry: Entry) {
@@ -312,8 +329,10 @@ function pickEncoding(acceptEncoding: string | null): 'br' | 'gzip' | 'identity'
  * The whole answer to a request for a kept recipe page (a 304 when the reader's copy is current),
  * or null when the request is not one for a kept page and must go on to the app: not a plain GET of
  * a recipe page, the database unreachable (the app answers its 503), or anything `keptPage` refuses.
+ * `encoded`: send the stored gzip or brotli copy the reader accepts. Not from proxy.ts: Next.js drops
+ * a proxy answer's Content-Encoding and compresses the body itself.
  */
-export async function keptAnswer(request: PlainRequest): Promise<KeptAnswer | null> {
+export async function keptAnswer(request: PlainRequest, { encoded }: { encoded: boolean }): Promise<KeptAnswer | null> {
   const page = cacheablePage(request);
   if (!page || !(await databaseReachable())) return null;
   const kept = await keptPage(page).catch(() => null);
@@ -324,8 +343,8 @@ export async function keptAnswer(request: PlainRequest): Promise<KeptAnswer | nu
   headers.vary = 'Cookie, Accept-Encoding';
   headers['content-security-policy'] = pagePolicy(kept.hashes.join(' '));
   if (request.header('if-none-match') === kept.etag) return { status: 304, headers, body: null };
-  const encoding = pickEncoding(request.header('accept-encoding'));
-  const body = encoding === 'identity' ? kept.body : kept[encoding];
+  const encoding = encoded ? pickEncoding(request.header('accept-encoding')) : 'identity';
+  const body = encoding === 'br' ? await brotliOf(kept) : encoding === 'gzip' ? kept.gzip : kept.body;
   headers['content-type'] = 'text/html; charset=utf-8';
   if (encoding !== 'identity') headers['content-encoding'] = encoding;
   headers['content-length'] = String(body.length);
@@ -347,14 +366,17 @@ export function offerKeptPagesToGuard(): void {
   }) => {
     const url = req.url ?? '/';
     const q = url.indexOf('?');
-    return keptAnswer({
-      method: req.method ?? 'GET',
-      pathname: q === -1 ? url : url.slice(0, q),
-      search: q === -1 || q === url.length - 1 ? '' : url.slice(q),
-      header: (name) => {
-        const value = req.headers[name];
-        return Array.isArray(value) ? value.join(', ') : (value ?? null);
+    return keptAnswer(
+      {
+        method: req.method ?? 'GET',
+        pathname: q === -1 ? url : url.slice(0, q),
+        search: q === -1 || q === url.length - 1 ? '' : url.slice(q),
+        header: (name) => {
+          const value = req.headers[name];
+          return Array.isArray(value) ? value.join(', ') : (value ?? null);
+        },
       },
-    });
+      { encoded: true },
+    );
   };
 }
