@@ -36,7 +36,7 @@ import { SECURITY_HEADERS } from '@/lib/http/security-headers';
 const PAGE = /^\/recipes\/([a-z0-9-]{1,120})(?:\/v\/([1-9][0-9]{0,6}))?$/;
 const MAX_ENTRIES = 400;
 /** How long a shared cache (a CDN) may keep a page before asking again: short, so hiding reaches it soon. */
-export const PAGE_CACHE_CONTROL = 'public, max-age=0, s-maxage=10, must-revalidate';
+const PAGE_CACHE_CONTROL = 'public, max-age=0, s-maxage=10, must-revalidate';
 
 interface Entry {
   /** The page as UTF-8, and the same bytes gzipped. */
@@ -71,7 +71,7 @@ function pool(): Pool {
 }
 
 /** The header that marks the cache's own render request; the same in every worker, unguessable outside. */
-export function renderToken(): string {
+function renderToken(): string {
   return (globalForPages.kfRenderToken ??= createHmac('sha256', authSecret())
     .update('kettlefork page render')
     .digest('hex'));
