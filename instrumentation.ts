@@ -4,6 +4,9 @@ export async function register() {
   const { authSecret, env } = await import('./lib/env');
   env();
   authSecret();
+  // scripts/request-guard.mjs answers kept recipe pages before Next.js routes them (lib/page-cache.ts).
+  const { offerKeptPagesToGuard } = await import('./lib/page-cache');
+  offerKeptPagesToGuard();
   // Keeps the search index in step with PostgreSQL, also after a search outage.
   if (process.env.KF_SEARCH_SYNC !== 'off') {
     const { startSearchSyncLoop } = await import('./lib/search/sync');

@@ -1,11 +1,5 @@
 import type { NextConfig } from 'next';
-
-const securityHeaders = [
-  { key: 'X-Content-Type-Options', value: 'nosniff' },
-  { key: 'Referrer-Policy', value: 'strict-origin-when-cross-origin' },
-  { key: 'X-Frame-Options', value: 'DENY' },
-  { key: 'Permissions-Policy', value: 'camera=(), microphone=(), geolocation=()' },
-];
+import { SECURITY_HEADERS } from './lib/http/security-headers';
 
 const nextConfig: NextConfig = {
   reactStrictMode: true,
@@ -19,7 +13,7 @@ const nextConfig: NextConfig = {
   serverExternalPackages: ['pg', 'smtp-server', 'mailparser', 'bcryptjs', 'jimp', 's3rver', 'piscina'],
   async headers() {
     return [
-      { source: '/:path*', headers: securityHeaders },
+      { source: '/:path*', headers: SECURITY_HEADERS },
       // Pages get a per-request policy with a script nonce from proxy.ts; JSON and files need none of that.
       {
         source: '/api/:path*',

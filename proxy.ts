@@ -1,34 +1,17 @@
 import { NextResponse, type NextRequest } from 'next/server';
 import { setOfflineTag } from '@/lib/auth/offline-tag';
 import { databaseReachable } from '@/lib/db-health';
-import { PAGE_CACHE_CONTROL, cacheablePage, keptPage, renderToken } from '@/lib/page-cache';
-
-/** The page policy; `scripts` are the sources that let the framework's own inline scripts run. */
-function pagePolicy(scripts: string): string {
-  const dev = process.env.NODE_ENV === 'development';
-  return [
-    "default-src 'self'",
-    `script-src 'self' ${scripts}${dev ? " 'unsafe-eval'" : ''}`,
-    "style-src 'self' 'unsafe-inline'",
-    "img-src 'self' blob: data:",
-    "font-src 'self' data:",
-    "connect-src 'self'",
-    // Brew-day mode's service worker (public/brew-day-sw.js); 'strict-dynamic' would otherwise refuse it.
-    "worker-src 'self'",
-    "object-src 'none'",
-    "base-uri 'self'",
-    "form-action 'self'",
-    "frame-ancestors 'none'",
-  ].join('; ');
-}
+import { pagePolicy } from '@/lib/http/page-policy';
+import { keptAnswer } from '@/lib/page-cache';
 
 /**
  * Every page gets a Content-Security-Policy that lets no inline script run unless the framework
  * wrote it. Readers of a public or unlisted recipe page get a kept copy (lib/page-cache.ts) whose
  * policy lists the hash of each of its inline scripts (signed-in ones too, unless the page would show
  * them something it shows nobody else); every other page is rendered per request with
- * a fresh nonce that Next.js puts on its own scripts. Styles may be inline (React style attributes
- * and chart libraries set them); scripts may not.
+ * a fresh nonce that Next.js puts on its own scripts. Under scripts/serve.mjs kept copies are
+ * answered before this runs (scripts/request-guard.mjs); this answers them when served otherwise.
+ * Styles may be inline (React style attributes and chart libraries set them); scripts may not.
  */
 export async function proxy(request: NextRequest) {
   // scripts/serve.mjs refuses these before Next.js sees them; this covers pages served any other way.
@@ -41,17 +24,18 @@ export async function proxy(request: NextRequest) {
   const nonce = Buffer.from(crypto.getRandomValues(new Uint8Array(16))).toString('base64');
   const policy = pagePolicy(`'nonce-${nonce}' 'strict-dynamic'`);
   if (!(await databaseReachable())) return unavailable(policy);
-  const page = request.headers.get('x-kf-page-render') === renderToken() ? null : cacheablePage(request);
-  const kept = page && (await keptPage(page).catch(() => null));
+  const kept = await keptAnswer(
+    {
+      method: request.method,
+      pathname: request.nextUrl.pathname,
+      search: request.nextUrl.search,
+      header: (name) => request.headers.get(name),
+    },
+    { encoded: false },
+  ).catch(() => null);
   if (kept) {
-    const headers = {
-      'cache-control': PAGE_CACHE_CONTROL,
-      etag: kept.etag,
-      vary: 'Cookie, Accept-Encoding',
-      'content-security-policy': pagePolicy(kept.hashes.join(' ')),
-    };
-    if (request.headers.get('if-none-match') === kept.etag) return new NextResponse(null, { status: 304, headers });
-    return new NextResponse(kept.html, { headers: { ...headers, 'content-type': 'text/html; charset=utf-8' } });
+    const body = kept.body && new Uint8Array(kept.body);
+    return new NextResponse(body, { status: kept.status, headers: kept.headers });
   }
   const requestHeaders = new Headers(request.headers);
   requestHeaders.delete('x-kf-page-render');

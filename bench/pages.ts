@@ -50,8 +50,6 @@ export async function benchPages(): Promise<BenchRow[]> {
     NEXT_TELEMETRY_DISABLED: '1',
   } as NodeJS.ProcessEnv;
   const tsx = ['--conditions=react-server', '--import', 'tsx'];
-  // tests/helpers/http reads the app's address once, when first loaded.
-  process.env.KF_BASE_URL = BASE;
   const { TestClient } = await import('../tests/helpers/http');
   const sql = new Client({ connectionString: databaseUrl });
   try {
@@ -76,7 +74,7 @@ export async function benchPages(): Promise<BenchRow[]> {
         [slug],
       )
     ).rows[0] as { email: string };
-    const member = new TestClient('10.97.0.1');
+    const member = new TestClient('10.97.0.1', BASE);
     if (!(await member.signIn(email, DEMO_PASSWORD))) throw new Error(`could not sign in as ${email}`);
     const speed = await measureSpeed(BASE, sql, SECONDS, member.cookieHeader());
     const cores = availableParallelism();

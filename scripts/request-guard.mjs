@@ -51,8 +51,38 @@ export function guardRequest(req, res) {
 }
 
 /**
+ * The global that lib/page-cache.ts sets once the app has started (instrumentation.ts): given Node's
+ * request, a promise of the whole answer for a kept recipe page, or of null for anything else.
+ */
+const KEPT_PAGE_HOOK = '__kettleforkKeptPage';
+
+/**
+ * Answers a kept recipe page from memory without Next.js routing it (its router, proxy and response
+ * streams cost several times the copy itself); anything else, or any failure, goes on to the app,
+ * whose proxy.ts gives the same answers.
+ */
+function answerKeptPage(req, res, handler) {
+  const kept = globalThis[KEPT_PAGE_HOOK];
+  if (typeof kept !== 'function' || req.method !== 'GET' || !req.url?.startsWith('/recipes/')) {
+    return handler(req, res);
+  }
+  kept(req)
+    .catch(() => null)
+    .then((answer) => {
+      if (!answer) return handler(req, res);
+      res.writeHead(answer.status, answer.headers);
+      res.end(answer.body ?? undefined);
+    })
+    .catch(() => {
+      if (res.headersSent) res.destroy();
+      else handler(req, res);
+    });
+}
+
+/**
  * Makes every HTTP server created from now on in this process run guardRequest before its own
- * handler, and tells the app (lib/rate-limit.ts) that the address header can be believed.
+ * handler (and answer kept recipe pages itself), and tells the app (lib/rate-limit.ts) that the
+ * address header can be believed.
  */
 export function guardServers(http) {
   process.env.KF_SOCKET_ADDRESS_HEADER = '1';
@@ -62,7 +92,7 @@ export function guardServers(http) {
     if (typeof args[last] === 'function') {
       const handler = args[last];
       args[last] = (req, res) => {
-        if (guardRequest(req, res)) return handler(req, res);
+        if (guardRequest(req, res)) return answerKeptPage(req, res, handler);
       };
     }
     return createServer.apply(this, args);

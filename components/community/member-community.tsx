@@ -1,23 +1,18 @@
 import Link from 'next/link';
-import type { Viewer } from '@/lib/auth/session';
 import type { MemberCommunity as MemberCommunityInfo } from '@/lib/community/profile';
-import { FollowButton } from './follow-button';
-import { ReportButton } from './report-button';
+import { MemberCommunityBar } from './member-community-bar';
 
-/** A member page's community part: stars received, followers, follow and report, and their forks. */
+/**
+ * A member page's community part: stars received, followers, their forks, and follow and report
+ * (a client island, so this part's HTML does not depend on who reads it).
+ */
 export function MemberCommunity({
   member,
-  viewer,
   community: info,
-  following,
 }: {
   member: { id: string; name: string | null; handle: string };
-  viewer: Viewer | null;
   community: MemberCommunityInfo;
-  following: boolean;
 }) {
-  const name = member.name ?? member.handle;
-  const own = viewer?.id === member.id;
   return (
     <>
       <div className="mt-4 flex flex-wrap items-center gap-4 font-sans text-sm">
@@ -27,13 +22,7 @@ export function MemberCommunity({
           {info.followers === 1 ? 'follower' : 'followers'} · following{' '}
           <span className="kf-data text-ink">{info.following}</span>
         </p>
-        {viewer && !own && <FollowButton type="member" id={member.id} following={following} label={name} />}
-        {viewer && !own && <ReportButton targetType="member" targetId={member.id} />}
-        {own && (
-          <Link href="/settings" className="kf-btn-quiet">
-            Edit profile and settings
-          </Link>
-        )}
+        <MemberCommunityBar member={{ id: member.id, name: member.name, handle: member.handle }} />
       </div>
       {info.forks.length > 0 && (
         <section aria-labelledby="forks-heading">

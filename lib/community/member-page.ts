@@ -4,7 +4,6 @@ import { cache } from 'react';
 import { getViewer } from '@/lib/auth/session';
 import { getBrewDaysByBrewerId } from '@/lib/brew-days/brew-days';
 import { listRecipes } from '@/lib/recipes/listing';
-import { isFollowing } from './follows';
 import { getMemberByHandle, getMemberCommunity } from './profile';
 
 /** The member a page is about (404 for an unknown or suspended one); cached per request for the page and its metadata. */
@@ -14,14 +13,16 @@ export const loadMember = cache(async (handle: string) => {
   return member;
 });
 
-/** Everything a member page shows beside the member, read at once: recipes, community, follow and brew days. */
+/**
+ * Everything a member page shows beside the member, read at once: recipes, community and brew days.
+ * The reader's own follow is a client island (components/community/member-community-bar.tsx).
+ */
 export async function loadMemberPage(handle: string) {
   const [member, viewer] = await Promise.all([loadMember(handle), getViewer()]);
-  const [{ cards }, community, following, brewDays] = await Promise.all([
+  const [{ cards }, community, brewDays] = await Promise.all([
     listRecipes(viewer, { ownerHandle: member.handle }),
     getMemberCommunity(member.id, viewer),
-    isFollowing(viewer, 'member', member.id),
     getBrewDaysByBrewerId({ brewerId: member.id, viewer }),
   ]);
-  return { member, viewer, cards, community, following, brewDays };
+  return { member, viewer, cards, community, brewDays };
 }

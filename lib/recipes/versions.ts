@@ -262,17 +262,25 @@ const activityColumns = {
   comments: sql<boolean>`exists (select 1 from comments where comments.recipe_id = ${recipes.id})`,
 };
 
+/** The member a version credits beside its author (the proposer whose change it accepted), by name. */
+const coAuthorNameSql = sql<
+  string | null
+>`(select coalesce(name, handle) from users c where c.id = ${recipeVersions.coAuthorId})`;
+
+/** What the recipe page reads with its version: the activity flags and the co-author's name. */
+const pageColumns = { ...activityColumns, coAuthorName: coAuthorNameSql };
+
 /** One version with its recipe, author and owner, in a single query; 404 unless the viewer may see it. */
 async function loadVersionView(viewer: Pick<Viewer, 'id' | 'role'> | null, key: VersionKey): Promise<VersionView> {
   return (await loadVersionRow(viewer, key, false)).view;
 }
 
-/** loadVersionView's query, with the recipe's activity flags selected when asked for (all false otherwise). */
+/** loadVersionView's query, with the recipe page's columns selected when asked for (all false and null otherwise). */
 async function loadVersionRow(
   viewer: Pick<Viewer, 'id' | 'role'> | null,
   key: VersionKey,
   withActivity: boolean,
-): Promise<{ view: VersionView; activity: RecipeActivity }> {
+): Promise<{ view: VersionView; activity: RecipeActivity; coAuthorName: string | null }> {
   const [row] = await db
     .select({
       version: recipeVersions,
@@ -281,7 +289,7 @@ async function loadVersionRow(
       authorHandle: users.handle,
       ownerName: owners.name,
       ownerHandle: owners.handle,
-      ...(withActivity ? activityColumns : {}),
+      ...(withActivity ? pageColumns : {}),
     })
     .from(recipeVersions)
     .innerJoin(recipes, eq(recipes.id, recipeVersions.recipeId))
@@ -298,9 +306,10 @@ async function loadVersionRow(
       authorHandle: row.authorHandle,
     },
   };
-  const flags = row as Partial<RecipeActivity>;
+  const flags = row as Partial<RecipeActivity> & { coAuthorName?: string | null };
   return {
     view,
+    coAuthorName: flags.coAuthorName ?? null,
     activity: {
       brewDays: Boolean(flags.brewDays),
       proposals: Boolean(flags.proposals),
@@ -322,14 +331,17 @@ export function getVersionByNumber(
   return loadVersionView(viewer, { recipeId, number });
 }
 
-/** A recipe's version by the recipe's slug (the head when no number is given), in one query, plus whether the recipe has any brew days, proposals or comments. */
+/**
+ * A recipe's version by the recipe's slug (the head when no number is given), in one query, plus
+ * whether the recipe has any brew days, proposals or comments and the version's co-author.
+ */
 export async function getVersionWithActivityBySlug(
   viewer: Pick<Viewer, 'id' | 'role'> | null,
   slug: string,
   number?: number,
-): Promise<VersionView & { activity: RecipeActivity }> {
-  const { view, activity } = await loadVersionRow(viewer, { slug, number }, true);
-  return { ...view, activity };
+): Promise<VersionView & { activity: RecipeActivity; coAuthorName: string | null }> {
+  const { view, activity, coAuthorName } = await loadVersionRow(viewer, { slug, number }, true);
+  return { ...view, activity, coAuthorName };
 }
 
 export interface ForkSource {
@@ -403,9 +415,6 @@ export interface HistoryEntry {
 
 /** Every version of a recipe, newest first, with the numbers the timeline shows. */
 export async function getVersionsByRecipeId({ recipeId }: { recipeId: string }): Promise<HistoryEntry[]> {
-  const coAuthor = sql<
-    string | null
-  >`(select coalesce(name, handle) from users c where c.id = ${recipeVersions.coAuthorId})`;
   const rows = await db
     .select({
       id: recipeVersions.id,
@@ -413,7 +422,7 @@ export async function getVersionsByRecipeId({ recipeId }: { recipeId: string }):
       message: recipeVersions.message,
       authorName: users.name,
       authorHandle: users.handle,
-      coAuthorName: coAuthor,
+      coAuthorName: coAuthorNameSql,
       createdAt: recipeVersions.createdAt,
       og: recipeVersions.og,
       fg: recipeVersions.fg,

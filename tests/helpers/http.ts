@@ -32,7 +32,14 @@ export class TestClient {
   private cookies = new Map<string, string>();
   readonly address: string;
 
-  constructor(address?: string) {
+  /**
+   * `base`: the app's address, for scripts that start an app of their own (the page bench, the
+   * mixed-traffic run), which may run one after another in one process.
+   */
+  constructor(
+    address?: string,
+    readonly base: string = BASE_URL,
+  ) {
     clientCounter += 1;
     this.address = address ?? `10.${process.pid % 250}.${Math.floor(clientCounter / 250)}.${clientCounter % 250}`;
   }
@@ -62,9 +69,9 @@ export class TestClient {
     headers.set('x-forwarded-for', this.address);
     if (this.cookies.size) headers.set('cookie', this.cookieHeader());
     // Like a browser, every write names its origin; an empty Origin means "send none" (a mail client, a forged form).
-    if (init.method && init.method !== 'GET' && !headers.has('origin')) headers.set('origin', BASE_URL);
+    if (init.method && init.method !== 'GET' && !headers.has('origin')) headers.set('origin', this.base);
     if (headers.get('origin') === '') headers.delete('origin');
-    const res = await fetchOnce(new URL(path, BASE_URL), { ...init, headers, redirect: 'manual' });
+    const res = await fetchOnce(new URL(path, this.base), { ...init, headers, redirect: 'manual' });
     this.remember(res);
     return res;
   }

@@ -268,8 +268,6 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
     TRUST_PROXY: '1',
     NEXT_TELEMETRY_DISABLED: '1',
   } as NodeJS.ProcessEnv;
-  // tests/helpers/http reads the app's address once, when first loaded.
-  process.env.KF_BASE_URL = BASE;
   const { TestClient } = await import('../helpers/http');
 
   rmSync(env.S3_FAKE_DIR!, { recursive: true, force: true });
@@ -339,7 +337,7 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
     await waitFor(`${BASE}/api/health`, 120);
 
     // The search index must hold the generated recipes before anything is measured.
-    const probe = new TestClient('10.96.0.1');
+    const probe = new TestClient('10.96.0.1', BASE);
     let indexed = 0;
     for (let i = 0; i < 240 && indexed < generated; i++) {
       const res = await probe.get<{ total?: number }>('/api/search?q=bench');
@@ -362,7 +360,7 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
     const saved: string[] = [];
     const saverStates = await Promise.all(
       saverHandles.map(async (handle, n) => {
-        const client = new TestClient(`10.96.3.${n + 1}`);
+        const client = new TestClient(`10.96.3.${n + 1}`, BASE);
         if (!(await client.signIn(`${handle}@kettlefork.test`, DEMO_PASSWORD)))
           throw new Error(`sign-in as ${handle} failed`);
         const recipe = demoRecipes.find((r) => r.ownerHandle === handle)!;

@@ -1,14 +1,18 @@
 import { createHash } from 'node:crypto';
+import { request as httpRequest } from 'node:http';
 import { join } from 'node:path';
+import { brotliDecompressSync, gunzipSync } from 'node:zlib';
 import { eq } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
 import { db } from '@/db';
-import { users } from '@/db/schema';
-import { commentVia } from '../community/helpers';
+import { recipes, users } from '@/db/schema';
+import { commentVia, textOf } from '../community/helpers';
 import { SCREENSHOT_DIR, openBrowser, signInThroughPage } from '../helpers/browser';
+import { BASE_URL } from '../helpers/env';
 import { TestClient } from '../helpers/http';
 import { createRecipeVia, paleAle } from '../helpers/recipes';
 import { signedInClient } from '../helpers/users';
+import { proposalTo } from '../proposals/helpers';
 
 function scriptSrc(policy: string): string {
   return (
@@ -39,7 +43,58 @@ async function expectKept(res: Response, label: string): Promise<string> {
   return html;
 }
 
+/** A GET with exactly these headers, the body as the bytes on the wire (fetch would decompress it). */
+function rawGet(
+  path: string,
+  headers: Record<string, string>,
+): Promise<{ status: number; headers: Record<string, string | string[] | undefined>; body: Buffer }> {
+  return new Promise((resolve, reject) => {
+    const req = httpRequest(new URL(path, BASE_URL), { headers }, (res) => {
+      const chunks: Buffer[] = [];
+      res.on('data', (c: Buffer) => chunks.push(c));
+      res.on('end', () => resolve({ status: res.statusCode ?? 0, headers: res.headers, body: Buffer.concat(chunks) }));
+      res.on('error', reject);
+    });
+    req.on('error', reject);
+    req.end();
+  });
+}
+
 describe('recipe pages kept and shared by every reader who sees the same', () => {
+  it('answers with the stored gzip or brotli copy the reader accepts, the same page and ETag in each', async () => {
+    const { client: owner } = await signedInClient();
+    const saved = await createRecipeVia(owner, { document: paleAle({ title: 'Compressed Kept Pale' }) });
+    const path = `/recipes/${saved.recipe.slug}/v/1`;
+    const address = { 'x-forwarded-for': new TestClient().address };
+    const plain = await rawGet(path, { ...address, 'accept-encoding': 'identity' });
+    expect(plain.status).toBe(200);
+    expect(plain.headers['content-encoding']).toBeUndefined();
+    expect(plain.body.toString('utf8')).toContain('Compressed Kept Pale');
+    const cases: [string, string | undefined, (b: Buffer) => Buffer][] = [
+      ['gzip', 'gzip', gunzipSync],
+      ['gzip, deflate, br, zstd', 'br', brotliDecompressSync],
+      ['br;q=0.5, gzip', 'gzip', gunzipSync],
+      ['gzip;q=0, br;q=0', undefined, (b) => b],
+    ];
+    for (const [accept, encoding, decode] of cases) {
+      const res = await rawGet(path, { ...address, 'accept-encoding': accept });
+      expect(res.status, accept).toBe(200);
+      expect(res.headers['content-encoding'], accept).toBe(encoding);
+      expect(res.headers.vary, accept).toMatch(/Accept-Encoding/i);
+      expect(res.headers.etag, accept).toBe(plain.headers.etag);
+      expect(Number(res.headers['content-length']), accept).toBe(res.body.length);
+      // Compressed once, not twice: the stored copy decodes straight to the page.
+      expect(decode(res.body).equals(plain.body), accept).toBe(true);
+      const again = await rawGet(path, {
+        ...address,
+        'accept-encoding': accept,
+        'if-none-match': String(res.headers.etag),
+      });
+      expect(again.status, accept).toBe(304);
+      expect(again.body.length, accept).toBe(0);
+    }
+  });
+
   it('answers every signed-out reader with the same kept copy, its inline scripts allowed by hash alone', async () => {
     const { client: owner } = await signedInClient();
     const { client: reader } = await signedInClient();
@@ -146,6 +201,55 @@ describe('recipe pages kept and shared by every reader who sees the same', () =>
     const renamed = await new TestClient().fetch(head);
     expect(renamed.headers.get('etag')).not.toBe(before);
     expect(await renamed.text()).toContain('Renamed Brewer');
+  });
+
+  it("gives a fresh page when a proposal's fork is renamed, its proposer renames themselves, and a co-author does", async () => {
+    const owner = await signedInClient();
+    const p = await proposalTo(owner.client);
+    const accepted = await owner.client.post(`/api/proposals/${p.id}/accept`, {
+      sourceHeadVersionId: p.source.version.id,
+    });
+    expect(accepted.status).toBe(201);
+    const anon = new TestClient();
+    const head = `/recipes/${p.source.recipe.slug}`;
+    const first = await anon.fetch(head);
+    const etags = [first.headers.get('etag')];
+    const page = textOf(await expectKept(first, head));
+    // The accepted change credits its proposer beside the owner, and the proposal stays listed.
+    expect(page).toContain(`by ${owner.user.name} with ${p.proposer.user.name}`);
+    expect(page).toContain(`${p.proposer.user.name} offers`);
+    expect(page).toContain('Forks (1)');
+
+    // The fork's title, which only the proposal list shows here.
+    await db.update(recipes).set({ title: 'Renamed Fork Lager' }).where(eq(recipes.id, p.fork.recipe.id));
+    const renamedFork = await anon.fetch(head);
+    etags.push(renamedFork.headers.get('etag'));
+    expect(textOf(await expectKept(renamedFork, head))).toContain(`${p.proposer.user.name} offers Renamed Fork Lager`);
+
+    // The proposer's name, in the list and in the credit.
+    await db.update(users).set({ name: 'Rowan Proposer Renamed' }).where(eq(users.id, p.proposer.user.id));
+    const renamedProposer = await anon.fetch(head);
+    etags.push(renamedProposer.headers.get('etag'));
+    const afterRename = textOf(await expectKept(renamedProposer, head));
+    expect(afterRename).toContain('Rowan Proposer Renamed offers');
+    expect(afterRename).toContain('with Rowan Proposer Renamed');
+
+    // Once the fork is private the proposal is no longer shown to others; the co-author credit still is.
+    expect((await p.proposer.client.patch(`/api/recipes/${p.fork.recipe.id}`, { visibility: 'private' })).status).toBe(
+      200,
+    );
+    const privateFork = await anon.fetch(head);
+    etags.push(privateFork.headers.get('etag'));
+    const withoutFork = textOf(await expectKept(privateFork, head));
+    expect(withoutFork).not.toContain('Renamed Fork Lager');
+    expect(withoutFork).toContain('Forks (0)');
+    await db.update(users).set({ name: 'Co-author Renamed Again' }).where(eq(users.id, p.proposer.user.id));
+    for (const path of [head, `${head}/v/2`]) {
+      const coAuthor = await anon.fetch(path);
+      if (path === head) etags.push(coAuthor.headers.get('etag'));
+      expect(textOf(await expectKept(coAuthor, path)), path).toContain('with Co-author Renamed Again');
+    }
+    expect(new Set(etags).size).toBe(etags.length);
   });
 
   it('shows a new comment, star and version on the next request after each one', async () => {

@@ -14,7 +14,7 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
 }
 
 export default async function MemberPage({ params }: Props) {
-  const { member, viewer, cards, community, following, brewDays } = await loadMemberPage((await params).handle);
+  const { member, viewer, cards, community, brewDays } = await loadMemberPage((await params).handle);
   return (
     <div>
       <h1 className="text-3xl font-semibold">{member.name ?? member.handle}</h1>
@@ -22,7 +22,7 @@ export default async function MemberPage({ params }: Props) {
         @{member.handle} · brewing with Kettlefork since {format(member.createdAt, 'MMMM yyyy')}
       </p>
       {member.bio && <Markdown source={member.bio} className="mt-3 max-w-2xl" />}
-      <MemberCommunity member={member} viewer={viewer} community={community} following={following} />
+      <MemberCommunity member={member} community={community} />
       <h2 className="mt-8 text-xl font-semibold">Recipes</h2>
       {cards.length === 0 ? (
         <p className="mt-2 text-muted">No public recipes yet.</p>

@@ -36,7 +36,8 @@ export async function VersionPage({
   recipe,
   version,
   activity,
-}: { viewer: Viewer | null; activity: RecipeActivity } & VersionView) {
+  coAuthorName,
+}: { viewer: Viewer | null; activity: RecipeActivity; coAuthorName: string | null } & VersionView) {
   const units = viewer?.units ?? 'metric';
   const owner = isOwner(recipe, viewer);
   const isHead = version.id === recipe.headVersionId;
@@ -102,6 +103,7 @@ export async function VersionPage({
           )}
           <p className="mt-1 font-sans text-sm text-muted">
             Saved {format(version.createdAt, 'd MMM yyyy')} by {version.authorName}
+            {coAuthorName && <> with {coAuthorName}</>}
             {version.message && <> · “{version.message}”</>}
           </p>
         </div>
