@@ -41,7 +41,7 @@ function amount(value: number, unit: FitUnit, units: UnitSystem): string {
     case 'L/kg':
       return units === 'us' ? `${+litresPerKgToQuartsPerLb(value).toFixed(2)} qt/lb` : `${+value.toFixed(2)} L/kg`;
     case '%':
-      return `${+value.toFixed(1)}%`;
+      return `${+value.toFixed(1)} %`;
     case 'g':
       return `${+value.toFixed(2)} g`;
   }

@@ -7,7 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { db } from '@/db';
 import { recipes, users } from '@/db/schema';
 import { commentVia, textOf } from '../community/helpers';
-import { SCREENSHOT_DIR, openBrowser, signInThroughPage } from '../helpers/browser';
+import { SCREENSHOT_DIR, accountMenuButton, openBrowser, signInThroughPage } from '../helpers/browser';
 import { BASE_URL } from '../helpers/env';
 import { TestClient } from '../helpers/http';
 import { createRecipeVia, paleAle } from '../helpers/recipes';
@@ -366,7 +366,7 @@ describe('a signed-in reader of a kept page', () => {
         const res = await s.page.goto(path);
         expect(res!.headers().etag).toBe(anon.headers.get('etag'));
         expect(await res!.text()).toBe(shared);
-        await s.page.getByRole('link', { name: user.name! }).waitFor();
+        expect(await accountMenuButton(s.page).textContent()).toContain(user.name!);
         await s.page.getByRole('button', { name: /Starred/ }).waitFor();
         expect(await s.page.getByRole('button', { name: /Starred/ }).getAttribute('aria-pressed')).toBe('true');
         await s.page.getByRole('button', { name: /^Follow/ }).waitFor();
