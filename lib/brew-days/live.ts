@@ -381,28 +381,13 @@ async function decideStep(context: WriteContext, input: Extract<LiveEntryInput, 
   }
   const title = stepTitle(steps, input.stepId);
   const message = `“${title}” was marked ${doneWord(current)} from another device while you marked it ${doneWord(input.checked)}. Choose which to keep.`;
-  return {
-    ...base,
-    outcome: 'conflict',
-    changesValue: false,
-    answer: {
-      status: 409,
-      body: {
-        error: {
-          code: 'conflict',
-          message,
-          fields: [{ path: 'checked', message }],
-          details: {
-            entryId,
-            stepId: input.stepId,
-            yours: input.checked,
-            theirs: current,
-            conflict: await newConflictView(context, 'step', input.stepId, input),
-          },
-        },
-      },
-    },
-  };
+  return conflictDecision(base, 'checked', message, {
+    entryId,
+    stepId: input.stepId,
+    yours: input.checked,
+    theirs: current,
+    conflict: await newConflictView(context, 'step', input.stepId, input),
+  });
 }
 
 async function decideField(
@@ -431,27 +416,27 @@ async function decideField(
     };
   }
   const message = `${LIVE_FIELD_LABELS[field]} was saved as ${describe(current)} from another device while you entered ${describe(incoming)}. Choose which to keep.`;
+  return conflictDecision(base, 'value', message, {
+    entryId,
+    field,
+    yours: incoming,
+    theirs: current,
+    conflict: await newConflictView(context, 'field', field, input),
+  });
+}
+
+/** A write kept as a conflict: a 409 naming the clashing field, with both values and the conflict as shown. */
+function conflictDecision(
+  base: Pick<Decision, 'kind' | 'name'>,
+  path: 'checked' | 'value',
+  message: string,
+  details: Record<string, unknown>,
+): Decision {
   return {
     ...base,
     outcome: 'conflict',
     changesValue: false,
-    answer: {
-      status: 409,
-      body: {
-        error: {
-          code: 'conflict',
-          message,
-          fields: [{ path: 'value', message }],
-          details: {
-            entryId,
-            field,
-            yours: incoming,
-            theirs: current,
-            conflict: await newConflictView(context, 'field', field, input),
-          },
-        },
-      },
-    },
+    answer: { status: 409, body: { error: { code: 'conflict', message, fields: [{ path, message }], details } } },
   };
 }
 

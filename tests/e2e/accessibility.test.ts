@@ -2,8 +2,7 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { openBrowser, type BrowserSession } from '../helpers/browser';
-import { BASE_URL } from '../helpers/env';
+import { openBrowser, shareSessionOf, type BrowserSession } from '../helpers/browser';
 import type { TestClient } from '../helpers/http';
 import { createRecipeVia, paleAle, saveVia } from '../helpers/recipes';
 import { signedInClient } from '../helpers/users';
@@ -77,15 +76,7 @@ async function sidewaysOverflow(
 
 /** Copies a signed-in API client's session into the browser, so pages open as that member. */
 async function signInBrowser(s: BrowserSession, client: TestClient): Promise<void> {
-  const cookies = client
-    .cookieHeader()
-    .split('; ')
-    .filter(Boolean)
-    .map((pair) => {
-      const eq = pair.indexOf('=');
-      return { name: pair.slice(0, eq), value: pair.slice(eq + 1), url: BASE_URL };
-    });
-  await s.context.addCookies(cookies);
+  await shareSessionOf(s, client);
 }
 
 /** Polls search until the recipe is in the index (it follows PostgreSQL through the outbox). */

@@ -1,6 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { openBrowser, type BrowserSession } from '../helpers/browser';
-import { BASE_URL } from '../helpers/env';
+import { openBrowser, shareSessionOf, type BrowserSession } from '../helpers/browser';
 import { createRecipeVia, paleAle } from '../helpers/recipes';
 import { signedInClient } from '../helpers/users';
 import { jpeg } from '../brew-days/fixtures';
@@ -15,14 +14,7 @@ describe('a brew day in a real browser', { timeout: 120_000 }, () => {
   it('logs a brew day from a recipe version, uploads a photo and shows its thumbnail and larger view', async () => {
     const { client } = await signedInClient();
     const saved = await createRecipeVia(client, { document: paleAle({ title: 'Browser brew pale' }) });
-    const session = client
-      .cookieHeader()
-      .split('; ')
-      .map((pair) => {
-        const eq = pair.indexOf('=');
-        return { name: pair.slice(0, eq), value: pair.slice(eq + 1), url: BASE_URL };
-      });
-    await s.context.addCookies(session);
+    await shareSessionOf(s, client);
 
     await s.page.goto(`/recipes/${saved.recipe.slug}`);
     await s.page.getByRole('link', { name: 'Log a brew day' }).first().click();

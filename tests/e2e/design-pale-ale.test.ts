@@ -1,8 +1,7 @@
 import type { Page } from 'playwright-core';
 import { afterEach, describe, expect, it } from 'vitest';
 import type { RecipeDocumentInput } from '@/lib/brewing';
-import { editorReady, openBrowser, type BrowserSession } from '../helpers/browser';
-import { BASE_URL } from '../helpers/env';
+import { editorReady, openBrowser, shareSessionOf, type BrowserSession } from '../helpers/browser';
 import type { TestClient } from '../helpers/http';
 import { createRecipeVia, paleAle } from '../helpers/recipes';
 import { signedInClient } from '../helpers/users';
@@ -32,16 +31,7 @@ function designDocument(title: string): RecipeDocumentInput {
 
 async function browserAs(client: TestClient, width = 1280): Promise<BrowserSession> {
   const s = await openBrowser({ width });
-  await s.context.addCookies(
-    client
-      .cookieHeader()
-      .split('; ')
-      .map((pair) => ({
-        name: pair.slice(0, pair.indexOf('=')),
-        value: pair.slice(pair.indexOf('=') + 1),
-        url: BASE_URL,
-      })),
-  );
+  await shareSessionOf(s, client);
   return s;
 }
 

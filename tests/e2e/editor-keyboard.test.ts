@@ -1,7 +1,6 @@
 import type { Page } from 'playwright-core';
 import { afterEach, describe, expect, it } from 'vitest';
-import { editorReady, openBrowser, type BrowserSession } from '../helpers/browser';
-import { BASE_URL } from '../helpers/env';
+import { editorReady, openBrowser, shareSessionOf, type BrowserSession } from '../helpers/browser';
 import { createRecipeVia, paleAle } from '../helpers/recipes';
 import { signedInClient } from '../helpers/users';
 
@@ -82,15 +81,7 @@ describe('the recipe editor from the keyboard alone', { timeout: 180_000 }, () =
     const created = await createRecipeVia(client, { document: paleAle({ title }) });
 
     s = await openBrowser();
-    const cookies = client
-      .cookieHeader()
-      .split('; ')
-      .map((pair) => ({
-        name: pair.slice(0, pair.indexOf('=')),
-        value: pair.slice(pair.indexOf('=') + 1),
-        url: BASE_URL,
-      }));
-    await s.context.addCookies(cookies);
+    await shareSessionOf(s, client);
     const { page } = s;
     await page.goto(`/recipes/${created.recipe.slug}/edit`, { waitUntil: 'networkidle' });
     await editorReady(page);

@@ -1,21 +1,15 @@
 import { describe, expect, it } from 'vitest';
-import { openAccountMenu, openBrowser, signInThroughPage, type BrowserSession } from '../helpers/browser';
+import {
+  openAccountMenu,
+  openBrowser,
+  signInThroughPage,
+  shareSessionOf,
+  type BrowserSession,
+} from '../helpers/browser';
 import { BASE_URL } from '../helpers/env';
 import { TestClient } from '../helpers/http';
 import { signedInClient, TEST_PASSWORD } from '../helpers/users';
 import { brewDayRow, brewDayVia, today } from '../brew-days/fixtures';
-
-async function useCookiesOf(s: BrowserSession, client: TestClient) {
-  await s.context.addCookies(
-    client
-      .cookieHeader()
-      .split('; ')
-      .map((pair) => {
-        const eq = pair.indexOf('=');
-        return { name: pair.slice(0, eq), value: pair.slice(eq + 1), url: BASE_URL };
-      }),
-  );
-}
 
 /**
  * The browser's own complaints, less those a deliberately cut connection causes, the worker's
@@ -88,7 +82,7 @@ describe('brew-day mode across devices and members', { timeout: 240_000 }, () =>
     try {
       const { client } = await signedInClient();
       const { brewDayId } = await brewDayVia(client, { fields: { brewedOn: today(), og: null } });
-      await useCookiesOf(s, client);
+      await shareSessionOf(s, client);
       const { page, context } = s;
       await page.goto(`/brew-days/${brewDayId}/live`);
       await page.getByText('Kept for offline use.').waitFor();
@@ -114,8 +108,8 @@ describe('brew-day mode across devices and members', { timeout: 240_000 }, () =>
     const phone = await openBrowser({ width: 390, height: 844 });
     const tablet = await openBrowser({ width: 1280, height: 900 });
     try {
-      await useCookiesOf(phone, client);
-      await useCookiesOf(tablet, other);
+      await shareSessionOf(phone, client);
+      await shareSessionOf(tablet, other);
       for (const s of [phone, tablet]) {
         await s.page.goto(`/brew-days/${brewDayId}/live`);
         await s.page.getByText('Kept for offline use.').waitFor();

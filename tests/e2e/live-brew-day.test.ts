@@ -2,23 +2,9 @@ import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { db } from '@/db';
 import { brewDayEntries } from '@/db/schema';
-import { openBrowser, type BrowserSession } from '../helpers/browser';
-import { BASE_URL } from '../helpers/env';
-import type { TestClient } from '../helpers/http';
+import { openBrowser, shareSessionOf, type BrowserSession } from '../helpers/browser';
 import { signedInClient } from '../helpers/users';
 import { brewDayRow, brewDayVia, today } from '../brew-days/fixtures';
-
-async function useCookiesOf(s: BrowserSession, client: TestClient) {
-  await s.context.addCookies(
-    client
-      .cookieHeader()
-      .split('; ')
-      .map((pair) => {
-        const eq = pair.indexOf('=');
-        return { name: pair.slice(0, eq), value: pair.slice(eq + 1), url: BASE_URL };
-      }),
-  );
-}
 
 /** The browser's own complaints, less those a deliberately cut connection causes. */
 const realProblems = (s: BrowserSession) => s.problems.filter((p) => !/ERR_INTERNET_DISCONNECTED/.test(p));
@@ -89,7 +75,7 @@ describe('brew-day mode in a real browser', { timeout: 180_000 }, () => {
     try {
       const { client } = await signedInClient();
       const { brewDayId } = await brewDayVia(client, { fields: { brewedOn: today(), og: null } });
-      await useCookiesOf(session, client);
+      await shareSessionOf(session, client);
       const { page } = session;
       await page.clock.install();
       await page.goto(`/brew-days/${brewDayId}/live`);
@@ -126,7 +112,7 @@ describe('brew-day mode in a real browser', { timeout: 180_000 }, () => {
     try {
       const { client } = await signedInClient();
       const { brewDayId } = await brewDayVia(client, { fields: { brewedOn: today(), og: null } });
-      await useCookiesOf(session, client);
+      await shareSessionOf(session, client);
       const { page, context } = session;
       await page.goto(`/brew-days/${brewDayId}/live`);
       await page.getByText('Kept for offline use.').waitFor();
@@ -175,7 +161,7 @@ describe('brew-day mode in a real browser', { timeout: 180_000 }, () => {
     const { brewDayId } = await brewDayVia(client, { fields: { brewedOn: today(1) } });
     const plan = await client.put(`/api/brew-days/${brewDayId}/plan`, { pourOn: today(40), carbonation: 'burst' });
     expect(plan.status).toBe(200);
-    await useCookiesOf(s, client);
+    await shareSessionOf(s, client);
     await s.page.goto(`/brew-days/${brewDayId}`);
     const [download] = await Promise.all([
       s.page.waitForEvent('download'),
@@ -221,7 +207,7 @@ describe('brew-day mode in a real browser', { timeout: 180_000 }, () => {
       },
     });
     await s.context.clearCookies();
-    await useCookiesOf(s, client);
+    await shareSessionOf(s, client);
     await s.page.goto('/brew-days');
     await s.page.getByRole('heading', { name: 'Predicted and measured, brew by brew' }).waitFor();
     for (const key of ['og', 'fg', 'efficiency'])

@@ -1,7 +1,6 @@
 import { readFile } from 'node:fs/promises';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { openBrowser, type BrowserSession } from '../helpers/browser';
-import { BASE_URL } from '../helpers/env';
+import { openBrowser, shareSessionOf, type BrowserSession } from '../helpers/browser';
 import { signedInClient } from '../helpers/users';
 import { brewDayVia, today } from '../brew-days/fixtures';
 
@@ -15,15 +14,7 @@ describe('planning a brew back from the pour date in a real browser', { timeout:
   it('shows the shortfall of a date too soon, saves a plan that works and downloads a valid calendar', async () => {
     const { client } = await signedInClient();
     const { brewDayId } = await brewDayVia(client, { fields: { brewedOn: today(1) } });
-    await s.context.addCookies(
-      client
-        .cookieHeader()
-        .split('; ')
-        .map((pair) => {
-          const eq = pair.indexOf('=');
-          return { name: pair.slice(0, eq), value: pair.slice(eq + 1), url: BASE_URL };
-        }),
-    );
+    await shareSessionOf(s, client);
     await s.page.goto(`/brew-days/${brewDayId}`);
     await s.page.getByRole('heading', { name: 'When must it pour?' }).waitFor();
     await s.page.getByLabel('Pour date').fill(today(4));

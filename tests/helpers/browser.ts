@@ -2,6 +2,7 @@ import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { BASE_URL } from './env';
+import type { TestClient } from './http';
 import { TEST_PASSWORD } from './users';
 
 export const SCREENSHOT_DIR = path.resolve('tests/e2e/screenshots');
@@ -110,4 +111,17 @@ export async function openAccountMenu(page: Page) {
   const panel = page.locator(`[id="${await button.getAttribute('aria-controls')}"]`);
   await panel.waitFor();
   return panel;
+}
+
+/** Copies a signed-in API client's session cookies into the browser, so pages open as that member. */
+export async function shareSessionOf(s: BrowserSession, client: TestClient): Promise<void> {
+  const cookies = client
+    .cookieHeader()
+    .split('; ')
+    .filter(Boolean)
+    .map((pair) => {
+      const eq = pair.indexOf('=');
+      return { name: pair.slice(0, eq), value: pair.slice(eq + 1), url: BASE_URL };
+    });
+  await s.context.addCookies(cookies);
 }
