@@ -5,6 +5,7 @@ import { usePathname } from 'next/navigation';
 import { useEffect, useId, useRef, useState } from 'react';
 import { NotificationBell } from '@/components/community/notification-bell';
 import { useMe } from '@/hooks/use-me';
+import type { Role } from '@/lib/auth/roles';
 import { SignOutButton } from './sign-out-button';
 
 /**
@@ -36,7 +37,24 @@ export function AccountMenu() {
   );
 }
 
-function MemberMenu({ name, handle, role }: { name: string; handle: string; role: 'member' | 'moderator' | 'admin' }) {
+/** The member's own pages, then the moderators' and the admins'. */
+function memberLinks(handle: string, role: Role): { href: string; label: string }[] {
+  return [
+    { href: `/members/${handle}`, label: 'Your member page' },
+    { href: '/feed', label: 'From brewers you follow' },
+    { href: '/import', label: 'Import' },
+    { href: '/settings', label: 'Settings' },
+    ...(role === 'member' ? [] : [{ href: '/admin/moderation', label: 'Moderation' }]),
+    ...(role === 'admin'
+      ? [
+          { href: '/admin/users', label: 'Members' },
+          { href: '/admin/outbox', label: 'Outbox' },
+        ]
+      : []),
+  ];
+}
+
+function MemberMenu({ name, handle, role }: { name: string; handle: string; role: Role }) {
   // The menu is open on the page it was opened on; moving to another page closes it.
   const pathname = usePathname();
   const [openOn, setOpenOn] = useState<string | null>(null);
@@ -61,7 +79,6 @@ function MemberMenu({ name, handle, role }: { name: string; handle: string; role
     };
   }, [open]);
 
-  const item = 'block px-4 py-2 text-ink no-underline hover:bg-paper hover:no-underline';
   return (
     <div ref={box} className="relative">
       <button
@@ -87,47 +104,16 @@ function MemberMenu({ name, handle, role }: { name: string; handle: string; role
           {role !== 'member' && <span className="ml-1 rounded bg-bine/15 px-1.5 py-0.5 text-xs text-bine">{role}</span>}
         </p>
         <ul className="border-t border-line pt-1">
-          <li>
-            <Link href={`/members/${handle}`} className={item}>
-              Your member page
-            </Link>
-          </li>
-          <li>
-            <Link href="/feed" className={item}>
-              From brewers you follow
-            </Link>
-          </li>
-          <li>
-            <Link href="/import" className={item}>
-              Import
-            </Link>
-          </li>
-          <li>
-            <Link href="/settings" className={item}>
-              Settings
-            </Link>
-          </li>
-          {role !== 'member' && (
-            <li>
-              <Link href="/admin/moderation" className={item}>
-                Moderation
+          {memberLinks(handle, role).map((link) => (
+            <li key={link.href}>
+              <Link
+                href={link.href}
+                className="block px-4 py-2 text-ink no-underline hover:bg-paper hover:no-underline"
+              >
+                {link.label}
               </Link>
             </li>
-          )}
-          {role === 'admin' && (
-            <>
-              <li>
-                <Link href="/admin/users" className={item}>
-                  Members
-                </Link>
-              </li>
-              <li>
-                <Link href="/admin/outbox" className={item}>
-                  Outbox
-                </Link>
-              </li>
-            </>
-          )}
+          ))}
         </ul>
         <div className="mt-1 border-t border-line px-4 pt-2">
           <SignOutButton />
