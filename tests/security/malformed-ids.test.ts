@@ -1,45 +1,19 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import type { TestClient } from '../helpers/http';
+import { ALL_METHODS, apiRoutes } from '../helpers/routes';
 import { signedInClient } from '../helpers/users';
 
-// Every route about one row, with the methods it answers. A path id that is not an id names no row:
-// each answers 404, exactly as a missing row, and never reaches PostgreSQL (which would answer
-// "invalid input syntax for type uuid").
-const ROUTES: [method: string, path: (id: string) => string][] = [
-  ['PUT', (id) => `/api/admin/users/${id}/role`],
-  ['POST', (id) => `/api/brew-days/${id}/photos`],
-  ['POST', (id) => `/api/brew-days/${id}/readings`],
-  ['GET', (id) => `/api/brew-days/${id}`],
-  ['PATCH', (id) => `/api/brew-days/${id}`],
-  ['POST', (id) => `/api/brew-days/${id}/tastings`],
-  ['PATCH', (id) => `/api/comments/${id}`],
-  ['DELETE', (id) => `/api/comments/${id}`],
-  ['POST', (id) => `/api/moderation/comments/${id}`],
-  ['POST', (id) => `/api/moderation/reports/${id}`],
-  ['GET', (id) => `/api/photos/${id}/thumb`],
-  ['GET', (id) => `/api/photos/${id}/display`],
-  ['DELETE', (id) => `/api/photos/${id}`],
-  ['POST', (id) => `/api/proposals/${id}/accept`],
-  ['POST', (id) => `/api/proposals/${id}/comments`],
-  ['POST', (id) => `/api/proposals/${id}/decision`],
-  ['GET', (id) => `/api/proposals/${id}`],
-  ['PATCH', (id) => `/api/proposals/${id}`],
-  ['POST', (id) => `/api/proposals/${id}/withdraw`],
-  ['GET', (id) => `/api/recipes/${id}/comments`],
-  ['POST', (id) => `/api/recipes/${id}/comments`],
-  ['GET', (id) => `/api/recipes/${id}/lineage`],
-  ['POST', (id) => `/api/recipes/${id}/restore`],
-  ['GET', (id) => `/api/recipes/${id}`],
-  ['PATCH', (id) => `/api/recipes/${id}`],
-  ['PUT', (id) => `/api/recipes/${id}/star`],
-  ['DELETE', (id) => `/api/recipes/${id}/star`],
-  ['GET', (id) => `/api/recipes/${id}/versions`],
-  ['POST', (id) => `/api/recipes/${id}/versions`],
-  ['PUT', (id) => `/api/users/${id}/suspension`],
-  ['GET', (id) => `/api/versions/${id}/export?format=beerjson`],
-  ['GET', (id) => `/api/versions/${id}`],
-  ['POST', (id) => `/api/versions/${id}/fork`],
-];
+// Every route about one row, found on disk with the methods it answers, so a new one cannot be
+// left out. A path id that is not an id names no row: each answers 404, exactly as a missing row,
+// and never reaches PostgreSQL (which would answer "invalid input syntax for type uuid").
+const ROUTES: [method: string, path: (id: string) => string][] = apiRoutes(ALL_METHODS)
+  .filter((route) => route.path.includes('[id]'))
+  .map((route) => [
+    route.method,
+    (id: string) =>
+      route.path.replace('[id]', id).replace('[size]', 'thumb') +
+      (route.path.endsWith('/export') ? '?format=beerjson' : ''),
+  ]);
 
 const MALFORMED = [
   '------------------------------------', // 36 characters, the length of an id
@@ -52,6 +26,12 @@ const MALFORMED = [
 ];
 
 describe('malformed ids in the path', () => {
+  it('finds the routes about one row on disk, the newest included', () => {
+    const found = ROUTES.map(([method, path]) => `${method} ${path(':id')}`);
+    expect(found).toEqual(expect.arrayContaining(['GET /api/me/members/:id', 'POST /api/brew-days/:id/live']));
+    expect(found.length).toBeGreaterThan(35);
+  });
+
   let admin: TestClient;
   beforeAll(async () => {
     // An admin passes every access level, so what answers is the id check itself.
