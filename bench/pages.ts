@@ -3,12 +3,11 @@
 // each alone under 20 clients. Targets: a public version page at least half a static file's rate
 // (it is a copy from memory, lib/page-cache.ts), the busiest recipe's head page at least 0.8 of
 // /about's (a page with no data at all), and a signed-in reader's version page as the first.
-import { execFileSync } from 'node:child_process';
 import { rmSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { Client } from 'pg';
 import { DEMO_PASSWORD } from '../db/seed/people';
-import { db, startChild, stopChildren, waitFor } from '../tests/load/processes';
+import { runQuiet, scratchDatabase, startChild, stopChildren, waitFor } from '../tests/load/processes';
 import { busiestRecipe, measureSpeed } from './page-speed';
 import type { BenchRow } from './types';
 
@@ -18,21 +17,8 @@ const BASE = `http://127.0.0.1:${PORT}`;
 const DATABASE = 'kettlefork_pages';
 const SECONDS = Number(process.env.KF_SPEED_SECONDS ?? 10);
 
-function runQuiet(command: string, args: string[], env: NodeJS.ProcessEnv): void {
-  try {
-    execFileSync(command, args, { env, stdio: ['ignore', 'pipe', 'pipe'], maxBuffer: 64 * 2 ** 20 });
-  } catch (err) {
-    const e = err as { stdout?: Buffer; stderr?: Buffer };
-    const tail = `${e.stdout?.toString() ?? ''}\n${e.stderr?.toString() ?? ''}`.trim().split('\n').slice(-40);
-    throw new Error(`${command} ${args.join(' ')} failed:\n${tail.join('\n')}`);
-  }
-}
-
 export async function benchPages(): Promise<BenchRow[]> {
-  execFileSync('bash', ['scripts/db.sh', 'start'], { stdio: 'ignore' });
-  db('drop', DATABASE);
-  db('create', DATABASE);
-  const databaseUrl = db('url', DATABASE);
+  const databaseUrl = scratchDatabase(DATABASE);
   const env = {
     ...process.env,
     NODE_ENV: 'production',

@@ -2,7 +2,7 @@
 // child process, then a few hundred reader-like queries through the real client on loopback;
 // then the same 50,000 recipes seeded into a scratch PostgreSQL database and the index rebuilt
 // from it, as the app does when the engine starts empty.
-import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
+import { spawn, type ChildProcess } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { fileURLToPath, pathToFileURL } from 'node:url';
@@ -16,6 +16,7 @@ import {
 import { buildRecipeFilter } from '../lib/search/filters';
 import { recipeSearchQuerySchema, SEARCH_PAGE_SIZE, type RecipeSearchQueryInput } from '../lib/search/schemas';
 import type { BenchRow } from './types';
+import { scratchDatabase } from '../tests/load/processes';
 
 const DOCUMENTS = 50_000;
 const LOAD_BATCH = 1_000;
@@ -330,18 +331,6 @@ const SCRATCH_DATABASE = 'kettlefork_bench_search';
 const SEED_BATCH = 2_000;
 const BENCH_USERS = 2_000;
 
-/** A fresh scratch database with the app's tables (scripts/db.sh starts the project's PostgreSQL if needed). */
-function scratchDatabaseUrl(): string {
-  const db = (...args: string[]) =>
-    execFileSync('bash', ['scripts/db.sh', ...args], { cwd: ROOT })
-      .toString()
-      .trim();
-  db('start');
-  db('drop', SCRATCH_DATABASE);
-  db('create', SCRATCH_DATABASE);
-  return db('url', SCRATCH_DATABASE);
-}
-
 /** The recipe document whose index document `doc` is (the index reads only these parts). */
 function recipeDocumentFor(doc: RecipeSearchDocument) {
   return {
@@ -437,7 +426,7 @@ async function rebuildChild(): Promise<void> {
 
 /** Seeds a scratch database with `docs` as recipes and times a full rebuild into a fresh fake. */
 async function benchRebuild(docs: RecipeSearchDocument[]): Promise<{ count: number; ms: number; seedMs: number }> {
-  const databaseUrl = scratchDatabaseUrl();
+  const databaseUrl = scratchDatabase(SCRATCH_DATABASE);
   const { url, child: fake } = await startFakeChild();
   const dir = mkdtempSync(`${tmpdir()}/kf-bench-`);
   const docsFile = `${dir}/docs.json`;

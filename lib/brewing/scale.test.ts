@@ -43,7 +43,8 @@ describe('scaleRecipe', () => {
       unit: 'L',
     });
     expect(changes.find((c) => c.what === doc.fermentables[0].name)?.to).toBe(scaled.fermentables[0].amountKg);
-    // Hops are marked as hop weights, so US members read them in ounces; salts stay in grams.
+    // Hops are marked as hop weights, so US members read them in ounces; salts stay in grams,
+    // as brewers weigh them in every system (common practice).
     expect(changes.find((c) => c.what.startsWith(doc.hops[0].name))?.unit).toBe('hop g');
     expect(changes.some((c) => c.what === 'Mash thickness')).toBe(false);
     // A dry hop is named by its days in contact, a boil addition by its minutes.

@@ -5,7 +5,7 @@
 // and notification e-mails caused while SMTP is down wait in the database and go out when it returns.
 import { execFileSync } from 'node:child_process';
 import { Client } from 'pg';
-import { db, signalGroup, sleep, startChild, stopAndWait, stopChildren, waitFor } from './processes';
+import { db, scratchDatabase, signalGroup, sleep, startChild, stopAndWait, stopChildren, waitFor } from './processes';
 
 const APP_PORT = 3950;
 const SEARCH_PORT = 7795;
@@ -17,10 +17,7 @@ const RUN_SECONDS = 50;
 /** The e-mail sender loop's period for this run (30 s in service), so the SMTP outage fits in seconds. */
 const EMAIL_LOOP_MS = 2_000;
 
-execFileSync('bash', ['scripts/db.sh', 'start'], { stdio: 'inherit' });
-db('drop', 'kettlefork_faults');
-db('create', 'kettlefork_faults');
-const databaseUrl = db('url', 'kettlefork_faults');
+const databaseUrl = scratchDatabase('kettlefork_faults');
 const env = {
   ...process.env,
   NODE_ENV: 'production',

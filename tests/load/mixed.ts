@@ -19,7 +19,7 @@ import { bulkLoadRecipes } from '../../bench/generate';
 import { measureSpeed, type SpeedResult } from '../../bench/page-speed';
 import { quantile, round } from '../../bench/stats';
 import * as schema from '../../db/schema';
-import { db, sleep, startChild, stopChildren, waitFor } from './processes';
+import { runQuiet, scratchDatabase, sleep, startChild, stopChildren, waitFor } from './processes';
 
 const APP_PORT = 3960;
 const SEARCH_PORT = 7796;
@@ -164,20 +164,6 @@ function runNode(args: string[], env: NodeJS.ProcessEnv): void {
   });
 }
 
-function build(env: NodeJS.ProcessEnv): void {
-  try {
-    execFileSync('npx', ['next', 'build'], { env, stdio: ['ignore', 'pipe', 'pipe'], maxBuffer: 64 * 2 ** 20 });
-  } catch (err) {
-    const e = err as { stdout?: Buffer; stderr?: Buffer };
-    const tail = `${e.stdout?.toString() ?? ''}\n${e.stderr?.toString() ?? ''}`
-      .trim()
-      .split('\n')
-      .slice(-40)
-      .join('\n');
-    throw new Error(`next build failed:\n${tail}`);
-  }
-}
-
 /**
  * CPU time used so far, in seconds, by each process group this run watches (read from /proc: a
  * child started detached leads its own group) and by PostgreSQL's processes; the generator is
@@ -245,10 +231,7 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
   const pageReaders = clientCount - savers - apiReaders;
   if (pageReaders < 1) throw new Error(`need at least 3 clients, got ${clientCount}`);
 
-  execFileSync('bash', ['scripts/db.sh', 'start'], { stdio: 'ignore' });
-  db('drop', DATABASE);
-  db('create', DATABASE);
-  const databaseUrl = db('url', DATABASE);
+  const databaseUrl = scratchDatabase(DATABASE);
   const env = {
     ...process.env,
     NODE_ENV: 'production',
@@ -328,7 +311,7 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
 
     if (opts.build ?? process.env.KF_LOAD_BUILD !== 'skip') {
       log(`load: building into ${DIST_DIR}`);
-      build(env);
+      runQuiet('npx', ['next', 'build'], env);
     }
     groups['app (all workers)'] = startChild(
       ['scripts/serve.mjs', '-H', '127.0.0.1', '-p', String(APP_PORT)],

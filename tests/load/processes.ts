@@ -1,14 +1,36 @@
 // Child processes and waits shared by the load and fault runs. Each child runs in its own process
 // group, so stopping it stops everything it started (the app's workers included).
 import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
 
 export const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
-/** scripts/db.sh with arguments; its output, trimmed. */
+const ROOT = fileURLToPath(new URL('../..', import.meta.url));
+
+/** scripts/db.sh with arguments, run from the project's root; its output, trimmed. */
 export const db = (...args: string[]) =>
-  execFileSync('bash', ['scripts/db.sh', ...args])
+  execFileSync('bash', ['scripts/db.sh', ...args], { cwd: ROOT })
     .toString()
     .trim();
+
+/** A new, empty scratch database of that name (the project's PostgreSQL started if needed); its URL. */
+export function scratchDatabase(name: string): string {
+  db('start');
+  db('drop', name);
+  db('create', name);
+  return db('url', name);
+}
+
+/** Runs a command with its output kept back; if it fails, the error carries the last 40 lines. */
+export function runQuiet(command: string, args: string[], env: NodeJS.ProcessEnv): void {
+  try {
+    execFileSync(command, args, { env, stdio: ['ignore', 'pipe', 'pipe'], maxBuffer: 64 * 2 ** 20 });
+  } catch (err) {
+    const e = err as { stdout?: Buffer; stderr?: Buffer };
+    const tail = `${e.stdout?.toString() ?? ''}\n${e.stderr?.toString() ?? ''}`.trim().split('\n').slice(-40);
+    throw new Error(`${command} ${args.join(' ')} failed:\n${tail.join('\n')}`);
+  }
+}
 
 const children = new Set<ChildProcess>();
 
