@@ -130,7 +130,8 @@ describe('bitterness by hop use', () => {
   // isomerisation goes at k1 = 7.9 × 10^11 e^(−11858/T) per minute (T in K; activation energy
   // 98.6 kJ/mol), measured from 90 to 130 °C. A stand's factor is k1 at its temperature over k1 at
   // 100 °C; by hand e^(−11858 (1/363.15 − 1/373.15)) = 0.417 at 90 °C, 0.165 at 80 °C and 0.102 at
-  // 75 °C (the last two extrapolate below the measured range).
+  // 75 °C (the last two extrapolate below the measured range). The rate constants are cited from
+  // memory of the paper, not checked against a copy here.
   it('scales a hop stand by the isomerisation rate at its temperature against a 100 °C boil', () => {
     expect(hopStandTemperatureFactor(100)).toBeCloseTo(1, 12);
     expect(hopStandTemperatureFactor(90)).toBeCloseTo(0.417, 3);
