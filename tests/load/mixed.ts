@@ -251,6 +251,9 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
     TRUST_PROXY: '1',
     NEXT_TELEMETRY_DISABLED: '1',
   } as NodeJS.ProcessEnv;
+  // KF_LOAD_PROFILE=<dir>: the app's workers and the search fake write V8 CPU profiles there on exit.
+  const profileDir = process.env.KF_LOAD_PROFILE;
+  const profiled = (args: string[]) => (profileDir ? ['--cpu-prof', `--cpu-prof-dir=${profileDir}`, ...args] : args);
   const { TestClient } = await import('../helpers/http');
 
   rmSync(env.S3_FAKE_DIR!, { recursive: true, force: true });
@@ -258,7 +261,7 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
   const sql = new Client({ connectionString: databaseUrl });
   try {
     const groups: Record<string, number> = {};
-    groups['search fake'] = startChild(['--import', 'tsx', 'scripts/search-fake.ts'], env).pid!;
+    groups['search fake'] = startChild(profiled(['--import', 'tsx', 'scripts/search-fake.ts']), env).pid!;
     groups['mail and S3 fakes'] = startChild(['--import', 'tsx', 'scripts/mail-fake.ts'], env).pid!;
     startChild(['--import', 'tsx', 'scripts/s3-fake.ts'], env);
     await waitFor(`http://127.0.0.1:${SEARCH_PORT}/health`, 30);
@@ -314,7 +317,7 @@ export async function runMixedLoad(opts: LoadOptions = {}): Promise<LoadResult> 
       runQuiet('npx', ['next', 'build'], env);
     }
     groups['app (all workers)'] = startChild(
-      ['scripts/serve.mjs', '-H', '127.0.0.1', '-p', String(APP_PORT)],
+      profiled(['scripts/serve.mjs', '-H', '127.0.0.1', '-p', String(APP_PORT)]),
       env,
     ).pid!;
     await waitFor(`${BASE}/api/health`, 120);
