@@ -10,18 +10,22 @@ import { pagePolicy } from '@/lib/http/page-policy';
 import { SECURITY_HEADERS } from '@/lib/http/security-headers';
 
 /**
- * Recipe pages rendered once and kept: a public or unlisted recipe's head page and its version pages
- * look the same to everyone in the server's HTML (who is signed in, their stars and follows, the
- * owner's actions and the forms are client islands that ask /api/me and friends), so each worker
- * renders one copy per state of the recipe, signed out, and answers every later reader from memory:
- * signed-out readers, and signed-in ones for whom the state query finds nothing only they may see.
+ * Pages rendered once and kept. A public or unlisted recipe's head page and its version pages look
+ * the same to everyone in the server's HTML (who is signed in, their stars and follows, the owner's
+ * actions and the forms are client islands that ask /api/me and friends), so each worker renders one
+ * copy per state of the recipe, signed out, and answers every later reader from memory: signed-out
+ * readers, and signed-in ones for whom the state query finds nothing only they may see. A member's
+ * page is kept the same way for signed-out readers. The home page, /about and the guides show
+ * nothing but the build's own text, so one copy serves everyone until the next build.
  *
- * The cache key is the page's path plus a fingerprint of every row the page shows (the recipe, its
+ * A recipe page's cache key is its path plus a fingerprint of every row the page shows (the recipe, its
  * owner, comments, stars, brew days, photos and their moderation, proposals with both their recipes
  * and their proposer, versions and the names of everyone who wrote one, the listed forks' count,
- * the fork source), read in one query per request. Any change (a new version, comment, star, fork, brew day,
- * proposal, a moderator hiding something, the owner making the recipe private) gives a new
- * fingerprint, so the next request renders afresh: moderation and privacy win at once, on every
+ * the fork source), read in one query per request; a member page's is the member, their recipes and
+ * the forks of them, the sources of their own forks, their follower counts, and their brew days with
+ * each one's recipe, tastings and photos. Any change (a new version, comment, star, fork, brew day,
+ * proposal, a moderator hiding something, the owner making the recipe private, a suspension) gives a
+ * new fingerprint, so the next request renders afresh: moderation and privacy win at once, on every
  * worker, with no message between them. Private and hidden recipes are never kept, and nothing
  * only the owner, a moderator or one member may see is ever in a kept page.
  *
@@ -33,7 +37,12 @@ import { SECURITY_HEADERS } from '@/lib/http/security-headers';
  * (through `KEPT_PAGE_HOOK`, set in instrumentation.ts) before Next.js routes the request at all.
  */
 
-const PAGE = /^\/recipes\/([a-z0-9-]{1,120})(?:\/v\/([1-9][0-9]{0,6}))?$/;
+const RECIPE_PAGE = /^\/recipes\/([a-z0-9-]{1,120})(?:\/v\/[1-9][0-9]{0,6})?$/;
+const MEMBER_PAGE = /^\/members\/([a-z0-9_-]{1,40})$/;
+/** Pages whose server HTML is the build's own text, the same for every reader: home, about and the guides. */
+const BUILD_PAGE = /^\/(?:about|guides(?:\/[a-z0-9-]{1,80})?)?$/;
+/** Paths that answered 404 to a render of ours (an unknown guide), so build pages among them are not asked for again. */
+const MAX_MISSING = 200;
 const MAX_ENTRIES = 400;
 /** How long a shared cache (a CDN) may keep a page before asking again: short, so hiding reaches it soon. */
 const PAGE_CACHE_CONTROL = 'public, max-age=0, s-maxage=10, must-revalidate';
@@ -53,6 +62,7 @@ const globalForPages = globalThis as unknown as {
   kfPages?: Map<string, Entry>;
   kfPageRenders?: Map<string, Promise<Entry | null>>;
   kfRenderToken?: string;
+  kfMissingPages?: Set<string>;
   kfSessionIds?: Map<string, { sid: string; until: number }>;
 };
 
@@ -80,9 +90,13 @@ function renderToken(): string {
 /** The next-auth session cookie, under either of the names next-auth gives it. */
 const SESSION_COOKIE = /(?:^|;\s*)(?:__Secure-)?next-auth\.session-token=([^;]+)/;
 
+type PageKind = 'recipe' | 'member' | 'build';
+
 interface PageRequest {
+  kind: PageKind;
   path: string;
-  slug: string;
+  /** The recipe's slug or the member's handle; '' for a build page. */
+  name: string;
   /** The reader's session cookie (an encrypted token naming their server-side session), if any. */
   sessionCookie: string | null;
 }
@@ -96,14 +110,22 @@ export interface PlainRequest {
   header: (name: string) => string | null;
 }
 
-/** A plain GET of a recipe page (not a client navigation, prefetch, form action or render of ours), or null. */
+/** A plain GET of a page that may be kept (not a client navigation, prefetch, form action or render of ours), or null. */
 function cacheablePage(request: PlainRequest): PageRequest | null {
   if (request.method !== 'GET' || request.search) return null;
   const h = request.header;
   if (h('rsc') || h('next-router-prefetch') || h('next-router-state-tree') || h('next-action')) return null;
   if (h('x-kf-page-render') === renderToken()) return null;
-  const match = PAGE.exec(request.pathname);
-  if (!match) return null;
+  const recipe = RECIPE_PAGE.exec(request.pathname);
+  const member = recipe ? null : MEMBER_PAGE.exec(request.pathname);
+  const kind: PageKind | null = recipe
+    ? 'recipe'
+    : member
+      ? 'member'
+      : BUILD_PAGE.test(request.pathname)
+        ? 'build'
+        : null;
+  if (!kind) return null;
   const cookies = h('cookie') ?? '';
   const session = SESSION_COOKIE.exec(cookies);
   // A session cookie in a shape we do not read (split in chunks, say) is one we cannot vouch for: ''.
@@ -112,7 +134,7 @@ function cacheablePage(request: PlainRequest): PageRequest | null {
     : cookies.includes('next-auth.session-token')
       ? ''
       : null;
-  return { path: request.pathname, slug: match[1], sessionCookie };
+  return { kind, path: request.pathname, name: (recipe ?? member)?.[1] ?? '', sessionCookie };
 }
 
 const MAX_SESSION_IDS = 2_000;
@@ -219,6 +241,63 @@ async function recipeState(slug: string, sessionId: string | null): Promise<Reci
   return rows[0] ?? null;
 }
 
+/** How many recipe cards a member page lists (lib/recipes/listing.ts), one more telling whether there are more. */
+const MEMBER_PAGE_RECIPES = 24;
+
+/**
+ * A member page's fingerprint, for signed-out readers: the member as shown (a suspended one is a
+ * 404 and never kept); the listed recipes the page shows (title, moderation, stars, head) and the
+ * forks of them (the listed-fork counts); the stars all their listed recipes received; their 50
+ * newest listed forks and the recipes those came from; follower and following counts; their brew
+ * days with each one's recipe, tastings and photos and those photos' moderation.
+ */
+const MEMBER_STATE_SQL = `
+with m as (select * from users where handle = $1),
+listed as (select r.* from recipes r, m where r.owner_id = m.id and r.visibility = 'public' and r.hidden_at is null),
+shown as (select * from listed order by updated_at desc limit ${MEMBER_PAGE_RECIPES + 1}),
+own_forks as (select * from listed where forked_from_version_id is not null order by created_at desc limit 50)
+select m.suspended_at is not null as hidden,
+  md5(concat_ws('|',
+  json_build_array(m.id, m.name, m.handle, m.bio, m.created_at)::text,
+  (select string_agg(row_to_json(r)::text, ',' order by r.updated_at, r.id) from shown r),
+  (select coalesce(sum(star_count), 0)::text from listed),
+  (select string_agg(json_build_array(fk.id, fk.visibility, fk.hidden_at)::text, ',' order by fk.id)
+     from shown src join recipe_versions fv on fv.recipe_id = src.id
+     join recipes fk on fk.forked_from_version_id = fv.id),
+  (select string_agg(row_to_json(fk)::text || row_to_json(src)::text, ',' order by fk.id)
+     from own_forks fk join recipe_versions fv on fv.id = fk.forked_from_version_id
+     join recipes src on src.id = fv.recipe_id),
+  (select count(*)::text from member_follows f where f.followee_id = m.id),
+  (select count(*)::text from member_follows f where f.follower_id = m.id),
+  (select string_agg(row_to_json(b)::text || row_to_json(br)::text, ',' order by b.id)
+     from brew_days b join recipes br on br.id = b.recipe_id where b.brewer_id = m.id),
+  (select string_agg(row_to_json(t)::text, ',' order by t.id)
+     from tastings t join brew_days b on b.id = t.brew_day_id where b.brewer_id = m.id),
+  (select string_agg(p.id || ':' || coalesce(hp.hidden_at::text, ''), ',' order by p.id)
+     from photos p join brew_days b on b.id = p.brew_day_id left join hidden_photos hp on hp.photo_id = p.id
+     where b.brewer_id = m.id)
+)) as stamp from m`;
+
+/** The fingerprint a kept copy of this page is filed under, or null when this reader gets a render of their own. */
+async function stampOf(page: PageRequest): Promise<string | null> {
+  if (page.kind === 'build') return globalForPages.kfMissingPages?.has(page.path) ? null : 'build';
+  if (page.kind === 'member') {
+    // Signed-in readers may see more of a member (their own page, moderators): they get their own render.
+    if (page.sessionCookie !== null) return null;
+    const { rows } = await pool().query<{ hidden: boolean; stamp: string }>({
+      name: 'kf-member-page-state',
+      text: MEMBER_STATE_SQL,
+      values: [page.name],
+    });
+    return rows[0] && !rows[0].hidden ? rows[0].stamp : null;
+  }
+  const sessionId = await sessionIdOf(page.sessionCookie);
+  if (sessionId === undefined) return null;
+  const state = await recipeState(page.name, sessionId);
+  if (!state || state.visibility === 'private' || state.hidden || !state.shared) return null;
+  return state.stamp;
+}
+
 const gzipAsync = promisify(gzip);
 const brotliAsync = promisify(brotliCompress);
 
@@ -271,22 +350,21 @@ async function render(path: string): Promise<Entry | null> {
     headers: { 'x-kf-page-render': renderToken(), 'accept-encoding': 'identity' },
     redirect: 'manual',
   });
+  if (res.status === 404 && BUILD_PAGE.test(path)) rememberMissing(path);
   if (res.status !== 200 || !(res.headers.get('content-type') ?? '').includes('text/html')) return null;
   const nonce = /'nonce-([^']+)'/.exec(res.headers.get('content-security-policy') ?? '')?.[1];
   return prepare(await res.text(), nonce);
 }
 
 /**
- * The kept copy of a public or unlisted recipe page (rendering it first if this state is new), or
- * null when the page must be rendered for this request: a private or hidden recipe, a missing one,
- * a failed render, or a signed-in reader who would see more than the shared page shows.
+ * The kept copy of a page (rendering it first if this state is new), or null when the page must be
+ * rendered for this request: a private or hidden recipe, a missing one, a suspended member, a failed
+ * render, or a signed-in reader who would see more than the shared page shows.
  */
 async function keptPage(page: PageRequest): Promise<Entry | null> {
-  const sessionId = await sessionIdOf(page.sessionCookie);
-  if (sessionId === undefined) return null;
-  const state = await recipeState(page.slug, sessionId);
-  if (!state || state.visibility === 'private' || state.hidden || !state.shared) return null;
-  const key = `${page.path}|${state.stamp}`;
+  const stamp = await stampOf(page);
+  if (stamp === null) return null;
+  const key = `${page.path}|${stamp}`;
   const hit = globalForPages.kfPages?.get(key);
   if (hit) return hit;
   const renders = (globalForPages.kfPageRenders ??= new Map());
@@ -302,6 +380,12 @@ async function keptPage(page: PageRequest): Promise<Entry | null> {
     renders.set(key, pending);
   }
   return pending;
+}
+
+function rememberMissing(path: string) {
+  const missing = (globalForPages.kfMissingPages ??= new Set());
+  missing.add(path);
+  if (missing.size > MAX_MISSING) missing.delete(missing.values().next().value!);
 }
 
 export interface KeptAnswer {

@@ -1,3 +1,4 @@
+import { expect } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { db } from '@/db';
 import { comments, users } from '@/db/schema';
@@ -55,4 +56,24 @@ export function textOf(html: string): string {
     .replace(/&quot;/g, '"')
     .replace(/&#x27;/g, "'")
     .replace(/\s+/g, ' ');
+}
+
+/** A member reports a recipe as spam and a moderator hides it through that report, as the moderation queue does. */
+export async function hideRecipeThroughReport(
+  reporter: TestClient,
+  moderator: TestClient,
+  recipeId: string,
+): Promise<void> {
+  const report = await reporter.post<{ id: string }>('/api/reports', {
+    targetType: 'recipe',
+    targetId: recipeId,
+    reason: 'spam',
+    note: '',
+  });
+  expect(report.status).toBe(201);
+  const hide = await moderator.post(`/api/moderation/reports/${report.body.id}`, {
+    action: 'hide',
+    reason: 'Advertising',
+  });
+  expect(hide.status).toBe(200);
 }

@@ -1,4 +1,3 @@
-import { createHash } from 'node:crypto';
 import { request as httpRequest } from 'node:http';
 import { join } from 'node:path';
 import { brotliDecompressSync, gunzipSync } from 'node:zlib';
@@ -6,42 +5,14 @@ import { eq } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
 import { db } from '@/db';
 import { recipes, users } from '@/db/schema';
-import { commentVia, textOf } from '../community/helpers';
+import { commentVia, hideRecipeThroughReport, textOf } from '../community/helpers';
 import { SCREENSHOT_DIR, accountMenuButton, openBrowser, signInThroughPage } from '../helpers/browser';
 import { BASE_URL } from '../helpers/env';
 import { TestClient } from '../helpers/http';
+import { expectKept, scriptSrc } from '../helpers/kept-pages';
 import { createRecipeVia, paleAle } from '../helpers/recipes';
 import { signedInClient } from '../helpers/users';
 import { proposalTo } from '../proposals/helpers';
-
-function scriptSrc(policy: string): string {
-  return (
-    policy
-      .split(';')
-      .map((d) => d.trim())
-      .find((d) => d.startsWith('script-src')) ?? ''
-  );
-}
-
-/** Checks a kept page's policy: no nonce, no unsafe-inline, and a hash for exactly its inline scripts. */
-async function expectKept(res: Response, label: string): Promise<string> {
-  expect(res.status, label).toBe(200);
-  expect(res.headers.get('cache-control'), label).toBe('public, max-age=0, s-maxage=10, must-revalidate');
-  const src = scriptSrc(res.headers.get('content-security-policy') ?? '');
-  expect(src, label).not.toContain("'nonce-");
-  expect(src, label).not.toContain("'unsafe-inline'");
-  expect(src, label).not.toContain("'strict-dynamic'");
-  const html = await res.text();
-  expect(html, label).not.toMatch(/\snonce="/);
-  // Nor a nonce inside the framework's payload: every worker keeps the same bytes for one state.
-  expect(html, label).not.toMatch(/nonce\\":\\"[A-Za-z0-9+/=]{8,}/);
-  const inline = [...html.matchAll(/<script\b([^>]*)>([\s\S]*?)<\/script>/g)].filter((m) => !/\bsrc=/.test(m[1]));
-  expect(inline.length, label).toBeGreaterThan(0);
-  const listed = new Set(src.match(/'sha256-[^']+'/g));
-  const needed = new Set(inline.map((m) => `'sha256-${createHash('sha256').update(m[2]).digest('base64')}'`));
-  expect(listed, label).toEqual(needed);
-  return html;
-}
 
 /** A GET with exactly these headers, the body as the bytes on the wire (fetch would decompress it). */
 function rawGet(
@@ -287,18 +258,7 @@ describe('recipe pages kept and shared by every reader who sees the same', () =>
     const spam = await createRecipeVia(owner, { document: paleAle({ title: 'Soon Hidden Pale' }) });
     const paths = [`/recipes/${spam.recipe.slug}`, `/recipes/${spam.recipe.slug}/v/1`];
     for (const path of paths) await expectKept(await anon.fetch(path), path);
-    const report = await reader.post<{ id: string }>('/api/reports', {
-      targetType: 'recipe',
-      targetId: spam.recipe.id,
-      reason: 'spam',
-      note: '',
-    });
-    expect(report.status).toBe(201);
-    const hide = await moderator.post(`/api/moderation/reports/${report.body.id}`, {
-      action: 'hide',
-      reason: 'Advertising',
-    });
-    expect(hide.status).toBe(200);
+    await hideRecipeThroughReport(reader, moderator, spam.recipe.id);
     for (const path of paths) {
       const res = await anon.fetch(path);
       expect(res.status, path).toBe(404);

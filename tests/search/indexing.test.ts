@@ -7,6 +7,7 @@ import { computeStats, ENGINE_VERSION, recipeDocumentSchema, type RecipeDocument
 import { deleteRecipeDocuments, getSearchClient, searchRecipes } from '@/lib/search/client';
 import { recipeSearchQuerySchema } from '@/lib/search/schemas';
 import { ensureSearchReady, processSearchOutbox, rebuildSearchIndex } from '@/lib/search/sync';
+import { hideRecipeThroughReport } from '../community/helpers';
 import { TestClient } from '../helpers/http';
 import { createRecipeVia, paleAle, saveVia } from '../helpers/recipes';
 import { createUser, signedInClient } from '../helpers/users';
@@ -130,17 +131,7 @@ describe('keeping the index in step with recipes', () => {
       body.hits.find((hit) => hit.id === source.recipe.id)?.forks === n;
     await waitForSearch(new TestClient(), { q: word }, forksOfSource(1));
 
-    const report = await reader.post<{ id: string }>('/api/reports', {
-      targetType: 'recipe',
-      targetId: fork.body.recipe.id,
-      reason: 'spam',
-    });
-    expect(report.status).toBe(201);
-    const hidden = await moderator.post(`/api/moderation/reports/${report.body.id}`, {
-      action: 'hide',
-      reason: 'Advertising',
-    });
-    expect(hidden.status).toBe(200);
+    await hideRecipeThroughReport(reader, moderator, fork.body.recipe.id);
     const afterHide = await waitForSearch(new TestClient(), { q: word }, forksOfSource(0));
     expect(ids(afterHide)).toEqual([source.recipe.id]);
 

@@ -1,17 +1,9 @@
 import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
 import { TestClient } from '../helpers/http';
+import { scriptSrc } from '../helpers/kept-pages';
 import { createRecipeVia } from '../helpers/recipes';
 import { signedInClient } from '../helpers/users';
-
-function scriptSrc(policy: string): string {
-  return (
-    policy
-      .split(';')
-      .map((d) => d.trim())
-      .find((d) => d.startsWith('script-src')) ?? ''
-  );
-}
 
 describe('security headers', () => {
   it('gives every page a fresh script nonce that all of its scripts carry, and no inline scripts without it', async () => {
@@ -20,10 +12,11 @@ describe('security headers', () => {
     const recipe = await createRecipeVia(client);
     const secret = await createRecipeVia(client, { visibility: 'private' });
     const anon = new TestClient();
-    // Readers of a public recipe who see what everyone sees get a kept copy allowed by script hashes
-    // instead (tests/recipes/page-cache.test.ts); a private recipe and a moderator's view are rendered per request.
+    // Readers of a public recipe who see what everyone sees, and of the home, about and guide pages,
+    // get a kept copy allowed by script hashes instead (tests/recipes/page-cache.test.ts,
+    // tests/community/kept-member-pages.test.ts); a private recipe and a moderator's view are rendered per request.
     const pages: [TestClient, string][] = [
-      [anon, '/'],
+      [anon, '/search?q=pale'],
       [anon, '/sign-in'],
       [client, `/recipes/${secret.recipe.slug}`],
       [moderator, `/recipes/${recipe.recipe.slug}`],
