@@ -2,7 +2,7 @@
 import { createHash } from 'node:crypto';
 import { expect } from 'vitest';
 
-export const KEPT_CACHE_CONTROL = 'public, max-age=0, s-maxage=10, must-revalidate';
+const KEPT_CACHE_CONTROL = 'public, max-age=0, s-maxage=10, must-revalidate';
 
 /** The script-src directive of a Content-Security-Policy. */
 export function scriptSrc(policy: string): string {
