@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import { readFile } from 'node:fs/promises';
 import path from 'node:path';
 import { ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
@@ -153,3 +154,12 @@ export async function brewDayRow(id: string) {
   const [row] = await db.select().from(brewDays).where(eq(brewDays.id, id));
   return row;
 }
+
+/** A live brew-day write of a hydrometer OG, naming the value the device last saw on the server. */
+export const ogEntry = (value: number, knownValue: unknown) => ({
+  idempotencyKey: randomUUID(),
+  kind: 'field',
+  field: 'og',
+  value: { method: 'hydrometer', value },
+  knownValue,
+});

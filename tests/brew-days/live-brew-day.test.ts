@@ -6,7 +6,7 @@ import { correctHydrometerReading } from '@/lib/brewing';
 import { brewDayEntries } from '@/db/schema';
 import { TestClient } from '../helpers/http';
 import { signedInClient, TEST_PASSWORD } from '../helpers/users';
-import { brewDayRow, brewDayVia, today } from './fixtures';
+import { brewDayRow, brewDayVia, ogEntry, today } from './fixtures';
 
 type ErrorBody = {
   error: { code: string; message: string; fields: { path: string; message: string }[]; details?: unknown };
@@ -67,13 +67,7 @@ describe('brew-day mode writes', () => {
     const { client: phone, user } = await signedInClient();
     const tablet = await secondDevice(user.email);
     const { brewDayId } = await brewDayVia(phone, { fields: { og: null } });
-    const og = (value: number, knownValue: unknown) => ({
-      idempotencyKey: randomUUID(),
-      kind: 'field',
-      field: 'og',
-      value: { method: 'hydrometer', value },
-      knownValue,
-    });
+    const og = ogEntry;
     expect((await phone.post(`/api/brew-days/${brewDayId}/live`, og(1.05, null))).status).toBe(201);
     // The tablet last saw an empty OG: its different value does not replace the phone's.
     const clash = og(1.054, null);

@@ -6,7 +6,7 @@ import { brewDayEntries } from '@/db/schema';
 import type { LiveConflict, LiveState } from '@/lib/brew-days/live-steps';
 import { TestClient } from '../helpers/http';
 import { signedInClient, TEST_PASSWORD } from '../helpers/users';
-import { brewDayRow, brewDayVia } from './fixtures';
+import { brewDayRow, brewDayVia, ogEntry } from './fixtures';
 
 type ErrorBody = {
   error: { code: string; message: string; fields: { path: string; message: string }[]; details?: unknown };
@@ -29,13 +29,7 @@ async function entriesOf(brewDayId: string) {
   return db.select().from(brewDayEntries).where(eq(brewDayEntries.brewDayId, brewDayId));
 }
 
-const og = (value: number, knownValue: unknown) => ({
-  idempotencyKey: randomUUID(),
-  kind: 'field',
-  field: 'og',
-  value: { method: 'hydrometer', value },
-  knownValue,
-});
+const og = ogEntry;
 
 const tick = (stepId: string, checked: boolean, basedOn: string | null) => ({
   idempotencyKey: randomUUID(),
