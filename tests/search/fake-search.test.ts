@@ -147,6 +147,30 @@ describe('sorting', () => {
     expect(hitIds((await index().search('', { sort: ['stars:asc'] })).hits).at(-1)).toBe('b7');
   });
 
+  it('keeps the order in step with writes: a changed value moves a document, a deleted one leaves, a new one joins', async () => {
+    const shelf = fake.client.index('sorted-writes');
+    await shelf.updateSettings({ sortableAttributes: ['stars'] }).waitTask();
+    await shelf
+      .addDocuments(
+        [
+          { id: 's1', title: 'One', stars: 1 },
+          { id: 's2', title: 'Two', stars: 2 },
+          { id: 's3', title: 'Three', stars: 3 },
+        ],
+        { primaryKey: 'id' },
+      )
+      .waitTask();
+    const order = async () => hitIds((await shelf.search('', { sort: ['stars:desc'] })).hits);
+    expect(await order()).toEqual(['s3', 's2', 's1']);
+    await shelf.updateDocuments([{ id: 's1', stars: 9 }]).waitTask();
+    expect(await order()).toEqual(['s1', 's3', 's2']);
+    await shelf.addDocuments([{ id: 's2', title: 'Two, unrated' }]).waitTask();
+    expect(await order()).toEqual(['s1', 's3', 's2']);
+    await shelf.deleteDocument('s3').waitTask();
+    await shelf.addDocuments([{ id: 's4', title: 'Four', stars: 5 }]).waitTask();
+    expect(await order()).toEqual(['s1', 's4', 's2']);
+  });
+
   it('refuses an attribute that is not sortable', async () => {
     const error = await index()
       .search('', { sort: ['category:asc'] })

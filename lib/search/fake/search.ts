@@ -2,8 +2,8 @@
 import type { Bitset } from './bitset';
 import { badRequest } from './errors';
 import { evaluateFilter } from './evaluate';
-import { selectPaths, valueAtPath } from './paths';
-import { processTerm, type Document, type FakeIndex } from './store';
+import { selectPaths } from './paths';
+import { processTerm, type Document, type FakeIndex, type SortKey } from './store';
 import { matchText, type TextMatch } from './text';
 
 export interface SearchRequest {
@@ -151,13 +151,7 @@ export function parseSort(index: FakeIndex, sort: string[] | undefined, code = '
 }
 
 /** Numbers sort before strings; documents without the attribute always go last. */
-function sortKey(value: unknown): number | string | undefined {
-  if (typeof value === 'number' || typeof value === 'string') return value;
-  if (typeof value === 'boolean') return String(value);
-  return undefined;
-}
-
-function compareKeys(a: number | string | undefined, b: number | string | undefined, direction: 1 | -1): number {
+function compareKeys(a: SortKey, b: SortKey, direction: 1 | -1): number {
   if (a === b) return 0;
   if (a === undefined) return 1;
   if (b === undefined) return -1;
@@ -168,18 +162,10 @@ function compareKeys(a: number | string | undefined, b: number | string | undefi
 type Comparator = (a: number, b: number) => number;
 
 export function buildComparator(index: FakeIndex, rules: SortRule[], scores: Map<number, number> | null): Comparator {
-  const keyCache = rules.map(() => new Map<number, number | string | undefined>());
-  const keyOf = (rule: number, slot: number) => {
-    const cache = keyCache[rule];
-    if (!cache.has(slot)) {
-      const doc = index.document(slot);
-      cache.set(slot, doc ? sortKey(valueAtPath(doc, rules[rule].attribute)) : undefined);
-    }
-    return cache.get(slot);
-  };
+  const keys = rules.map((rule) => index.sortKeys(rule.attribute));
   return (a, b) => {
     for (let r = 0; r < rules.length; r++) {
-      const order = compareKeys(keyOf(r, a), keyOf(r, b), rules[r].direction);
+      const order = compareKeys(keys[r][a], keys[r][b], rules[r].direction);
       if (order !== 0) return order;
     }
     if (scores) {

@@ -8,6 +8,16 @@ import { applySettingsPatch, defaultSettings, type IndexSettings } from './setti
 
 export type Document = Record<string, unknown>;
 
+/** What a document sorts by for one attribute: a number or string, or undefined (sorts last). */
+export type SortKey = number | string | undefined;
+
+/** Numbers and strings sort as themselves, booleans as text; anything else (a list, an object, nothing) has no key. */
+function sortKeyOf(value: unknown): SortKey {
+  if (typeof value === 'number' || typeof value === 'string') return value;
+  if (typeof value === 'boolean') return String(value);
+  return undefined;
+}
+
 interface TextEntry {
   slot: number;
   doc: Document;
@@ -76,6 +86,8 @@ export class FakeIndex {
   private text: MiniSearch<TextEntry>;
   private textFields: string[] = [ALL_FIELDS];
   private live: Bitset | null = null;
+  /** Per sortable attribute asked for, each slot's sort key; kept up to date by writes. */
+  private sortKeyLists = new Map<string, SortKey[]>();
   /** A text index over other fields than the settings' (for `attributesToSearchOn`), kept until a write. */
   private restricted: { key: string; text: TextFields } | null = null;
 
@@ -137,6 +149,22 @@ export class FakeIndex {
       this.facets.set(attribute, facet);
     }
     return facet;
+  }
+
+  /**
+   * Each slot's sort key for `attribute`, read from the documents on first use and then kept by
+   * every write, so sorting compares array entries instead of walking documents. Shared: callers
+   * must not change it.
+   */
+  sortKeys(attribute: string): readonly SortKey[] {
+    let keys = this.sortKeyLists.get(attribute);
+    if (!keys) {
+      keys = [];
+      for (const slot of this.slotByKey.values())
+        keys[slot] = sortKeyOf(valueAtPath(this.slots[slot] as Document, attribute));
+      this.sortKeyLists.set(attribute, keys);
+    }
+    return keys;
   }
 
   /** Slots holding a document; shared between calls, so callers must not change it. */
@@ -218,6 +246,7 @@ export class FakeIndex {
       if (attribute !== '*' && !this.facets.has(attribute)) this.facets.set(attribute, new FacetIndex());
     }
     for (const [attribute, facet] of this.facets) facet.add(slot, valueAtPath(doc, attribute));
+    for (const [attribute, keys] of this.sortKeyLists) keys[slot] = sortKeyOf(valueAtPath(doc, attribute));
     this.text.add({ slot, doc });
     this.restricted = null;
   }
@@ -225,12 +254,14 @@ export class FakeIndex {
   private unindex(slot: number): void {
     if (!this.slots[slot]) return;
     for (const facet of this.facets.values()) facet.remove(slot);
+    for (const keys of this.sortKeyLists.values()) keys[slot] = undefined;
     this.text.discard(slot);
     this.restricted = null;
   }
 
   private rebuild(): void {
     this.facets = new Map();
+    this.sortKeyLists = new Map();
     this.restricted = null;
     this.text = this.createTextIndex();
     for (const slot of this.slotByKey.values()) this.index(slot, this.slots[slot] as Document);
