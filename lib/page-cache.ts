@@ -8,6 +8,8 @@ import { databaseReachable } from '@/lib/db-health';
 import { authSecret } from '@/lib/env';
 import { pagePolicy } from '@/lib/http/page-policy';
 import { SECURITY_HEADERS } from '@/lib/http/security-headers';
+import { searchRecipesWithHints } from '@/lib/search/client';
+import { parseSearchParamsLeniently } from '@/lib/search/schemas';
 
 /**
  * Pages rendered once and kept. A public or unlisted recipe's head page and its version pages look
@@ -15,15 +17,19 @@ import { SECURITY_HEADERS } from '@/lib/http/security-headers';
  * actions and the forms are client islands that ask /api/me and friends), so each worker renders one
  * copy per state of the recipe, signed out, and answers every later reader from memory: signed-out
  * readers, and signed-in ones for whom the state query finds nothing only they may see. A member's
- * page is kept the same way for signed-out readers. The home page, /about and the guides show
- * nothing but the build's own text, so one copy serves everyone until the next build.
+ * page is kept the same way for signed-out readers, and so is a search page: its server HTML is the
+ * address a reader asked for and the search engine's answer to it, so it is kept per address and
+ * answer. The home page, /about and the guides show nothing but the build's own text, so one copy
+ * serves everyone until the next build.
  *
  * A recipe page's cache key is its path plus a fingerprint of every row the page shows (the recipe, its
  * owner, comments, stars, brew days, photos and their moderation, proposals with both their recipes
  * and their proposer, versions and the names of everyone who wrote one, the listed forks' count,
  * the fork source), read in one query per request; a member page's is the member, their recipes and
  * the forks of them, the sources of their own forks, their follower counts, and their brew days with
- * each one's recipe, tastings and photos. Any change (a new version, comment, star, fork, brew day,
+ * each one's recipe, tastings and photos; a search page's is the engine's whole answer to a signed-out
+ * reader's search (hits, totals, facet counts, hints; not its timing), asked on every request, so a
+ * recipe hidden or made private leaves the kept search pages as soon as it leaves the index. Any change (a new version, comment, star, fork, brew day,
  * proposal, a moderator hiding something, the owner making the recipe private, a suspension) gives a
  * new fingerprint, so the next request renders afresh: moderation and privacy win at once, on every
  * worker, with no message between them. Private and hidden recipes are never kept, and nothing
@@ -39,6 +45,9 @@ import { SECURITY_HEADERS } from '@/lib/http/security-headers';
 
 const RECIPE_PAGE = /^\/recipes\/([a-z0-9-]{1,120})(?:\/v\/[1-9][0-9]{0,6})?$/;
 const MEMBER_PAGE = /^\/members\/([a-z0-9_-]{1,40})$/;
+const SEARCH_PAGE = '/search';
+/** Longer addresses than this are rendered for their reader and not kept: no real search needs one. */
+const MAX_SEARCH_CHARS = 1_000;
 /** Pages whose server HTML is the build's own text, the same for every reader: home, about and the guides. */
 const BUILD_PAGE = /^\/(?:about|guides(?:\/[a-z0-9-]{1,80})?)?$/;
 /** Paths that answered 404 to a render of ours (an unknown guide), so build pages among them are not asked for again. */
@@ -90,10 +99,11 @@ function renderToken(): string {
 /** The next-auth session cookie, under either of the names next-auth gives it. */
 const SESSION_COOKIE = /(?:^|;\s*)(?:__Secure-)?next-auth\.session-token=([^;]+)/;
 
-type PageKind = 'recipe' | 'member' | 'build';
+type PageKind = 'recipe' | 'member' | 'build' | 'search';
 
 interface PageRequest {
   kind: PageKind;
+  /** The address the page is kept under and rendered from: the path, and for a search page its query string. */
   path: string;
   /** The recipe's slug or the member's handle; '' for a build page. */
   name: string;
@@ -112,19 +122,23 @@ export interface PlainRequest {
 
 /** A plain GET of a page that may be kept (not a client navigation, prefetch, form action or render of ours), or null. */
 function cacheablePage(request: PlainRequest): PageRequest | null {
-  if (request.method !== 'GET' || request.search) return null;
+  if (request.method !== 'GET') return null;
+  const isSearch = request.pathname === SEARCH_PAGE;
+  if (isSearch ? request.search.length > MAX_SEARCH_CHARS : request.search) return null;
   const h = request.header;
   if (h('rsc') || h('next-router-prefetch') || h('next-router-state-tree') || h('next-action')) return null;
   if (h('x-kf-page-render') === renderToken()) return null;
-  const recipe = RECIPE_PAGE.exec(request.pathname);
-  const member = recipe ? null : MEMBER_PAGE.exec(request.pathname);
-  const kind: PageKind | null = recipe
-    ? 'recipe'
-    : member
-      ? 'member'
-      : BUILD_PAGE.test(request.pathname)
-        ? 'build'
-        : null;
+  const recipe = isSearch ? null : RECIPE_PAGE.exec(request.pathname);
+  const member = recipe || isSearch ? null : MEMBER_PAGE.exec(request.pathname);
+  const kind: PageKind | null = isSearch
+    ? 'search'
+    : recipe
+      ? 'recipe'
+      : member
+        ? 'member'
+        : BUILD_PAGE.test(request.pathname)
+          ? 'build'
+          : null;
   if (!kind) return null;
   const cookies = h('cookie') ?? '';
   const session = SESSION_COOKIE.exec(cookies);
@@ -134,7 +148,8 @@ function cacheablePage(request: PlainRequest): PageRequest | null {
     : cookies.includes('next-auth.session-token')
       ? ''
       : null;
-  return { kind, path: request.pathname, name: (recipe ?? member)?.[1] ?? '', sessionCookie };
+  const path = isSearch ? `${request.pathname}${request.search}` : request.pathname;
+  return { kind, path, name: (recipe ?? member)?.[1] ?? '', sessionCookie };
 }
 
 const MAX_SESSION_IDS = 2_000;
@@ -278,9 +293,25 @@ select m.suspended_at is not null as hidden,
      where b.brewer_id = m.id)
 )) as stamp from m`;
 
+/**
+ * A search page's fingerprint: the engine's answer to the page's own search for a signed-out reader,
+ * read the way the page reads it. Everything the page shows of it counts; the engine's timing does
+ * not. An engine that cannot answer throws, and the reader gets a render of their own (which says so).
+ */
+async function searchStamp(path: string): Promise<string> {
+  const params = new URLSearchParams(path.slice(SEARCH_PAGE.length));
+  const { processingTimeMs: _timing, ...shown } = await searchRecipesWithHints(
+    parseSearchParamsLeniently(params).query,
+    null,
+  );
+  return createHash('sha256').update(JSON.stringify(shown)).digest('base64url');
+}
+
 /** The fingerprint a kept copy of this page is filed under, or null when this reader gets a render of their own. */
 async function stampOf(page: PageRequest): Promise<string | null> {
   if (page.kind === 'build') return globalForPages.kfMissingPages?.has(page.path) ? null : 'build';
+  // Signed-in readers also find their own unlisted and private recipes: they get their own render.
+  if (page.kind === 'search') return page.sessionCookie === null ? searchStamp(page.path) : null;
   if (page.kind === 'member') {
     // Signed-in readers may see more of a member (their own page, moderators): they get their own render.
     if (page.sessionCookie !== null) return null;

@@ -12,11 +12,12 @@ describe('security headers', () => {
     const recipe = await createRecipeVia(client);
     const secret = await createRecipeVia(client, { visibility: 'private' });
     const anon = new TestClient();
-    // Readers of a public recipe who see what everyone sees, and of the home, about and guide pages,
-    // get a kept copy allowed by script hashes instead (tests/recipes/page-cache.test.ts,
-    // tests/community/kept-member-pages.test.ts); a private recipe and a moderator's view are rendered per request.
+    // Readers of a public recipe who see what everyone sees, of the home, about and guide pages, and
+    // signed-out searchers get a kept copy allowed by script hashes instead (tests/recipes/page-cache.test.ts,
+    // tests/community/kept-member-pages.test.ts, tests/search/kept-search-pages.test.ts); a private
+    // recipe, a moderator's view and a member's search are rendered per request.
     const pages: [TestClient, string][] = [
-      [anon, '/search?q=pale'],
+      [client, '/search?q=pale'],
       [anon, '/sign-in'],
       [client, `/recipes/${secret.recipe.slug}`],
       [moderator, `/recipes/${recipe.recipe.slug}`],
