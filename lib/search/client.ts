@@ -92,6 +92,11 @@ export async function deleteRecipeDocuments(ids: string[], client: Meilisearch =
   assertSucceeded(await client.index(RECIPES_INDEX).deleteDocuments(ids).waitTask(WRITE_WAIT));
 }
 
+/**
+ * What a hit carries: what the results show and what the viewer rules need, nothing more. A kept
+ * search page is filed under the engine's whole answer (lib/page-cache.ts), so a field nobody shows
+ * (the time of the last save, say) would only make every save of a listed recipe a fresh render.
+ */
 const RECIPE_HIT_FIELDS = [
   'id',
   'slug',
@@ -110,7 +115,6 @@ const RECIPE_HIT_FIELDS = [
   'stars',
   'hidden',
   'visibility',
-  'updatedAt',
 ] as const satisfies ReadonlyArray<keyof RecipeSearchDocument>;
 
 export type RecipeSearchHit = Pick<RecipeSearchDocument, (typeof RECIPE_HIT_FIELDS)[number]>;

@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { openBrowser } from '../helpers/browser';
 import { TestClient } from '../helpers/http';
 import { expectKept, scriptSrc } from '../helpers/kept-pages';
-import { createRecipeVia, paleAle } from '../helpers/recipes';
+import { createRecipeVia, paleAle, saveVia } from '../helpers/recipes';
 import { signedInClient } from '../helpers/users';
 import { hideRecipeThroughReport } from '../community/helpers';
 import { uniqueWord, waitForSearch } from './app-search';
@@ -34,6 +34,29 @@ describe('search pages kept for signed-out readers', () => {
     await waitForSearch(new TestClient(), { q: word }, (body) => body.total === 0);
     const hidden = await expectKept(await new TestClient().fetch(path), path);
     expect(hidden).not.toContain(title);
+  });
+
+  it('keeps the same copy through a save that changes nothing the results show', async () => {
+    const word = uniqueWord('steady');
+    const noteWord = uniqueWord('note');
+    const { client: owner } = await signedInClient();
+    const document = paleAle({ title: `Steady Pale ${word}` });
+    const saved = await createRecipeVia(owner, { document });
+    await waitForSearch(new TestClient(), { q: word }, (body) => body.total === 1);
+    const path = `/search?q=${word}`;
+    const before = await new TestClient().fetch(path);
+    const html = await expectKept(before, path);
+
+    const save = await saveVia(owner, saved.recipe.id, saved.version.id, {
+      ...document,
+      notes: `Now with ${noteWord}.`,
+    });
+    expect(save.status).toBe(201);
+    // Once the index holds the new version, the page is the same answer, so the same bytes.
+    await waitForSearch(new TestClient(), { q: noteWord }, (body) => body.total === 1);
+    const after = await new TestClient().fetch(path);
+    expect(after.headers.get('etag')).toBe(before.headers.get('etag'));
+    expect(await expectKept(after, path)).toBe(html);
   });
 
   it('keeps each address apart: another search, or the same words in another order of results, is its own page', async () => {
