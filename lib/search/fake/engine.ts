@@ -8,6 +8,8 @@ import { documentKey, FakeIndex, inferPrimaryKey, type Document } from './store'
 import { TaskQueue, type EnqueuedTaskView } from './tasks';
 
 const INDEX_UID = /^[a-zA-Z0-9_-]{1,400}$/;
+/** A write of more documents than this starts the kept query matches afresh rather than updating them. */
+const BATCH_FORGETS_KEPT_MATCHES = 100;
 
 export interface IndexView {
   uid: string;
@@ -258,6 +260,7 @@ export class FakeEngine {
       const index = this.getOrCreateIndex(uid);
       const primaryKey = this.resolvePrimaryKey(index, requestedKey, docs);
       const keyed = docs.map((doc) => [this.keyOf(doc, primaryKey), doc] as const);
+      if (keyed.length > BATCH_FORGETS_KEPT_MATCHES) index.forgetKeptMatches();
       for (const [key, doc] of keyed) {
         const existing = mode === 'merge' ? index.document(index.slotOf(key) ?? -1) : undefined;
         index.put(key, existing ? { ...existing, ...doc } : doc);

@@ -4,6 +4,7 @@ import { badRequest } from './errors';
 import { evaluateFilter } from './evaluate';
 import { selectPaths } from './paths';
 import { processTerm, type Document, type FakeIndex, type SortKey } from './store';
+import type { Relevance } from './ranking';
 import { matchText, type TextMatch } from './text';
 
 export interface SearchRequest {
@@ -161,18 +162,24 @@ function compareKeys(a: SortKey, b: SortKey, direction: 1 | -1): number {
 
 type Comparator = (a: number, b: number) => number;
 
-export function buildComparator(index: FakeIndex, rules: SortRule[], scores: Map<number, number> | null): Comparator {
+export function buildComparator(
+  index: FakeIndex,
+  rules: SortRule[],
+  relevance: Map<number, Relevance> | null,
+): Comparator {
   const keys = rules.map((rule) => index.sortKeys(rule.attribute));
+  const none: Relevance = { beforeSort: 0, afterSort: 0 };
+  const placeOf = (slot: number) => relevance?.get(slot) ?? none;
   return (a, b) => {
+    const pa = placeOf(a);
+    const pb = placeOf(b);
+    // Ranking rules before "sort" decide first, then the sort, then the rules after it.
+    if (pa.beforeSort !== pb.beforeSort) return pb.beforeSort - pa.beforeSort;
     for (let r = 0; r < rules.length; r++) {
       const order = compareKeys(keys[r][a], keys[r][b], rules[r].direction);
       if (order !== 0) return order;
     }
-    if (scores) {
-      const diff = (scores.get(b) ?? 0) - (scores.get(a) ?? 0);
-      if (diff !== 0) return diff;
-    }
-    return a - b;
+    return pb.afterSort - pa.afterSort || a - b;
   };
 }
 
@@ -287,7 +294,7 @@ function queryTerms(q: string | null | undefined): string[] {
     .filter((term) => term.length > 0);
 }
 
-/** Matched slots in relevance order (or slot order without a query), with their scores. */
+/** Matched slots in relevance order (or slot order without a query), with their relevance. */
 function matchDocuments(
   index: FakeIndex,
   request: SearchRequest,
@@ -299,7 +306,7 @@ function matchDocuments(
   const pool = candidates ?? index.liveSlots();
   const slots: number[] = [];
   pool.forEach((slot) => slots.push(slot));
-  return { slots, scores: null };
+  return { slots, relevance: null };
 }
 
 export function runSearch(index: FakeIndex, request: SearchRequest): Record<string, unknown> {
@@ -314,7 +321,7 @@ export function runSearch(index: FakeIndex, request: SearchRequest): Record<stri
   const ordered =
     rules.length === 0
       ? matched.slots.slice(0, end)
-      : topK(matched.slots, end, buildComparator(index, rules, matched.scores));
+      : topK(matched.slots, end, buildComparator(index, rules, matched.relevance));
   const hits = ordered
     .slice(window.start)
     .map((slot) => project(index.document(slot) as Document, request, index.settings.displayedAttributes));

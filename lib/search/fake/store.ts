@@ -4,7 +4,9 @@ import { Bitset } from './bitset';
 import { badRequest } from './errors';
 import { FacetIndex } from './facets';
 import { covers, valueAtPath, valuesAtPath } from './paths';
+import { MatchCache, type KeptMatch } from './ranking';
 import { applySettingsPatch, defaultSettings, type IndexSettings } from './settings';
+import { runTextSearch, typoBudget } from './text';
 
 export type Document = Record<string, unknown>;
 
@@ -28,17 +30,18 @@ const ALL_FIELDS = '_all';
 
 export interface TextFields {
   index: MiniSearch<TextEntry>;
+  /** The searched fields, in attribute order (earlier ones rank first). */
   fields: string[];
-  boost: Record<string, number>;
 }
 
-/** Earlier fields weigh more, as the engine's attribute ranking rule orders them. */
-function boostByOrder(fields: string[]): Record<string, number> {
-  const boost: Record<string, number> = {};
-  fields.forEach((field, i) => {
-    boost[field] = 1 + (fields.length - i) / fields.length;
-  });
-  return boost;
+/** How many queries' matches an index keeps (ranking.ts), how many matched documents in all, and from what size. */
+const KEPT_QUERIES = 64;
+const KEPT_MATCHED_SLOTS = 250_000;
+const KEEP_FROM_MATCHES = 500;
+
+export interface FakeIndexOptions {
+  /** Keep a query's matches when it is asked again after matching this many candidates (500). */
+  keepMatchesFrom?: number;
 }
 
 function createTextIndex(fields: string[]): MiniSearch<TextEntry> {
@@ -88,14 +91,23 @@ export class FakeIndex {
   private live: Bitset | null = null;
   /** Per sortable attribute asked for, each slot's sort key; kept up to date by writes. */
   private sortKeyLists = new Map<string, SortKey[]>();
+  /** Recent queries' matches over the whole index, brought up to date by every write. */
+  private readonly matches: MatchCache<MiniSearch<TextEntry>>;
   /** A text index over other fields than the settings' (for `attributesToSearchOn`), kept until a write. */
   private restricted: { key: string; text: TextFields } | null = null;
 
   constructor(
     public uid: string,
     primaryKey: string | null,
+    options: FakeIndexOptions = {},
   ) {
     this.primaryKey = primaryKey;
+    this.matches = new MatchCache(
+      runTextSearch,
+      KEPT_QUERIES,
+      KEPT_MATCHED_SLOTS,
+      options.keepMatchesFrom ?? KEEP_FROM_MATCHES,
+    );
     this.text = this.createTextIndex();
   }
 
@@ -118,16 +130,16 @@ export class FakeIndex {
    * the same fields narrowed to `only` (a separate index when they are not fields of the main one).
    */
   textFor(only: string[] | null): TextFields {
-    if (!only) return { index: this.text, fields: this.textFields, boost: boostByOrder(this.textFields) };
+    if (!only) return { index: this.text, fields: this.textFields };
     if (only.every((field) => this.textFields.includes(field))) {
       const fields = this.textFields.filter((field) => only.includes(field));
-      return { index: this.text, fields, boost: boostByOrder(fields) };
+      return { index: this.text, fields };
     }
     const key = JSON.stringify(only);
     if (this.restricted?.key !== key) {
       const index = createTextIndex(only);
       for (const slot of this.slotByKey.values()) index.add({ slot, doc: this.slots[slot] as Document });
-      this.restricted = { key, text: { index, fields: only, boost: boostByOrder(only) } };
+      this.restricted = { key, text: { index, fields: only } };
     }
     return this.restricted.text;
   }
@@ -149,6 +161,24 @@ export class FakeIndex {
       this.facets.set(attribute, facet);
     }
     return facet;
+  }
+
+  /**
+   * Drops the kept query matches: before a large batch of writes, which would otherwise bring each
+   * kept query up to date one document at a time; the next queries start afresh.
+   */
+  forgetKeptMatches(): void {
+    this.matches.clear();
+  }
+
+  /**
+   * Every document matching `terms` in the fields searched (all of them, or `only`) that
+   * `candidates` admits, best first; shared, so read only.
+   */
+  textMatch(terms: string[], only: string[] | null, candidates: ((slot: number) => boolean) | null): KeptMatch {
+    const { index, fields } = this.textFor(only);
+    const shape = { terms, fields, typos: typoBudget(this.settings), rankingRules: this.settings.rankingRules };
+    return this.matches.get(shape, index, candidates);
   }
 
   /**
@@ -249,6 +279,17 @@ export class FakeIndex {
     for (const [attribute, keys] of this.sortKeyLists) keys[slot] = sortKeyOf(valueAtPath(doc, attribute));
     this.text.add({ slot, doc });
     this.restricted = null;
+    const alone = new Map<string, MiniSearch<TextEntry>>();
+    this.matches.add(slot, (fields) => {
+      const key = JSON.stringify(fields);
+      let one = alone.get(key);
+      if (!one) {
+        one = createTextIndex(fields);
+        one.add({ slot, doc });
+        alone.set(key, one);
+      }
+      return one;
+    });
   }
 
   private unindex(slot: number): void {
@@ -256,12 +297,14 @@ export class FakeIndex {
     for (const facet of this.facets.values()) facet.remove(slot);
     for (const keys of this.sortKeyLists.values()) keys[slot] = undefined;
     this.text.discard(slot);
+    this.matches.remove(slot);
     this.restricted = null;
   }
 
   private rebuild(): void {
     this.facets = new Map();
     this.sortKeyLists = new Map();
+    this.matches.clear();
     this.restricted = null;
     this.text = this.createTextIndex();
     for (const slot of this.slotByKey.values()) this.index(slot, this.slots[slot] as Document);
