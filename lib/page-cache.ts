@@ -27,12 +27,13 @@ import { parseSearchParamsLeniently } from '@/lib/search/schemas';
  * and their proposer, versions and the names of everyone who wrote one, the listed forks' count,
  * the fork source), read in one query per request; a member page's is the member, their recipes and
  * the forks of them, the sources of their own forks, their follower counts, and their brew days with
- * each one's recipe, tastings and photos; a search page's is the engine's whole answer to a signed-out
- * reader's search (hits, totals, facet counts, hints; not its timing), asked on every request, so a
- * recipe hidden or made private leaves the kept search pages as soon as it leaves the index. Any change (a new version, comment, star, fork, brew day,
- * proposal, a moderator hiding something, the owner making the recipe private, a suspension) gives a
- * new fingerprint, so the next request renders afresh: moderation and privacy win at once, on every
- * worker, with no message between them. Private and hidden recipes are never kept, and nothing
+ * each one's recipe, tastings and photos; a search page's is the engine's whole answer to a
+ * signed-out reader's search (hits, totals, facet counts, hints; not its timing), asked on every
+ * request, so a recipe hidden or made private leaves the kept search pages as soon as it leaves the
+ * index. Any change (a new version, comment, star, fork, brew day, proposal, a moderator hiding
+ * something, the owner making the recipe private, a suspension) gives a new fingerprint, so the
+ * next request renders afresh: moderation and privacy win at once, on every worker, with no message
+ * between them. Private and hidden recipes are never kept, and nothing
  * only the owner, a moderator or one member may see is ever in a kept page.
  *
  * Kept pages carry no nonce: their policy lists the SHA-256 hash of each inline script the framework
